@@ -1,0 +1,128 @@
+/* case.h - the validated model of one heat-integration study.
+ *
+ * A case holds process streams, utilities and settings. Readers build it; every
+ * stage reads it and never changes it. Units are fixed throughout the core:
+ * temperatures in °C, heat capacity flow rates (cp) in kW/K, duties and loads
+ * in kW, film coefficients in kW/(m²·K), prices in currency per MWh.
+ *
+ * A process stream is a chain of one or more segments from its supply end to
+ * its target end; each segment has its own constant cp (a segmented stream
+ * approximates a curved temperature-enthalpy line).
+ *
+ * Ownership: hl_case_free() frees everything reachable from the case; strings
+ * and arrays inside it belong to it. Adders copy what they are given.
+ */
+#ifndef HL_CASE_H
+#define HL_CASE_H
+
+#include <stddef.h>
+
+#include "status.h"
+
+typedef enum { HL_HOT = 0, HL_COLD = 1 } hl_kind;
+
+/* Unset optional numbers are NaN (test with isnan). */
+typedef struct {
+	double supply;  /* °C, inlet end of this segment */
+	double target;  /* °C, outlet end of this segment */
+	double cp;      /* kW/K, > 0 */
+	double h;       /* kW/(m²·K) including fouling, NaN when not given */
+	long line;      /* source line, 0 when none */
+} hl_segment;
+
+typedef struct {
+	char *name;
+	hl_kind kind;
+	size_t nseg;
+	hl_segment *seg;   /* supply end first */
+	double dt_contrib; /* K, this stream's ΔT contribution, NaN = ΔTmin/2 */
+	double cp_tol;     /* relative uncertainty of cp (0.05 = 5 %), NaN = default */
+	double t_tol;      /* K, uncertainty of the temperatures, NaN = default */
+	char *area;        /* plant area tag, NULL when none */
+	char *file;        /* source file of the stream */
+	long line;         /* source line of its first segment */
+} hl_stream;
+
+typedef struct {
+	char *name;
+	hl_kind kind;      /* HL_HOT heats the process, HL_COLD cools it */
+	double supply;     /* °C */
+	double target;     /* °C, equal to supply for condensing/boiling */
+	double price;      /* currency per MWh of heat delivered or removed */
+	double h;          /* kW/(m²·K), NaN when not given */
+	double max_load;   /* kW, NaN = unlimited */
+	double dt_contrib; /* K, NaN = ΔTmin/2 */
+	char *file;
+	long line;
+} hl_utility;
+
+typedef enum {
+	HL_EXCH_SHELL_TUBE = 0, /* one shell pass, 2, 4, … tube passes per shell */
+	HL_EXCH_COUNTERFLOW = 1 /* pure counterflow, F = 1 */
+} hl_exchanger_type;
+
+/* Settings with their defaults (hl_settings_default). */
+typedef struct {
+	double dtmin;        /* K, 10 */
+	double emat;         /* K, exchanger minimum approach, NaN = dtmin */
+	double hours;        /* operating hours per year, 8000 */
+	double h_default;    /* kW/(m²·K) for streams without h, 0.5 */
+	double fmin;         /* F floor, 0.80 */
+	double xp;           /* fraction of the maximum P per shell, 0.9 */
+	double cost_a;       /* exchanger cost per shell: a + b·A^c (currency, m²) */
+	double cost_b;
+	double cost_c;
+	double interest;     /* per year, 0.10 */
+	double life;         /* years, 10 */
+	double cp_tol;       /* default relative cp uncertainty, 0.05 */
+	double t_tol;        /* default temperature uncertainty, K, 1.0 */
+	double time_limit;   /* s per MILP subnetwork, 10 */
+	hl_exchanger_type exchanger;
+	char *currency;      /* label only, "EUR" by default */
+} hl_settings;
+
+typedef struct {
+	hl_settings set;
+	size_t nstream, stream_cap;
+	hl_stream *stream;
+	size_t nutil, util_cap;
+	hl_utility *util;
+	char *source;        /* the file the case came from */
+} hl_case;
+
+void hl_settings_default(hl_settings *set);
+
+hl_case *hl_case_create(void);
+void hl_case_free(hl_case *c);
+
+/* Append a stream (deep copy); returns HL_EIO on allocation failure. */
+hl_status hl_case_add_stream(hl_case *c, const hl_stream *s, hl_error *err);
+/* Append a utility (deep copy). */
+hl_status hl_case_add_utility(hl_case *c, const hl_utility *u, hl_error *err);
+
+/* Check the whole case: names unique across streams and utilities, numbers in
+ * range, segments chained. Errors name the file and line of the offender. */
+hl_status hl_case_validate(const hl_case *c, hl_error *err);
+
+/* Totals over a stream: duty (kW, > 0), first supply, last target. */
+double hl_stream_duty(const hl_stream *s);
+double hl_stream_supply(const hl_stream *s);
+double hl_stream_target(const hl_stream *s);
+
+/* The shift applied to a stream's temperatures (K): its own contribution, or
+ * half of dtmin; hot streams move down, cold streams up. */
+double hl_stream_shift(const hl_stream *s, double dtmin);
+double hl_utility_shift(const hl_utility *u, double dtmin);
+
+/* Find a stream or utility by name (case-sensitive); -1 when absent. */
+long hl_case_find_stream(const hl_case *c, const char *name);
+long hl_case_find_utility(const hl_case *c, const char *name);
+
+/* Bounds a sane value must respect; outside them a number is taken as a unit
+ * mistake. */
+#define HL_T_MIN (-273.15)   /* °C, absolute zero */
+#define HL_T_MAX 2000.0      /* °C, above any process stream or flue gas */
+#define HL_CP_MAX 1.0e6      /* kW/K, far above a site's largest stream */
+#define HL_H_MAX 1.0e3       /* kW/(m²·K) */
+
+#endif
