@@ -61,6 +61,46 @@ typedef enum {
 	HL_EXCH_COUNTERFLOW = 1 /* pure counterflow, F = 1 */
 } hl_exchanger_type;
 
+/* A constraint on which hot/cold pairs may be matched (matches stage).
+ * hot or cold may be "*" for any stream or utility of that side. */
+typedef enum {
+	HL_RULE_FORBID = 0,   /* never match this pair */
+	HL_RULE_REQUIRE = 1,  /* the pair must exchange heat */
+	HL_RULE_MAX_DUTY = 2  /* the pair may exchange at most max_duty kW */
+} hl_rule_kind;
+
+typedef struct {
+	hl_rule_kind kind;
+	char *hot;
+	char *cold;
+	double max_duty;   /* kW, for HL_RULE_MAX_DUTY */
+	char *reason;      /* free text shown in reports, NULL when none */
+	char *file;
+	long line;
+} hl_match_rule;
+
+/* Matches between streams tagged with different plant areas. */
+typedef enum {
+	HL_AREAS_ALLOW = 0,
+	HL_AREAS_FORBID = 1,
+	HL_AREAS_PENALISE = 2 /* each cross-area unit costs area_penalty units */
+} hl_area_policy;
+
+/* One unit of an existing network (audit stage), in the order it meets
+ * each stream from its supply end. hot or cold may name a utility. */
+typedef struct {
+	char *name;
+	char *hot;
+	char *cold;
+	double duty;                  /* kW */
+	double hot_in, hot_out;       /* °C, NaN when not given */
+	double cold_in, cold_out;     /* °C, NaN when not given */
+	double area;                  /* m², NaN when not given */
+	int shells;                   /* 0 when not given */
+	char *file;
+	long line;
+} hl_unit;
+
 /* Settings with their defaults (hl_settings_default). */
 typedef struct {
 	double dtmin;        /* K, 10 */
@@ -78,6 +118,8 @@ typedef struct {
 	double t_tol;        /* default temperature uncertainty, K, 1.0 */
 	double time_limit;   /* s per MILP subnetwork, 10 */
 	hl_exchanger_type exchanger;
+	hl_area_policy area_policy; /* HL_AREAS_ALLOW */
+	double area_penalty; /* units per cross-area match, 1 */
 	char *currency;      /* label only, "EUR" by default */
 } hl_settings;
 
@@ -87,6 +129,10 @@ typedef struct {
 	hl_stream *stream;
 	size_t nutil, util_cap;
 	hl_utility *util;
+	size_t nrule, rule_cap;
+	hl_match_rule *rule;
+	size_t nunit, unit_cap;
+	hl_unit *unit;           /* existing network, empty when none */
 	char *source;        /* the file the case came from */
 } hl_case;
 
@@ -99,6 +145,11 @@ void hl_case_free(hl_case *c);
 hl_status hl_case_add_stream(hl_case *c, const hl_stream *s, hl_error *err);
 /* Append a utility (deep copy). */
 hl_status hl_case_add_utility(hl_case *c, const hl_utility *u, hl_error *err);
+
+/* Append a match rule (deep copy). */
+hl_status hl_case_add_rule(hl_case *c, const hl_match_rule *r, hl_error *err);
+/* Append a unit of the existing network (deep copy). */
+hl_status hl_case_add_unit(hl_case *c, const hl_unit *u, hl_error *err);
 
 /* Check the whole case: names unique across streams and utilities, numbers in
  * range, segments chained. Errors name the file and line of the offender. */

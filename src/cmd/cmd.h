@@ -1,0 +1,63 @@
+/* cmd.h - the command table and what every command shares.
+ *
+ * Each command lives in its own file and exports one hl_command; main.c lists
+ * them. A command parses its own options, calls the stages, picks a writer,
+ * and returns the process exit code.
+ */
+#ifndef HL_CMD_H
+#define HL_CMD_H
+
+#include <stdio.h>
+
+#include "case.h"
+#include "status.h"
+
+typedef struct {
+	const char *name;
+	const char *synopsis;  /* "CASE [options]" */
+	const char *summary;   /* one line for heatloom --help */
+	int (*run)(int argc, char **argv);
+	void (*help)(FILE *fp);
+} hl_command;
+
+extern const hl_command hl_cmd_targets;
+
+/* Output formats a command may accept. */
+typedef enum { HL_FMT_TEXT, HL_FMT_XML, HL_FMT_CSV } hl_format;
+
+/* Options most commands share; filled by hl_cmd_common_option(). */
+typedef struct {
+	const char *input;
+	const char *utilities;
+	const char *output;
+	hl_format format;
+	double dtmin;       /* NaN unless --dtmin */
+	int verbose;
+	int quiet;
+} hl_common;
+
+void hl_common_init(hl_common *o);
+
+/* Print "heatloom: <formatted error>" on stderr; return its exit code. */
+int hl_cmd_fail(const hl_error *err);
+/* Print a usage error with a hint; return 1. */
+int hl_cmd_usage(const char *cmd, const char *fmt, ...)
+	__attribute__((format(printf, 2, 3)));
+
+/* Parse a number option value; 0 on success. */
+int hl_cmd_parse_double(const char *cmd, const char *opt, const char *arg,
+			double lo, double hi, double *out);
+/* Parse --format; 0 on success. */
+int hl_cmd_parse_format(const char *cmd, const char *arg, unsigned allowed,
+			hl_format *out);
+#define HL_FMT_BIT(f) (1u << (f))
+
+/* Load the case named on the command line (an XML case file or a bare
+ * stream table), add the utility table when given, apply --dtmin, and
+ * validate. Protects the inputs from being overwritten by outputs. */
+hl_status hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err);
+
+/* The caution every report carries. */
+extern const char hl_caution[];
+
+#endif

@@ -1,0 +1,97 @@
+/* common.c - option helpers, case loading and error printing. */
+#include <math.h>
+#include <stdarg.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "case_load.h"
+#include "cmd.h"
+#include "csv.h"
+#include "output.h"
+
+const char hl_caution[] =
+	"Results are screening estimates. Detailed thermal and mechanical "
+	"design, pressure equipment codes and the safety review of each match "
+	"(leaks between incompatible streams, fouling, start-up) belong to "
+	"qualified engineers under local codes.";
+
+void
+hl_common_init(hl_common *o)
+{
+	memset(o, 0, sizeof *o);
+	o->format = HL_FMT_TEXT;
+	o->dtmin = NAN;
+}
+
+int
+hl_cmd_fail(const hl_error *err)
+{
+	char buf[HL_ERROR_TEXT + HL_ERROR_FILE + 32];
+
+	hl_error_format(err, buf, sizeof buf);
+	fprintf(stderr, "heatloom: %s\n", buf);
+	return err->status == HL_OK ? 1 : (int)err->status;
+}
+
+int
+hl_cmd_usage(const char *cmd, const char *fmt, ...)
+{
+	va_list ap;
+
+	fprintf(stderr, "heatloom: %s: ", cmd);
+	va_start(ap, fmt);
+	vfprintf(stderr, fmt, ap);
+	va_end(ap);
+	fprintf(stderr, " (see 'heatloom help %s')\n", cmd);
+	return HL_EUSAGE;
+}
+
+int
+hl_cmd_parse_double(const char *cmd, const char *opt, const char *arg,
+		    double lo, double hi, double *out)
+{
+	if (!hl_parse_number(arg, 0, out) || *out < lo || *out > hi) {
+		hl_cmd_usage(cmd, "%s wants a number from %g to %g, not '%s'",
+			     opt, lo, hi, arg);
+		return -1;
+	}
+	return 0;
+}
+
+int
+hl_cmd_parse_format(const char *cmd, const char *arg, unsigned allowed,
+		    hl_format *out)
+{
+	static const char *const names[] = { "text", "xml", "csv" };
+	int f;
+
+	for (f = 0; f < 3; f++) {
+		if (strcmp(arg, names[f]) == 0 && (allowed & HL_FMT_BIT(f))) {
+			*out = (hl_format)f;
+			return 0;
+		}
+	}
+	hl_cmd_usage(cmd, "unknown --format '%s'", arg);
+	return -1;
+}
+
+hl_status
+hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err)
+{
+	hl_status st;
+
+	hl_output_protect(o->input);
+	hl_output_protect(o->utilities);
+	st = hl_case_load(o->input, o->utilities, out, err);
+	if (st != HL_OK)
+		return st;
+	if (!isnan(o->dtmin))
+		(*out)->set.dtmin = o->dtmin;
+	st = hl_case_validate(*out, err);
+	if (st != HL_OK) {
+		hl_case_free(*out);
+		*out = NULL;
+	}
+	return st;
+}

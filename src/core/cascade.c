@@ -1,0 +1,287 @@
+/* cascade.c - problem table algorithm, Linnhoff & Flower (1978). */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "cascade.h"
+
+static int
+cmp_desc(const void *a, const void *b)
+{
+	double x = *(const double *)a, y = *(const double *)b;
+
+	return (x < y) - (x > y);
+}
+
+/* Index of value v in the falling, duplicate-free array t[0..n). */
+static size_t
+find_desc(const double *t, size_t n, double v)
+{
+	size_t lo = 0, hi = n;
+
+	while (lo < hi) {
+		size_t mid = lo + (hi - lo) / 2;
+
+		if (t[mid] > v)
+			lo = mid + 1;
+		else
+			hi = mid;
+	}
+	return lo;
+}
+
+static size_t
+count_segments(const hl_case *c)
+{
+	size_t i, n = 0;
+
+	for (i = 0; i < c->nstream; i++)
+		n += c->stream[i].nseg;
+	return n;
+}
+
+/* Sorted, duplicate-free shifted temperatures of every segment end. */
+static double *
+shifted_boundaries(const hl_case *c, double dtmin, size_t *nb)
+{
+	size_t nseg = count_segments(c), i, j, n = 0, u;
+	double *t = malloc(2 * nseg * sizeof *t);
+
+	if (t == NULL)
+		return NULL;
+	for (i = 0; i < c->nstream; i++) {
+		const hl_stream *s = &c->stream[i];
+		double sh = hl_stream_shift(s, dtmin);
+
+		sh = s->kind == HL_HOT ? -sh : sh;
+		for (j = 0; j < s->nseg; j++) {
+			t[n++] = s->seg[j].supply + sh;
+			t[n++] = s->seg[j].target + sh;
+		}
+	}
+	qsort(t, n, sizeof *t, cmp_desc);
+	for (i = 1, u = 1; i < n; i++)
+		if (t[i] != t[u - 1])
+			t[u++] = t[i];
+	*nb = u;
+	return t;
+}
+
+/* Net cp of every interval by a difference array over boundary indices. */
+static void
+interval_cp(const hl_case *c, double dtmin, const double *t, size_t nb,
+	    double *netcp)
+{
+	size_t i, j, k;
+	double run = 0.0;
+
+	memset(netcp, 0, nb * sizeof *netcp);
+	for (i = 0; i < c->nstream; i++) {
+		const hl_stream *s = &c->stream[i];
+		double sh = hl_stream_shift(s, dtmin);
+		double sign = s->kind == HL_HOT ? 1.0 : -1.0;
+
+		sh = s->kind == HL_HOT ? -sh : sh;
+		for (j = 0; j < s->nseg; j++) {
+			const hl_segment *g = &s->seg[j];
+			double hi = fmax(g->supply, g->target) + sh;
+			double lo = fmin(g->supply, g->target) + sh;
+
+			netcp[find_desc(t, nb, hi)] += sign * g->cp;
+			netcp[find_desc(t, nb, lo)] -= sign * g->cp;
+		}
+	}
+	for (k = 0; k + 1 < nb; k++) {
+		run += netcp[k];
+		netcp[k] = run;
+	}
+	netcp[nb - 1] = 0.0;
+}
+
+static void
+totals(const hl_case *c, double *hot, double *cold)
+{
+	size_t i;
+
+	*hot = *cold = 0.0;
+	for (i = 0; i < c->nstream; i++) {
+		if (c->stream[i].kind == HL_HOT)
+			*hot += hl_stream_duty(&c->stream[i]);
+		else
+			*cold += hl_stream_duty(&c->stream[i]);
+	}
+}
+
+/* Cascade the surpluses, lift by the largest deficit, mark the pinches. */
+static hl_status
+run_cascade(hl_cascade *cas, hl_error *err)
+{
+	size_t k, nb = cas->nb;
+	double r = 0.0, rmin = 0.0, scale = 0.0;
+
+	cas->flow[0] = 0.0;
+	for (k = 0; k + 1 < nb; k++) {
+		cas->dh[k] = cas->netcp[k] * (cas->t[k] - cas->t[k + 1]);
+		scale += fabs(cas->dh[k]);
+		r += cas->dh[k];
+		cas->flow[k + 1] = r;
+		if (r < rmin)
+			rmin = r;
+	}
+	cas->qh = -rmin;
+	cas->tol = 1e-9 * (scale > 0.0 ? scale : 1.0);
+	cas->npinch = 0;
+	cas->pinch = malloc(nb * sizeof *cas->pinch);
+	if (cas->pinch == NULL)
+		return hl_error_nomem(err);
+	for (k = 0; k < nb; k++) {
+		cas->flow[k] += cas->qh;
+		if (cas->flow[k] <= cas->tol) {
+			cas->flow[k] = 0.0;
+			if (k > 0 && k + 1 < nb)
+				cas->pinch[cas->npinch++] = k;
+		}
+	}
+	if (cas->qh <= cas->tol)
+		cas->qh = 0.0;
+	cas->qc = cas->flow[nb - 1];
+	return HL_OK;
+}
+
+hl_status
+hl_cascade_compute(const hl_case *c, double dtmin, hl_cascade **out,
+		   hl_error *err)
+{
+	hl_cascade *cas;
+	hl_status st;
+
+	*out = NULL;
+	if (c->nstream == 0)
+		return hl_error_set(err, HL_EINPUT, c->source, 0,
+			"no process streams to cascade");
+	cas = calloc(1, sizeof *cas);
+	if (cas == NULL)
+		return hl_error_nomem(err);
+	cas->dtmin = dtmin;
+	cas->t = shifted_boundaries(c, dtmin, &cas->nb);
+	if (cas->t != NULL) {
+		cas->netcp = malloc(cas->nb * sizeof(double));
+		cas->dh = calloc(cas->nb, sizeof(double));
+		cas->flow = malloc(cas->nb * sizeof(double));
+	}
+	if (cas->t == NULL || cas->netcp == NULL || cas->dh == NULL ||
+	    cas->flow == NULL) {
+		hl_cascade_free(cas);
+		return hl_error_nomem(err);
+	}
+	interval_cp(c, dtmin, cas->t, cas->nb, cas->netcp);
+	totals(c, &cas->hot_total, &cas->cold_total);
+	st = run_cascade(cas, err);
+	if (st != HL_OK) {
+		hl_cascade_free(cas);
+		return st;
+	}
+	*out = cas;
+	return HL_OK;
+}
+
+void
+hl_cascade_free(hl_cascade *cas)
+{
+	if (cas == NULL)
+		return;
+	free(cas->t);
+	free(cas->netcp);
+	free(cas->dh);
+	free(cas->flow);
+	free(cas->pinch);
+	free(cas);
+}
+
+hl_status
+hl_cascade_targets(const hl_case *c, double dtmin, double *qh, double *qc,
+		   hl_error *err)
+{
+	hl_cascade *cas;
+	hl_status st = hl_cascade_compute(c, dtmin, &cas, err);
+
+	if (st != HL_OK)
+		return st;
+	*qh = cas->qh;
+	*qc = cas->qc;
+	hl_cascade_free(cas);
+	return HL_OK;
+}
+
+char
+hl_cascade_threshold_kind(const hl_cascade *cas)
+{
+	if (cas->npinch > 0)
+		return 0;
+	if (cas->qh == 0.0 && cas->qc == 0.0)
+		return 'N';
+	if (cas->qh == 0.0)
+		return 'H';
+	if (cas->qc == 0.0)
+		return 'C';
+	return 0;
+}
+
+/* Bisection on ΔTmin: the missing utility is zero below the threshold and
+ * positive above it; the target is monotone in ΔTmin (Linnhoff et al. 1982). */
+hl_status
+hl_cascade_threshold_dtmin(const hl_case *c, const hl_cascade *cas, double *dt,
+			   hl_error *err)
+{
+	char kind = hl_cascade_threshold_kind(cas);
+	double lo = cas->dtmin, hi, tmax = HL_T_MIN, tmin = HL_T_MAX;
+	double qh, qc, need;
+	size_t i, it;
+	hl_status st;
+
+	*dt = HUGE_VAL;
+	if (kind != 'H' && kind != 'C')
+		return HL_OK;
+	if ((kind == 'H' && cas->cold_total == 0.0) ||
+	    (kind == 'C' && cas->hot_total == 0.0))
+		return HL_OK;
+	for (i = 0; i < c->nstream; i++) {
+		tmax = fmax(tmax, fmax(hl_stream_supply(&c->stream[i]),
+				       hl_stream_target(&c->stream[i])));
+		tmin = fmin(tmin, fmin(hl_stream_supply(&c->stream[i]),
+				       hl_stream_target(&c->stream[i])));
+	}
+	/* Past twice the whole span no shifted hot and cold ranges overlap. */
+	hi = lo + 2.0 * (tmax - tmin) + 1.0;
+	st = hl_cascade_targets(c, hi, &qh, &qc, err);
+	if (st != HL_OK)
+		return st;
+	if ((kind == 'H' ? qh : qc) <= cas->tol)
+		return HL_OK; /* fixed contributions: never needed */
+	for (it = 0; it < 100 && hi - lo > 1e-10 * (1.0 + hi); it++) {
+		double mid = 0.5 * (lo + hi);
+
+		st = hl_cascade_targets(c, mid, &qh, &qc, err);
+		if (st != HL_OK)
+			return st;
+		need = kind == 'H' ? qh : qc;
+		if (need > cas->tol)
+			hi = mid;
+		else
+			lo = mid;
+	}
+	*dt = 0.5 * (lo + hi);
+	return HL_OK;
+}
+
+double
+hl_cascade_hot_temp(const hl_cascade *cas, double shifted)
+{
+	return shifted + cas->dtmin / 2.0;
+}
+
+double
+hl_cascade_cold_temp(const hl_cascade *cas, double shifted)
+{
+	return shifted - cas->dtmin / 2.0;
+}

@@ -1,0 +1,122 @@
+/* utility_table.c - reading utility levels from a CSV table. */
+#include <math.h>
+#include <string.h>
+#include <strings.h>
+
+#include "table.h"
+#include "tables.h"
+
+enum { U_NAME, U_KIND, U_SUPPLY, U_TARGET, U_PRICE, U_H, U_MAX, U_DTC,
+       U_COUNT };
+
+static const char *const columns[U_COUNT] = {
+	"name", "kind", "supply", "target", "price", "h", "max_load",
+	"dt_contrib"
+};
+
+static hl_status
+read_kind(hl_table *t, hl_utility *u, hl_error *err)
+{
+	const char *k = hl_table_text(t, U_KIND);
+
+	if (strcasecmp(k, "hot") == 0)
+		u->kind = HL_HOT;
+	else if (strcasecmp(k, "cold") == 0)
+		u->kind = HL_COLD;
+	else
+		return hl_error_set(err, HL_EINPUT, hl_table_file(t),
+			hl_table_line(t), "utility '%s': kind '%.40s' is "
+			"neither 'hot' (heats the process) nor 'cold' (cools "
+			"it)", u->name, k);
+	return HL_OK;
+}
+
+static hl_status
+read_utility(hl_table *t, hl_utility *u, hl_error *err)
+{
+	static const int which[] = { U_SUPPLY, U_TARGET, U_PRICE, U_H, U_MAX,
+				     U_DTC };
+	double *dst[] = { &u->supply, &u->target, &u->price, &u->h,
+			  &u->max_load, &u->dt_contrib };
+	size_t i;
+	hl_status st;
+
+	u->name = (char *)hl_table_text(t, U_NAME);
+	u->file = (char *)hl_table_file(t);
+	u->line = hl_table_line(t);
+	if (u->name[0] == '\0')
+		return hl_error_set(err, HL_EINPUT, u->file, u->line,
+			"utility without a name");
+	st = read_kind(t, u, err);
+	for (i = 0; st == HL_OK && i < sizeof which / sizeof which[0]; i++)
+		st = hl_table_number(t, (size_t)which[i], dst[i], err);
+	if (st != HL_OK)
+		return st;
+	if (isnan(u->supply) || isnan(u->target))
+		return hl_error_set(err, HL_EINPUT, u->file, u->line,
+			"utility '%s': supply and target temperatures are both "
+			"required (equal for condensing steam or a boiling "
+			"refrigerant)", u->name);
+	if (isnan(u->price))
+		return hl_error_set(err, HL_EINPUT, u->file, u->line,
+			"utility '%s': price is missing (currency per MWh; 0 "
+			"for a free utility)", u->name);
+	return HL_OK;
+}
+
+static hl_status
+read_table(hl_case *c, hl_table *t, hl_error *err)
+{
+	static const int required[] = { U_NAME, U_KIND, U_SUPPLY, U_TARGET,
+					U_PRICE };
+	hl_status st = HL_OK;
+	size_t i;
+	int rc, rows = 0;
+
+	for (i = 0; i < 5 && st == HL_OK; i++)
+		st = hl_table_require(t, (size_t)required[i], err);
+	while (st == HL_OK && (rc = hl_table_next(t, err)) != 0) {
+		hl_utility u;
+
+		if (rc < 0) {
+			st = err ? err->status : HL_EINPUT;
+			break;
+		}
+		rows++;
+		st = read_utility(t, &u, err);
+		if (st == HL_OK)
+			st = hl_case_add_utility(c, &u, err);
+	}
+	if (st == HL_OK && rows == 0)
+		st = hl_error_set(err, HL_EINPUT, hl_table_file(t),
+			t->header_line, "the utility table has a header but no "
+			"utilities");
+	hl_table_close(t);
+	return st;
+}
+
+hl_status
+hl_utility_table_read(hl_case *c, const char *path, hl_error *err)
+{
+	hl_table t;
+	hl_status st;
+
+	st = hl_table_open(&t, path, "utility table", columns, U_COUNT, err);
+	if (st != HL_OK)
+		return st;
+	return read_table(c, &t, err);
+}
+
+hl_status
+hl_utility_table_read_mem(hl_case *c, const char *name, const char *data,
+			  size_t len, hl_error *err)
+{
+	hl_table t;
+	hl_status st;
+
+	st = hl_table_open_mem(&t, name, data, len, "utility table", columns,
+			       U_COUNT, err);
+	if (st != HL_OK)
+		return st;
+	return read_table(c, &t, err);
+}
