@@ -83,6 +83,9 @@ hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err)
 
 	hl_output_protect(o->input);
 	hl_output_protect(o->utilities);
+	st = hl_output_check(o->output, err);
+	if (st != HL_OK)
+		return st;
 	st = hl_case_load(o->input, o->utilities, out, err);
 	if (st != HL_OK)
 		return st;

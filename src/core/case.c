@@ -295,8 +295,10 @@ validate_segment(const hl_stream *s, const hl_segment *g, hl_error *err)
 
 	if (!temp_ok(g->supply) || !temp_ok(g->target))
 		return hl_error_set(err, HL_EINPUT, f, g->line,
-			"stream '%s': temperature outside %.2f..%.0f °C "
-			"(temperatures are in °C)", s->name, HL_T_MIN, HL_T_MAX);
+			"stream '%s': temperature %g °C is outside %.2f..%.0f "
+			"°C; temperatures are in °C (not K or °F)", s->name,
+			temp_ok(g->supply) ? g->target : g->supply, HL_T_MIN,
+			HL_T_MAX);
 	if (g->supply == g->target)
 		return hl_error_set(err, HL_EINPUT, f, g->line,
 			"stream '%s': supply equals target (%g °C); a process "
@@ -306,10 +308,14 @@ validate_segment(const hl_stream *s, const hl_segment *g, hl_error *err)
 			"stream '%s': segment runs %g -> %g °C but the stream "
 			"is %s", s->name, g->supply, g->target,
 			s->kind == HL_HOT ? "hot" : "cold");
-	if (!isfinite(g->cp) || g->cp <= 0.0 || g->cp > HL_CP_MAX)
+	if (!isfinite(g->cp) || g->cp <= 0.0)
 		return hl_error_set(err, HL_EINPUT, f, g->line,
-			"stream '%s': cp must be > 0 and at most %g kW/K",
-			s->name, HL_CP_MAX);
+			"stream '%s': cp must be > 0 kW/K", s->name);
+	if (g->cp > HL_CP_MAX)
+		return hl_error_set(err, HL_EINPUT, f, g->line,
+			"stream '%s': cp %g kW/K is above %g kW/K; cp is in "
+			"kW/K (was it given in W/K?)", s->name, g->cp,
+			HL_CP_MAX);
 	if (!isnan(g->h) && (!isfinite(g->h) || g->h <= 0.0 || g->h > HL_H_MAX))
 		return hl_error_set(err, HL_EINPUT, f, g->line,
 			"stream '%s': h must be > 0 and at most %g kW/(m²·K)",
@@ -350,8 +356,10 @@ validate_utility(const hl_utility *u, hl_error *err)
 {
 	if (!temp_ok(u->supply) || !temp_ok(u->target))
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
-			"utility '%s': temperature outside %.2f..%.0f °C",
-			u->name, HL_T_MIN, HL_T_MAX);
+			"utility '%s': temperature %g °C is outside %.2f..%.0f "
+			"°C; temperatures are in °C (not K or °F)", u->name,
+			temp_ok(u->supply) ? u->target : u->supply, HL_T_MIN,
+			HL_T_MAX);
 	if (u->kind == HL_HOT && u->target > u->supply)
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
 			"hot utility '%s' warms from %g to %g °C; a hot utility "

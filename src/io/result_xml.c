@@ -1,4 +1,6 @@
 /* result_xml.c - the <results> document through libxml2's text writer. */
+#include "config.h"
+
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -79,18 +81,29 @@ hl_xml_out_free(hl_xml_out *x)
 void
 hl_format_number(char *buf, size_t size, double v)
 {
-	if (v == 0.0 || !isfinite(v)) {
-		snprintf(buf, size, "%s", v == 0.0 ? "0" : "NaN");
+	int decimals;
+	char *end;
+
+	if (fabs(v) < 1e-28 || !isfinite(v)) {
+		snprintf(buf, size, "%s", isfinite(v) ? "0" : "NaN");
 		return;
 	}
 	snprintf(buf, size, "%.12g", v);
-	/* Plain decimal where the magnitude allows it (design.md). */
-	if (strchr(buf, 'e') != NULL && fabs(v) >= 1e-6 && fabs(v) < 1e15) {
-		int decimals = 11 - (int)floor(log10(fabs(v)));
-
-		if (decimals < 0)
-			decimals = 0;
-		snprintf(buf, size, "%.*f", decimals, v);
+	if (strchr(buf, 'e') == NULL)
+		return;
+	/* Plain decimal always (design.md): 12 significant digits. */
+	decimals = 11 - (int)floor(log10(fabs(v)));
+	if (decimals < 0)
+		decimals = 0;
+	if (decimals > 40)
+		decimals = 40;
+	snprintf(buf, size, "%.*f", decimals, v);
+	if (strchr(buf, '.') != NULL) {
+		end = buf + strlen(buf) - 1;
+		while (*end == '0')
+			*end-- = '\0';
+		if (*end == '.')
+			*end = '\0';
 	}
 }
 

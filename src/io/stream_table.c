@@ -1,5 +1,6 @@
 /* stream_table.c - reading process streams from a CSV table. */
 #include <math.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 #include <strings.h>
@@ -258,7 +259,7 @@ read_table(hl_case *c, hl_table *t, hl_error *err)
 	if (st == HL_OK && !hl_table_has(t, C_CP) && !hl_table_has(t, C_DUTY))
 		st = hl_error_set(err, HL_EINPUT, hl_table_file(t),
 			t->header_line, "missing column 'cp' (kW/K) or 'duty' "
-			"(kW) in the header");
+			"(kW) in the stream table header");
 	if (st == HL_OK)
 		st = read_rows(c, t, err);
 	hl_table_close(t);

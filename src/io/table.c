@@ -59,6 +59,7 @@ open_common(hl_table *t, const char *what, const char *const *names,
 	hl_status st;
 
 	t->names = names;
+	t->what = what;
 	t->nnames = nnames < 32 ? nnames : 32;
 	st = read_header(t, what, err);
 	if (st != HL_OK) {
@@ -182,5 +183,5 @@ hl_table_require(const hl_table *t, size_t k, hl_error *err)
 	if (hl_table_has(t, k))
 		return HL_OK;
 	return hl_error_set(err, HL_EINPUT, hl_table_file(t), t->header_line,
-		"missing column '%s' in the header", t->names[k]);
+		"missing column '%s' in the %s header", t->names[k], t->what);
 }

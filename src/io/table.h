@@ -19,6 +19,7 @@ typedef struct {
 	long col[32];             /* file column of each known name, -1 absent */
 	size_t nheader;           /* fields in the header row */
 	long header_line;
+	const char *what;         /* "stream table", for messages */
 } hl_table;
 
 /* Open path and read its header. `what` names the table in messages

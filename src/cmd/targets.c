@@ -1,0 +1,161 @@
+/* targets.c - `heatloom targets`: minimum utilities and pinches. */
+#include <getopt.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+
+#include "cascade.h"
+#include "cmd.h"
+#include "output.h"
+#include "result_xml.h"
+#include "targets_out.h"
+
+static void
+help(FILE *fp)
+{
+	fprintf(fp,
+"Usage: heatloom targets CASE [options]\n"
+"\n"
+"Minimum hot and cold utility, pinch temperatures and the heat cascade of\n"
+"the process streams (problem table algorithm). CASE is an XML case file or a\n"
+"stream table (CSV).\n"
+"\n"
+"Options:\n"
+"  --dtmin K          minimum approach temperature (default: the case's, or 10)\n"
+"  --utilities FILE   utility table (CSV) to add to the case\n"
+"  --format FMT       text (default), xml, or csv (the cascade)\n"
+"  -o, --output FILE  write to FILE instead of standard output\n"
+"  -h, --help         show this help\n"
+"\n"
+"%s\n", hl_caution);
+}
+
+enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT };
+
+static int
+parse(int argc, char **argv, hl_common *o)
+{
+	static const struct option opts[] = {
+		{ "dtmin", required_argument, NULL, OPT_DTMIN },
+		{ "utilities", required_argument, NULL, OPT_UTIL },
+		{ "format", required_argument, NULL, OPT_FORMAT },
+		{ "output", required_argument, NULL, 'o' },
+		{ "help", no_argument, NULL, 'h' },
+		{ NULL, 0, NULL, 0 }
+	};
+	int ch;
+
+	hl_common_init(o);
+	optind = 1;
+	opterr = 0;
+	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
+		switch (ch) {
+		case OPT_DTMIN:
+			if (hl_cmd_parse_double("targets", "--dtmin", optarg,
+						0.0, 500.0, &o->dtmin) != 0)
+				return 1;
+			break;
+		case OPT_UTIL:
+			o->utilities = optarg;
+			break;
+		case OPT_FORMAT:
+			if (hl_cmd_parse_format("targets", optarg,
+			    HL_FMT_BIT(HL_FMT_TEXT) | HL_FMT_BIT(HL_FMT_XML) |
+			    HL_FMT_BIT(HL_FMT_CSV), &o->format) != 0)
+				return 1;
+			break;
+		case 'o':
+			o->output = optarg;
+			break;
+		case 'h':
+			help(stdout);
+			return -1;
+		case ':':
+			return hl_cmd_usage("targets", "option '%s' needs a "
+					    "value", argv[optind - 1]);
+		default:
+			return hl_cmd_usage("targets", "unknown option '%s'",
+					    argv[optind - 1]);
+		}
+	}
+	if (optind != argc - 1)
+		return hl_cmd_usage("targets", optind >= argc ?
+				    "give one CASE file" :
+				    "give one CASE file, not several");
+	o->input = argv[optind];
+	return 0;
+}
+
+static hl_status
+write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
+	  const hl_threshold *th, hl_error *err)
+{
+	hl_xml_out *x = hl_xml_out_begin(c->source);
+	hl_status st;
+
+	if (x == NULL)
+		return hl_error_nomem(err);
+	if (hl_targets_xml_begin(hl_xml_out_writer(x), cas, th) < 0 ||
+	    hl_targets_xml_end(hl_xml_out_writer(x)) < 0)
+		st = hl_error_set(err, HL_EIO, NULL, 0, "cannot build XML");
+	else
+		st = hl_xml_out_finish(x, fp, err);
+	hl_xml_out_free(x);
+	return st;
+}
+
+static hl_status
+run_targets(const hl_common *o, hl_error *err)
+{
+	hl_case *c = NULL;
+	hl_cascade *cas = NULL;
+	hl_threshold th = { 0, HUGE_VAL };
+	hl_output out;
+	hl_status st;
+
+	st = hl_cmd_load_case(o, &c, err);
+	if (st == HL_OK)
+		st = hl_output_check(o->output, err);
+	if (st == HL_OK)
+		st = hl_cascade_compute(c, c->set.dtmin, &cas, err);
+	if (st == HL_OK) {
+		th.kind = hl_cascade_threshold_kind(cas);
+		st = hl_cascade_threshold_dtmin(c, cas, &th.dtmin, err);
+	}
+	if (st == HL_OK)
+		st = hl_output_open(&out, o->output, err);
+	if (st == HL_OK) {
+		if (o->format == HL_FMT_XML)
+			st = write_xml(out.fp, c, cas, &th, err);
+		else if (o->format == HL_FMT_CSV)
+			hl_targets_csv(out.fp, cas);
+		else
+			hl_targets_text(out.fp, c, cas, &th);
+		st = st == HL_OK ? hl_output_commit(&out, err) : st;
+		hl_output_abort(&out);
+	}
+	hl_cascade_free(cas);
+	hl_case_free(c);
+	return st;
+}
+
+static int
+run(int argc, char **argv)
+{
+	hl_common o;
+	hl_error err;
+	int rc = parse(argc, argv, &o);
+
+	if (rc != 0)
+		return rc < 0 ? 0 : rc;
+	hl_error_clear(&err);
+	if (run_targets(&o, &err) != HL_OK)
+		return hl_cmd_fail(&err);
+	return 0;
+}
+
+const hl_command hl_cmd_targets = {
+	"targets", "CASE [--dtmin K] [--utilities FILE] [--format text|xml|csv] "
+	"[-o FILE]", "minimum utility targets, pinches and the heat cascade",
+	run, help
+};
