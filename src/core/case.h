@@ -28,6 +28,8 @@ typedef struct {
 	double cp;      /* kW/K, > 0 */
 	double h;       /* kW/(m²·K) including fouling, NaN when not given */
 	long line;      /* source line, 0 when none */
+	int by_duty;    /* 1 when the input gave the duty only and cp was
+			   derived from it (the duty is the measured datum) */
 } hl_segment;
 
 typedef struct {

@@ -20,6 +20,7 @@ static const char *const columns[C_COUNT] = {
 typedef struct {
 	double supply, target, cp, duty, h, dtc, cptol, ttol;
 	int kind; /* -1 not given */
+	int by_duty; /* cp derived from the duty */
 } row;
 
 static hl_status
@@ -89,6 +90,7 @@ row_cp(hl_table *t, const char *name, row *r, hl_error *err)
 	if (isnan(r->cp) && isnan(r->duty))
 		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': give "
 			"cp (kW/K) or duty (kW)", name);
+	r->by_duty = isnan(r->cp);
 	if (isnan(r->cp))
 		r->cp = r->duty / span;
 	else if (!isnan(r->duty) &&
@@ -178,6 +180,7 @@ builder_add(builder *b, hl_table *t, const row *r, hl_error *err)
 	g->cp = r->cp;
 	g->h = r->h;
 	g->line = hl_table_line(t);
+	g->by_duty = r->by_duty;
 	return HL_OK;
 }
 
