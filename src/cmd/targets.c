@@ -8,6 +8,8 @@
 #include "cmd.h"
 #include "output.h"
 #include "result_xml.h"
+#include "sensitivity.h"
+#include "sensitivity_out.h"
 #include "targets_out.h"
 
 static void
@@ -24,13 +26,19 @@ help(FILE *fp)
 "  --dtmin K          minimum approach temperature (default: the case's, or 10)\n"
 "  --utilities FILE   utility table (CSV) to add to the case\n"
 "  --format FMT       text (default), xml, or csv (the cascade)\n"
+"  --sensitivity      how far each stream datum and ΔTmin move the targets,\n"
+"                     ranked, with the band from the cp_tol and t_tol\n"
+"                     tolerances (csv: one row per datum)\n"
 "  -o, --output FILE  write to FILE instead of standard output\n"
 "  -h, --help         show this help\n"
 "\n"
 "%s\n", hl_caution);
 }
 
-enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT };
+enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT, OPT_SENS };
+
+/* --sensitivity: replaces the text and CSV outputs, adds to the XML. */
+static int want_sensitivity;
 
 static int
 parse(int argc, char **argv, hl_common *o)
@@ -39,6 +47,7 @@ parse(int argc, char **argv, hl_common *o)
 		{ "dtmin", required_argument, NULL, OPT_DTMIN },
 		{ "utilities", required_argument, NULL, OPT_UTIL },
 		{ "format", required_argument, NULL, OPT_FORMAT },
+		{ "sensitivity", no_argument, NULL, OPT_SENS },
 		{ "output", required_argument, NULL, 'o' },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
@@ -46,6 +55,7 @@ parse(int argc, char **argv, hl_common *o)
 	int ch;
 
 	hl_common_init(o);
+	want_sensitivity = 0;
 	optind = 1;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
@@ -63,6 +73,9 @@ parse(int argc, char **argv, hl_common *o)
 			    HL_FMT_BIT(HL_FMT_TEXT) | HL_FMT_BIT(HL_FMT_XML) |
 			    HL_FMT_BIT(HL_FMT_CSV), &o->format) != 0)
 				return 1;
+			break;
+		case OPT_SENS:
+			want_sensitivity = 1;
 			break;
 		case 'o':
 			o->output = optarg;
@@ -88,7 +101,7 @@ parse(int argc, char **argv, hl_common *o)
 
 static hl_status
 write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
-	  const hl_threshold *th, hl_error *err)
+	  const hl_threshold *th, const hl_sensitivity *sv, hl_error *err)
 {
 	hl_xml_out *x = hl_xml_out_begin(c->source);
 	hl_status st;
@@ -96,7 +109,8 @@ write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	if (x == NULL)
 		return hl_error_nomem(err);
 	if (hl_targets_xml_begin(hl_xml_out_writer(x), cas, th) < 0 ||
-	    hl_targets_xml_end(hl_xml_out_writer(x)) < 0)
+	    hl_targets_xml_end(hl_xml_out_writer(x)) < 0 ||
+	    (sv != NULL && hl_sensitivity_xml(hl_xml_out_writer(x), c, sv) < 0))
 		st = hl_error_set(err, HL_EIO, NULL, 0, "cannot build XML");
 	else
 		st = hl_xml_out_finish(x, fp, err);
@@ -109,6 +123,7 @@ run_targets(const hl_common *o, hl_error *err)
 {
 	hl_case *c = NULL;
 	hl_cascade *cas = NULL;
+	hl_sensitivity *sv = NULL;
 	hl_threshold th = { 0, HUGE_VAL };
 	hl_output out;
 	hl_status st;
@@ -122,11 +137,17 @@ run_targets(const hl_common *o, hl_error *err)
 		th.kind = hl_cascade_threshold_kind(cas);
 		st = hl_cascade_threshold_dtmin(c, cas, &th.dtmin, err);
 	}
+	if (st == HL_OK && want_sensitivity)
+		st = hl_sensitivity_compute(c, cas, &sv, err);
 	if (st == HL_OK)
 		st = hl_output_open(&out, o->output, err);
 	if (st == HL_OK) {
 		if (o->format == HL_FMT_XML)
-			st = write_xml(out.fp, c, cas, &th, err);
+			st = write_xml(out.fp, c, cas, &th, sv, err);
+		else if (sv != NULL && o->format == HL_FMT_CSV)
+			hl_sensitivity_csv(out.fp, c, sv);
+		else if (sv != NULL)
+			hl_sensitivity_text(out.fp, c, cas, sv);
 		else if (o->format == HL_FMT_CSV)
 			hl_targets_csv(out.fp, cas);
 		else
@@ -134,6 +155,7 @@ run_targets(const hl_common *o, hl_error *err)
 		st = st == HL_OK ? hl_output_commit(&out, err) : st;
 		hl_output_abort(&out);
 	}
+	hl_sensitivity_free(sv);
 	hl_cascade_free(cas);
 	hl_case_free(c);
 	return st;
@@ -156,6 +178,7 @@ run(int argc, char **argv)
 
 const hl_command hl_cmd_targets = {
 	"targets", "CASE [--dtmin K] [--utilities FILE] [--format text|xml|csv] "
-	"[-o FILE]", "minimum utility targets, pinches and the heat cascade",
+	"[--sensitivity] [-o FILE]",
+	"minimum utility targets, pinches and the heat cascade",
 	run, help
 };

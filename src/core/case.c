@@ -347,6 +347,16 @@ validate_stream(const hl_stream *s, double dtmin, hl_error *err)
 		return hl_error_set(err, HL_EINPUT, s->file, s->line,
 			"stream '%s': dt_contrib must be between 0 and 500 K",
 			s->name);
+	/* Tolerances feed the sensitivity bands; 1 or more would let a cp
+	 * vanish, and a fraction given in per cent is a common slip. */
+	if (!isnan(s->cp_tol) && !(s->cp_tol >= 0.0 && s->cp_tol < 1.0))
+		return hl_error_set(err, HL_EINPUT, s->file, s->line,
+			"stream '%s': cp_tol %g is a fraction and must lie in "
+			"[0, 1) (0.05 means ±5 %%)", s->name, s->cp_tol);
+	if (!isnan(s->t_tol) && !(s->t_tol >= 0.0 && s->t_tol <= 100.0))
+		return hl_error_set(err, HL_EINPUT, s->file, s->line,
+			"stream '%s': t_tol must lie between 0 and 100 K",
+			s->name);
 	(void)dtmin;
 	return HL_OK;
 }
@@ -399,6 +409,11 @@ validate_settings(const hl_case *c, hl_error *err)
 	if (!(s->hours > 0.0 && s->hours <= 8784.0))
 		return hl_error_set(err, HL_EINPUT, c->source, 0,
 			"operating hours must be between 0 and 8784 per year");
+	if (!(s->cp_tol >= 0.0 && s->cp_tol < 1.0) ||
+	    !(s->t_tol >= 0.0 && s->t_tol <= 100.0))
+		return hl_error_set(err, HL_EINPUT, c->source, 0,
+			"the default cp_tol must lie in [0, 1) and t_tol "
+			"between 0 and 100 K");
 	if (!(s->fmin > 0.0 && s->fmin < 1.0) || !(s->xp > 0.0 && s->xp < 1.0))
 		return hl_error_set(err, HL_EINPUT, c->source, 0,
 			"fmin and xp must lie strictly between 0 and 1");

@@ -351,7 +351,7 @@ check_tolerances(const hl_case *c, hl_error *err)
 	if (!(c->set.cp_tol >= 0.0 && c->set.cp_tol < 1.0) ||
 	    !(c->set.t_tol >= 0.0 && c->set.t_tol <= 100.0))
 		return hl_error_set(err, HL_EINPUT, c->source, 0, "the default "
-			"cp_tol must lie in [0, 1) and t_tol in [0, 100] K");
+			"cp_tol must lie in [0, 1) and t_tol between 0 and 100 K");
 	for (i = 0; i < c->nstream; i++) {
 		const hl_stream *s = &c->stream[i];
 
@@ -362,8 +362,8 @@ check_tolerances(const hl_case *c, hl_error *err)
 				s->cp_tol);
 		if (!isnan(s->t_tol) && !(s->t_tol >= 0.0 && s->t_tol <= 100.0))
 			return hl_error_set(err, HL_EINPUT, s->file, s->line,
-				"stream '%s': t_tol must lie in [0, 100] K",
-				s->name);
+				"stream '%s': t_tol must lie between 0 and 100 "
+				"K", s->name);
 	}
 	return HL_OK;
 }

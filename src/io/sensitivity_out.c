@@ -1,0 +1,516 @@
+/* sensitivity_out.c - writers of the sensitivity of the targets. */
+#include <math.h>
+#include <string.h>
+
+#include "sensitivity_out.h"
+
+/* Below this a change in kW prints as zero, never as "-0.0". */
+#define SHOWN_ZERO 0.05
+
+static double
+tidy(double v)
+{
+	return fabs(v) < SHOWN_ZERO ? 0.0 : v;
+}
+
+/* Characters (not bytes) of a UTF-8 string, for padding columns. */
+static size_t
+text_width(const char *s)
+{
+	size_t n = 0;
+
+	for (; *s; s++)
+		n += ((unsigned char)*s & 0xC0) != 0x80;
+	return n;
+}
+
+static void
+put_padded(FILE *fp, const char *s, size_t width)
+{
+	size_t n = text_width(s);
+
+	fputs(s, fp);
+	for (; n < width; n++)
+		fputc(' ', fp);
+}
+
+/* Two numbers print differently with this many decimals. */
+static int
+differ_shown(double a, double b, int decimals)
+{
+	char x[64], y[64];
+
+	snprintf(x, sizeof x, "%.*f", decimals, fabs(a) < 0.5 * pow(10.0,
+		 -decimals) ? 0.0 : a);
+	snprintf(y, sizeof y, "%.*f", decimals, fabs(b) < 0.5 * pow(10.0,
+		 -decimals) ? 0.0 : b);
+	return strcmp(x, y) != 0;
+}
+
+static int
+is_temperature(hl_sens_quantity q)
+{
+	return q == HL_SENS_SUPPLY || q == HL_SENS_TARGET;
+}
+
+/* "target", "cp", "cp 2/3" for a segment of a segmented stream. */
+static void
+datum_label(char *buf, size_t size, const hl_case *c, const hl_sens_row *r)
+{
+	const hl_stream *s = &c->stream[r->stream];
+
+	if (!is_temperature(r->q) && s->nseg > 1)
+		snprintf(buf, size, "%s %zu/%zu", hl_sensitivity_quantity_name(r->q),
+			 r->segment + 1, s->nseg);
+	else
+		snprintf(buf, size, "%s", hl_sensitivity_quantity_name(r->q));
+}
+
+static void
+value_text(char *buf, size_t size, const hl_sens_row *r)
+{
+	if (is_temperature(r->q))
+		snprintf(buf, size, "%.1f °C", r->value);
+	else if (r->q == HL_SENS_CP)
+		snprintf(buf, size, "%.*f kW/K", r->value >= 100.0 ? 0 :
+			 r->value >= 10.0 ? 1 : 2, r->value);
+	else
+		snprintf(buf, size, "%.1f kW", r->value);
+}
+
+static void
+tol_text(char *buf, size_t size, const hl_sens_row *r)
+{
+	if (is_temperature(r->q))
+		snprintf(buf, size, "±%.1f K", r->tol);
+	else
+		snprintf(buf, size, "±%.3g %%", r->value > 0.0 ?
+			 100.0 * r->tol / r->value : 0.0);
+}
+
+/* A derivative, or "left|right" where a pinch changes. */
+static void
+deriv_text(char *buf, size_t size, double minus, double plus, int kink)
+{
+	if (kink)
+		snprintf(buf, size, "%.2f|%.2f", minus + 0.0, plus + 0.0);
+	else
+		snprintf(buf, size, "%.2f", fabs(plus) < 5e-3 ? 0.0 : plus);
+}
+
+/* How far a target moves with the datum off by its tolerance: "±Y" when the
+ * move is symmetric, else "+a/−b", the changes at +tol and at −tol. */
+static void
+move_text(char *buf, size_t size, double minus, double plus, double tol,
+	  int decimals)
+{
+	double up = tidy(plus * tol), down = tidy(-minus * tol);
+
+	if (!differ_shown(up, -down, decimals))
+		snprintf(buf, size, "±%.*f", decimals, fabs(up));
+	else
+		snprintf(buf, size, "%s%.*f/%s%.*f", up >= 0.0 ? "+" : "",
+			 decimals, up, down >= 0.0 ? "+" : "", decimals, down);
+}
+
+static size_t
+name_width(const hl_case *c)
+{
+	size_t i, w = 6;
+
+	for (i = 0; i < c->nstream; i++)
+		if (text_width(c->stream[i].name) > w)
+			w = text_width(c->stream[i].name);
+	return w > 40 ? 40 : w;
+}
+
+static const char *
+long_quantity(hl_sens_quantity q)
+{
+	switch (q) {
+	case HL_SENS_SUPPLY:
+		return "supply temperature";
+	case HL_SENS_TARGET:
+		return "target temperature";
+	case HL_SENS_DUTY:
+		return "duty";
+	default:
+		return "cp";
+	}
+}
+
+static void
+text_headline(FILE *fp, const hl_case *c, const hl_cascade *cas)
+{
+	size_t i;
+
+	fprintf(fp, "Sensitivity of the energy targets for %s\n\n",
+		c->source ? c->source : "");
+	fprintf(fp, "At ΔTmin %.1f K: minimum hot utility %.1f kW, minimum "
+		"cold utility %.1f kW;\n", cas->dtmin, cas->qh, cas->qc);
+	for (i = 0; i < cas->npinch; i++) {
+		double s = cas->t[cas->pinch[i]];
+
+		fprintf(fp, "%s %.1f °C hot / %.1f °C cold", i ? "," :
+			"pinch at", hl_cascade_hot_temp(cas, s),
+			hl_cascade_cold_temp(cas, s));
+	}
+	if (cas->npinch == 0)
+		fprintf(fp, "no pinch (a threshold problem)");
+	fprintf(fp, ".\nTolerances: each stream's cp_tol and t_tol where the "
+		"table gives them,\nelse ±%.3g %% on cp and duty and ±%.1f K on "
+		"temperatures.\n", 100.0 * c->set.cp_tol, c->set.t_tol);
+}
+
+static void
+text_first(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
+{
+	size_t i, n = 0;
+
+	fprintf(fp, "\nCheck these measurements first (largest effect on the "
+		"targets within their tolerances):\n");
+	for (i = 0; i < sv->nrow && n < 3; i++) {
+		const hl_sens_row *r = &sv->row[sv->rank[i]];
+		char v[48], t[32], h[48], k[48];
+
+		if (hl_sensitivity_effect(r) < SHOWN_ZERO)
+			break;
+		value_text(v, sizeof v, r);
+		tol_text(t, sizeof t, r);
+		move_text(h, sizeof h, r->hot_minus, r->hot_plus, r->tol, 1);
+		move_text(k, sizeof k, r->cold_minus, r->cold_plus, r->tol, 1);
+		fprintf(fp, "  %zu. %s %s", ++n, c->stream[r->stream].name,
+			long_quantity(r->q));
+		if (!is_temperature(r->q) && c->stream[r->stream].nseg > 1)
+			fprintf(fp, " (segment %zu)", r->segment + 1);
+		fprintf(fp, " (%s): a %s error in it moves QHmin by %s kW and "
+			"QCmin by %s kW\n", v, t, h, k);
+	}
+	if (n == 0)
+		fprintf(fp, "  none: no datum moves the targets by %.2f kW or "
+			"more within its tolerance\n", SHOWN_ZERO);
+}
+
+static void
+text_row(FILE *fp, const hl_case *c, const hl_sensitivity *sv, size_t rank,
+	 size_t nw)
+{
+	const hl_sens_row *r = &sv->row[sv->rank[rank]];
+	char d[32], v[48], t[32], dh[48], dc[48], mh[48], mc[48], co[64];
+
+	datum_label(d, sizeof d, c, r);
+	value_text(v, sizeof v, r);
+	tol_text(t, sizeof t, r);
+	deriv_text(dh, sizeof dh, r->hot_minus, r->hot_plus, r->kink);
+	deriv_text(dc, sizeof dc, r->cold_minus, r->cold_plus, r->kink);
+	move_text(mh, sizeof mh, r->hot_minus, r->hot_plus, r->tol, 1);
+	move_text(mc, sizeof mc, r->cold_minus, r->cold_plus, r->tol, 1);
+	fprintf(fp, "%4zu  ", rank + 1);
+	put_padded(fp, c->stream[r->stream].name, nw);
+	fprintf(fp, "  ");
+	put_padded(fp, d, 7);
+	fprintf(fp, "%11s %7s %13s %13s %10s%s %10s", v, t, mh, mc, dh,
+		r->kink ? "*" : " ", dc);
+	if (sv->cost == HL_SENS_COST_SINGLE) {
+		move_text(co, sizeof co, r->cost_minus, r->cost_plus, r->tol, 0);
+		fprintf(fp, " %14s", co);
+	}
+	fputc('\n', fp);
+}
+
+static void
+text_table(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
+{
+	size_t i, nw = name_width(c);
+
+	fprintf(fp, "\nEvery datum, largest effect first: how far each target "
+		"moves (kW, first order) with\nthe datum off by its tolerance, "
+		"and the derivatives (kW per K for temperatures,\nper kW/K for "
+		"cp, per kW for duty).\n\n");
+	fprintf(fp, "%4s  ", "rank");
+	put_padded(fp, "stream", nw);
+	fprintf(fp, "  %-7s%11s %7s %13s %13s %10s  %10s", "datum", "value",
+		"tol", "QHmin moves", "QCmin moves", "dQHmin/dx", "dQCmin/dx");
+	if (sv->cost == HL_SENS_COST_SINGLE)
+		fprintf(fp, " %14s", "cost/yr moves");
+	fputc('\n', fp);
+	for (i = 0; i < sv->nrow; i++)
+		text_row(fp, c, sv, i, nw);
+}
+
+static void
+text_band(FILE *fp, const char *name, const hl_sens_band *b)
+{
+	fprintf(fp, "  %s %.1f kW lies within %.1f … %.1f kW (first-order "
+		"estimate %.1f … %.1f kW)\n", name, b->nominal, b->low, b->high,
+		b->lin_low, b->lin_high);
+}
+
+/* The first-order estimate misses the re-solve by more than 1 % of the
+ * band's width plus a tenth of a kW. */
+static int
+band_differs(const hl_sens_band *b)
+{
+	double slack = 0.01 * (b->high - b->low) + 0.1;
+
+	return fabs(b->lin_high - b->high) > slack ||
+	       fabs(b->lin_low - b->low) > slack;
+}
+
+static size_t
+count_kinks(const hl_sensitivity *sv)
+{
+	size_t i, n = 0;
+
+	for (i = 0; i < sv->nrow; i++)
+		n += sv->row[i].kink;
+	return n;
+}
+
+/* For the data to check first: a temperature of a stream given by cp over a
+ * short span changes its duty by tol/span, often the real reason it ranks
+ * high; say so once per stream. */
+static void
+text_short_spans(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
+{
+	size_t i, j, shown[3], n = 0;
+
+	for (i = 0; i < sv->nrow && i < 3; i++) {
+		const hl_sens_row *r = &sv->row[sv->rank[i]];
+		const hl_stream *s = &c->stream[r->stream];
+		const hl_segment *g = &s->seg[r->q == HL_SENS_SUPPLY ? 0 :
+					      s->nseg - 1];
+		double span = fabs(g->supply - g->target);
+		int seen = 0;
+
+		if (!is_temperature(r->q) || g->by_duty ||
+		    r->tol < 0.05 * span || hl_sensitivity_effect(r) < SHOWN_ZERO)
+			continue;
+		for (j = 0; j < n; j++)
+			seen |= shown[j] == r->stream;
+		if (seen)
+			continue;
+		shown[n++] = r->stream;
+		fprintf(fp, "\n'%s' is given by cp over %.1f K: a ±%.1f K error "
+			"in one end changes its duty by\n±%.0f %%. If its duty is "
+			"what was measured, give 'duty' instead of 'cp' for it.\n",
+			s->name, span, r->tol, 100.0 * r->tol / span);
+	}
+}
+
+static void
+text_notes(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
+{
+	size_t nk = count_kinks(sv);
+
+	if (nk > 0)
+		fprintf(fp, "\n* A pinch changes at %zu datum%s: its derivatives "
+			"are shown from the left | from the right.\n", nk,
+			nk == 1 ? "" : "s");
+	if (sv->nactive > 1)
+		fprintf(fp, "The targets rest on %zu boundaries of the cascade "
+			"at once; data between them have one-sided "
+			"derivatives.\n", sv->nactive);
+	text_short_spans(fp, c, sv);
+	if (sv->collapsed > 0)
+		fprintf(fp, "%zu segment%s span%s less than twice %s "
+			"temperature tolerance; the band takes %s as vanishing "
+			"at the worst corner.\n", sv->collapsed,
+			sv->collapsed == 1 ? "" : "s",
+			sv->collapsed == 1 ? "s" : "", sv->collapsed == 1 ?
+			"its" : "their", sv->collapsed == 1 ? "it" : "them");
+	if (sv->cost == HL_SENS_COST_LEVELS)
+		fprintf(fp, "Utility cost: the case has several utility levels, "
+			"whose cost the utility LP sets;\nits cost derivatives "
+			"are not part of this table yet.\n");
+	else if (sv->cost == HL_SENS_COST_SINGLE)
+		fprintf(fp, "Cost: (hot price × QHmin + cold price × QCmin) × %g "
+			"h per year, in %s.\n", c->set.hours,
+			c->set.currency ? c->set.currency : "currency");
+}
+
+void
+hl_sensitivity_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
+		    const hl_sensitivity *sv)
+{
+	text_headline(fp, c, cas);
+	text_first(fp, c, sv);
+	text_table(fp, c, sv);
+	fprintf(fp, "\nΔTmin: each kelvin more needs %.2f kW more hot and %.2f "
+		"kW more cold utility", sv->dt.hot_plus, sv->dt.cold_plus);
+	if (sv->dt.kink)
+		fprintf(fp, " (%.2f and %.2f per kelvin less: a pinch changes "
+			"here)", sv->dt.hot_minus, sv->dt.cold_minus);
+	fprintf(fp, ".\n\nWith every datum off by its tolerance at once, in the "
+		"worst direction (re-solved at\nthe two corners of the "
+		"tolerance box where each target is largest and smallest):\n");
+	text_band(fp, "QHmin", &sv->hot);
+	text_band(fp, "QCmin", &sv->cold);
+	if (band_differs(&sv->hot) || band_differs(&sv->cold))
+		fprintf(fp, "The first-order estimate differs from the re-solved "
+			"range: within the tolerances cp\nand temperature errors "
+			"compound, or the pinch moves to another boundary; the\n"
+			"re-solved range is the one to quote.\n");
+	text_notes(fp, c, sv);
+	fprintf(fp, "\nScreening estimates: measurement plans, detailed design "
+		"and the safety review of each\nmatch belong to qualified "
+		"engineers under local codes.\n");
+}
+
+/* Attributes shared by <sensitivity> and <sensitivity-dtmin>. */
+static int
+xml_derivs(xmlTextWriterPtr w, const hl_sensitivity *sv, const hl_sens_row *r)
+{
+	int rc = 0;
+
+	rc |= hl_xml_num(w, "hot-minus", r->hot_minus);
+	rc |= hl_xml_num(w, "hot-plus", r->hot_plus);
+	rc |= hl_xml_num(w, "cold-minus", r->cold_minus);
+	rc |= hl_xml_num(w, "cold-plus", r->cold_plus);
+	if (sv->cost == HL_SENS_COST_SINGLE) {
+		rc |= hl_xml_num(w, "cost-minus", r->cost_minus);
+		rc |= hl_xml_num(w, "cost-plus", r->cost_plus);
+	}
+	if (r->kink)
+		rc |= hl_xml_str(w, "pinch-change", "yes");
+	return rc;
+}
+
+static int
+xml_row(xmlTextWriterPtr w, const hl_case *c, const hl_sensitivity *sv,
+	const hl_sens_row *r)
+{
+	int rc = 0;
+
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "sensitivity");
+	rc |= hl_xml_str(w, "stream", c->stream[r->stream].name);
+	rc |= hl_xml_str(w, "quantity", hl_sensitivity_quantity_name(r->q));
+	if (!is_temperature(r->q) && c->stream[r->stream].nseg > 1)
+		rc |= hl_xml_int(w, "segment", (long)r->segment + 1);
+	rc |= hl_xml_num(w, "value", r->value);
+	rc |= hl_xml_num(w, "tolerance", r->tol);
+	rc |= xml_derivs(w, sv, r);
+	rc |= hl_xml_num(w, "hot-down", r->hot_down);
+	rc |= hl_xml_num(w, "hot-up", r->hot_up);
+	rc |= hl_xml_num(w, "cold-down", r->cold_down);
+	rc |= hl_xml_num(w, "cold-up", r->cold_up);
+	rc |= hl_xml_int(w, "rank", (long)r->rank);
+	rc |= xmlTextWriterEndElement(w);
+	return rc;
+}
+
+static int
+xml_band(xmlTextWriterPtr w, const char *target, const hl_sens_band *b)
+{
+	int rc = 0;
+
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "sensitivity-band");
+	rc |= hl_xml_str(w, "target", target);
+	rc |= hl_xml_num(w, "nominal", b->nominal);
+	rc |= hl_xml_num(w, "low", b->low);
+	rc |= hl_xml_num(w, "high", b->high);
+	rc |= hl_xml_num(w, "linear-low", b->lin_low);
+	rc |= hl_xml_num(w, "linear-high", b->lin_high);
+	rc |= xmlTextWriterEndElement(w);
+	return rc;
+}
+
+static const char *
+cost_basis_name(hl_sens_cost_basis b)
+{
+	return b == HL_SENS_COST_SINGLE ? "single" :
+	       b == HL_SENS_COST_LEVELS ? "levels" : "none";
+}
+
+int
+hl_sensitivity_xml(xmlTextWriterPtr w, const hl_case *c,
+		   const hl_sensitivity *sv)
+{
+	size_t i;
+	int rc = 0;
+
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "sensitivity-summary");
+	rc |= hl_xml_num(w, "dtmin", sv->dtmin);
+	rc |= hl_xml_int(w, "boundaries", (long)sv->nactive);
+	rc |= hl_xml_str(w, "cost", cost_basis_name(sv->cost));
+	rc |= hl_xml_int(w, "collapsed", (long)sv->collapsed);
+	rc |= xmlTextWriterEndElement(w);
+	for (i = 0; i < sv->nrow && rc >= 0; i++)
+		rc |= xml_row(w, c, sv, &sv->row[i]);
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "sensitivity-dtmin");
+	rc |= hl_xml_num(w, "value", sv->dt.value);
+	rc |= xml_derivs(w, sv, &sv->dt);
+	rc |= xmlTextWriterEndElement(w);
+	rc |= xml_band(w, "hot", &sv->hot);
+	rc |= xml_band(w, "cold", &sv->cold);
+	return rc < 0 ? -1 : 0;
+}
+
+/* A CSV field, quoted when it holds a comma, quote or line break. */
+static void
+csv_text(FILE *fp, const char *s)
+{
+	if (strpbrk(s, ",\"\r\n") == NULL) {
+		fputs(s, fp);
+		return;
+	}
+	fputc('"', fp);
+	for (; *s; s++) {
+		if (*s == '"')
+			fputc('"', fp);
+		fputc(*s, fp);
+	}
+	fputc('"', fp);
+}
+
+static void
+csv_num(FILE *fp, double v)
+{
+	char b[64];
+
+	fputc(',', fp);
+	if (isnan(v))
+		return;
+	hl_format_number(b, sizeof b, v);
+	fputs(b, fp);
+}
+
+static void
+csv_row(FILE *fp, const hl_case *c, const hl_sens_row *r)
+{
+	if (r->q == HL_SENS_DTMIN) {
+		fprintf(fp, ",,dtmin,");
+	} else {
+		fprintf(fp, "%zu,", r->rank);
+		csv_text(fp, c->stream[r->stream].name);
+		fprintf(fp, ",%s,", hl_sensitivity_quantity_name(r->q));
+		if (!is_temperature(r->q))
+			fprintf(fp, "%zu", r->segment + 1);
+	}
+	csv_num(fp, r->value);
+	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->tol);
+	csv_num(fp, r->hot_minus);
+	csv_num(fp, r->hot_plus);
+	csv_num(fp, r->cold_minus);
+	csv_num(fp, r->cold_plus);
+	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->hot_down);
+	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->hot_up);
+	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_down);
+	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_up);
+	csv_num(fp, r->cost_minus);
+	csv_num(fp, r->cost_plus);
+	fprintf(fp, ",%d\n", r->kink);
+}
+
+void
+hl_sensitivity_csv(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
+{
+	size_t i;
+
+	fprintf(fp, "rank,stream,quantity,segment,value,tolerance,hot_minus,"
+		"hot_plus,cold_minus,cold_plus,hot_down,hot_up,cold_down,"
+		"cold_up,cost_minus,cost_plus,pinch_change\n");
+	for (i = 0; i < sv->nrow; i++)
+		csv_row(fp, c, &sv->row[i]);
+	csv_row(fp, c, &sv->dt);
+}
