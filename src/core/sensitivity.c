@@ -340,6 +340,8 @@ hl_sensitivity_quantity_name(hl_sens_quantity q)
 double
 hl_sensitivity_effect(const hl_sens_row *r)
 {
+	if (!isnan(r->cost_plus))
+		return fmax(fabs(r->cost_plus), fabs(r->cost_minus)) * r->tol;
 	return fmax(fmax(r->hot_down, r->hot_up), fmax(r->cold_down, r->cold_up));
 }
 

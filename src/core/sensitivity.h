@@ -104,7 +104,9 @@ hl_status hl_sensitivity_compute(const hl_case *c, const hl_cascade *cas,
 				 hl_sensitivity **out, hl_error *err);
 void hl_sensitivity_free(hl_sensitivity *s);
 
-/* The effect used for ranking: the largest of a row's four moves (kW). */
+/* The effect used for ranking: with a known utility cost, how far it moves
+ * (first order) over ±tol, currency per year; else the largest of the row's
+ * four moves, kW. */
 double hl_sensitivity_effect(const hl_sens_row *r);
 
 /* The hook for several utility levels. With its balance rows at shifted

@@ -168,7 +168,8 @@ text_first(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 	size_t i, n = 0;
 
 	fprintf(fp, "\nCheck these measurements first (largest effect on the "
-		"targets within their tolerances):\n");
+		"%s within their tolerances):\n", sv->cost ==
+		HL_SENS_COST_SINGLE ? "utility cost" : "targets");
 	for (i = 0; i < sv->nrow && n < 3; i++) {
 		const hl_sens_row *r = &sv->row[sv->rank[i]];
 		char v[48], t[32], h[48], k[48];
@@ -184,7 +185,14 @@ text_first(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 		if (!is_temperature(r->q) && c->stream[r->stream].nseg > 1)
 			fprintf(fp, " (segment %zu)", r->segment + 1);
 		fprintf(fp, " (%s): a %s error in it moves QHmin by %s kW and "
-			"QCmin by %s kW\n", v, t, h, k);
+			"QCmin by %s kW", v, t, h, k);
+		if (sv->cost == HL_SENS_COST_SINGLE) {
+			move_text(h, sizeof h, r->cost_minus, r->cost_plus,
+				  r->tol, 0);
+			fprintf(fp, ",\n     the utility cost by %s %s a year", h,
+				c->set.currency ? c->set.currency : "");
+		}
+		fputc('\n', fp);
 	}
 	if (n == 0)
 		fprintf(fp, "  none: no datum moves the targets by %.2f kW or "
