@@ -639,6 +639,50 @@ test_surplus_hook(void **state)
 	}
 }
 
+/* The hook with t tied to the supply end that the row moves: the surplus
+ * at the moving end, against finite differences that move both. */
+static void
+test_surplus_hook_tied(void **state)
+{
+	hl_rng rng;
+	int n, checked = 0;
+
+	(void)state;
+	hl_rng_seed(&rng, 16);
+	for (n = 0; n < 40; n++) {
+		hl_case *c = varied_case(&rng, 2, 3);
+		hl_sensitivity *s = sens(c, 10.0);
+		size_t i;
+
+		for (i = 0; i < s->nrow; i++) {
+			const hl_sens_row *r = &s->row[i];
+			const hl_stream *st = &c->stream[r->stream];
+			double h = 1e-4, minus, plus, t, r0, rp, rm;
+			hl_case *p, *m;
+
+			if (r->q != HL_SENS_SUPPLY)
+				continue;
+			t = hl_stream_supply(st) + hl_stream_shift(st, 10.0) *
+			    (st->kind == HL_HOT ? -1 : 1);
+			p = perturbed(c, r, h);
+			m = perturbed(c, r, -h);
+			r0 = surplus_above(c, 10.0, t);
+			rp = surplus_above(p, 10.0, t + h);
+			rm = surplus_above(m, 10.0, t - h);
+			assert_int_equal(hl_sensitivity_surplus(c, 10.0, r, t, 1,
+				&minus, &plus, NULL), HL_OK);
+			check_fd(minus, plus, !near(minus, plus, 1e-12), r0, rp,
+				 rm, h, "surplus at the moving end");
+			checked++;
+			hl_case_free(p);
+			hl_case_free(m);
+		}
+		hl_sensitivity_free(s);
+		hl_case_free(c);
+	}
+	assert_true(checked > 100);
+}
+
 static void
 add_utility(hl_case *c, const char *name, hl_kind kind, double t, double price)
 {
@@ -743,6 +787,7 @@ main(void)
 		cmocka_unit_test(test_band_contains_corners),
 		cmocka_unit_test(test_linear_band_small_box),
 		cmocka_unit_test(test_surplus_hook),
+		cmocka_unit_test(test_surplus_hook_tied),
 		cmocka_unit_test(test_cost),
 		cmocka_unit_test(test_bad_tolerance),
 		cmocka_unit_test(test_collapse),
