@@ -102,10 +102,12 @@ work_init(work *w, const hl_case *c, double dtmin, hl_error *err)
 		sh = s->kind == HL_HOT ? -sh : sh;
 		w->first[i] = n;
 		for (j = 0; j < s->nseg; j++, n++) {
+			const hl_segment *g = &s->seg[j];
+
 			w->g[n].sign = s->kind == HL_HOT ? 1.0 : -1.0;
-			w->g[n].hi = fmax(s->seg[j].supply, s->seg[j].target) + sh;
-			w->g[n].lo = fmin(s->seg[j].supply, s->seg[j].target) + sh;
-			w->g[n].cp = s->seg[j].cp;
+			w->g[n].hi = fmax(g->supply, g->target) + sh;
+			w->g[n].lo = fmin(g->supply, g->target) + sh;
+			w->g[n].cp = g->cp;
 		}
 	}
 	return HL_OK;
@@ -266,13 +268,15 @@ dir_add(work *w, const hl_sens_row *r, double k)
 
 	if (r->q == HL_SENS_DTMIN) {
 		for (i = 0; i < w->c->nstream; i++) {
+			double v = w->c->stream[i].kind == HL_HOT ? -0.5 : 0.5;
+
 			s = &w->c->stream[i];
 			if (!isnan(s->dt_contrib))
 				continue;
 			for (j = 0; j < s->nseg; j++) {
 				g = w->first[i] + j;
-				w->d[g].dhi += k * (s->kind == HL_HOT ? -0.5 : 0.5);
-				w->d[g].dlo += k * (s->kind == HL_HOT ? -0.5 : 0.5);
+				w->d[g].dhi += k * v;
+				w->d[g].dlo += k * v;
 			}
 		}
 		return;
@@ -320,8 +324,10 @@ row_derivatives(work *w, hl_sens_row *r)
 	r->cold_plus = r->hot_plus + bal;
 	r->cold_minus = r->hot_minus + bal;
 	r->kink = differ(r->hot_plus, r->hot_minus);
-	r->hot_up = fmax(0.0, fmax(r->hot_plus * r->tol, -r->hot_minus * r->tol));
-	r->hot_down = fmax(0.0, fmax(-r->hot_plus * r->tol, r->hot_minus * r->tol));
+	r->hot_up = fmax(0.0, fmax(r->hot_plus * r->tol,
+				   -r->hot_minus * r->tol));
+	r->hot_down = fmax(0.0, fmax(-r->hot_plus * r->tol,
+				     r->hot_minus * r->tol));
 	r->cold_up = fmax(0.0, fmax(r->cold_plus * r->tol,
 				    -r->cold_minus * r->tol));
 	r->cold_down = fmax(0.0, fmax(-r->cold_plus * r->tol,
@@ -353,7 +359,8 @@ check_tolerances(const hl_case *c, hl_error *err)
 	if (!(c->set.cp_tol >= 0.0 && c->set.cp_tol < 1.0) ||
 	    !(c->set.t_tol >= 0.0 && c->set.t_tol <= 100.0))
 		return hl_error_set(err, HL_EINPUT, c->source, 0, "the default "
-			"cp_tol must lie in [0, 1) and t_tol between 0 and 100 K");
+			"cp_tol must lie in [0, 1) and t_tol between 0 and "
+			"100 K");
 	for (i = 0; i < c->nstream; i++) {
 		const hl_stream *s = &c->stream[i];
 
@@ -500,8 +507,11 @@ corner_sign(const hl_case *c, const hl_sens_row *r, int cold)
 		sg = r->q == HL_SENS_SUPPLY ? -1.0 : 1.0;
 	if (!cold)
 		return sg;
-	/* QCmin: the same with hot and cold swapped for cp, duty and the ends
-	 * of a duty segment; a cp segment's ends turn round. */
+	/* QCmin, the deficit below T: cp, duty and the ends of a cp segment
+	 * turn round (a larger, wider hot segment, a smaller, narrower cold
+	 * one); the ends of a duty segment keep their direction (a cooler hot
+	 * segment puts more of its heat low, a warmer cold one less of its
+	 * demand). */
 	if (r->q == HL_SENS_CP || r->q == HL_SENS_DUTY)
 		return -sg;
 	return s->seg[j].by_duty ? sg : -sg;
@@ -549,7 +559,8 @@ corner_segments(const hl_case *c, const hl_sensitivity *sv, size_t *ri,
 			span = fabs(seg[j].supply - seg[j].target);
 		}
 		if (o->by_duty)
-			seg[j].cp = o->cp * fabs(o->supply - o->target) * f / span;
+			seg[j].cp = o->cp * fabs(o->supply - o->target) * f /
+				    span;
 		else
 			seg[j].cp = o->cp * f;
 	}

@@ -60,8 +60,9 @@ datum_label(char *buf, size_t size, const hl_case *c, const hl_sens_row *r)
 	const hl_stream *s = &c->stream[r->stream];
 
 	if (!is_temperature(r->q) && s->nseg > 1)
-		snprintf(buf, size, "%s %zu/%zu", hl_sensitivity_quantity_name(r->q),
-			 r->segment + 1, s->nseg);
+		snprintf(buf, size, "%s %zu/%zu",
+			 hl_sensitivity_quantity_name(r->q), r->segment + 1,
+			 s->nseg);
 	else
 		snprintf(buf, size, "%s", hl_sensitivity_quantity_name(r->q));
 }
