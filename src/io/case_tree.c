@@ -54,7 +54,7 @@ fail(walk *w, xmlNodePtr n, hl_status st, const char *fmt, ...)
 	va_start(ap, fmt);
 	vsnprintf(text, sizeof text, fmt, ap);
 	va_end(ap);
-	return hl_error_set(w->err, st, w->o->file, n ? xmlGetLineNo(n) : 0,
+	return hl_error_set(w->err, st, w->o->file, n ? hl_xattr_line(n) : 0,
 			    "%s", text);
 }
 
@@ -64,32 +64,59 @@ check(walk *w, xmlNodePtr n, const hl_xattr *spec, size_t nspec)
 	return hl_xattr_check(n, spec, nspec, w->o->file, w->err);
 }
 
+static int
+blank(char ch)
+{
+	return ch == ' ' || ch == '\t' || ch == '\r' || ch == '\n';
+}
+
+/* The first words of a text node, on one line, and the line they start on:
+ * libxml2 dates a text node by the line where it ends. */
+static long
+text_start(xmlNodePtr t, char *snip, size_t size)
+{
+	const char *p = (const char *)t->content;
+	long line = hl_xattr_line(t);
+	size_t k = 0;
+	int gap = 0;
+
+	while (blank(*p))
+		p++;
+	for (; *p != '\0'; p++) {
+		if (*p == '\n')
+			line--;
+		if (blank(*p)) {
+			gap = 1;
+			continue;
+		}
+		if (k + 2 < size) {
+			if (gap && k > 0)
+				snip[k++] = ' ';
+			snip[k++] = *p;
+		}
+		gap = 0;
+	}
+	snip[k] = '\0';
+	return line;
+}
+
 /* Only blanks may sit between the child elements of n. */
 static hl_status
 check_text(walk *w, xmlNodePtr n)
 {
 	xmlNodePtr ch;
+	char snip[32];
 
 	for (ch = n->children; ch != NULL; ch = ch->next) {
-		char snip[32];
-		const char *p;
-		size_t k = 0;
-
 		if (ch->type != XML_TEXT_NODE &&
 		    ch->type != XML_CDATA_SECTION_NODE)
 			continue;
 		if (xmlIsBlankNode(ch))
 			continue;
-		for (p = (const char *)ch->content; *p == ' ' || *p == '\t' ||
-		     *p == '\r' || *p == '\n'; p++)
-			;
-		for (; *p != '\0' && k < sizeof snip - 1; p++)
-			snip[k++] = (*p == '\n' || *p == '\r' || *p == '\t') ?
-				    ' ' : *p;
-		snip[k] = '\0';
-		return fail(w, ch, HL_EINPUT, "text '%s' inside <%s>; values "
-			"belong in attributes (see doc/case-file.md)", snip,
-			name_of(n));
+		return hl_error_set(w->err, HL_EINPUT, w->o->file,
+			text_start(ch, snip, sizeof snip), "text '%s' inside "
+			"<%s>; values belong in attributes (see "
+			"doc/case-file.md)", snip, name_of(n));
 	}
 	return HL_OK;
 }
@@ -317,7 +344,7 @@ read_ends(walk *w, xmlNodePtr n, const char *name, double h, hl_segment *g)
 	g->supply = num(n, "supply");
 	g->target = num(n, "target");
 	g->h = isnan(num(n, "h")) ? h : num(n, "h");
-	g->line = xmlGetLineNo(n);
+	g->line = hl_xattr_line(n);
 	if (isnan(g->supply) || isnan(g->target))
 		return fail(w, n, HL_EINPUT, "stream '%s' needs supply and "
 			"target (" U_T "), or <segment> children", name);
@@ -422,7 +449,7 @@ read_stream(walk *w, xmlNodePtr n)
 	s.cp_tol = num(n, "cp-tol");
 	s.t_tol = num(n, "t-tol");
 	s.file = (char *)w->o->file;
-	s.line = xmlGetLineNo(n);
+	s.line = hl_xattr_line(n);
 	s.nseg = nseg ? nseg : 1;
 	s.seg = nseg ? calloc(nseg, sizeof *s.seg) : &one;
 	if (s.seg == NULL)
@@ -469,7 +496,7 @@ read_utility(walk *w, xmlNodePtr n)
 	u.max_load = num(n, "max-load");
 	u.dt_contrib = num(n, "dt-contrib");
 	u.file = (char *)w->o->file;
-	u.line = xmlGetLineNo(n);
+	u.line = hl_xattr_line(n);
 	return hl_case_add_utility(w->c, &u, w->err);
 }
 
@@ -500,7 +527,7 @@ read_rule(walk *w, xmlNodePtr n, hl_rule_kind kind)
 		r.reason = NULL;
 	r.max_duty = kind == HL_RULE_MAX_DUTY ? num(n, "max-duty") : NAN;
 	r.file = (char *)w->o->file;
-	r.line = xmlGetLineNo(n);
+	r.line = hl_xattr_line(n);
 	return hl_case_add_rule(w->c, &r, w->err);
 }
 
@@ -562,7 +589,7 @@ read_unit(walk *w, xmlNodePtr n)
 	u.area = num(n, "area");
 	u.shells = isnan(num(n, "shells")) ? 0 : (int)num(n, "shells");
 	u.file = (char *)w->o->file;
-	u.line = xmlGetLineNo(n);
+	u.line = hl_xattr_line(n);
 	if (!(u.duty > 0.0))
 		return fail(w, n, HL_EINPUT, "unit '%s': duty must be > 0 kW",
 			    u.name);

@@ -12,6 +12,7 @@
  */
 #include <errno.h>
 #include <limits.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -25,6 +26,7 @@
 #include "case_rng.h"
 #include "case_tree.h"
 #include "case_xml.h"
+#include "xml_attr.h"
 
 /* The file size a case file may have; referenced CSV tables may be larger. */
 #define CASE_XML_MAX ((size_t)256 << 20)
@@ -35,6 +37,10 @@ typedef struct {
 	int rank;         /* a later report replaces a lower-ranked one */
 	long line;
 	char text[HL_ERROR_TEXT];
+	startElementNsSAX2Func start; /* libxml2's own element handler */
+	long *lines;      /* line of every element, in document order */
+	size_t nlines, cap;
+	int nomem;
 	int entity;       /* an entity declaration was refused */
 	long entity_line;
 	char entity_name[64];
@@ -112,7 +118,7 @@ on_error(void *data, xmlErrorPtr e)
 	d->rank = rank;
 	d->line = e->line;
 	if (d->line <= 0 && e->node != NULL)
-		d->line = xmlGetLineNo((xmlNodePtr)e->node);
+		d->line = hl_xattr_line((xmlNodePtr)e->node);
 	copy_message(msg, sizeof msg, e->message);
 	if (e->domain == XML_FROM_RELAXNGV)
 		snprintf(d->text, sizeof d->text, "the case file does not "
@@ -168,6 +174,48 @@ on_unparsed_entity_decl(void *ctx, const xmlChar *name,
 	refuse_entity(ctx, name);
 }
 
+/* libxml2 stores element lines in 16 bits, so the parser notes each
+ * element's line here, in document order; the RelaxNG validator uses psvi
+ * for its own ends, so the lines go there only after it is done. */
+static void
+on_start_element(void *ctx, const xmlChar *name, const xmlChar *prefix,
+		 const xmlChar *uri, int nns, const xmlChar **ns, int nattr,
+		 int ndefault, const xmlChar **attr)
+{
+	xmlParserCtxtPtr p = ctx;
+	diag *d = p->_private;
+
+	d->start(ctx, name, prefix, uri, nns, ns, nattr, ndefault, attr);
+	if (d->nlines == d->cap) {
+		size_t ncap = d->cap ? 2 * d->cap : 256;
+		long *l = realloc(d->lines, ncap * sizeof *l);
+
+		if (l == NULL) {
+			d->nomem = 1;
+			xmlStopParser(p);
+			return;
+		}
+		d->lines = l;
+		d->cap = ncap;
+	}
+	d->lines[d->nlines++] = p->input ? (long)p->input->line : 0;
+}
+
+/* Hand the big line numbers to hl_xattr_line(); returns the next index. */
+static size_t
+restore_lines(xmlNodePtr n, const diag *d, size_t i)
+{
+	for (; n != NULL; n = n->next) {
+		if (n->type != XML_ELEMENT_NODE)
+			continue;
+		if (i < d->nlines)
+			n->psvi = d->lines[i] >= 65535 ?
+				  (void *)(ptrdiff_t)d->lines[i] : NULL;
+		i = restore_lines(n->children, d, i + 1);
+	}
+	return i;
+}
+
 /* The libxml2 handlers in force before the call, put back after it. */
 typedef struct {
 	xmlStructuredErrorFunc serror;
@@ -215,9 +263,12 @@ parse(const char *name, const char *data, size_t len, diag *d,
 	p->_private = d;
 	p->sax->entityDecl = on_entity_decl;
 	p->sax->unparsedEntityDecl = on_unparsed_entity_decl;
+	d->start = p->sax->startElementNs;
+	if (d->start != NULL)
+		p->sax->startElementNs = on_start_element;
 	xmlParseDocument(p);
 	doc = p->myDoc;
-	ok = p->wellFormed && !d->entity;
+	ok = p->wellFormed && !d->entity && !d->nomem;
 	p->myDoc = NULL;
 	xmlFreeParserCtxt(p);
 	if (ok && doc != NULL) {
@@ -225,6 +276,8 @@ parse(const char *name, const char *data, size_t len, diag *d,
 		return HL_OK;
 	}
 	xmlFreeDoc(doc);
+	if (d->nomem)
+		return hl_error_nomem(err);
 	if (d->entity)
 		return hl_error_set(err, HL_EINPUT, name, d->entity_line,
 			"the DOCTYPE declares the entity '%s'; case files may "
@@ -257,7 +310,10 @@ validate(xmlDocPtr doc, diag *d)
 		return -1;
 	vc = xmlRelaxNGNewValidCtxt(schema);
 	if (vc != NULL) {
-		memset(d, 0, sizeof *d);
+		d->have = 0;
+		d->rank = 0;
+		d->line = 0;
+		d->text[0] = '\0';
 		xmlRelaxNGSetValidStructuredErrors(vc, on_error, d);
 		rc = xmlRelaxNGValidateDoc(vc, doc);
 		rc = rc == 0 ? 1 : rc > 0 ? 0 : -1;
@@ -311,6 +367,7 @@ read_doc(hl_case *c, const char *name, const char *data, size_t len,
 	st = parse(name, data, len, &d, &doc, err);
 	if (st == HL_OK) {
 		valid = validate(doc, &d);
+		restore_lines(doc->children, &d, 0);
 		if (valid < 0)
 			st = hl_error_set(err, HL_EIO, name, 0, "internal "
 				"error: the built-in case schema cannot be "
@@ -322,6 +379,7 @@ read_doc(hl_case *c, const char *name, const char *data, size_t len,
 		xmlFreeDoc(doc);
 	}
 	handlers_restore(&h);
+	free(d.lines);
 	return st;
 }
 

@@ -103,7 +103,8 @@ read_shells(hl_table *t, hl_unit *u, hl_error *err)
 	if (!hl_parse_count(s, &n))
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
 			"unit '%s': shells '%.40s' is not a whole number from "
-			"1 to %d", u->name, s, HL_COUNT_MAX);
+			"1 to %d; give the number of shells in series, or "
+			"leave the cell empty", u->name, s, HL_COUNT_MAX);
 	u->shells = (int)n;
 	return HL_OK;
 }

@@ -248,5 +248,9 @@ hl_xattr_number(xmlNodePtr n, const char *name)
 long
 hl_xattr_line(xmlNodePtr n)
 {
+	/* An element holds at most 65535 in its line field; the parser of
+	 * case_xml.c keeps larger lines in psvi, unused by libxml2's tree. */
+	if (n->type == XML_ELEMENT_NODE && n->line == 65535 && n->psvi != NULL)
+		return (long)(ptrdiff_t)n->psvi;
 	return xmlGetLineNo(n);
 }

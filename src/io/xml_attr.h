@@ -49,7 +49,7 @@ const char *hl_xattr_text(xmlNodePtr n, const char *name);
  * absent. */
 double hl_xattr_number(xmlNodePtr n, const char *name);
 
-/* Line of an element in its file. */
+/* Line of an element (where its start tag ends) or of a text node. */
 long hl_xattr_line(xmlNodePtr n);
 
 #endif
