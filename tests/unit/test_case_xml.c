@@ -606,6 +606,78 @@ test_parse_count(void **state)
 	assert_false(hl_parse_count("3 4", &n));
 }
 
+/* The whole of a file (the manual), NUL-terminated. */
+static char *
+slurp(const char *path)
+{
+	FILE *f = fopen(path, "rb");
+	char *buf;
+	long n;
+
+	assert_non_null(f);
+	fseek(f, 0, SEEK_END);
+	n = ftell(f);
+	rewind(f);
+	buf = malloc((size_t)n + 1);
+	assert_non_null(buf);
+	assert_int_equal(fread(buf, 1, (size_t)n, f), (size_t)n);
+	buf[n] = '\0';
+	fclose(f);
+	return buf;
+}
+
+/* The examples of doc/case-file.md read as the manual says, so that the
+ * manual cannot drift from the reader. */
+static void
+test_manual_examples(void **state)
+{
+	char *doc = slurp("../../doc/case-file.md");
+	char *x = strstr(doc, "```xml\n"), *end, *csv, *p, *q;
+	hl_case *c = hl_case_create();
+	hl_error e;
+
+	(void)state;
+	hl_error_clear(&e);
+	assert_non_null(x);
+	x += 7;
+	end = strstr(x, "```");
+	assert_non_null(end);
+	if (hl_case_xml_read_mem(c, "example.xml", x, (size_t)(end - x),
+				 NULL, &e) != HL_OK ||
+	    hl_case_validate(c, &e) != HL_OK)
+		fail_msg("manual example: %s:%ld: %s", e.file, e.line, e.text);
+	assert_int_equal(c->nstream, 5);
+	assert_int_equal(c->stream[3].nseg, 2);
+	assert_num(c->stream[3].seg[1].cp, 3.2);
+	assert_num(c->stream[2].seg[0].cp, 20.0);
+	assert_int_equal(c->nutil, 3);
+	assert_int_equal(c->nrule, 3);
+	assert_int_equal(c->nunit, 3);
+	assert_int_equal(c->set.area_policy, HL_AREAS_PENALISE);
+	hl_case_free(c);
+
+	/* The network table: the indented block after its heading. */
+	csv = strstr(doc, "## Network table (CSV)");
+	assert_non_null(csv);
+	csv = strstr(csv, "\n    name,");
+	assert_non_null(csv);
+	for (p = q = csv + 1; strncmp(p, "    ", 4) == 0; ) {
+		p += 4;
+		while (*p != '\n' && *p != '\0')
+			*q++ = *p++;
+		if (*p == '\n')
+			*q++ = *p++;
+	}
+	c = hl_case_create();
+	assert_int_equal(hl_network_table_read_mem(c, "example.csv", csv + 1,
+		(size_t)(q - csv - 1), &e), HL_OK);
+	assert_int_equal(c->nunit, 3);
+	assert_num(c->unit[0].duty, 1008.0);
+	assert_int_equal(c->unit[0].shells, 1);
+	hl_case_free(c);
+	free(doc);
+}
+
 static int
 enter_data(void **state)
 {
@@ -645,6 +717,7 @@ main(void)
 		cmocka_unit_test(test_network_table),
 		cmocka_unit_test(test_network_errors),
 		cmocka_unit_test(test_parse_count),
+		cmocka_unit_test(test_manual_examples),
 	};
 
 	return cmocka_run_group_tests(tests, enter_data, leave);
