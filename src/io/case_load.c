@@ -4,6 +4,7 @@
 #include <string.h>
 
 #include "case_load.h"
+#include "case_xml.h"
 #include "tables.h"
 
 /* 1 when the file looks like XML, 0 when not, -1 when it cannot be read. */
@@ -48,11 +49,8 @@ hl_case_load(const char *path, const char *utilities, hl_case **out,
 		hl_case_free(c);
 		return hl_error_nomem(err);
 	}
-	if (xml)
-		st = hl_error_set(err, HL_EINPUT, path, 0,
-			"XML case files are not read yet; give a stream table");
-	else
-		st = hl_stream_table_read(c, path, err);
+	st = xml ? hl_case_xml_read(c, path, err) :
+		   hl_stream_table_read(c, path, err);
 	if (st == HL_OK && utilities != NULL)
 		st = hl_utility_table_read(c, utilities, err);
 	if (st != HL_OK) {
