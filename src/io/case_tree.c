@@ -341,6 +341,8 @@ read_ends(walk *w, xmlNodePtr n, const char *name, double h, hl_segment *g)
 {
 	double cp = num(n, "cp"), duty = num(n, "duty"), span;
 
+	memset(g, 0, sizeof *g);
+	g->by_duty = isnan(cp);
 	g->supply = num(n, "supply");
 	g->target = num(n, "target");
 	g->h = isnan(num(n, "h")) ? h : num(n, "h");
