@@ -11,6 +11,7 @@
 
 static const hl_command *const commands[] = {
 	&hl_cmd_targets,
+	&hl_cmd_size,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 

@@ -21,6 +21,7 @@ typedef struct {
 } hl_command;
 
 extern const hl_command hl_cmd_targets;
+extern const hl_command hl_cmd_size;
 
 /* Output formats a command may accept. */
 typedef enum { HL_FMT_TEXT, HL_FMT_XML, HL_FMT_CSV } hl_format;

@@ -1,0 +1,676 @@
+/* size_out.c - writers of the sized exchanger list (size_out.h).
+ *
+ * The text table is laid out in two passes over the same cell strings: one
+ * to measure every column, one to print, so that long names and large
+ * numbers never break the alignment. Widths count UTF-8 characters, not
+ * bytes, because the headers carry °C and m².
+ */
+#include <math.h>
+#include <stdarg.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "size_out.h"
+
+const char *
+hl_size_type_name(hl_exchanger_type type)
+{
+	return type == HL_EXCH_COUNTERFLOW ? "counterflow" : "shell-and-tube";
+}
+
+int
+hl_size_row_cross(const hl_size_row *row)
+{
+	return row->spec.cold_out > row->spec.hot_out;
+}
+
+/* Display width of a UTF-8 string: one per character. */
+/* Display width of the first len bytes of a UTF-8 string: one per
+ * character. */
+static size_t
+width_n(const char *s, size_t len)
+{
+	size_t i, n = 0;
+
+	for (i = 0; i < len && s[i] != '\0'; i++)
+		n += ((unsigned char)s[i] & 0xC0) != 0x80;
+	return n;
+}
+
+static size_t
+text_width(const char *s)
+{
+	return width_n(s, strlen(s));
+}
+
+/* A line that holds back its spaces until something follows them, so that
+ * no line of the table ends in blanks. */
+typedef struct {
+	FILE *fp;
+	size_t pending;
+} line;
+
+static void
+put(line *l, const char *s)
+{
+	for (; *s != '\0'; s++) {
+		if (*s == ' ') {
+			l->pending++;
+			continue;
+		}
+		for (; l->pending > 0; l->pending--)
+			fputc(' ', l->fp);
+		fputc(*s, l->fp);
+	}
+}
+
+static void
+pad(line *l, size_t n)
+{
+	l->pending += n;
+}
+
+static void
+end_line(line *l)
+{
+	l->pending = 0;
+	fputc('\n', l->fp);
+}
+
+/* s broken at spaces into lines of at most width characters, the first
+ * led by `first`, the others by `next`. */
+static void
+wrapped(FILE *fp, const char *s, const char *first, const char *next,
+	size_t width)
+{
+	const char *lead = first;
+	size_t col = 0, n, w;
+
+	for (;;) {
+		s += strspn(s, " ");
+		if (*s == '\0')
+			break;
+		n = strcspn(s, " ");
+		w = width_n(s, n);
+		if (col > 0 && col + 1 + w > width) {
+			fputc('\n', fp);
+			col = 0;
+			lead = next;
+		}
+		if (col == 0) {
+			fputs(lead, fp);
+			col = text_width(lead);
+		} else {
+			fputc(' ', fp);
+			col++;
+		}
+		fwrite(s, 1, n, fp);
+		col += w;
+		s += n;
+	}
+	fputc('\n', fp);
+}
+
+/* The columns after the unit's name. */
+enum { K_TYPE, K_DUTY, K_HIN, K_HOUT, K_CIN, K_COUT, K_U, K_LMTD, K_P, K_R,
+       K_F, K_SHELLS, K_AREA, K_ASHELL, K_COST, K_NOTE, K_COUNT };
+
+static const struct {
+	const char *head;
+	const char *unit;
+} column[K_COUNT] = {
+	{ "type", "" }, { "duty", "kW" }, { "hot in", "°C" },
+	{ "hot out", "°C" }, { "cold in", "°C" }, { "cold out", "°C" },
+	{ "U", "kW/(m²K)" }, { "LMTD", "K" }, { "P", "" }, { "R", "" },
+	{ "F", "" }, { "shells", "" }, { "area", "m²" },
+	{ "per shell", "m²" }, { "cost", "" }, { "note", "" }
+};
+
+/* Left-aligned columns; the others are numbers, right-aligned. */
+static int
+left_aligned(size_t k)
+{
+	return k == K_TYPE || k == K_NOTE;
+}
+
+#define CELL 32
+
+/* One table row as strings, with a '*' or ' ' after each value. */
+typedef struct {
+	char text[K_COUNT][CELL];
+	char mark[K_COUNT];
+} cells;
+
+/* Rounded for display, never "-0.0". */
+static void
+number(char *buf, int decimals, double v)
+{
+	snprintf(buf, CELL, "%.*f", decimals, v);
+	if (buf[0] == '-' && strspn(buf + 1, "0.") == strlen(buf + 1))
+		memmove(buf, buf + 1, strlen(buf));
+}
+
+static void
+sized_cells(const hl_size_row *row, cells *c)
+{
+	const hl_exchanger_sizing *z = &row->size;
+	int st = row->spec.type == HL_EXCH_SHELL_TUBE;
+	size_t k;
+
+	if (row->status != HL_OK) {
+		for (k = K_F; k <= K_COST; k++)
+			snprintf(c->text[k], CELL, "—");
+		snprintf(c->text[K_NOTE], CELL, "NOT SIZED");
+		return;
+	}
+	number(c->text[K_F], 3, z->f);
+	snprintf(c->text[K_SHELLS], CELL, "%d", z->shells);
+	if (st && (row->assumed & (HL_ASSUMED_FMIN | HL_ASSUMED_XP)))
+		c->mark[K_SHELLS] = '*';
+	number(c->text[K_AREA], 2, z->area);
+	number(c->text[K_ASHELL], 2, z->area_shell);
+	number(c->text[K_COST], 0, z->cost);
+	if (row->assumed & HL_ASSUMED_COST)
+		c->mark[K_COST] = '*';
+	snprintf(c->text[K_NOTE], CELL, "%s",
+	    hl_size_row_cross(row) ? "cross" : "");
+}
+
+static void
+row_cells(const hl_size_row *row, cells *c)
+{
+	const hl_exchanger_spec *s = &row->spec;
+	const hl_exchanger_sizing *z = &row->size;
+	size_t k;
+
+	for (k = 0; k < K_COUNT; k++)
+		c->mark[k] = ' ';
+	snprintf(c->text[K_TYPE], CELL, "%s",
+	    s->type == HL_EXCH_COUNTERFLOW ? "CF" : "S&T");
+	if (row->assumed & HL_ASSUMED_TYPE)
+		c->mark[K_TYPE] = '*';
+	number(c->text[K_DUTY], 1, s->duty);
+	number(c->text[K_HIN], 1, s->hot_in);
+	number(c->text[K_HOUT], 1, s->hot_out);
+	number(c->text[K_CIN], 1, s->cold_in);
+	number(c->text[K_COUT], 1, s->cold_out);
+	number(c->text[K_U], 3, s->u);
+	if (row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD))
+		c->mark[K_U] = '*';
+	number(c->text[K_LMTD], 2, z->lmtd);
+	number(c->text[K_P], 3, z->p);
+	if (isinf(z->r))
+		snprintf(c->text[K_R], CELL, "∞");
+	else
+		number(c->text[K_R], 3, z->r);
+	sized_cells(row, c);
+}
+
+typedef struct {
+	size_t name;
+	size_t col[K_COUNT];
+} widths;
+
+static size_t
+wider(size_t w, const char *s)
+{
+	size_t n = text_width(s);
+
+	return n > w ? n : w;
+}
+
+static void
+measure(const hl_size_result *r, widths *w)
+{
+	cells c;
+	size_t i, k;
+
+	w->name = text_width("unit");
+	for (k = 0; k < K_COUNT; k++)
+		w->col[k] = wider(text_width(column[k].head), column[k].unit);
+	for (i = 0; i < r->n; i++) {
+		w->name = wider(w->name, r->row[i].unit->name);
+		row_cells(&r->row[i], &c);
+		for (k = 0; k < K_COUNT; k++)
+			w->col[k] = wider(w->col[k], c.text[k]);
+	}
+}
+
+/* One cell after a blank, aligned in its width, then its mark. */
+static void
+put_cell(line *l, size_t k, size_t w, const char *s, char mark)
+{
+	size_t n = text_width(s);
+	char m[2] = { mark, '\0' };
+
+	pad(l, 1);
+	if (!left_aligned(k))
+		pad(l, w - n);
+	put(l, s);
+	put(l, m);
+	if (left_aligned(k))
+		pad(l, w - n);
+}
+
+static void
+put_name(line *l, const char *s, size_t w)
+{
+	put(l, s);
+	pad(l, w - text_width(s));
+}
+
+static void
+text_table(FILE *fp, const hl_size_result *r)
+{
+	line l = { fp, 0 };
+	widths w;
+	cells c;
+	size_t i, k;
+
+	measure(r, &w);
+	put_name(&l, "unit", w.name);
+	for (k = 0; k < K_COUNT; k++)
+		put_cell(&l, k, w.col[k], column[k].head, ' ');
+	end_line(&l);
+	put_name(&l, "", w.name);
+	for (k = 0; k < K_COUNT; k++)
+		put_cell(&l, k, w.col[k], column[k].unit, ' ');
+	end_line(&l);
+	for (i = 0; i < r->n; i++) {
+		row_cells(&r->row[i], &c);
+		put_name(&l, r->row[i].unit->name, w.name);
+		for (k = 0; k < K_COUNT; k++)
+			put_cell(&l, k, w.col[k], c.text[k], c.mark[k]);
+		end_line(&l);
+	}
+}
+
+static void
+text_totals(FILE *fp, const hl_size_result *r)
+{
+	double area = 0.0, cost = 0.0;
+	size_t i, sized = 0;
+	long shells = 0;
+
+	for (i = 0; i < r->n; i++) {
+		if (r->row[i].status != HL_OK)
+			continue;
+		sized++;
+		shells += r->row[i].size.shells;
+		area += r->row[i].size.area;
+		cost += r->row[i].size.cost;
+	}
+	fprintf(fp, "\nTotal: %zu of %zu exchangers sized, %ld shells, "
+	    "%.2f m², cost %.0f%s\n", sized, r->n, shells, area, cost,
+	    sized < r->n ? " (of the sized ones)" : "");
+}
+
+#define NOTE_WIDTH 78
+
+/* "  NAME (line L): text", wrapped. */
+static void
+note(FILE *fp, const hl_size_row *row, const char *fmt, ...)
+	__attribute__((format(printf, 3, 4)));
+
+static void
+note(FILE *fp, const hl_size_row *row, const char *fmt, ...)
+{
+	char text[HL_ERROR_TEXT], buf[HL_ERROR_TEXT + 256];
+	va_list ap;
+
+	va_start(ap, fmt);
+	vsnprintf(text, sizeof text, fmt, ap);
+	va_end(ap);
+	snprintf(buf, sizeof buf, "%.200s (line %ld): %s", row->unit->name,
+	    row->unit->line, text);
+	wrapped(fp, buf, "  ", "      ", NOTE_WIDTH);
+}
+
+static void
+note_cross(FILE *fp, const hl_size_row *row)
+{
+	const hl_exchanger_spec *s = &row->spec;
+	char tail[64] = "";
+
+	if (!hl_size_row_cross(row))
+		return;
+	if (s->type == HL_EXCH_COUNTERFLOW)
+		snprintf(tail, sizeof tail, "; a counterflow unit can do it");
+	else if (row->status == HL_OK)
+		snprintf(tail, sizeof tail, "; %d shell%s in series",
+		    row->size.shells, row->size.shells == 1 ? "" : "s");
+	note(fp, row, "temperature cross: the cold outlet %.1f °C is %.1f K "
+	    "above the hot outlet %.1f °C%s", s->cold_out,
+	    s->cold_out - s->hot_out, s->hot_out, tail);
+}
+
+/* Whether a side's cp gives a duty other than the one sized for (within
+ * the reader's tolerance, or it would have been refused). */
+static int
+balance_differs(const hl_size_row *row)
+{
+	const hl_unit_spec *u = row->unit;
+	double q = row->spec.duty, tol = 1e-9 * q;
+
+	return fabs(u->duty_hot - q) > tol || fabs(u->duty_cold - q) > tol;
+}
+
+static void
+note_balance(FILE *fp, const hl_size_row *row)
+{
+	const hl_unit_spec *u = row->unit;
+	char hot[48] = "", cold[48] = "";
+
+	if (!balance_differs(row))
+		return;
+	if (!isnan(u->duty_hot))
+		snprintf(hot, sizeof hot, " hot side %.1f kW", u->duty_hot);
+	if (!isnan(u->duty_cold))
+		snprintf(cold, sizeof cold, "%s cold side %.1f kW",
+		    hot[0] ? "," : "", u->duty_cold);
+	note(fp, row, "heat balance:%s%s; sized for %.1f kW", hot, cold,
+	    row->spec.duty);
+}
+
+static void
+note_h(FILE *fp, const hl_size_row *row, const hl_settings *d)
+{
+	if (!(row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)))
+		return;
+	note(fp, row, "no %s given: assumed %g kW/(m²·K)",
+	    (row->assumed & HL_ASSUMED_H_HOT) ? "h_hot" : "h_cold",
+	    d->h_default);
+}
+
+static int
+has_note(const hl_size_row *row)
+{
+	return row->status != HL_OK || hl_size_row_cross(row) ||
+	    (row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)) ||
+	    balance_differs(row);
+}
+
+static void
+text_notes(FILE *fp, const hl_size_result *r)
+{
+	const hl_size_row *row;
+	size_t i;
+	int any = 0;
+
+	for (i = 0; i < r->n; i++) {
+		row = &r->row[i];
+		if (!has_note(row))
+			continue;
+		if (!any)
+			fprintf(fp, "\nNotes\n");
+		any = 1;
+		if (row->status != HL_OK)
+			note(fp, row, "NOT SIZED: %s", row->note);
+		note_cross(fp, row);
+		note_balance(fp, row);
+		note_h(fp, row, r->defaults);
+	}
+}
+
+static unsigned
+assumed_all(const hl_size_result *r)
+{
+	unsigned a = 0;
+	size_t i;
+
+	for (i = 0; i < r->n; i++)
+		a |= r->row[i].assumed;
+	return a;
+}
+
+static void
+text_assumed(FILE *fp, const hl_size_result *r)
+{
+	const hl_settings *d = r->defaults;
+	unsigned a = assumed_all(r);
+	char buf[256];
+
+	if (a == 0)
+		return;
+	fprintf(fp, "\n* assumed: built-in defaults (set them per row or on "
+	    "the command line)\n");
+	if (a & HL_ASSUMED_TYPE)
+		wrapped(fp, "type shell-and-tube (column type, --type)", "  ",
+		    "    ", NOTE_WIDTH);
+	if (a & (HL_ASSUMED_FMIN | HL_ASSUMED_XP)) {
+		snprintf(buf, sizeof buf, "shells: F floor %.2f, each shell's "
+		    "P at most %g of its maximum (columns fmin, xp; --fmin, "
+		    "--xp)", d->fmin, d->xp);
+		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+	}
+	if (a & HL_ASSUMED_COST) {
+		snprintf(buf, sizeof buf, "cost per shell %g + %g·A^%g, A in "
+		    "m²: an illustrative law, not a price; give your own "
+		    "(columns cost_a, cost_b, cost_c; --cost-a, --cost-b, "
+		    "--cost-c)", d->cost_a, d->cost_b, d->cost_c);
+		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+	}
+	if (a & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)) {
+		snprintf(buf, sizeof buf, "U from one given film coefficient "
+		    "and %g kW/(m²·K) for the other (see the notes)",
+		    d->h_default);
+		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+	}
+}
+
+static const char legend[] =
+"\nS&T: shell-and-tube, 1 shell pass and 2, 4, … tube passes per shell,\n"
+"shells in series; CF: pure counterflow (F = 1). P = (t2 − t1)/(T1 − t1),\n"
+"R = (T1 − T2)/(t2 − t1), hot side T, cold side t. F: LMTD correction of\n"
+"Bowman, Mueller & Nagle (1940); shells: the fewest with F at or above the\n"
+"floor and each shell's P within Xp of its maximum (Ahmad, Linnhoff & Smith\n"
+"1988). Area = duty/(U·F·LMTD), equal over the shells; cost a + b·A^c per\n"
+"shell, in the cost law's currency.\n";
+
+void
+hl_size_text(FILE *fp, const hl_size_result *r)
+{
+	fprintf(fp, "Exchanger sizing: %s\n\n", r->source ? r->source : "");
+	text_table(fp, r);
+	text_totals(fp, r);
+	text_notes(fp, r);
+	text_assumed(fp, r);
+	fputs(legend, fp);
+	if (r->caution != NULL) {
+		fputc('\n', fp);
+		wrapped(fp, r->caution, "", "", NOTE_WIDTH);
+	}
+}
+
+/* "type fmin …": the attributes whose values were assumed. */
+static void
+assumed_list(unsigned a, int shell_tube, char *buf, size_t size)
+{
+	static const struct {
+		unsigned bit;
+		const char *name;
+	} names[] = {
+		{ HL_ASSUMED_TYPE, "type" }, { HL_ASSUMED_FMIN, "fmin" },
+		{ HL_ASSUMED_XP, "xp" }, { HL_ASSUMED_COST, "cost" },
+		{ HL_ASSUMED_H_HOT, "h-hot" }, { HL_ASSUMED_H_COLD, "h-cold" }
+	};
+	size_t i;
+
+	buf[0] = '\0';
+	if (!shell_tube)
+		a &= ~(unsigned)(HL_ASSUMED_FMIN | HL_ASSUMED_XP);
+	for (i = 0; i < sizeof names / sizeof names[0]; i++)
+		if (a & names[i].bit) {
+			strncat(buf, buf[0] ? " " : "", size - strlen(buf) - 1);
+			strncat(buf, names[i].name, size - strlen(buf) - 1);
+		}
+}
+
+static int
+xml_terminals(xmlTextWriterPtr w, const hl_size_row *row)
+{
+	const hl_exchanger_spec *s = &row->spec;
+	int rc = 0;
+
+	rc |= hl_xml_num(w, "duty", s->duty);
+	rc |= hl_xml_num(w, "hot-in", s->hot_in);
+	rc |= hl_xml_num(w, "hot-out", s->hot_out);
+	rc |= hl_xml_num(w, "cold-in", s->cold_in);
+	rc |= hl_xml_num(w, "cold-out", s->cold_out);
+	rc |= hl_xml_num(w, "hot-share", 1.0);
+	rc |= hl_xml_num(w, "cold-share", 1.0);
+	rc |= hl_xml_num(w, "u", s->u);
+	if (!isnan(row->h_hot))
+		rc |= hl_xml_num(w, "h-hot", row->h_hot);
+	if (!isnan(row->h_cold))
+		rc |= hl_xml_num(w, "h-cold", row->h_cold);
+	return rc;
+}
+
+static int
+xml_sizing(xmlTextWriterPtr w, const hl_size_row *row)
+{
+	const hl_exchanger_spec *s = &row->spec;
+	const hl_exchanger_sizing *z = &row->size;
+	int rc = 0;
+
+	rc |= hl_xml_num(w, "lmtd", z->lmtd);
+	rc |= hl_xml_num(w, "p", z->p);
+	if (!isinf(z->r))
+		rc |= hl_xml_num(w, "r", z->r);
+	if (row->status == HL_OK) {
+		rc |= hl_xml_num(w, "ft", z->f);
+		rc |= hl_xml_int(w, "shells", z->shells);
+		rc |= hl_xml_num(w, "area", z->area);
+		rc |= hl_xml_num(w, "area-shell", z->area_shell);
+		rc |= hl_xml_num(w, "cost", z->cost);
+	}
+	if (s->type == HL_EXCH_SHELL_TUBE) {
+		rc |= hl_xml_num(w, "fmin", s->fmin);
+		rc |= hl_xml_num(w, "xp", s->xp);
+	}
+	rc |= hl_xml_num(w, "cost-a", s->cost_a);
+	rc |= hl_xml_num(w, "cost-b", s->cost_b);
+	rc |= hl_xml_num(w, "cost-c", s->cost_c);
+	return rc;
+}
+
+static int
+xml_row(xmlTextWriterPtr w, const hl_size_row *row)
+{
+	char assumed[64];
+	int rc = 0;
+
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "exchanger");
+	rc |= hl_xml_str(w, "id", row->unit->name);
+	rc |= hl_xml_int(w, "line", row->unit->line);
+	rc |= hl_xml_str(w, "type", hl_size_type_name(row->spec.type));
+	rc |= xml_terminals(w, row);
+	rc |= xml_sizing(w, row);
+	rc |= hl_xml_str(w, "status", row->status == HL_OK ? "sized" :
+	    "too-many-shells");
+	assumed_list(row->assumed, row->spec.type == HL_EXCH_SHELL_TUBE,
+	    assumed, sizeof assumed);
+	if (assumed[0] != '\0')
+		rc |= hl_xml_str(w, "assumed", assumed);
+	if (row->status != HL_OK)
+		rc |= hl_xml_str(w, "note", row->note);
+	rc |= xmlTextWriterEndElement(w);
+	return rc;
+}
+
+int
+hl_size_xml(xmlTextWriterPtr w, const hl_size_result *r)
+{
+	size_t i, sized = 0;
+	int rc = 0;
+
+	for (i = 0; i < r->n; i++)
+		sized += r->row[i].status == HL_OK;
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "units");
+	rc |= hl_xml_int(w, "count", (long)r->n);
+	rc |= hl_xml_int(w, "sized", (long)sized);
+	for (i = 0; i < r->n && rc >= 0; i++)
+		rc |= xml_row(w, &r->row[i]);
+	rc |= xmlTextWriterEndElement(w);
+	return rc < 0 ? -1 : 0;
+}
+
+/* A CSV field, quoted when RFC 4180 needs it. */
+static void
+csv_text(FILE *fp, const char *s)
+{
+	const char *p;
+
+	if (strpbrk(s, ",\"\r\n") == NULL && s[0] != ' ' && s[0] != '#' &&
+	    (s[0] == '\0' || s[strlen(s) - 1] != ' ')) {
+		fputs(s, fp);
+		return;
+	}
+	fputc('"', fp);
+	for (p = s; *p != '\0'; p++) {
+		if (*p == '"')
+			fputc('"', fp);
+		fputc(*p, fp);
+	}
+	fputc('"', fp);
+}
+
+/* A number, or an empty field for NaN and infinity. */
+static void
+csv_num(FILE *fp, double v)
+{
+	char b[64];
+
+	fputc(',', fp);
+	if (!isfinite(v))
+		return;
+	hl_format_number(b, sizeof b, v);
+	fputs(b, fp);
+}
+
+static void
+csv_row(FILE *fp, const hl_size_row *row)
+{
+	const hl_exchanger_spec *s = &row->spec;
+	const hl_exchanger_sizing *z = &row->size;
+	int ok = row->status == HL_OK;
+	char assumed[64];
+
+	csv_text(fp, row->unit->name);
+	fprintf(fp, ",%ld,%s", row->unit->line, hl_size_type_name(s->type));
+	csv_num(fp, s->duty);
+	csv_num(fp, s->hot_in);
+	csv_num(fp, s->hot_out);
+	csv_num(fp, s->cold_in);
+	csv_num(fp, s->cold_out);
+	csv_num(fp, s->u);
+	csv_num(fp, z->lmtd);
+	csv_num(fp, z->p);
+	csv_num(fp, z->r);
+	csv_num(fp, ok ? z->f : NAN);
+	csv_num(fp, ok ? z->shells : NAN);
+	csv_num(fp, ok ? z->area : NAN);
+	csv_num(fp, ok ? z->area_shell : NAN);
+	csv_num(fp, ok ? z->cost : NAN);
+	fprintf(fp, ",%s,%d,", ok ? "sized" : "too-many-shells",
+	    hl_size_row_cross(row));
+	assumed_list(row->assumed, s->type == HL_EXCH_SHELL_TUBE, assumed,
+	    sizeof assumed);
+	fputs(assumed, fp);
+	fputc(',', fp);
+	csv_text(fp, ok ? "" : row->note);
+	fputc('\n', fp);
+}
+
+void
+hl_size_csv(FILE *fp, const hl_size_result *r)
+{
+	size_t i;
+
+	fprintf(fp, "name,line,type,duty,hot_in,hot_out,cold_in,cold_out,u,"
+	    "lmtd,p,r,f,shells,area,area_shell,cost,status,cross,assumed,"
+	    "note\n");
+	for (i = 0; i < r->n; i++)
+		csv_row(fp, &r->row[i]);
+}
