@@ -164,16 +164,44 @@ side_duty(const ctx *c, const char *col, double cp, double dt, double *q,
 	return HL_OK;
 }
 
+/* A side's heat as the reader shows it: "hot_cp 10 kW/K over 60 K gives
+ * 600 kW". */
+static void
+side_text(char *buf, size_t size, const char *col, double cp, double dt)
+{
+	snprintf(buf, size, "%s %g kW/K over %g K gives %g kW", col, cp, dt,
+	    cp * dt);
+}
+
 static hl_status
-check_side(const ctx *c, const char *what, double q, double duty,
+check_side(const ctx *c, const char *col, double cp, double dt, double duty,
 	   hl_error *err)
 {
-	if (isnan(q) || agree(q, duty))
+	char side[128];
+
+	if (isnan(cp) || agree(cp * dt, duty))
 		return HL_OK;
-	return fail(c, err, "duty %g kW but the %s side's cp and temperatures "
-	    "give %g kW (%.1f %% apart, more than %g %%): check the "
-	    "temperatures, the cp and the duty", duty, what, q,
-	    gap_percent(q, duty), 100.0 * HL_UNITS_BALANCE_TOL);
+	side_text(side, sizeof side, col, cp, dt);
+	return fail(c, err, "duty %g kW but %s (%.1f %% apart, more than "
+	    "%g %%): check the temperatures, the cp and the duty", duty, side,
+	    gap_percent(cp * dt, duty), 100.0 * HL_UNITS_BALANCE_TOL);
+}
+
+static hl_status
+check_sides(const ctx *c, const double *v, double qh, double qc,
+	    hl_error *err)
+{
+	char hot[128], cold[128];
+
+	if (isnan(qh) || isnan(qc) || agree(qh, qc))
+		return HL_OK;
+	side_text(hot, sizeof hot, "hot_cp", v[C_HOT_CP],
+	    v[C_HOT_IN] - v[C_HOT_OUT]);
+	side_text(cold, sizeof cold, "cold_cp", v[C_COLD_CP],
+	    v[C_COLD_OUT] - v[C_COLD_IN]);
+	return fail(c, err, "%s but %s (%.1f %% apart, more than %g %%): "
+	    "check the temperatures and the cp", hot, cold,
+	    gap_percent(qh, qc), 100.0 * HL_UNITS_BALANCE_TOL);
 }
 
 /* The duty from duty, hot_cp and cold_cp, every pair agreeing. */
@@ -196,18 +224,17 @@ resolve_duty(const ctx *c, const double *v, hl_unit_spec *u, hl_error *err)
 	if (!isnan(u->duty)) {
 		if (!(u->duty > 0.0))
 			return fail(c, err, "duty %g kW must be > 0", u->duty);
-		st = check_side(c, "hot", qh, u->duty, err);
-		return st == HL_OK ? check_side(c, "cold", qc, u->duty, err) :
-		    st;
+		st = check_side(c, "hot_cp", v[C_HOT_CP],
+		    v[C_HOT_IN] - v[C_HOT_OUT], u->duty, err);
+		return st == HL_OK ? check_side(c, "cold_cp", v[C_COLD_CP],
+		    v[C_COLD_OUT] - v[C_COLD_IN], u->duty, err) : st;
 	}
 	if (isnan(qh) && isnan(qc))
 		return fail(c, err, "no duty: give duty (kW), or hot_cp or "
 		    "cold_cp (kW/K)");
-	if (!isnan(qh) && !isnan(qc) && !agree(qh, qc))
-		return fail(c, err, "the hot side gives %g kW but the cold "
-		    "side %g kW (%.1f %% apart, more than %g %%): check the "
-		    "temperatures and the cp", qh, qc, gap_percent(qh, qc),
-		    100.0 * HL_UNITS_BALANCE_TOL);
+	st = check_sides(c, v, qh, qc, err);
+	if (st != HL_OK)
+		return st;
 	u->duty = isnan(qh) ? qc : isnan(qc) ? qh : 0.5 * qh + 0.5 * qc;
 	return HL_OK;
 }
