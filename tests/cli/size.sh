@@ -133,6 +133,22 @@ check_grep "name,line,type,duty,hot_in,hot_out,cold_in,cold_out,u,lmtd,p,r,f,she
 check_grep "cross-4,16,shell-and-tube,640,100,36,20,84,0.4,16,0.8,1,0.80227" "$WORK/r.csv"
 check_near "$(wc -l <"$WORK/r.csv")" 8 0 "CSV rows"
 
+# The documentation's examples run as printed: the table in doc/formats.md,
+# the demo list with the XML shown in doc/results.md.
+sed -n '/^## Exchanger list/,$p' "$TOP_SRCDIR/doc/formats.md" |
+	sed -n 's/^    //p' >"$WORK/doc.csv"
+check_exit 0 hl size "$WORK/doc.csv" --format xml -o "$WORK/doc.xml"
+valid "$WORK/doc.xml"
+check_exit 0 hl size "$CASES/demo-exchangers.csv" --cost-a 12000 --cost-b 900 \
+	--cost-c 0.75 --format xml -o "$X"
+valid "$X"
+sed -n '/<exchanger id="E-101/,/\/>/p' "$TOP_SRCDIR/doc/results.md" |
+	grep -o '[a-z-]*="[^"]*"' >"$WORK/doc-attrs"
+[ "$(wc -l <"$WORK/doc-attrs")" -ge 20 ] && pass || fail "doc/results.md example not found"
+while read -r a; do
+	grep -qF -- " $a" "$X" && pass || fail "doc/results.md shows $a, size gives otherwise"
+done <"$WORK/doc-attrs"
+
 # Usage errors.
 check_exit 1 hl size
 check_exit 1 hl size "$LIST" --cost-a 5000
