@@ -1,0 +1,423 @@
+/* curves.c - composite, grand composite and balanced composite curves
+ * (see curves.h for the definitions and sources). */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "curves.h"
+
+static int
+cmp_asc(const void *a, const void *b)
+{
+	double x = *(const double *)a, y = *(const double *)b;
+
+	return (x > y) - (x < y);
+}
+
+/* Index of v in the rising, duplicate-free t[0..n). */
+static size_t
+find_asc(const double *t, size_t n, double v)
+{
+	size_t lo = 0, hi = n;
+
+	while (lo < hi) {
+		size_t mid = lo + (hi - lo) / 2;
+
+		if (t[mid] < v)
+			lo = mid + 1;
+		else
+			hi = mid;
+	}
+	return lo;
+}
+
+static void
+curve_clear(hl_curve *cv)
+{
+	free(cv->h);
+	free(cv->t);
+	cv->h = cv->t = NULL;
+	cv->n = 0;
+}
+
+static int
+curve_alloc(hl_curve *cv, size_t n)
+{
+	cv->n = 0;
+	cv->h = malloc((n ? n : 1) * sizeof *cv->h);
+	cv->t = malloc((n ? n : 1) * sizeof *cv->t);
+	if (cv->h == NULL || cv->t == NULL) {
+		curve_clear(cv);
+		return 0;
+	}
+	return 1;
+}
+
+static void
+push(hl_curve *cv, double h, double t)
+{
+	cv->h[cv->n] = h;
+	cv->t[cv->n] = t;
+	cv->n++;
+}
+
+/* Sorted unique end temperatures of the pieces that carry heat. */
+static double *
+piece_temps(const hl_curve_piece *p, size_t n, size_t *m)
+{
+	double *t = malloc((2 * n + 1) * sizeof *t);
+	size_t i, k = 0, u;
+
+	if (t == NULL)
+		return NULL;
+	for (i = 0; i < n; i++) {
+		if (!(p[i].q > 0.0))
+			continue;
+		t[k++] = p[i].t_hi;
+		t[k++] = p[i].t_lo;
+	}
+	qsort(t, k, sizeof *t, cmp_asc);
+	for (i = 1, u = k ? 1 : 0; i < k; i++)
+		if (t[i] != t[u - 1])
+			t[u++] = t[i];
+	*m = u;
+	return t;
+}
+
+/* Walk up the temperatures adding each interval's cp and each step. */
+static void
+walk(const double *t, size_t m, const double *dcp, const double *jump,
+     double h0, hl_curve *out)
+{
+	double h = h0, cp = 0.0;
+	size_t i;
+
+	push(out, h, t[0]);
+	for (i = 0; i < m; i++) {
+		if (jump[i] > 0.0) {
+			h += jump[i];
+			push(out, h, t[i]);
+		}
+		if (i + 1 < m) {
+			cp += dcp[i];
+			h += cp * (t[i + 1] - t[i]);
+			push(out, h, t[i + 1]);
+		}
+	}
+}
+
+/* Composite curve by a difference array of cp over the sorted end
+ * temperatures (Linnhoff et al. 1982): O(n log n). */
+hl_status
+hl_curves_composite(const hl_curve_piece *p, size_t n, double h0,
+		    hl_curve *out, hl_error *err)
+{
+	double *t, *dcp = NULL, *jump = NULL;
+	size_t m = 0, i;
+
+	memset(out, 0, sizeof *out);
+	t = piece_temps(p, n, &m);
+	if (t != NULL) {
+		dcp = calloc(m + 1, sizeof *dcp);
+		jump = calloc(m + 1, sizeof *jump);
+	}
+	if (t == NULL || dcp == NULL || jump == NULL ||
+	    !curve_alloc(out, 2 * m + 1)) {
+		free(t);
+		free(dcp);
+		free(jump);
+		return hl_error_nomem(err);
+	}
+	for (i = 0; i < n; i++) {
+		size_t a, b;
+
+		if (!(p[i].q > 0.0))
+			continue;
+		a = find_asc(t, m, p[i].t_lo);
+		b = find_asc(t, m, p[i].t_hi);
+		if (a == b) {
+			jump[a] += p[i].q;
+		} else {
+			dcp[a] += p[i].q / (p[i].t_hi - p[i].t_lo);
+			dcp[b] -= p[i].q / (p[i].t_hi - p[i].t_lo);
+		}
+	}
+	if (m > 0)
+		walk(t, m, dcp, jump, h0, out);
+	free(t);
+	free(dcp);
+	free(jump);
+	return HL_OK;
+}
+
+double
+hl_curve_heat_at(const hl_curve *cv, double t)
+{
+	size_t lo = 0, hi = cv->n;
+
+	if (cv->n == 0)
+		return 0.0;
+	while (lo < hi) {
+		size_t mid = lo + (hi - lo) / 2;
+
+		if (cv->t[mid] < t)
+			lo = mid + 1;
+		else
+			hi = mid;
+	}
+	if (lo == 0)
+		return cv->h[0];
+	if (lo == cv->n)
+		return cv->h[cv->n - 1];
+	if (cv->t[lo] == t)
+		return cv->h[lo];
+	return cv->h[lo - 1] + (cv->h[lo] - cv->h[lo - 1]) *
+	       (t - cv->t[lo - 1]) / (cv->t[lo] - cv->t[lo - 1]);
+}
+
+static size_t
+count_segments(const hl_case *c)
+{
+	size_t i, n = 0;
+
+	for (i = 0; i < c->nstream; i++)
+		n += c->stream[i].nseg;
+	return n;
+}
+
+/* Pieces of one kind of stream (and, with lp, of utility), real or shifted
+ * temperatures. */
+static size_t
+gather(const hl_case *c, hl_kind kind, double dtmin, int shifted,
+       const hl_utility_lp *lp, hl_curve_piece *p)
+{
+	size_t i, j, n = 0;
+
+	for (i = 0; i < c->nstream; i++) {
+		const hl_stream *s = &c->stream[i];
+		double sh = shifted ? hl_stream_shift(s, dtmin) : 0.0;
+
+		if (s->kind != kind)
+			continue;
+		sh = kind == HL_HOT ? -sh : sh;
+		for (j = 0; j < s->nseg; j++) {
+			const hl_segment *g = &s->seg[j];
+
+			p[n].t_hi = fmax(g->supply, g->target) + sh;
+			p[n].t_lo = fmin(g->supply, g->target) + sh;
+			p[n].q = g->cp * (p[n].t_hi - p[n].t_lo);
+			n++;
+		}
+	}
+	for (i = 0; lp != NULL && i < c->nutil; i++) {
+		const hl_utility *u = &c->util[i];
+
+		if (u->kind != kind || lp->util[i].load <= 0.0)
+			continue;
+		p[n].t_hi = fmax(u->supply, u->target);
+		p[n].t_lo = fmin(u->supply, u->target);
+		p[n].q = lp->util[i].load;
+		n++;
+	}
+	return n;
+}
+
+static hl_status
+composites(const hl_case *c, const hl_cascade *cas, const hl_utility_lp *lp,
+	   hl_curves *cv, hl_curve_piece *p, hl_error *err)
+{
+	double dt = cas->dtmin;
+	hl_status st;
+	size_t n;
+
+	n = gather(c, HL_HOT, dt, 0, NULL, p);
+	st = hl_curves_composite(p, n, 0.0, &cv->hot, err);
+	n = gather(c, HL_COLD, dt, 0, NULL, p);
+	if (st == HL_OK)
+		st = hl_curves_composite(p, n, cas->qc, &cv->cold, err);
+	n = gather(c, HL_HOT, dt, 1, NULL, p);
+	if (st == HL_OK)
+		st = hl_curves_composite(p, n, 0.0, &cv->shifted_hot, err);
+	n = gather(c, HL_COLD, dt, 1, NULL, p);
+	if (st == HL_OK)
+		st = hl_curves_composite(p, n, cas->qc, &cv->shifted_cold, err);
+	if (st != HL_OK || lp == NULL)
+		return st;
+	n = gather(c, HL_HOT, dt, 0, lp, p);
+	st = hl_curves_composite(p, n, 0.0, &cv->bal_hot, err);
+	n = gather(c, HL_COLD, dt, 0, lp, p);
+	if (st == HL_OK)
+		st = hl_curves_composite(p, n, 0.0, &cv->bal_cold, err);
+	return st;
+}
+
+static hl_status
+grand(const hl_cascade *cas, hl_curves *cv, hl_error *err)
+{
+	size_t k;
+
+	if (!curve_alloc(&cv->grand, cas->nb))
+		return hl_error_nomem(err);
+	for (k = 0; k < cas->nb; k++)
+		push(&cv->grand, cas->flow[k], cas->t[k]);
+	return HL_OK;
+}
+
+/* Used utilities of one kind as pieces on shifted temperatures. */
+static size_t
+utility_pieces(const hl_case *c, const hl_utility_lp *lp, hl_kind kind,
+	       hl_curve_piece *p, double *total)
+{
+	size_t i, n = 0;
+
+	*total = 0.0;
+	for (i = 0; i < c->nutil; i++) {
+		if (c->util[i].kind != kind || lp->util[i].load <= 0.0)
+			continue;
+		p[n].t_hi = lp->util[i].t_hi;
+		p[n].t_lo = lp->util[i].t_lo;
+		p[n].q = lp->util[i].load;
+		*total += p[n].q;
+		n++;
+	}
+	return n;
+}
+
+/* Heat of the other utilities of u's kind that lie below (hot) or above
+ * (cold) u's level, the earlier ones of the same level included. */
+static double
+stacked_before(const hl_case *c, const hl_utility_lp *lp, size_t u)
+{
+	const hl_utility_load *a = &lp->util[u];
+	int hot = c->util[u].kind == HL_HOT;
+	double h = 0.0, t = a->t_hi;
+	size_t v;
+
+	for (v = 0; v < c->nutil; v++) {
+		const hl_utility_load *b = &lp->util[v];
+
+		if (v == u || c->util[v].kind != c->util[u].kind ||
+		    b->load <= 0.0)
+			continue;
+		if (b->t_hi == b->t_lo) {
+			if (b->t_hi == t ? v < u : (hot ? b->t_hi < t : b->t_hi > t))
+				h += b->load;
+		} else if (hot) {
+			h += b->load * fmin(1, fmax(0, (t - b->t_lo) /
+						    (b->t_hi - b->t_lo)));
+		} else {
+			h += b->load * fmin(1, fmax(0, (b->t_hi - t) /
+						    (b->t_hi - b->t_lo)));
+		}
+	}
+	return h;
+}
+
+static void
+place_levels(const hl_case *c, const hl_utility_lp *lp, hl_curves *cv,
+	     double cold_total, const hl_curve *below)
+{
+	size_t u;
+
+	for (u = 0; u < c->nutil; u++) {
+		const hl_utility_load *a = &lp->util[u];
+		hl_curve_level *l = &cv->level[cv->nlevel];
+		double mid = 0.5 * (a->t_hi + a->t_lo);
+
+		if (a->load <= 0.0)
+			continue;
+		l->util = u;
+		l->t = mid;
+		if (a->t_hi == a->t_lo)
+			l->h = stacked_before(c, lp, u) + a->load / 2.0;
+		else if (c->util[u].kind == HL_HOT)
+			l->h = hl_curve_heat_at(&cv->hot_util, mid);
+		else
+			l->h = cold_total - hl_curve_heat_at(below, mid);
+		cv->nlevel++;
+	}
+}
+
+/* The utility composites against the grand composite. The cold one is
+ * built rising (heat taken below T) and turned into heat taken above T. */
+static hl_status
+utility_curves(const hl_case *c, const hl_utility_lp *lp, hl_curves *cv,
+	       hl_curve_piece *p, hl_error *err)
+{
+	hl_curve below = { 0, NULL, NULL };
+	double hot_total, cold_total;
+	size_t n, i;
+	hl_status st;
+
+	n = utility_pieces(c, lp, HL_HOT, p, &hot_total);
+	st = hl_curves_composite(p, n, 0.0, &cv->hot_util, err);
+	n = utility_pieces(c, lp, HL_COLD, p, &cold_total);
+	if (st == HL_OK)
+		st = hl_curves_composite(p, n, 0.0, &below, err);
+	if (st == HL_OK && !curve_alloc(&cv->cold_util, below.n))
+		st = hl_error_nomem(err);
+	if (st == HL_OK)
+		cv->level = malloc((c->nutil + 1) * sizeof *cv->level);
+	if (st == HL_OK && cv->level == NULL)
+		st = hl_error_nomem(err);
+	if (st != HL_OK) {
+		curve_clear(&below);
+		return st;
+	}
+	for (i = below.n; i-- > 0;)
+		push(&cv->cold_util, cold_total - below.h[i], below.t[i]);
+	place_levels(c, lp, cv, cold_total, &below);
+	curve_clear(&below);
+	return HL_OK;
+}
+
+hl_status
+hl_curves_compute(const hl_case *c, const hl_cascade *cas,
+		  const hl_utility_lp *lp, hl_curves **out, hl_error *err)
+{
+	hl_curves *cv = calloc(1, sizeof *cv);
+	hl_curve_piece *p;
+	hl_status st;
+
+	*out = NULL;
+	p = malloc((count_segments(c) + c->nutil + 1) * sizeof *p);
+	if (cv == NULL || p == NULL) {
+		free(cv);
+		free(p);
+		return hl_error_nomem(err);
+	}
+	cv->dtmin = cas->dtmin;
+	cv->qh = cas->qh;
+	cv->qc = cas->qc;
+	cv->recovery = cas->hot_total - cas->qc;
+	st = composites(c, cas, lp, cv, p, err);
+	if (st == HL_OK)
+		st = grand(cas, cv, err);
+	if (st == HL_OK && lp != NULL)
+		st = utility_curves(c, lp, cv, p, err);
+	free(p);
+	if (st != HL_OK) {
+		hl_curves_free(cv);
+		return st;
+	}
+	*out = cv;
+	return HL_OK;
+}
+
+void
+hl_curves_free(hl_curves *cv)
+{
+	if (cv == NULL)
+		return;
+	curve_clear(&cv->hot);
+	curve_clear(&cv->cold);
+	curve_clear(&cv->shifted_hot);
+	curve_clear(&cv->shifted_cold);
+	curve_clear(&cv->grand);
+	curve_clear(&cv->hot_util);
+	curve_clear(&cv->cold_util);
+	curve_clear(&cv->bal_hot);
+	curve_clear(&cv->bal_cold);
+	free(cv->level);
+	free(cv);
+}
