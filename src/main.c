@@ -12,6 +12,7 @@
 static const hl_command *const commands[] = {
 	&hl_cmd_targets,
 	&hl_cmd_size,
+	&hl_cmd_curves,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 

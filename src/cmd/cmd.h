@@ -22,6 +22,7 @@ typedef struct {
 
 extern const hl_command hl_cmd_targets;
 extern const hl_command hl_cmd_size;
+extern const hl_command hl_cmd_curves;
 
 /* Output formats a command may accept. */
 typedef enum { HL_FMT_TEXT, HL_FMT_XML, HL_FMT_CSV } hl_format;
@@ -57,6 +58,9 @@ int hl_cmd_parse_format(const char *cmd, const char *arg, unsigned allowed,
  * stream table), add the utility table when given, apply --dtmin, and
  * validate. Protects the inputs from being overwritten by outputs. */
 hl_status hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err);
+
+/* Solver messages (--verbose) to standard error; ctx unused. */
+void hl_cmd_log_stderr(void *ctx, const char *text);
 
 /* The caution every report carries. */
 extern const char hl_caution[];

@@ -24,6 +24,13 @@ hl_common_init(hl_common *o)
 	o->dtmin = NAN;
 }
 
+void
+hl_cmd_log_stderr(void *ctx, const char *text)
+{
+	(void)ctx;
+	fputs(text, stderr);
+}
+
 int
 hl_cmd_fail(const hl_error *err)
 {
