@@ -11,6 +11,8 @@
 #include "sensitivity.h"
 #include "sensitivity_out.h"
 #include "targets_out.h"
+#include "utility_lp.h"
+#include "utility_out.h"
 
 static void
 help(FILE *fp)
@@ -19,7 +21,9 @@ help(FILE *fp)
 "Usage: heatloom targets CASE [options]\n"
 "\n"
 "Minimum hot and cold utility, pinch temperatures and the heat cascade of\n"
-"the process streams (problem table algorithm). CASE is an XML case file or a\n"
+"the process streams (problem table algorithm). When the case has utilities,\n"
+"also the load and yearly cost of each utility level at least total cost\n"
+"(transshipment LP) and the utility pinches. CASE is an XML case file or a\n"
 "stream table (CSV).\n"
 "\n"
 "Options:\n"
@@ -30,12 +34,13 @@ help(FILE *fp)
 "                     ranked, with the band from the cp_tol and t_tol\n"
 "                     tolerances (csv: one row per datum)\n"
 "  -o, --output FILE  write to FILE instead of standard output\n"
+"  --verbose          show the LP solver's messages on standard error\n"
 "  -h, --help         show this help\n"
 "\n"
 "%s\n", hl_caution);
 }
 
-enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT, OPT_SENS };
+enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT, OPT_SENS, OPT_VERBOSE };
 
 /* --sensitivity: replaces the text and CSV outputs, adds to the XML. */
 static int want_sensitivity;
@@ -49,6 +54,7 @@ parse(int argc, char **argv, hl_common *o)
 		{ "format", required_argument, NULL, OPT_FORMAT },
 		{ "sensitivity", no_argument, NULL, OPT_SENS },
 		{ "output", required_argument, NULL, 'o' },
+		{ "verbose", no_argument, NULL, OPT_VERBOSE },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
@@ -80,6 +86,9 @@ parse(int argc, char **argv, hl_common *o)
 		case 'o':
 			o->output = optarg;
 			break;
+		case OPT_VERBOSE:
+			o->verbose = 1;
+			break;
 		case 'h':
 			help(stdout);
 			return -1;
@@ -101,7 +110,8 @@ parse(int argc, char **argv, hl_common *o)
 
 static hl_status
 write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
-	  const hl_threshold *th, const hl_sensitivity *sv, hl_error *err)
+	  const hl_threshold *th, const hl_utility_lp *lp,
+	  const hl_sensitivity *sv, hl_error *err)
 {
 	hl_xml_out *x = hl_xml_out_begin(c->source);
 	hl_status st;
@@ -109,6 +119,7 @@ write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	if (x == NULL)
 		return hl_error_nomem(err);
 	if (hl_targets_xml_begin(hl_xml_out_writer(x), cas, th) < 0 ||
+	    (lp != NULL && hl_utility_lp_xml(hl_xml_out_writer(x), c, lp) < 0) ||
 	    hl_targets_xml_end(hl_xml_out_writer(x)) < 0 ||
 	    (sv != NULL && hl_sensitivity_xml(hl_xml_out_writer(x), c, sv) < 0))
 		st = hl_error_set(err, HL_EIO, NULL, 0, "cannot build XML");
@@ -118,11 +129,24 @@ write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	return st;
 }
 
+static void
+write_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
+	   const hl_threshold *th, const hl_utility_lp *lp)
+{
+	hl_targets_text_summary(fp, c, cas, th);
+	if (lp != NULL)
+		hl_utility_lp_text(fp, c, lp);
+	hl_targets_text_table(fp, cas);
+	hl_targets_text_caution(fp);
+}
+
 static hl_status
 run_targets(const hl_common *o, hl_error *err)
 {
+	hl_utility_lp_opts lo = { o->verbose, hl_cmd_log_stderr, NULL, NAN };
 	hl_case *c = NULL;
 	hl_cascade *cas = NULL;
+	hl_utility_lp *lp = NULL;
 	hl_sensitivity *sv = NULL;
 	hl_threshold th = { 0, HUGE_VAL };
 	hl_output out;
@@ -137,13 +161,15 @@ run_targets(const hl_common *o, hl_error *err)
 		th.kind = hl_cascade_threshold_kind(cas);
 		st = hl_cascade_threshold_dtmin(c, cas, &th.dtmin, err);
 	}
+	if (st == HL_OK && c->nutil > 0)
+		st = hl_utility_lp_solve(c, c->set.dtmin, &lo, &lp, err);
 	if (st == HL_OK && want_sensitivity)
 		st = hl_sensitivity_compute(c, cas, &sv, err);
 	if (st == HL_OK)
 		st = hl_output_open(&out, o->output, err);
 	if (st == HL_OK) {
 		if (o->format == HL_FMT_XML)
-			st = write_xml(out.fp, c, cas, &th, sv, err);
+			st = write_xml(out.fp, c, cas, &th, lp, sv, err);
 		else if (sv != NULL && o->format == HL_FMT_CSV)
 			hl_sensitivity_csv(out.fp, c, sv);
 		else if (sv != NULL)
@@ -151,11 +177,12 @@ run_targets(const hl_common *o, hl_error *err)
 		else if (o->format == HL_FMT_CSV)
 			hl_targets_csv(out.fp, cas);
 		else
-			hl_targets_text(out.fp, c, cas, &th);
+			write_text(out.fp, c, cas, &th, lp);
 		st = st == HL_OK ? hl_output_commit(&out, err) : st;
 		hl_output_abort(&out);
 	}
 	hl_sensitivity_free(sv);
+	hl_utility_lp_free(lp);
 	hl_cascade_free(cas);
 	hl_case_free(c);
 	return st;
@@ -178,7 +205,7 @@ run(int argc, char **argv)
 
 const hl_command hl_cmd_targets = {
 	"targets", "CASE [--dtmin K] [--utilities FILE] [--format text|xml|csv] "
-	"[--sensitivity] [-o FILE]",
-	"minimum utility targets, pinches and the heat cascade",
+	"[--sensitivity] [-o FILE] [--verbose]",
+	"energy targets, pinches, heat cascade, least-cost utility levels",
 	run, help
 };

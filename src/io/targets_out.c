@@ -58,12 +58,17 @@ text_summary(FILE *fp, const hl_case *c, const hl_cascade *cas,
 }
 
 void
-hl_targets_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
-		const hl_threshold *th)
+hl_targets_text_summary(FILE *fp, const hl_case *c, const hl_cascade *cas,
+			const hl_threshold *th)
+{
+	text_summary(fp, c, cas, th);
+}
+
+void
+hl_targets_text_table(FILE *fp, const hl_cascade *cas)
 {
 	size_t k;
 
-	text_summary(fp, c, cas, th);
 	fprintf(fp, "\nProblem table (shifted temperatures; hot = shifted + "
 		"ΔTmin/2, cold = shifted − ΔTmin/2)\n\n");
 	fprintf(fp, "  %9s %9s %9s %11s %11s %11s\n", "shifted", "hot",
@@ -80,9 +85,23 @@ hl_targets_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
 			fprintf(fp, "  %9s %9s %9s %11.3f %11.1f\n", "", "", "",
 				cas->netcp[k], cas->dh[k]);
 	}
+}
+
+void
+hl_targets_text_caution(FILE *fp)
+{
 	fprintf(fp, "\nScreening estimates: detailed design and the safety "
 		"review of each match belong to qualified engineers under "
 		"local codes.\n");
+}
+
+void
+hl_targets_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
+		const hl_threshold *th)
+{
+	hl_targets_text_summary(fp, c, cas, th);
+	hl_targets_text_table(fp, cas);
+	hl_targets_text_caution(fp);
 }
 
 int

@@ -14,9 +14,14 @@ typedef struct {
 	double dtmin;     /* threshold ΔTmin, HUGE_VAL when never needed */
 } hl_threshold;
 
-/* The summary and the problem table, for a note or a terminal. */
+/* The summary and the problem table, for a note or a terminal, then the
+ * caution: the three parts below in that order. */
 void hl_targets_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
 		     const hl_threshold *th);
+void hl_targets_text_summary(FILE *fp, const hl_case *c,
+			     const hl_cascade *cas, const hl_threshold *th);
+void hl_targets_text_table(FILE *fp, const hl_cascade *cas);
+void hl_targets_text_caution(FILE *fp);
 
 /* Opens <targets dtmin hot-utility cold-utility> and writes its <pinch/>
  * children; the caller may add <utility/> children, then calls _end. */

@@ -1,0 +1,175 @@
+/* utility_out.c - writers of the utility LP result. */
+#include <math.h>
+#include <string.h>
+
+#include "result_xml.h"
+#include "utility_out.h"
+
+/* Characters of a UTF-8 string, for column alignment. */
+static int
+chars(const char *s)
+{
+	int n = 0;
+
+	for (; *s; s++)
+		n += ((unsigned char)*s & 0xc0) != 0x80;
+	return n;
+}
+
+/* Pad a UTF-8 name to w characters (names longer than w are cut). */
+static void
+put_name(FILE *fp, const char *s, int w)
+{
+	int n = 0;
+
+	for (; *s && (n < w || ((unsigned char)*s & 0xc0) == 0x80); s++) {
+		n += ((unsigned char)*s & 0xc0) != 0x80;
+		fputc(*s, fp);
+	}
+	for (; n < w; n++)
+		fputc(' ', fp);
+}
+
+/* Whole currency with thin spaces between thousands. */
+static void
+money(char *buf, size_t size, double v)
+{
+	char num[64], *p = buf;
+	size_t i, n;
+
+	snprintf(num, sizeof num, "%.0f", fabs(v));
+	n = strlen(num);
+	for (i = 0; i < n && (size_t)(p - buf) + 5 < size; i++) {
+		if (i > 0 && (n - i) % 3 == 0)
+			*p++ = ' ';
+		*p++ = num[i];
+	}
+	*p = '\0';
+}
+
+static int
+name_width(const hl_case *c)
+{
+	int w = 7;
+	size_t i;
+
+	for (i = 0; i < c->nutil; i++)
+		if (chars(c->util[i].name) > w)
+			w = chars(c->util[i].name);
+	return w > 28 ? 28 : w;
+}
+
+static void
+text_rows(FILE *fp, const hl_case *c, const hl_utility_lp *lp, int w)
+{
+	char m[64];
+	size_t i;
+
+	for (i = 0; i < c->nutil; i++) {
+		const hl_utility *u = &c->util[i];
+		const hl_utility_load *l = &lp->util[i];
+
+		fprintf(fp, "  ");
+		put_name(fp, u->name, w);
+		fprintf(fp, "  %-4s  %7.1f  %7.1f  %8.2f  %10.1f  ",
+			u->kind == HL_HOT ? "hot" : "cold", u->supply,
+			u->target, u->price, l->load);
+		if (l->use == HL_UTIL_USED) {
+			money(m, sizeof m, l->cost);
+			fprintf(fp, "%12s\n", m);
+		} else {
+			fprintf(fp, "%12s\n", hl_utility_use_name(l->use));
+		}
+	}
+}
+
+static void
+text_pinches(FILE *fp, const hl_case *c, const hl_utility_lp *lp)
+{
+	size_t i;
+
+	if (lp->npinch == 0)
+		fprintf(fp, "Utility pinches        none\n");
+	for (i = 0; i < lp->npinch; i++) {
+		const hl_utility_pinch *p = &lp->pinch[i];
+
+		fprintf(fp, "Utility pinch          %.1f °C hot / %.1f °C cold "
+			"(%.1f °C shifted", p->hot, p->cold, p->shifted);
+		if (p->util >= 0)
+			fprintf(fp, "; the %s level", c->util[p->util].name);
+		fprintf(fp, ")\n");
+	}
+}
+
+void
+hl_utility_lp_text(FILE *fp, const hl_case *c, const hl_utility_lp *lp)
+{
+	const char *cur = c->set.currency ? c->set.currency : "";
+	int w = name_width(c);
+	char m[64];
+
+	fprintf(fp, "\nUtility levels at least cost (transshipment LP, "
+		"%.0f h/year)\n\n", lp->hours);
+	fprintf(fp, "  %-*s  %-4s  %7s  %7s  %8s  %10s  %12s\n", w, "utility",
+		"kind", "supply", "target", "price", "load", "cost");
+	/* "°C" is two characters in three bytes: widths count bytes. */
+	fprintf(fp, "  %-*s  %-4s  %8s  %8s  %8s  %10s  %7.7s/year\n", w, "",
+		"", "°C", "°C", "per MWh", "kW", cur);
+	text_rows(fp, c, lp, w);
+	money(m, sizeof m, lp->cost);
+	fprintf(fp, "\nHot utility            %.1f kW\n", lp->hot_load);
+	fprintf(fp, "Cold utility           %.1f kW\n", lp->cold_load);
+	fprintf(fp, "Utility cost           %s %s per year\n", m, cur);
+	text_pinches(fp, c, lp);
+	fprintf(fp, "Solver                 GLPK simplex, %s\n", lp->optimal ?
+		"proven optimal" : "not proven optimal");
+}
+
+static int
+xml_utility(xmlTextWriterPtr w, const hl_utility *u, const hl_utility_load *l)
+{
+	int rc = xmlTextWriterStartElement(w, BAD_CAST "utility");
+
+	rc |= hl_xml_str(w, "name", u->name);
+	rc |= hl_xml_str(w, "kind", u->kind == HL_HOT ? "hot" : "cold");
+	rc |= hl_xml_num(w, "supply", u->supply);
+	rc |= hl_xml_num(w, "target", u->target);
+	rc |= hl_xml_num(w, "price", u->price);
+	rc |= hl_xml_num(w, "load", l->load);
+	rc |= hl_xml_num(w, "cost", l->cost);
+	if (l->use == HL_UTIL_IDLE)
+		rc |= hl_xml_str(w, "use", "unused");
+	else if (l->use == HL_UTIL_REACH)
+		rc |= hl_xml_str(w, "use", "out-of-reach");
+	return rc | xmlTextWriterEndElement(w);
+}
+
+int
+hl_utility_lp_xml(xmlTextWriterPtr w, const hl_case *c,
+		  const hl_utility_lp *lp)
+{
+	size_t i;
+	int rc = xmlTextWriterStartElement(w, BAD_CAST "utility-summary");
+
+	rc |= hl_xml_num(w, "hot", lp->hot_load);
+	rc |= hl_xml_num(w, "cold", lp->cold_load);
+	rc |= hl_xml_num(w, "cost", lp->cost);
+	rc |= hl_xml_num(w, "hours", lp->hours);
+	rc |= hl_xml_str(w, "optimal", lp->optimal ? "true" : "false");
+	rc |= hl_xml_num(w, "gap", lp->gap);
+	rc |= xmlTextWriterEndElement(w);
+	for (i = 0; i < c->nutil; i++)
+		rc |= xml_utility(w, &c->util[i], &lp->util[i]);
+	for (i = 0; i < lp->npinch; i++) {
+		const hl_utility_pinch *p = &lp->pinch[i];
+
+		rc |= xmlTextWriterStartElement(w, BAD_CAST "utility-pinch");
+		rc |= hl_xml_num(w, "shifted", p->shifted);
+		rc |= hl_xml_num(w, "hot", p->hot);
+		rc |= hl_xml_num(w, "cold", p->cold);
+		if (p->util >= 0)
+			rc |= hl_xml_str(w, "utility", c->util[p->util].name);
+		rc |= xmlTextWriterEndElement(w);
+	}
+	return rc < 0 ? -1 : 0;
+}
