@@ -391,6 +391,11 @@ validate_utility(const hl_utility *u, hl_error *err)
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
 			"utility '%s': h must be > 0 and at most %g kW/(m²·K)",
 			u->name, HL_H_MAX);
+	if (!isnan(u->dt_contrib) && (!isfinite(u->dt_contrib) ||
+	    u->dt_contrib < 0.0 || u->dt_contrib > 500.0))
+		return hl_error_set(err, HL_EINPUT, u->file, u->line,
+			"utility '%s': dt_contrib must be between 0 and 500 K",
+			u->name);
 	return HL_OK;
 }
 

@@ -348,12 +348,13 @@ hot_shortage(const model *m, size_t b, double need, double avail, int reach,
 			"shifted (cold streams at %.1f °C) but the case has no "
 			"hot utility; add one to the utility table", need, ts, tc);
 	if (!reach)
-		return hl_error_set(err, HL_ENOSOLUTION, utility_file(c), 0,
-			"no hot utility is hot enough: the process needs %.1f "
-			"kW of heat above %.1f °C shifted (cold streams at %.1f "
-			"°C) and the hottest hot utility, '%s', supplies at "
-			"%.1f °C; add a hotter utility level", need, ts, tc,
-			name, c->util[w].supply);
+		return hl_error_set(err, HL_ENOSOLUTION, c->util[w].file,
+			c->util[w].line, "no hot utility is hot enough: the "
+			"process needs %.1f kW of heat above %.1f °C shifted "
+			"(cold streams at %.1f °C) and the hottest hot "
+			"utility, '%s', supplies at %.1f °C; add a hotter "
+			"utility level", need, ts, tc, name,
+			c->util[w].supply);
 	return hl_error_set(err, HL_ENOSOLUTION, utility_file(c), 0,
 		"the hot utilities hot enough to heat above %.1f °C shifted "
 		"(cold streams at %.1f °C) can give at most %.1f kW there "
@@ -377,12 +378,13 @@ cold_excess(const model *m, size_t b, double need, double avail, int reach,
 			"cold utility; add one to the utility table", need, ts,
 			th);
 	if (!reach)
-		return hl_error_set(err, HL_ENOSOLUTION, utility_file(c), 0,
-			"no cold utility is cold enough: the process must "
-			"reject %.1f kW of heat below %.1f °C shifted (hot "
-			"streams at %.1f °C) and the coldest cold utility, '%s', "
-			"starts at %.1f °C; add a colder utility level", need,
-			ts, th, name, c->util[w].supply);
+		return hl_error_set(err, HL_ENOSOLUTION, c->util[w].file,
+			c->util[w].line, "no cold utility is cold enough: the "
+			"process must reject %.1f kW of heat below %.1f °C "
+			"shifted (hot streams at %.1f °C) and the coldest cold "
+			"utility, '%s', starts at %.1f °C; add a colder "
+			"utility level", need, ts, th, name,
+			c->util[w].supply);
 	return hl_error_set(err, HL_ENOSOLUTION, utility_file(c), 0,
 		"the cold utilities cold enough to cool below %.1f °C shifted "
 		"(hot streams at %.1f °C) can take at most %.1f kW there "

@@ -96,7 +96,9 @@ typedef struct {
 /* Solve for c's utilities at dtmin (K). opt may be NULL (quiet, the case's
  * time limit). Errors: HL_EINPUT when c has no streams or no utilities;
  * HL_ENOSOLUTION when no loads can meet the process (the sentence names the
- * temperature range without a utility, file = the first utility's file),
+ * temperature range without a utility; file and line are those of the
+ * hottest hot / coldest cold utility when it is too cold / too hot, else
+ * the first utility's file),
  * or GLPK fails or times out; HL_EIO out of memory. */
 hl_status hl_utility_lp_solve(const hl_case *c, double dtmin,
 			      const hl_utility_lp_opts *opt,
