@@ -22,5 +22,15 @@ out="$build/bench-results.md"
 		set -- $("$build/tests/bench/bench_targets" "$work/s.csv" 3)
 		printf '| %s | %s | %s | %s | %s |\n' "$1" "$2" "$3" "$4" "$(($5 / 1024))"
 	done
+	echo
+	echo "## utility LP (five levels) against the problem table on the same streams"
+	echo
+	echo "| streams | problem table (s) | utility LP (s) | ratio |"
+	echo "|--:|--:|--:|--:|"
+	for n in 1000 10000 100000; do
+		"$build/tests/bench/gen_streams" "$n" 42 >"$work/s.csv"
+		set -- $("$build/tests/bench/bench_utility_lp" "$work/s.csv" 3)
+		printf '| %s | %s | %s | %s |\n' "$1" "$2" "$3" "$4"
+	done
 } | tee "$out"
 echo "written to $out"
