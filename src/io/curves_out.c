@@ -182,7 +182,7 @@ composite_pinches(hl_svg_chart *ch, const hl_cascade *cas,
 		if (shifted) {
 			snprintf(b, sizeof b, "pinch %.1f \xc2\xb0""C shifted", t);
 			rc |= hl_svg_chart_add_hline(ch, t, b, HL_SVG_GREY,
-						     HL_SVG_DOTTED);
+						     HL_SVG_DOTTED, HL_SVG_START);
 		} else {
 			snprintf(b, sizeof b, "pinch %.1f / %.1f \xc2\xb0""C",
 				 th, tc);
@@ -277,7 +277,8 @@ level_labels(hl_svg_chart *ch, const hl_case *c, const hl_curves *cv,
 		snprintf(b, sizeof b, "%s: %s", c->util[i].name,
 			 hl_utility_use_name(u->use));
 		rc |= hl_svg_chart_add_hline(ch, c->util[i].kind == HL_HOT ?
-			u->t_hi : u->t_lo, b, HL_SVG_GREY, HL_SVG_DOTTED);
+			u->t_hi : u->t_lo, b, HL_SVG_GREY, HL_SVG_DOTTED,
+			HL_SVG_END);
 	}
 	return rc;
 }

@@ -170,13 +170,15 @@ hl_svg_chart_add_series(hl_svg_chart *ch, const char *label, const double *x,
 
 int
 hl_svg_chart_add_hline(hl_svg_chart *ch, double y, const char *label,
-		       hl_svg_colour colour, hl_svg_dash dash)
+		       hl_svg_colour colour, hl_svg_dash dash,
+		       hl_svg_anchor side)
 {
 	hl_svg_item *it = new_item(ch, HL_SVG_IT_HLINE, label);
 
 	if (it == NULL)
 		return -1;
 	it->a = y;
+	it->anchor = side;
 	it->style.colour = colour;
 	it->style.dash = dash;
 	return 0;

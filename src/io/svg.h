@@ -115,8 +115,10 @@ void hl_svg_chart_set_yrange(hl_svg_chart *ch, double lo, double hi);
 int hl_svg_chart_add_series(hl_svg_chart *ch, const char *label,
 			    const double *x, const double *y, size_t n,
 			    const hl_svg_style *style);
+/* side: where the label sits along the line (start = left end). */
 int hl_svg_chart_add_hline(hl_svg_chart *ch, double y, const char *label,
-			   hl_svg_colour colour, hl_svg_dash dash);
+			   hl_svg_colour colour, hl_svg_dash dash,
+			   hl_svg_anchor side);
 int hl_svg_chart_add_vline(hl_svg_chart *ch, double x, const char *label,
 			   hl_svg_colour colour, hl_svg_dash dash);
 int hl_svg_chart_add_marker(hl_svg_chart *ch, double x, double y,

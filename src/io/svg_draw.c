@@ -675,9 +675,14 @@ draw_refline(const hl_svg_item *it, const layout *L, int nth,
 	else
 		rc |= line(w, px(L, it->a), L->top, px(L, it->a), L->bottom);
 	rc |= end(w);
-	if (it->label != NULL && it->kind == HL_SVG_IT_HLINE)
-		rc |= text(w, L->right - 4, py(L, it->a) - 5, it->label,
-			   FS_NOTE, HL_SVG_END, INK, 1);
+	if (it->label != NULL && it->kind == HL_SVG_IT_HLINE) {
+		double x = it->anchor == HL_SVG_START ? L->left + 6 :
+			   it->anchor == HL_SVG_END ? L->right - 4 :
+			   0.5 * (L->left + L->right);
+
+		rc |= text(w, x, py(L, it->a) - 5, it->label, FS_NOTE,
+			   it->anchor, INK, 1);
+	}
 	else if (it->label != NULL) {
 		int right = px(L, it->a) > 0.5 * (L->left + L->right);
 

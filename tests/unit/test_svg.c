@@ -87,7 +87,8 @@ sample(void)
 	assert_int_equal(hl_svg_chart_add_series(ch, "hot", x, y, 4, &hot), 0);
 	assert_int_equal(hl_svg_chart_add_series(ch, "cold", x, y2, 4, &cold), 0);
 	assert_int_equal(hl_svg_chart_add_hline(ch, 85, "pinch 85 °C",
-						HL_SVG_GREY, HL_SVG_DOTTED), 0);
+						HL_SVG_GREY, HL_SVG_DOTTED,
+						HL_SVG_START), 0);
 	assert_int_equal(hl_svg_chart_add_vline(ch, 180, "v", HL_SVG_GREY,
 						HL_SVG_DOTTED), 0);
 	assert_int_equal(hl_svg_chart_add_marker(ch, 0, 85, HL_SVG_MARK_DIAMOND,
