@@ -484,7 +484,9 @@ test_ties(void **state)
 }
 
 /* A hot utility colder than every cold stream, and a cold one hotter than
- * every hot stream, can serve nothing: reported, not an error. */
+ * every hot stream, can serve nothing (heat flows only down the
+ * temperature scale: common practice, no source): reported, not an
+ * error. */
 static void
 test_out_of_reach(void **state)
 {
