@@ -13,6 +13,7 @@ static const hl_command *const commands[] = {
 	&hl_cmd_targets,
 	&hl_cmd_size,
 	&hl_cmd_curves,
+	&hl_cmd_sweep,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 

@@ -23,6 +23,7 @@ typedef struct {
 extern const hl_command hl_cmd_targets;
 extern const hl_command hl_cmd_size;
 extern const hl_command hl_cmd_curves;
+extern const hl_command hl_cmd_sweep;
 
 /* Output formats a command may accept. */
 typedef enum { HL_FMT_TEXT, HL_FMT_XML, HL_FMT_CSV } hl_format;

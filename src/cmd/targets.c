@@ -10,6 +10,8 @@
 #include "result_xml.h"
 #include "sensitivity.h"
 #include "sensitivity_out.h"
+#include "sweep.h"
+#include "sweep_out.h"
 #include "targets_out.h"
 #include "utility_lp.h"
 #include "utility_out.h"
@@ -33,6 +35,8 @@ help(FILE *fp)
 "  --sensitivity      how far each stream datum and ΔTmin move the targets,\n"
 "                     ranked, with the band from the cp_tol and t_tol\n"
 "                     tolerances (csv: one row per datum)\n"
+"  --supertargets     also the area, units, shells and cost targets at this\n"
+"                     ΔTmin (text and xml)\n"
 "  -o, --output FILE  write to FILE instead of standard output\n"
 "  --verbose          show the LP solver's messages on standard error\n"
 "  -h, --help         show this help\n"
@@ -40,10 +44,13 @@ help(FILE *fp)
 "%s\n", hl_caution);
 }
 
-enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT, OPT_SENS, OPT_VERBOSE };
+enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT, OPT_SENS, OPT_VERBOSE,
+       OPT_SUPER };
 
 /* --sensitivity: replaces the text and CSV outputs, adds to the XML. */
 static int want_sensitivity;
+/* --supertargets: adds to the text and the XML. */
+static int want_super;
 
 static int
 parse(int argc, char **argv, hl_common *o)
@@ -53,6 +60,7 @@ parse(int argc, char **argv, hl_common *o)
 		{ "utilities", required_argument, NULL, OPT_UTIL },
 		{ "format", required_argument, NULL, OPT_FORMAT },
 		{ "sensitivity", no_argument, NULL, OPT_SENS },
+		{ "supertargets", no_argument, NULL, OPT_SUPER },
 		{ "output", required_argument, NULL, 'o' },
 		{ "verbose", no_argument, NULL, OPT_VERBOSE },
 		{ "help", no_argument, NULL, 'h' },
@@ -62,6 +70,7 @@ parse(int argc, char **argv, hl_common *o)
 
 	hl_common_init(o);
 	want_sensitivity = 0;
+	want_super = 0;
 	optind = 1;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
@@ -82,6 +91,9 @@ parse(int argc, char **argv, hl_common *o)
 			break;
 		case OPT_SENS:
 			want_sensitivity = 1;
+			break;
+		case OPT_SUPER:
+			want_super = 1;
 			break;
 		case 'o':
 			o->output = optarg;
@@ -111,7 +123,7 @@ parse(int argc, char **argv, hl_common *o)
 static hl_status
 write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	  const hl_threshold *th, const hl_utility_lp *lp,
-	  const hl_sensitivity *sv, hl_error *err)
+	  const hl_sensitivity *sv, const hl_supertargets *sup, hl_error *err)
 {
 	hl_xml_out *x = hl_xml_out_begin(c->source);
 	hl_status st;
@@ -121,7 +133,9 @@ write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	if (hl_targets_xml_begin(hl_xml_out_writer(x), cas, th) < 0 ||
 	    (lp != NULL && hl_utility_lp_xml(hl_xml_out_writer(x), c, lp) < 0) ||
 	    hl_targets_xml_end(hl_xml_out_writer(x)) < 0 ||
-	    (sv != NULL && hl_sensitivity_xml(hl_xml_out_writer(x), c, sv) < 0))
+	    (sv != NULL && hl_sensitivity_xml(hl_xml_out_writer(x), c, sv) < 0) ||
+	    (sup != NULL && hl_supertargets_xml(hl_xml_out_writer(x),
+						"supertargets", sup) < 0))
 		st = hl_error_set(err, HL_EIO, NULL, 0, "cannot build XML");
 	else
 		st = hl_xml_out_finish(x, fp, err);
@@ -131,11 +145,14 @@ write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
 
 static void
 write_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
-	   const hl_threshold *th, const hl_utility_lp *lp)
+	   const hl_threshold *th, const hl_utility_lp *lp,
+	   const hl_supertargets *sup)
 {
 	hl_targets_text_summary(fp, c, cas, th);
 	if (lp != NULL)
 		hl_utility_lp_text(fp, c, lp);
+	if (sup != NULL)
+		hl_supertargets_text(fp, c, sup);
 	hl_targets_text_table(fp, cas);
 	hl_targets_text_caution(fp);
 }
@@ -149,6 +166,7 @@ run_targets(const hl_common *o, hl_error *err)
 	hl_utility_lp *lp = NULL;
 	hl_sensitivity *sv = NULL;
 	hl_threshold th = { 0, HUGE_VAL };
+	hl_supertargets sup;
 	hl_output out;
 	hl_status st;
 
@@ -165,11 +183,14 @@ run_targets(const hl_common *o, hl_error *err)
 		st = hl_utility_lp_solve(c, c->set.dtmin, &lo, &lp, err);
 	if (st == HL_OK && want_sensitivity)
 		st = hl_sensitivity_compute(c, cas, &sv, err);
+	if (st == HL_OK && want_super)
+		st = hl_sweep_point_from(c, cas, lp, &sup, err);
 	if (st == HL_OK)
 		st = hl_output_open(&out, o->output, err);
 	if (st == HL_OK) {
 		if (o->format == HL_FMT_XML)
-			st = write_xml(out.fp, c, cas, &th, lp, sv, err);
+			st = write_xml(out.fp, c, cas, &th, lp, sv,
+				       want_super ? &sup : NULL, err);
 		else if (sv != NULL && o->format == HL_FMT_CSV)
 			hl_sensitivity_csv(out.fp, c, sv);
 		else if (sv != NULL)
@@ -177,7 +198,8 @@ run_targets(const hl_common *o, hl_error *err)
 		else if (o->format == HL_FMT_CSV)
 			hl_targets_csv(out.fp, cas);
 		else
-			write_text(out.fp, c, cas, &th, lp);
+			write_text(out.fp, c, cas, &th, lp,
+				   want_super ? &sup : NULL);
 		st = st == HL_OK ? hl_output_commit(&out, err) : st;
 		hl_output_abort(&out);
 	}
@@ -205,7 +227,7 @@ run(int argc, char **argv)
 
 const hl_command hl_cmd_targets = {
 	"targets", "CASE [--dtmin K] [--utilities FILE] [--format text|xml|csv] "
-	"[--sensitivity] [-o FILE] [--verbose]",
+	"[--sensitivity] [--supertargets] [-o FILE] [--verbose]",
 	"energy targets, pinches, heat cascade, least-cost utility levels",
 	run, help
 };
