@@ -32,5 +32,24 @@ out="$build/bench-results.md"
 		set -- $("$build/tests/bench/bench_utility_lp" "$work/s.csv" 3)
 		printf '| %s | %s | %s | %s |\n' "$1" "$2" "$3" "$4"
 	done
+	echo
+	echo "## sweep: 200 ΔTmin points on 50 streams with five utility levels"
+	echo
+	"$build/tests/bench/gen_streams" 50 42 >"$work/s50.csv"
+	cat >"$work/u.csv" <<-EOF
+	name,kind,supply,target,price
+	HP steam,hot,450,450,38
+	MP steam,hot,300,300,30
+	LP steam,hot,180,180,22
+	cooling water,cold,10,15,2
+	brine,cold,-40,-35,25
+	EOF
+	/usr/bin/time -f '%e %M' -o "$work/time" "$build/heatloom" sweep "$work/s50.csv" \
+		--utilities "$work/u.csv" --from 0.2 --to 40 --step 0.2 --format csv -o "$work/sw.csv"
+	set -- $(cat "$work/time")
+	echo "| points | wall time (s) | per point (ms) | peak RSS (MiB) |"
+	echo "|--:|--:|--:|--:|"
+	printf '| %s | %s | %s | %s |\n' "$(($(wc -l <"$work/sw.csv") - 1))" "$1" \
+		"$(awk -v t="$1" 'BEGIN { printf "%.2f", 1000 * t / 200 }')" "$(($2 / 1024))"
 } | tee "$out"
 echo "written to $out"
