@@ -11,9 +11,9 @@
 #include "output.h"
 
 const char hl_caution[] =
-	"Results are screening estimates. Detailed thermal and mechanical "
-	"design, pressure equipment codes and the safety review of each match "
-	"(leaks between incompatible streams, fouling, start-up) belong to "
+	"Results are screening estimates. Detailed thermal and mechanical\n"
+	"design, pressure equipment codes and the safety review of each match\n"
+	"(leaks between incompatible streams, fouling, start-up) belong to\n"
 	"qualified engineers under local codes.";
 
 void

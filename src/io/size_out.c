@@ -476,10 +476,9 @@ hl_size_text(FILE *fp, const hl_size_result *r)
 	text_notes(fp, r);
 	text_assumed(fp, r);
 	fputs(legend, fp);
-	if (r->caution != NULL) {
-		fputc('\n', fp);
-		wrapped(fp, r->caution, "", "", NOTE_WIDTH);
-	}
+	/* The caution comes with its own line breaks. */
+	if (r->caution != NULL)
+		fprintf(fp, "\n%s\n", r->caution);
 }
 
 /* "type fmin …": the attributes whose values were assumed. */
