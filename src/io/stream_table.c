@@ -142,8 +142,9 @@ builder_flush(hl_case *c, builder *b, hl_error *err)
 static hl_status
 builder_start(builder *b, hl_table *t, const row *r, hl_error *err)
 {
-	snprintf(b->name, sizeof b->name, "%s", hl_table_text(t, C_NAME));
-	snprintf(b->area, sizeof b->area, "%s", hl_table_text(t, C_AREA));
+	/* Fields are at most HL_CSV_FIELD_MAX long, the size of both. */
+	strcpy(b->name, hl_table_text(t, C_NAME));
+	strcpy(b->area, hl_table_text(t, C_AREA));
 	b->s.name = b->name;
 	b->s.area = b->area[0] ? b->area : NULL;
 	b->s.kind = r->supply > r->target ? HL_HOT : HL_COLD;

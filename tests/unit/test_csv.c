@@ -3,6 +3,8 @@
 #include <setjmp.h>
 #include <stdarg.h>
 #include <stddef.h>
+#include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 #include <cmocka.h>
 
@@ -116,6 +118,40 @@ test_parse_number(void **state)
 	assert_false(hl_parse_number("1e", 0, &v));
 }
 
+/* The fast path for short decimals must give exactly what glibc's strtod
+ * gives (a correctly rounded reference: Debian's libc6); Clinger (1990)
+ * proves the path exact, this checks the implementation. */
+static void
+test_parse_number_exact(void **state)
+{
+	static const char *const fmt[] = { "%.0f", "%.1f", "%.3f", "%.6f",
+					   "%.9e", "%.14e", "%.4e", "%.15g" };
+	unsigned long long x = 88172645463325252ull;
+	int i, k;
+
+	(void)state;
+	for (i = 0; i < 20000; i++) {
+		char buf[64];
+		double want, got, v;
+
+		x ^= x << 13;
+		x ^= x >> 7;
+		x ^= x << 17;
+		v = (double)(x % 100000000000ull) /
+		    (double)(1ull << (x % 40)) * ((x & 1) ? -1.0 : 1.0);
+		for (k = 0; k < 8; k++) {
+			snprintf(buf, sizeof buf, fmt[k], v);
+			want = strtod(buf, NULL);
+			assert_true(hl_parse_number(buf, 0, &got));
+			if (memcmp(&got, &want, sizeof got) != 0) {
+				print_error("%s: got %.17g want %.17g\n", buf,
+					    got, want);
+				fail();
+			}
+		}
+	}
+}
+
 static void
 test_stream_table(void **state)
 {
@@ -203,6 +239,7 @@ main(void)
 		cmocka_unit_test(test_semicolon_decimal_comma),
 		cmocka_unit_test(test_errors),
 		cmocka_unit_test(test_parse_number),
+		cmocka_unit_test(test_parse_number_exact),
 		cmocka_unit_test(test_stream_table),
 		cmocka_unit_test(test_segmented),
 		cmocka_unit_test(test_utility_table),
