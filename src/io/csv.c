@@ -285,7 +285,6 @@ skip_ignorable(hl_csv *r)
 {
 	for (;;) {
 		size_t i = r->pos;
-		int blank = 1;
 
 		if (r->pos >= r->len)
 			return 0;
@@ -293,14 +292,13 @@ skip_ignorable(hl_csv *r)
 			while (i < r->len && r->buf[i] != '\n')
 				i++;
 		} else {
+			/* Stop at the first character that makes it a row. */
 			while (i < r->len && r->buf[i] != '\n') {
 				if (r->buf[i] != ' ' && r->buf[i] != '\t' &&
 				    r->buf[i] != '\r' && r->buf[i] != r->sep)
-					blank = 0;
+					return 1;
 				i++;
 			}
-			if (!blank)
-				return 1;
 		}
 		r->pos = i < r->len ? i + 1 : i;
 		r->line++;
