@@ -1,6 +1,7 @@
 #!/bin/sh
 # run.sh - make bench: reproducible benchmarks on generated problems.
-# Usage: run.sh BUILDDIR SRCDIR. Writes BUILDDIR/bench-results.md.
+# Usage: run.sh BUILDDIR SRCDIR. Writes BUILDDIR/bench-results.md and copies
+# it to SRCDIR/doc/performance.md.
 set -eu
 build=$1
 src=$2
@@ -51,5 +52,8 @@ out="$build/bench-results.md"
 	echo "|--:|--:|--:|--:|"
 	printf '| %s | %s | %s | %s |\n' "$(($(wc -l <"$work/sw.csv") - 1))" "$1" \
 		"$(awk -v t="$1" 'BEGIN { printf "%.2f", 1000 * t / 200 }')" "$(($2 / 1024))"
+	echo
+	echo "Reproduce with \`make bench\` (tests/bench/run.sh); figures vary with the machine."
 } | tee "$out"
-echo "written to $out"
+cp "$out" "$src/doc/performance.md"
+echo "written to $out and $src/doc/performance.md"
