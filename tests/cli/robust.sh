@@ -21,6 +21,9 @@ check_grep "long.csv:2: field longer than 4096 characters" "$WORK/stderr"
 check_exit 0 "$HEATLOOM" targets "$WORK/m.csv" --format xml -o "$WORK/m.xml"
 check_grep "<targets dtmin=" "$WORK/m.xml"
 rm -f "$WORK/m.xml"
+check_exit 0 "$HEATLOOM" curves "$WORK/m.csv" -o "$WORK/mcurves"
+[ -s "$WORK/mcurves/grand-composite.svg" ] && pass || fail "no curves for 10^6 streams"
+rm -rf "$WORK/mcurves"
 
 # SIGINT or SIGTERM during a run leaves no partial output and no temporary
 # file. The text cascade of a million streams takes long enough to write that
