@@ -4,31 +4,7 @@
 #include <string.h>
 
 #include "cascade.h"
-
-static int
-cmp_desc(const void *a, const void *b)
-{
-	double x = *(const double *)a, y = *(const double *)b;
-
-	return (x < y) - (x > y);
-}
-
-/* Index of value v in the falling, duplicate-free array t[0..n). */
-static size_t
-find_desc(const double *t, size_t n, double v)
-{
-	size_t lo = 0, hi = n;
-
-	while (lo < hi) {
-		size_t mid = lo + (hi - lo) / 2;
-
-		if (t[mid] > v)
-			lo = mid + 1;
-		else
-			hi = mid;
-	}
-	return lo;
-}
+#include "sorted.h"
 
 static size_t
 count_segments(const hl_case *c)
@@ -44,7 +20,7 @@ count_segments(const hl_case *c)
 static double *
 shifted_boundaries(const hl_case *c, double dtmin, size_t *nb)
 {
-	size_t nseg = count_segments(c), i, j, n = 0, u;
+	size_t nseg = count_segments(c), i, j, n = 0;
 	double *t = malloc(2 * nseg * sizeof *t);
 
 	if (t == NULL)
@@ -59,11 +35,7 @@ shifted_boundaries(const hl_case *c, double dtmin, size_t *nb)
 			t[n++] = s->seg[j].target + sh;
 		}
 	}
-	qsort(t, n, sizeof *t, cmp_desc);
-	for (i = 1, u = 1; i < n; i++)
-		if (t[i] != t[u - 1])
-			t[u++] = t[i];
-	*nb = u;
+	*nb = hl_sorted_unique_desc(t, n);
 	return t;
 }
 
@@ -87,8 +59,8 @@ interval_cp(const hl_case *c, double dtmin, const double *t, size_t nb,
 			double hi = fmax(g->supply, g->target) + sh;
 			double lo = fmin(g->supply, g->target) + sh;
 
-			netcp[find_desc(t, nb, hi)] += sign * g->cp;
-			netcp[find_desc(t, nb, lo)] -= sign * g->cp;
+			netcp[hl_sorted_find_desc(t, nb, hi)] += sign * g->cp;
+			netcp[hl_sorted_find_desc(t, nb, lo)] -= sign * g->cp;
 		}
 	}
 	for (k = 0; k + 1 < nb; k++) {

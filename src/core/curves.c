@@ -5,31 +5,7 @@
 #include <string.h>
 
 #include "curves.h"
-
-static int
-cmp_asc(const void *a, const void *b)
-{
-	double x = *(const double *)a, y = *(const double *)b;
-
-	return (x > y) - (x < y);
-}
-
-/* Index of v in the rising, duplicate-free t[0..n). */
-static size_t
-find_asc(const double *t, size_t n, double v)
-{
-	size_t lo = 0, hi = n;
-
-	while (lo < hi) {
-		size_t mid = lo + (hi - lo) / 2;
-
-		if (t[mid] < v)
-			lo = mid + 1;
-		else
-			hi = mid;
-	}
-	return lo;
-}
+#include "sorted.h"
 
 static void
 curve_clear(hl_curve *cv)
@@ -66,7 +42,7 @@ static double *
 piece_temps(const hl_curve_piece *p, size_t n, size_t *m)
 {
 	double *t = malloc((2 * n + 1) * sizeof *t);
-	size_t i, k = 0, u;
+	size_t i, k = 0;
 
 	if (t == NULL)
 		return NULL;
@@ -76,11 +52,7 @@ piece_temps(const hl_curve_piece *p, size_t n, size_t *m)
 		t[k++] = p[i].t_hi;
 		t[k++] = p[i].t_lo;
 	}
-	qsort(t, k, sizeof *t, cmp_asc);
-	for (i = 1, u = k ? 1 : 0; i < k; i++)
-		if (t[i] != t[u - 1])
-			t[u++] = t[i];
-	*m = u;
+	*m = hl_sorted_unique_asc(t, k);
 	return t;
 }
 
@@ -133,8 +105,8 @@ hl_curves_composite(const hl_curve_piece *p, size_t n, double h0,
 
 		if (!(p[i].q > 0.0))
 			continue;
-		a = find_asc(t, m, p[i].t_lo);
-		b = find_asc(t, m, p[i].t_hi);
+		a = hl_sorted_find_asc(t, m, p[i].t_lo);
+		b = hl_sorted_find_asc(t, m, p[i].t_hi);
 		if (a == b) {
 			jump[a] += p[i].q;
 		} else {

@@ -13,6 +13,7 @@
 #include <string.h>
 
 #include "exchanger.h"
+#include "sorted.h"
 #include "supertarget.h"
 
 typedef struct {
@@ -104,30 +105,6 @@ collect(const hl_case *c, const double *util_load, pieces *hot, pieces *cold,
 	return 1;
 }
 
-static int
-cmp_up(const void *a, const void *b)
-{
-	double x = *(const double *)a, y = *(const double *)b;
-
-	return (x > y) - (x < y);
-}
-
-static size_t
-find_up(const double *t, size_t n, double v)
-{
-	size_t lo = 0, hi = n;
-
-	while (lo < hi) {
-		size_t mid = lo + (hi - lo) / 2;
-
-		if (t[mid] < v)
-			lo = mid + 1;
-		else
-			hi = mid;
-	}
-	return lo;
-}
-
 /* Per boundary j: sloped sums over interval j..j+1 and steps at j. */
 typedef struct {
 	double *cp, *cph, *step_q, *step_qh;
@@ -141,14 +118,14 @@ add_pieces(const pieces *ps, const double *t, size_t nt, sums *s)
 
 	for (i = 0; i < ps->n; i++) {
 		const piece *p = &ps->p[i];
-		size_t a = find_up(t, nt, p->t_lo);
+		size_t a = hl_sorted_find_asc(t, nt, p->t_lo);
 
 		if (p->t_hi == p->t_lo) {
 			s->step_q[a] += p->q;
 			s->step_qh[a] += p->q / p->h;
 			s->step_n[a]++;
 		} else {
-			size_t b = find_up(t, nt, p->t_hi);
+			size_t b = hl_sorted_find_asc(t, nt, p->t_hi);
 			double cp = p->q / (p->t_hi - p->t_lo);
 
 			s->cp[a] += cp;
@@ -195,10 +172,7 @@ composite(const pieces *ps, double h0, size_t *nseg)
 		t[nt++] = ps->p[i].t_lo;
 		t[nt++] = ps->p[i].t_hi;
 	}
-	qsort(t, nt, sizeof *t, cmp_up);
-	for (i = 0; i < nt; i++)
-		if (u == 0 || t[i] != t[u - 1])
-			t[u++] = t[i];
+	u = hl_sorted_unique_asc(t, nt);
 	s.cp = calloc(u + 1, sizeof(double));
 	s.cph = calloc(u + 1, sizeof(double));
 	s.step_q = calloc(u + 1, sizeof(double));

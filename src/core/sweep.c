@@ -5,23 +5,16 @@
 #include <string.h>
 
 #include "cascade.h"
+#include "sorted.h"
 #include "sweep.h"
 #include "utility_lp.h"
-
-static int
-cmp_desc(const void *a, const void *b)
-{
-	double x = *(const double *)a, y = *(const double *)b;
-
-	return (x < y) - (x > y);
-}
 
 /* Process and utility pinches of the LP, falling and without repeats. */
 static double *
 lp_pinches(const hl_utility_lp *lp, size_t *n)
 {
 	double *p = malloc((lp->nproc + lp->npinch + 1) * sizeof *p);
-	size_t i, k = 0, u = 0;
+	size_t i, k = 0;
 
 	*n = 0;
 	if (p == NULL)
@@ -30,11 +23,7 @@ lp_pinches(const hl_utility_lp *lp, size_t *n)
 		p[k++] = lp->proc[i].shifted;
 	for (i = 0; i < lp->npinch; i++)
 		p[k++] = lp->pinch[i].shifted;
-	qsort(p, k, sizeof *p, cmp_desc);
-	for (i = 0; i < k; i++)
-		if (u == 0 || p[i] != p[u - 1])
-			p[u++] = p[i];
-	*n = u;
+	*n = hl_sorted_unique_desc(p, k);
 	return p;
 }
 

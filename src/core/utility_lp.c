@@ -15,6 +15,7 @@
 #include <glpk.h>
 
 #include "utility_lp.h"
+#include "sorted.h"
 
 typedef struct {
 	const hl_case *c;
@@ -42,31 +43,6 @@ model_free(model *m)
 	free(m->bhi);
 	free(m->blo);
 	free(m->cap);
-}
-
-static int
-cmp_desc(const void *a, const void *b)
-{
-	double x = *(const double *)a, y = *(const double *)b;
-
-	return (x < y) - (x > y);
-}
-
-/* Index of v in the falling, duplicate-free t[0..n). */
-static size_t
-find_desc(const double *t, size_t n, double v)
-{
-	size_t lo = 0, hi = n;
-
-	while (lo < hi) {
-		size_t mid = lo + (hi - lo) / 2;
-
-		if (t[mid] > v)
-			lo = mid + 1;
-		else
-			hi = mid;
-	}
-	return lo;
 }
 
 static double
@@ -123,11 +99,7 @@ build_boundaries(model *m)
 		m->t[n++] = m->hi[u];
 		m->t[n++] = m->lo[u];
 	}
-	qsort(m->t, n, sizeof *m->t, cmp_desc);
-	for (i = 1, j = 1; i < n; i++)
-		if (m->t[i] != m->t[j - 1])
-			m->t[j++] = m->t[i];
-	m->nb = j;
+	m->nb = hl_sorted_unique_desc(m->t, n);
 	return 1;
 }
 
@@ -151,9 +123,9 @@ build_surplus(model *m)
 		for (j = 0; j < s->nseg; j++) {
 			const hl_segment *g = &s->seg[j];
 
-			m->dh[find_desc(m->t, m->nb, fmax(g->supply, g->target) +
+			m->dh[hl_sorted_find_desc(m->t, m->nb, fmax(g->supply, g->target) +
 					sh)] += sign * g->cp;
-			m->dh[find_desc(m->t, m->nb, fmin(g->supply, g->target) +
+			m->dh[hl_sorted_find_desc(m->t, m->nb, fmin(g->supply, g->target) +
 					sh)] -= sign * g->cp;
 		}
 	}
@@ -194,8 +166,8 @@ locate_utilities(model *m)
 	size_t u;
 
 	for (u = 0; u < m->nu; u++) {
-		m->bhi[u] = find_desc(m->t, m->nb, m->hi[u]);
-		m->blo[u] = find_desc(m->t, m->nb, m->lo[u]);
+		m->bhi[u] = hl_sorted_find_desc(m->t, m->nb, m->hi[u]);
+		m->blo[u] = hl_sorted_find_desc(m->t, m->nb, m->lo[u]);
 	}
 }
 
