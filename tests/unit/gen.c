@@ -1,6 +1,7 @@
 /* gen.c - random stream problems for property tests. */
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
 #include "gen.h"
@@ -65,5 +66,57 @@ hl_gen_case(hl_rng *r, int nhot, int ncold)
 		snprintf(name, sizeof name, "%c%d", i < nhot ? 'H' : 'C', i);
 		hl_gen_add(c, name, a, b, cp);
 	}
+	return c;
+}
+
+void
+hl_gen_add_utility(hl_case *c, const char *name, hl_kind kind, double supply,
+		   double target, double price, double max_load)
+{
+	hl_utility u;
+
+	memset(&u, 0, sizeof u);
+	u.name = (char *)name;
+	u.kind = kind;
+	u.supply = supply;
+	u.target = target;
+	u.price = price;
+	u.h = NAN;
+	u.max_load = max_load;
+	u.dt_contrib = NAN;
+	if (hl_case_add_utility(c, &u, NULL) != HL_OK)
+		abort();
+}
+
+/* Linnhoff et al., User Guide on Process Integration for the Efficient Use of
+ * Energy (IChemE 1982); also Kemp, Pinch Analysis and Process Integration,
+ * 2nd ed. (2007), ch. 2. From memory, confirmed by a hand cascade:
+ * ΔTmin 10 K: 20 / 60 kW, pinch 85 °C shifted; cascade 165: 20, 145: 80,
+ * 140: 82.5, 85: 0, 55: 75, 25: 60. */
+hl_case *
+hl_gen_kemp4(void)
+{
+	hl_case *c = hl_case_create();
+
+	hl_gen_add(c, "C1", 20, 135, 2.0);
+	hl_gen_add(c, "H1", 170, 60, 3.0);
+	hl_gen_add(c, "C2", 80, 140, 4.0);
+	hl_gen_add(c, "H2", 150, 30, 1.5);
+	return c;
+}
+
+/* Smith, Chemical Process Design and Integration (Wiley 2005), ch. 16, CP in
+ * kW/K here (MW/K there × 1000). From memory, confirmed by a hand cascade:
+ * ΔTmin 10 K: 7500 / 10000 kW, pinch 145 °C shifted; cascade 245: 7.5,
+ * 235: 9.0, 195: 3.0, 185: 4.0, 145: 0, 75: 14, 35: 12, 25: 10 MW. */
+hl_case *
+hl_gen_smith4(void)
+{
+	hl_case *c = hl_case_create();
+
+	hl_gen_add(c, "C1", 20, 180, 200);
+	hl_gen_add(c, "H1", 250, 40, 150);
+	hl_gen_add(c, "C2", 140, 230, 300);
+	hl_gen_add(c, "H2", 200, 80, 250);
 	return c;
 }

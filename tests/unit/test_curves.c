@@ -27,49 +27,7 @@ assert_rel(double got, double want, double rel)
 	}
 }
 
-static void
-add_util(hl_case *c, const char *name, hl_kind kind, double supply,
-	 double target, double price)
-{
-	hl_utility u;
-
-	memset(&u, 0, sizeof u);
-	u.name = (char *)name;
-	u.kind = kind;
-	u.supply = supply;
-	u.target = target;
-	u.price = price;
-	u.h = u.max_load = u.dt_contrib = NAN;
-	assert_int_equal(hl_case_add_utility(c, &u, NULL), HL_OK);
-}
-
-/* Linnhoff et al. (IChemE 1982) / Kemp (2007) ch. 2, from memory, confirmed
- * by a hand cascade (see test_cascade.c). */
-static hl_case *
-kemp4(void)
-{
-	hl_case *c = hl_case_create();
-
-	hl_gen_add(c, "C1", 20, 135, 2.0);
-	hl_gen_add(c, "H1", 170, 60, 3.0);
-	hl_gen_add(c, "C2", 80, 140, 4.0);
-	hl_gen_add(c, "H2", 150, 30, 1.5);
-	return c;
-}
-
-/* Smith (2005) ch. 16 in kW/K, from memory, confirmed by a hand cascade. */
-static hl_case *
-smith4(void)
-{
-	hl_case *c = hl_case_create();
-
-	hl_gen_add(c, "C1", 20, 180, 200);
-	hl_gen_add(c, "H1", 250, 40, 150);
-	hl_gen_add(c, "C2", 140, 230, 300);
-	hl_gen_add(c, "H2", 200, 80, 250);
-	return c;
-}
-
+/* The four-stream problems and their sources: tests/unit/gen.c. */
 static hl_curves *
 curves_of(const hl_case *c, double dt, hl_cascade **cas, hl_utility_lp **lp)
 {
@@ -103,7 +61,7 @@ last_h(const hl_curve *cv)
 static void
 test_kemp_composites(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_cascade *cas;
 	hl_utility_lp *lp;
 	hl_curves *cv = curves_of(c, 10.0, &cas, &lp);
@@ -243,16 +201,16 @@ check_balanced(const hl_curves *cv, double dt, double tol)
 static void
 test_smith_levels(void **state)
 {
-	hl_case *c = smith4();
+	hl_case *c = hl_gen_smith4();
 	hl_cascade *cas;
 	hl_utility_lp *lp;
 	hl_curves *cv;
 	size_t k;
 
 	(void)state;
-	add_util(c, "HP steam", HL_HOT, 270, 270, 40);
-	add_util(c, "MP steam", HL_HOT, 200, 200, 25);
-	add_util(c, "cooling water", HL_COLD, 15, 25, 2);
+	hl_gen_add_utility(c, "HP steam", HL_HOT, 270, 270, 40, NAN);
+	hl_gen_add_utility(c, "MP steam", HL_HOT, 200, 200, 25, NAN);
+	hl_gen_add_utility(c, "cooling water", HL_COLD, 15, 25, 2, NAN);
 	cv = curves_of(c, 10.0, &cas, &lp);
 	assert_rel(hl_curve_heat_at(&cv->hot_util, 195.0), 0.0, REL);
 	assert_rel(hl_curve_heat_at(&cv->hot_util, 200.0), 3000.0, REL);
@@ -299,11 +257,11 @@ test_random_balanced(void **state)
 		hl_utility_lp *lp;
 		hl_curves *cv;
 
-		add_util(c, "top", HL_HOT, 400, 380, 40);
+		hl_gen_add_utility(c, "top", HL_HOT, 400, 380, 40, NAN);
 		mid = floor(hl_rng_uniform(&r, 40, 300));
-		add_util(c, "mid", HL_HOT, mid, mid, 10);
-		add_util(c, "bottom", HL_COLD, -50, -50, 12);
-		add_util(c, "water", HL_COLD, 20, 35, 1);
+		hl_gen_add_utility(c, "mid", HL_HOT, mid, mid, 10, NAN);
+		hl_gen_add_utility(c, "bottom", HL_COLD, -50, -50, 12, NAN);
+		hl_gen_add_utility(c, "water", HL_COLD, 20, 35, 1, NAN);
 		cv = curves_of(c, dt, &cas, &lp);
 		check_balanced(cv, dt, 1e-7 * (cas->hot_total + 1));
 		hl_curves_free(cv);

@@ -683,20 +683,6 @@ test_surplus_hook_tied(void **state)
 	assert_true(checked > 100);
 }
 
-static void
-add_utility(hl_case *c, const char *name, hl_kind kind, double t, double price)
-{
-	hl_utility u;
-
-	memset(&u, 0, sizeof u);
-	u.name = (char *)name;
-	u.kind = kind;
-	u.supply = u.target = t;
-	u.price = price;
-	u.h = u.max_load = u.dt_contrib = NAN;
-	assert_int_equal(hl_case_add_utility(c, &u, NULL), HL_OK);
-}
-
 /* One hot and one cold utility: the cost (price·load·hours, per MWh) has
  * the derivative of 8000/1000·(40·QHmin + 5·QCmin) by a finite difference
  * of re-solved targets; several levels leave it to the utility LP. */
@@ -712,8 +698,8 @@ test_cost(void **state)
 	assert_int_equal(s->cost, HL_SENS_COST_NONE);
 	assert_true(isnan(s->row[0].cost_plus));
 	hl_sensitivity_free(s);
-	add_utility(c, "steam", HL_HOT, 200, 40);
-	add_utility(c, "water", HL_COLD, 20, 5);
+	hl_gen_add_utility(c, "steam", HL_HOT, 200, 200, 40, NAN);
+	hl_gen_add_utility(c, "water", HL_COLD, 20, 20, 5, NAN);
 	s = sens(c, 10.0);
 	assert_int_equal(s->cost, HL_SENS_COST_SINGLE);
 	for (i = 0; i < s->nrow; i++) {
@@ -725,7 +711,7 @@ test_cost(void **state)
 			    5 * (qcp - qcm)) / (2 * h), FD_REL);
 	}
 	hl_sensitivity_free(s);
-	add_utility(c, "LP steam", HL_HOT, 140, 20);
+	hl_gen_add_utility(c, "LP steam", HL_HOT, 140, 140, 20, NAN);
 	s = sens(c, 10.0);
 	assert_int_equal(s->cost, HL_SENS_COST_LEVELS);
 	assert_true(isnan(s->row[0].cost_plus) && isnan(s->dt.cost_minus));

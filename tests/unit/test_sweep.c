@@ -9,24 +9,6 @@
 #include "gen.h"
 #include "sweep.h"
 
-static void
-add_utility(hl_case *c, const char *name, hl_kind kind, double ts, double tt,
-	    double price)
-{
-	hl_utility u;
-
-	memset(&u, 0, sizeof u);
-	u.name = (char *)name;
-	u.kind = kind;
-	u.supply = ts;
-	u.target = tt;
-	u.price = price;
-	u.h = NAN;
-	u.max_load = NAN;
-	u.dt_contrib = NAN;
-	assert_int_equal(hl_case_add_utility(c, &u, NULL), HL_OK);
-}
-
 /* Energy cost grows with ΔTmin and the area target shrinks (common
  * practice, no source), on generated cases with one hot and one cold
  * utility spanning every temperature. */
@@ -43,8 +25,8 @@ test_monotone(void **state)
 		hl_sweep *sw;
 		size_t i;
 
-		add_utility(c, "steam", HL_HOT, 400, 400, 30);
-		add_utility(c, "brine", HL_COLD, -50, -40, 3);
+		hl_gen_add_utility(c, "steam", HL_HOT, 400, 400, 30, NAN);
+		hl_gen_add_utility(c, "brine", HL_COLD, -50, -40, 3, NAN);
 		assert_int_equal(hl_sweep_run(c, 1, 40, 1, &sw, NULL), HL_OK);
 		assert_int_equal(sw->n, 40);
 		for (i = 1; i < sw->n; i++) {

@@ -33,57 +33,7 @@ assert_rel(double got, double want, double rel)
 	}
 }
 
-static void
-add_util(hl_case *c, const char *name, hl_kind kind, double supply,
-	 double target, double price, double max_load)
-{
-	hl_utility u;
-
-	memset(&u, 0, sizeof u);
-	u.name = (char *)name;
-	u.kind = kind;
-	u.supply = supply;
-	u.target = target;
-	u.price = price;
-	u.h = NAN;
-	u.max_load = max_load;
-	u.dt_contrib = NAN;
-	assert_int_equal(hl_case_add_utility(c, &u, NULL), HL_OK);
-}
-
-/* Linnhoff et al., User Guide on Process Integration for the Efficient Use of
- * Energy (IChemE 1982); also Kemp, Pinch Analysis and Process Integration,
- * 2nd ed. (2007), ch. 2. From memory, confirmed by a hand cascade:
- * ΔTmin 10 K: 20 / 60 kW, pinch 85 °C shifted; cascade 165: 20, 145: 80,
- * 140: 82.5, 85: 0, 55: 75, 25: 60. */
-static hl_case *
-kemp4(void)
-{
-	hl_case *c = hl_case_create();
-
-	hl_gen_add(c, "C1", 20, 135, 2.0);
-	hl_gen_add(c, "H1", 170, 60, 3.0);
-	hl_gen_add(c, "C2", 80, 140, 4.0);
-	hl_gen_add(c, "H2", 150, 30, 1.5);
-	return c;
-}
-
-/* Smith, Chemical Process Design and Integration (Wiley 2005), ch. 16, CP in
- * kW/K here (MW/K there × 1000). From memory, confirmed by a hand cascade:
- * ΔTmin 10 K: 7500 / 10000 kW, pinch 145 °C shifted; cascade 245: 7.5,
- * 235: 9.0, 195: 3.0, 185: 4.0, 145: 0, 75: 14, 35: 12, 25: 10 MW. */
-static hl_case *
-smith4(void)
-{
-	hl_case *c = hl_case_create();
-
-	hl_gen_add(c, "C1", 20, 180, 200);
-	hl_gen_add(c, "H1", 250, 40, 150);
-	hl_gen_add(c, "C2", 140, 230, 300);
-	hl_gen_add(c, "H2", 200, 80, 250);
-	return c;
-}
-
+/* The four-stream problems and their sources: tests/unit/gen.c. */
 static hl_utility_lp *
 solve(const hl_case *c, double dtmin)
 {
@@ -286,12 +236,12 @@ compare_with_cascade(hl_case *c, double dtmin)
 static void
 test_kemp_one_each(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_utility_lp *lp;
 
 	(void)state;
-	add_util(c, "steam", HL_HOT, 250, 250, 30, NAN);
-	add_util(c, "water", HL_COLD, 5, 5, 5, NAN);
+	hl_gen_add_utility(c, "steam", HL_HOT, 250, 250, 30, NAN);
+	hl_gen_add_utility(c, "water", HL_COLD, 5, 5, 5, NAN);
 	compare_with_cascade(c, 10.0);
 	compare_with_cascade(c, 20.0);
 	lp = solve(c, 10.0);
@@ -315,11 +265,11 @@ test_kemp_one_each(void **state)
 static void
 test_smith_one_each_ranged(void **state)
 {
-	hl_case *c = smith4();
+	hl_case *c = hl_gen_smith4();
 
 	(void)state;
-	add_util(c, "hot oil", HL_HOT, 320, 300, 25, NAN);
-	add_util(c, "cooling water", HL_COLD, 5, 15, 2, NAN);
+	hl_gen_add_utility(c, "hot oil", HL_HOT, 320, 300, 25, NAN);
+	hl_gen_add_utility(c, "cooling water", HL_COLD, 5, 15, 2, NAN);
 	compare_with_cascade(c, 10.0);
 	compare_with_cascade(c, 20.0);
 	hl_case_free(c);
@@ -336,8 +286,8 @@ test_random_one_each(void **state)
 	for (n = 0; n < 150; n++) {
 		hl_case *c = hl_gen_case(&r, 1 + n % 6, 1 + n % 5);
 
-		add_util(c, "top", HL_HOT, 400, n % 2 ? 400 : 380, 20, NAN);
-		add_util(c, "bottom", HL_COLD, -50, n % 3 ? -50 : -40, 3,
+		hl_gen_add_utility(c, "top", HL_HOT, 400, n % 2 ? 400 : 380, 20, NAN);
+		hl_gen_add_utility(c, "bottom", HL_COLD, -50, n % 3 ? -50 : -40, 3,
 			 NAN);
 		compare_with_cascade(c, floor(hl_rng_uniform(&r, 0, 40)));
 		hl_case_free(c);
@@ -351,13 +301,13 @@ test_random_one_each(void **state)
 static void
 test_smith_second_level(void **state)
 {
-	hl_case *c = smith4();
+	hl_case *c = hl_gen_smith4();
 	hl_utility_lp *lp;
 
 	(void)state;
-	add_util(c, "HP steam", HL_HOT, 270, 270, 40, NAN);
-	add_util(c, "MP steam", HL_HOT, 200, 200, 25, NAN);
-	add_util(c, "cooling water", HL_COLD, 15, 15, 2, NAN);
+	hl_gen_add_utility(c, "HP steam", HL_HOT, 270, 270, 40, NAN);
+	hl_gen_add_utility(c, "MP steam", HL_HOT, 200, 200, 25, NAN);
+	hl_gen_add_utility(c, "cooling water", HL_COLD, 15, 15, 2, NAN);
 	lp = solve(c, 10.0);
 	assert_rel(lp->util[0].load, 4500.0, REL);
 	assert_rel(lp->util[1].load, 3000.0, REL);
@@ -401,13 +351,13 @@ test_smith_second_level(void **state)
 static void
 test_kemp_two_cold_levels(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_utility_lp *lp;
 
 	(void)state;
-	add_util(c, "steam", HL_HOT, 250, 250, 30, NAN);
-	add_util(c, "warm", HL_COLD, 60, 60, 1, NAN);
-	add_util(c, "cold", HL_COLD, 10, 10, 8, NAN);
+	hl_gen_add_utility(c, "steam", HL_HOT, 250, 250, 30, NAN);
+	hl_gen_add_utility(c, "warm", HL_COLD, 60, 60, 1, NAN);
+	hl_gen_add_utility(c, "cold", HL_COLD, 10, 10, 8, NAN);
 	lp = solve(c, 10.0);
 	assert_rel(lp->util[0].load, 20.0, REL);
 	assert_rel(lp->util[1].load, 50.0, REL);
@@ -425,13 +375,13 @@ test_kemp_two_cold_levels(void **state)
 static void
 test_ranged_cold(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_utility_lp *lp;
 
 	(void)state;
-	add_util(c, "steam", HL_HOT, 250, 250, 30, NAN);
-	add_util(c, "cooling water", HL_COLD, 60, 80, 1, NAN);
-	add_util(c, "chilled water", HL_COLD, 10, 10, 8, NAN);
+	hl_gen_add_utility(c, "steam", HL_HOT, 250, 250, 30, NAN);
+	hl_gen_add_utility(c, "cooling water", HL_COLD, 60, 80, 1, NAN);
+	hl_gen_add_utility(c, "chilled water", HL_COLD, 10, 10, 8, NAN);
 	lp = solve(c, 10.0);
 	assert_rel(lp->util[1].load, 50.0, 1e-8);
 	assert_rel(lp->util[2].load, 10.0, 1e-8);
@@ -447,12 +397,12 @@ test_ranged_cold(void **state)
 static void
 test_ranged_hot_across_pinch(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_utility_lp *lp;
 
 	(void)state;
-	add_util(c, "flue gas", HL_HOT, 300, 60, 20, NAN);
-	add_util(c, "water", HL_COLD, 10, 10, 5, NAN);
+	hl_gen_add_utility(c, "flue gas", HL_HOT, 300, 60, 20, NAN);
+	hl_gen_add_utility(c, "water", HL_COLD, 10, 10, 5, NAN);
 	lp = solve(c, 10.0);
 	assert_rel(lp->util[0].load, 160.0 / 7.0, REL);
 	assert_rel(lp->util[1].load, 60.0 + 20.0 / 7.0, REL);
@@ -466,14 +416,14 @@ test_ranged_hot_across_pinch(void **state)
 static void
 test_ties(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_utility_lp *lp;
 
 	(void)state;
-	add_util(c, "HP", HL_HOT, 250, 250, 30, NAN);
-	add_util(c, "LP", HL_HOT, 180, 180, 30, NAN);
-	add_util(c, "chilled", HL_COLD, 5, 5, 4, NAN);
-	add_util(c, "water", HL_COLD, 12, 12, 4, NAN);
+	hl_gen_add_utility(c, "HP", HL_HOT, 250, 250, 30, NAN);
+	hl_gen_add_utility(c, "LP", HL_HOT, 180, 180, 30, NAN);
+	hl_gen_add_utility(c, "chilled", HL_COLD, 5, 5, 4, NAN);
+	hl_gen_add_utility(c, "water", HL_COLD, 12, 12, 4, NAN);
 	lp = solve(c, 10.0);
 	assert_true(lp->util[0].load == 0.0);
 	assert_rel(lp->util[1].load, 20.0, REL);
@@ -490,14 +440,14 @@ test_ties(void **state)
 static void
 test_out_of_reach(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_utility_lp *lp;
 
 	(void)state;
-	add_util(c, "steam", HL_HOT, 250, 250, 30, NAN);
-	add_util(c, "warm water", HL_HOT, 25, 25, 0, NAN);
-	add_util(c, "water", HL_COLD, 10, 10, 5, NAN);
-	add_util(c, "hot sink", HL_COLD, 200, 200, 0, NAN);
+	hl_gen_add_utility(c, "steam", HL_HOT, 250, 250, 30, NAN);
+	hl_gen_add_utility(c, "warm water", HL_HOT, 25, 25, 0, NAN);
+	hl_gen_add_utility(c, "water", HL_COLD, 10, 10, 5, NAN);
+	hl_gen_add_utility(c, "hot sink", HL_COLD, 200, 200, 0, NAN);
 	lp = solve(c, 10.0);
 	assert_true(lp->util[1].load == 0.0);
 	assert_int_equal(lp->util[1].use, HL_UTIL_REACH);
@@ -530,13 +480,13 @@ expect_fail(const hl_case *c, const char *part1, const char *part2)
 static void
 test_infeasible(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 
 	(void)state;
 	/* Steam condensing at 85 °C (80 shifted) lies below the 85 °C shifted
 	 * pinch, above which the process needs its 20 kW. */
-	add_util(c, "LP steam", HL_HOT, 85, 85, 30, NAN);
-	add_util(c, "water", HL_COLD, 10, 10, 5, NAN);
+	hl_gen_add_utility(c, "LP steam", HL_HOT, 85, 85, 30, NAN);
+	hl_gen_add_utility(c, "water", HL_COLD, 10, 10, 5, NAN);
 	expect_fail(c, "no hot utility is hot enough: the process needs 20.0 "
 		    "kW of heat above 85.0 °C shifted (cold streams at 80.0 °C)",
 		    "the hottest hot utility, 'LP steam', supplies at 85.0 °C");
@@ -547,16 +497,16 @@ test_infeasible(void **state)
 	hl_case_free(c);
 
 	/* No cold utility at all for the 60 kW below the pinch. */
-	c = kemp4();
-	add_util(c, "steam", HL_HOT, 250, 250, 30, NAN);
+	c = hl_gen_kemp4();
+	hl_gen_add_utility(c, "steam", HL_HOT, 250, 250, 30, NAN);
 	expect_fail(c, "must reject 60.0 kW", "has no cold utility");
 	hl_case_free(c);
 
 	/* Cooling only at 100 °C (105 shifted): the 60 kW released below the
 	 * pinch cannot reach it. */
-	c = kemp4();
-	add_util(c, "steam", HL_HOT, 250, 250, 30, NAN);
-	add_util(c, "hot well", HL_COLD, 100, 100, 1, NAN);
+	c = hl_gen_kemp4();
+	hl_gen_add_utility(c, "steam", HL_HOT, 250, 250, 30, NAN);
+	hl_gen_add_utility(c, "hot well", HL_COLD, 100, 100, 1, NAN);
 	expect_fail(c, "no cold utility is cold enough: the process must "
 		    "reject 60.0 kW of heat below 85.0 °C shifted",
 		    "the coldest cold utility, 'hot well', starts at 100.0 °C");
@@ -565,9 +515,9 @@ test_infeasible(void **state)
 	/* Flue gas down to -5 °C shifted would release heat below the only
 	 * cold level (15 shifted), where nothing can take it: each condition
 	 * alone holds, their combination does not (constructed by hand). */
-	c = kemp4();
-	add_util(c, "flue gas", HL_HOT, 300, 0, 20, NAN);
-	add_util(c, "water", HL_COLD, 10, 10, 5, NAN);
+	c = hl_gen_kemp4();
+	hl_gen_add_utility(c, "flue gas", HL_HOT, 300, 0, 20, NAN);
+	hl_gen_add_utility(c, "water", HL_COLD, 10, 10, 5, NAN);
 	expect_fail(c, "cannot meet the process", "temperature range");
 	hl_case_free(c);
 }
@@ -589,19 +539,19 @@ test_random_levels(void **state)
 		char name[16];
 		int i;
 
-		add_util(c, "top", HL_HOT, 400, 400, 40, NAN);
-		add_util(c, "bottom", HL_COLD, -50, -50, 12, NAN);
+		hl_gen_add_utility(c, "top", HL_HOT, 400, 400, 40, NAN);
+		hl_gen_add_utility(c, "bottom", HL_COLD, -50, -50, 12, NAN);
 		for (i = 0; i < 3; i++) {
 			double t = floor(hl_rng_uniform(&r, 30, 320));
 			double t2 = i == 2 ? t - floor(hl_rng_uniform(&r, 0, 40)) : t;
 
 			snprintf(name, sizeof name, "h%d", i);
-			add_util(c, name, HL_HOT, t, t2,
+			hl_gen_add_utility(c, name, HL_HOT, t, t2,
 				 floor(hl_rng_uniform(&r, 5, 40)),
 				 n % 3 == 0 ? hl_rng_uniform(&r, 0, 500) : NAN);
 			t = floor(hl_rng_uniform(&r, 5, 250));
 			snprintf(name, sizeof name, "c%d", i);
-			add_util(c, name, HL_COLD, t, i == 1 ? t + 10 : t,
+			hl_gen_add_utility(c, name, HL_COLD, t, i == 1 ? t + 10 : t,
 				 floor(hl_rng_uniform(&r, 1, 12)), NAN);
 		}
 		lp = solve(c, dt);
