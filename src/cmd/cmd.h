@@ -47,6 +47,27 @@ int hl_cmd_fail(const hl_error *err);
 int hl_cmd_usage(const char *cmd, const char *fmt, ...)
 	__attribute__((format(printf, 2, 3)));
 
+/* Option codes every command may put in its getopt_long table; the command
+ * picks which ones it offers (and its own codes stay below 1000). */
+enum {
+	HL_OPT_DTMIN = 1000,   /* --dtmin K */
+	HL_OPT_UTIL,           /* --utilities FILE */
+	HL_OPT_FORMAT,         /* --format FMT */
+	HL_OPT_VERBOSE,        /* --verbose */
+	HL_OPT_QUIET           /* --quiet */
+};
+
+/* Handle getopt_long's result ch for the shared options, -o, -h and the
+ * two getopt errors. Returns 1 when ch was one of them and has been applied,
+ * 0 when ch is the command's own, or the exit code to return now (-1 after
+ * --help: exit 0; 1 after a usage error). formats: HL_FMT_BIT set accepted
+ * by --format. */
+int hl_cmd_common_opt(const char *cmd, int ch, char **argv, unsigned formats,
+		      void (*help)(FILE *), hl_common *o, int *rc);
+
+/* After the options: exactly one CASE argument. 0, or 1 with a message. */
+int hl_cmd_one_input(const char *cmd, int argc, char **argv, hl_common *o);
+
 /* Parse a number option value; 0 on success. */
 int hl_cmd_parse_double(const char *cmd, const char *opt, const char *arg,
 			double lo, double hi, double *out);

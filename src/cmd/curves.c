@@ -42,60 +42,34 @@ help(FILE *fp)
 "%s\n", hl_caution);
 }
 
-enum { OPT_DTMIN = 256, OPT_UTIL, OPT_VERBOSE };
-
 static int
 parse(int argc, char **argv, hl_common *o, const char **dir)
 {
 	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, OPT_DTMIN },
-		{ "utilities", required_argument, NULL, OPT_UTIL },
+		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
+		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
 		{ "output", required_argument, NULL, 'o' },
-		{ "verbose", no_argument, NULL, OPT_VERBOSE },
+		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
-	int ch;
+	int ch, rc;
 
 	hl_common_init(o);
-	*dir = NULL;
 	optind = 1;
 	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		switch (ch) {
-		case OPT_DTMIN:
-			if (hl_cmd_parse_double("curves", "--dtmin", optarg,
-						0.0, 500.0, &o->dtmin) != 0)
-				return 1;
-			break;
-		case OPT_UTIL:
-			o->utilities = optarg;
-			break;
-		case OPT_VERBOSE:
-			o->verbose = 1;
-			break;
-		case 'o':
-			*dir = optarg;
-			break;
-		case 'h':
-			help(stdout);
-			return -1;
-		case ':':
-			return hl_cmd_usage("curves", "option '%s' needs a "
-					    "value", argv[optind - 1]);
-		default:
-			return hl_cmd_usage("curves", "unknown option '%s'",
-					    argv[optind - 1]);
-		}
-	}
-	if (optind != argc - 1)
-		return hl_cmd_usage("curves", optind >= argc ?
-				    "give one CASE file" :
-				    "give one CASE file, not several");
+	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1)
+		if (hl_cmd_common_opt("curves", ch, argv, 0, help, o, &rc) &&
+		    rc != 0)
+			return rc;
+	/* -o names the folder here. */
+	*dir = o->output;
+	o->output = NULL;
+	if ((rc = hl_cmd_one_input("curves", argc, argv, o)) != 0)
+		return rc;
 	if (*dir == NULL || **dir == '\0')
 		return hl_cmd_usage("curves", "give the folder to write into "
 				    "with -o DIR");
-	o->input = argv[optind];
 	return 0;
 }
 

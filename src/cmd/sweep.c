@@ -37,8 +37,7 @@ help(FILE *fp)
 "%s\n", hl_caution);
 }
 
-enum { OPT_FROM = 256, OPT_TO, OPT_STEP, OPT_UTIL, OPT_FORMAT, OPT_COST,
-       OPT_AREA };
+enum { OPT_FROM = 256, OPT_TO, OPT_STEP, OPT_COST, OPT_AREA };
 
 typedef struct {
 	hl_common o;
@@ -64,15 +63,17 @@ parse(int argc, char **argv, sweep_opts *s)
 		{ "from", required_argument, NULL, OPT_FROM },
 		{ "to", required_argument, NULL, OPT_TO },
 		{ "step", required_argument, NULL, OPT_STEP },
-		{ "utilities", required_argument, NULL, OPT_UTIL },
-		{ "format", required_argument, NULL, OPT_FORMAT },
+		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
+		{ "format", required_argument, NULL, HL_OPT_FORMAT },
 		{ "cost-svg", required_argument, NULL, OPT_COST },
 		{ "area-svg", required_argument, NULL, OPT_AREA },
 		{ "output", required_argument, NULL, 'o' },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
-	int ch;
+	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
+				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
+	int ch, rc;
 
 	hl_common_init(&s->o);
 	s->from = 2.0;
@@ -82,53 +83,26 @@ parse(int argc, char **argv, sweep_opts *s)
 	optind = 1;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		switch (ch) {
-		case OPT_FROM:
-		case OPT_TO:
-		case OPT_STEP:
-			if (parse_range(ch, optarg, s) != 0)
-				return 1;
-			break;
-		case OPT_UTIL:
-			s->o.utilities = optarg;
-			break;
-		case OPT_FORMAT:
-			if (hl_cmd_parse_format("sweep", optarg,
-			    HL_FMT_BIT(HL_FMT_TEXT) | HL_FMT_BIT(HL_FMT_XML) |
-			    HL_FMT_BIT(HL_FMT_CSV), &s->o.format) != 0)
-				return 1;
-			break;
-		case OPT_COST:
+		if (hl_cmd_common_opt("sweep", ch, argv, formats, help, &s->o,
+				      &rc)) {
+			if (rc != 0)
+				return rc;
+		} else if (ch == OPT_COST) {
 			s->cost_svg = optarg;
-			break;
-		case OPT_AREA:
+		} else if (ch == OPT_AREA) {
 			s->area_svg = optarg;
-			break;
-		case 'o':
-			s->o.output = optarg;
-			break;
-		case 'h':
-			help(stdout);
-			return -1;
-		case ':':
-			return hl_cmd_usage("sweep", "option '%s' needs a "
-					    "value", argv[optind - 1]);
-		default:
-			return hl_cmd_usage("sweep", "unknown option '%s'",
-					    argv[optind - 1]);
+		} else if (parse_range(ch, optarg, s) != 0) {
+			return 1;
 		}
 	}
-	if (optind != argc - 1)
-		return hl_cmd_usage("sweep", optind >= argc ?
-				    "give one CASE file" :
-				    "give one CASE file, not several");
+	if ((rc = hl_cmd_one_input("sweep", argc, argv, &s->o)) != 0)
+		return rc;
 	if (s->to < s->from)
 		return hl_cmd_usage("sweep", "--to %g is below --from %g",
 				    s->to, s->from);
 	if ((s->to - s->from) / s->step > 10000.0)
 		return hl_cmd_usage("sweep", "more than 10001 grid points; "
 				    "use a larger --step");
-	s->o.input = argv[optind];
 	return 0;
 }
 

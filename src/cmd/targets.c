@@ -44,8 +44,7 @@ help(FILE *fp)
 "%s\n", hl_caution);
 }
 
-enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT, OPT_SENS, OPT_VERBOSE,
-       OPT_SUPER };
+enum { OPT_SENS = 256, OPT_SUPER };
 
 /* --sensitivity: replaces the text and CSV outputs, adds to the XML. */
 static int want_sensitivity;
@@ -56,17 +55,19 @@ static int
 parse(int argc, char **argv, hl_common *o)
 {
 	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, OPT_DTMIN },
-		{ "utilities", required_argument, NULL, OPT_UTIL },
-		{ "format", required_argument, NULL, OPT_FORMAT },
+		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
+		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
+		{ "format", required_argument, NULL, HL_OPT_FORMAT },
 		{ "sensitivity", no_argument, NULL, OPT_SENS },
 		{ "supertargets", no_argument, NULL, OPT_SUPER },
 		{ "output", required_argument, NULL, 'o' },
-		{ "verbose", no_argument, NULL, OPT_VERBOSE },
+		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
-	int ch;
+	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
+				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
+	int ch, rc;
 
 	hl_common_init(o);
 	want_sensitivity = 0;
@@ -74,50 +75,18 @@ parse(int argc, char **argv, hl_common *o)
 	optind = 1;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		switch (ch) {
-		case OPT_DTMIN:
-			if (hl_cmd_parse_double("targets", "--dtmin", optarg,
-						0.0, 500.0, &o->dtmin) != 0)
-				return 1;
-			break;
-		case OPT_UTIL:
-			o->utilities = optarg;
-			break;
-		case OPT_FORMAT:
-			if (hl_cmd_parse_format("targets", optarg,
-			    HL_FMT_BIT(HL_FMT_TEXT) | HL_FMT_BIT(HL_FMT_XML) |
-			    HL_FMT_BIT(HL_FMT_CSV), &o->format) != 0)
-				return 1;
-			break;
-		case OPT_SENS:
-			want_sensitivity = 1;
-			break;
-		case OPT_SUPER:
-			want_super = 1;
-			break;
-		case 'o':
-			o->output = optarg;
-			break;
-		case OPT_VERBOSE:
-			o->verbose = 1;
-			break;
-		case 'h':
-			help(stdout);
-			return -1;
-		case ':':
-			return hl_cmd_usage("targets", "option '%s' needs a "
-					    "value", argv[optind - 1]);
-		default:
-			return hl_cmd_usage("targets", "unknown option '%s'",
-					    argv[optind - 1]);
+		if (hl_cmd_common_opt("targets", ch, argv, formats, help, o,
+				      &rc)) {
+			if (rc != 0)
+				return rc;
+			continue;
 		}
+		if (ch == OPT_SENS)
+			want_sensitivity = 1;
+		else if (ch == OPT_SUPER)
+			want_super = 1;
 	}
-	if (optind != argc - 1)
-		return hl_cmd_usage("targets", optind >= argc ?
-				    "give one CASE file" :
-				    "give one CASE file, not several");
-	o->input = argv[optind];
-	return 0;
+	return hl_cmd_one_input("targets", argc, argv, o);
 }
 
 static hl_status
