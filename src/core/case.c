@@ -248,6 +248,58 @@ hl_stream_duty(const hl_stream *s)
 	return q;
 }
 
+/* Direction of a stream's temperature from its supply end: +1 warms. */
+static double
+stream_dir(const hl_stream *s)
+{
+	return s->kind == HL_HOT ? -1.0 : 1.0;
+}
+
+double
+hl_stream_heat_at(const hl_stream *s, double t)
+{
+	double d = stream_dir(s), q = 0.0;
+	size_t i;
+
+	if (d * (t - s->seg[0].supply) <= 0.0)
+		return s->seg[0].cp * d * (t - s->seg[0].supply);
+	for (i = 0; i < s->nseg; i++) {
+		const hl_segment *g = &s->seg[i];
+
+		if (d * (t - g->target) <= 0.0 || i + 1 == s->nseg)
+			return q + g->cp * d * (t - g->supply);
+		q += g->cp * d * (g->target - g->supply);
+	}
+	return q;
+}
+
+double
+hl_stream_temp_at(const hl_stream *s, double q)
+{
+	double d = stream_dir(s), at = 0.0;
+	size_t i;
+
+	for (i = 0; i < s->nseg; i++) {
+		const hl_segment *g = &s->seg[i];
+		double span = g->cp * fabs(g->target - g->supply);
+
+		if (q <= at + span || i + 1 == s->nseg)
+			return g->supply + d * (q - at) / g->cp;
+		at += span;
+	}
+	return hl_stream_target(s);
+}
+
+void
+hl_case_clear_units(hl_case *c)
+{
+	size_t i;
+
+	for (i = 0; i < c->nunit; i++)
+		unit_clear(&c->unit[i]);
+	c->nunit = 0;
+}
+
 double
 hl_stream_shift(const hl_stream *s, double dtmin)
 {

@@ -153,6 +153,9 @@ hl_status hl_case_add_rule(hl_case *c, const hl_match_rule *r, hl_error *err);
 /* Append a unit of the existing network (deep copy). */
 hl_status hl_case_add_unit(hl_case *c, const hl_unit *u, hl_error *err);
 
+/* Drop the existing network (to replace it by another table). */
+void hl_case_clear_units(hl_case *c);
+
 /* Check the whole case: names unique across streams and utilities, numbers in
  * range, segments chained. Errors name the file and line of the offender. */
 hl_status hl_case_validate(const hl_case *c, hl_error *err);
@@ -161,6 +164,13 @@ hl_status hl_case_validate(const hl_case *c, hl_error *err);
 double hl_stream_duty(const hl_stream *s);
 double hl_stream_supply(const hl_stream *s);
 double hl_stream_target(const hl_stream *s);
+
+/* Heat (kW) of stream s between its supply end and temperature t along its
+ * segments; beyond its ends the end segments' cp carries on (negative
+ * before the supply end). hl_stream_temp_at is its inverse: the temperature
+ * q kW from the supply end. */
+double hl_stream_heat_at(const hl_stream *s, double t);
+double hl_stream_temp_at(const hl_stream *s, double q);
 
 /* The shift applied to a stream's temperatures (K): its own contribution, or
  * half of dtmin; hot streams move down, cold streams up. */

@@ -1,0 +1,139 @@
+/* retrofit.c - the constant-α retrofit curve of Tjoe & Linnhoff (1986),
+ * its investment, saving and payback (definitions in retrofit.h). */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "retrofit.h"
+#include "sweep.h"
+
+void
+hl_retrofit_free(hl_retrofit *r)
+{
+	if (r == NULL)
+		return;
+	free(r->pt);
+	free(r->curve);
+	free(r);
+}
+
+/* The target curve for charts; a ΔTmin without an answer is left out. */
+static hl_status
+target_curve(const hl_case *c, const hl_audit *a, hl_retrofit *r,
+	     hl_error *err)
+{
+	enum { N = 41 };
+	double now = isfinite(a->dtmin_now) && a->dtmin_now > 0.0 ?
+		     a->dtmin_now : a->dtmin;
+	double lo = 0.5 * fmin(a->dtmin, now), hi = 1.5 * fmax(a->dtmin, now);
+	size_t i;
+
+	r->curve = malloc(N * sizeof *r->curve);
+	if (r->curve == NULL)
+		return hl_error_nomem(err);
+	if (!(hi > lo))
+		return HL_OK;
+	for (i = 0; i < N; i++) {
+		double dt = lo + (hi - lo) * (double)i / (N - 1);
+		hl_supertargets st;
+		hl_status s = hl_sweep_point_eval(c, dt, &st, NULL);
+
+		if (s == HL_EIO)
+			return hl_error_nomem(err);
+		if (s != HL_OK)
+			continue;
+		r->curve[r->ncurve].dtmin = dt;
+		r->curve[r->ncurve].hot_utility = st.hot_utility;
+		r->curve[r->ncurve].area = hl_audit_area_basis(c, &st);
+		r->ncurve++;
+	}
+	return HL_OK;
+}
+
+/* Investment in new area bought as shells of today's mean size. */
+static double
+investment(const hl_retrofit *r, double new_area)
+{
+	if (!(new_area > 0.0) || !(r->shell_area > 0.0))
+		return 0.0;
+	return new_area / r->shell_area * r->shell_cost;
+}
+
+static hl_status
+point(const hl_case *c, const hl_audit *a, hl_retrofit *r, double e,
+      double dt, hl_retrofit_point *p, hl_error *err)
+{
+	hl_supertargets st;
+	hl_status s = hl_sweep_point_eval(c, dt, &st, err);
+	double saved = a->net->hot_now - e;
+
+	if (s != HL_OK)
+		return s;
+	p->hot_utility = e;
+	p->cold_utility = a->net->cold_now - saved;
+	p->dtmin = dt;
+	p->area_target = hl_audit_area_basis(c, &st);
+	p->area_retrofit = p->area_target / r->alpha;
+	p->new_area = fmax(0.0, p->area_retrofit - a->area_existing);
+	p->investment = investment(r, p->new_area);
+	p->saving = saved * (a->price_hot + a->price_cold) * c->set.hours /
+		    1000.0;
+	p->payback = p->saving > 0.0 ? p->investment / p->saving : NAN;
+	return HL_OK;
+}
+
+static hl_status
+curve(const hl_case *c, const hl_audit *a, hl_retrofit *r, size_t npoints,
+      hl_error *err)
+{
+	double e0 = a->net->hot_now, e1 = a->hot_target;
+	size_t i;
+	hl_status s = HL_OK;
+
+	if (isnan(r->alpha) || !(e0 - e1 > 1e-9 * (1.0 + e0)))
+		return HL_OK;
+	r->pt = malloc(npoints * sizeof *r->pt);
+	if (r->pt == NULL)
+		return hl_error_nomem(err);
+	for (i = 0; i < npoints && s == HL_OK; i++) {
+		double e = e0 + (e1 - e0) * (double)i / (double)(npoints - 1);
+		double dt = a->dtmin_now;
+
+		if (i + 1 == npoints)
+			dt = a->dtmin;
+		else if (i > 0)
+			s = hl_audit_dtmin_at(c, e, &dt, err);
+		if (s == HL_OK)
+			s = point(c, a, r, e, dt, &r->pt[i], err);
+		if (s == HL_OK)
+			r->n++;
+	}
+	return s;
+}
+
+hl_status
+hl_retrofit_screen(const hl_case *c, const hl_audit *a, size_t npoints,
+		   hl_retrofit **out, hl_error *err)
+{
+	hl_retrofit *r = calloc(1, sizeof *r);
+	const hl_settings *set = &c->set;
+	hl_status s;
+
+	*out = NULL;
+	if (r == NULL)
+		return hl_error_nomem(err);
+	r->alpha = a->alpha;
+	if (a->net->shells > 0 && a->net->area > 0.0)
+		r->shell_area = a->net->area / a->net->shells;
+	r->shell_cost = r->shell_area > 0.0 ? set->cost_a + set->cost_b *
+			pow(r->shell_area, set->cost_c) : NAN;
+	s = target_curve(c, a, r, err);
+	if (s == HL_OK)
+		s = curve(c, a, r, npoints < 2 ? 2 : npoints, err);
+	if (s != HL_OK) {
+		hl_retrofit_free(r);
+		return s;
+	}
+	*out = r;
+	return HL_OK;
+}

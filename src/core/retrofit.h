@@ -1,0 +1,76 @@
+/* retrofit.h - screening a retrofit at constant area efficiency.
+ *
+ * Tjoe & Linnhoff (1986), "Using pinch technology for process retrofit",
+ * Chem. Eng. 93, 47–60 (from memory): a retrofit that keeps today's area
+ * efficiency α needs, at energy E, the area A_target(E)/α, where
+ * A_target(E) is the area target (Townsend & Linnhoff 1984) at the ΔTmin
+ * whose minimum hot utility is E. From today's point (E_now, A_existing)
+ * the curve runs to the targets at the case's ΔTmin.
+ *
+ * Each point: new area = A_target(E)/α − A_existing (>= 0); investment =
+ * the new area bought in shells the size of today's mean shell
+ * (A_existing / today's shells), each at the case's cost law a + b·A^c,
+ * a fraction of a shell pro rata (a smooth screening figure, not a
+ * count of units); annual saving = (E_now − E) kW of hot utility at
+ * today's mean hot price plus the same of cold utility at today's mean
+ * cold price (audit.h), times the operating hours; simple payback =
+ * investment / saving.
+ *
+ * The target curve (area target against hot utility over ΔTmin) is given
+ * for charts on a grid from half the smaller to 1.5 times the larger of
+ * ΔTmin and ΔTmin now.
+ *
+ * Screening only: re-piping, new shells' placement, pressure drop and the
+ * match constraints of a real retrofit are not in it.
+ *
+ * Ownership: the result owns its arrays; hl_retrofit_free(NULL) is fine.
+ */
+#ifndef HL_RETROFIT_H
+#define HL_RETROFIT_H
+
+#include <stddef.h>
+
+#include "audit.h"
+#include "case.h"
+#include "status.h"
+
+typedef struct {
+	double hot_utility;    /* kW, E */
+	double cold_utility;   /* kW */
+	double dtmin;          /* K at which the targets equal E */
+	double area_target;    /* m², A_target(E), exchanger-setting basis */
+	double area_retrofit;  /* m², A_target(E)/α */
+	double new_area;       /* m², >= 0 */
+	double investment;     /* currency */
+	double saving;         /* currency per year */
+	double payback;        /* years; NaN where nothing is saved */
+} hl_retrofit_point;
+
+typedef struct {
+	double dtmin;          /* K */
+	double hot_utility;    /* kW */
+	double area;           /* m², exchanger-setting basis */
+} hl_target_point;
+
+typedef struct {
+	double alpha;
+	double shell_area;     /* m², today's mean shell */
+	double shell_cost;     /* currency, a + b·shell_area^c */
+	size_t n;
+	hl_retrofit_point *pt; /* today's point first, the targets last; empty
+				  when α is undefined or today is at or below
+				  the targets */
+	size_t ncurve;
+	hl_target_point *curve; /* rising ΔTmin; points without an answer are
+				   left out */
+} hl_retrofit;
+
+/* The retrofit curve of audit a over npoints (>= 2) energies evenly spaced
+ * from today's hot utility to the target. Errors: HL_EIO out of memory;
+ * input errors of the targeting chain. */
+hl_status hl_retrofit_screen(const hl_case *c, const hl_audit *a,
+			     size_t npoints, hl_retrofit **out,
+			     hl_error *err);
+void hl_retrofit_free(hl_retrofit *r);
+
+#endif
