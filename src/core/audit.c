@@ -7,8 +7,6 @@
 
 #include "audit_private.h"
 #include "cascade.h"
-#include "curves.h"
-#include "sweep.h"
 #include "utility_lp.h"
 
 const char *
@@ -26,6 +24,78 @@ hl_audit_area_basis(const hl_case *c, const hl_supertargets *st)
 	return c->set.exchanger == HL_EXCH_SHELL_TUBE ? st->area_st : st->area;
 }
 
+/* Σ loads of one kind. */
+static double
+kind_sum(const hl_case *c, const double *load, hl_kind kind)
+{
+	double s = 0.0;
+	size_t i;
+
+	for (i = 0; i < c->nutil; i++)
+		if (c->util[i].kind == kind)
+			s += load[i];
+	return s;
+}
+
+/* Scale one kind's loads to total want (or, when they are all 0, spread
+ * want like the target loads). */
+static void
+rescale(const hl_case *c, const hl_audit *a, double *load, hl_kind kind,
+	double want)
+{
+	double have = kind_sum(c, load, kind);
+	double base = kind_sum(c, a->target_load, kind);
+	size_t i;
+
+	for (i = 0; i < c->nutil; i++) {
+		if (c->util[i].kind != kind)
+			continue;
+		if (have > 0.0)
+			load[i] *= want / have;
+		else if (base > 0.0)
+			load[i] = a->target_load[i] * want / base;
+	}
+}
+
+void
+hl_audit_loads(const hl_case *c, const hl_audit *a, double e, double *load)
+{
+	double e0 = a->hot_target, e1 = a->net->hot_now;
+	double t = e1 - e0 > 1e-9 * (1.0 + e1) ? (e - e0) / (e1 - e0) : 1.0;
+	size_t i;
+
+	for (i = 0; i < c->nutil; i++) {
+		load[i] = a->target_load[i] + t * (a->net->util_load[i] -
+						   a->target_load[i]);
+		if (load[i] < 0.0)
+			load[i] = 0.0;
+	}
+	/* The energy balance: QC = QH + Σ hot duty − Σ cold duty. */
+	rescale(c, a, load, HL_HOT, e);
+	rescale(c, a, load, HL_COLD, e + a->cold_target - a->hot_target);
+}
+
+hl_status
+hl_audit_area_at(const hl_case *c, const hl_audit *a, double e, double dt,
+		 hl_supertargets *st, hl_error *err)
+{
+	hl_cascade *cas = NULL;
+	double *load = malloc((c->nutil + 1) * sizeof *load);
+	hl_status s;
+
+	if (load == NULL)
+		return hl_error_nomem(err);
+	s = hl_cascade_compute(c, dt, &cas, err);
+	if (s == HL_OK) {
+		hl_audit_loads(c, a, e, load);
+		s = hl_supertarget_compute(c, cas, c->nutil ? load : NULL,
+					   NULL, 0, st, err);
+	}
+	hl_cascade_free(cas);
+	free(load);
+	return s;
+}
+
 void
 hl_audit_free(hl_audit *a)
 {
@@ -33,6 +103,7 @@ hl_audit_free(hl_audit *a)
 		return;
 	hl_existing_free(a->net);
 	free(a->viol);
+	free(a->target_load);
 	free(a->vertical);
 	free(a->unit_alpha);
 	free(a);
@@ -131,6 +202,7 @@ energy(const hl_case *c, hl_audit *a, hl_error *err)
 	hl_cascade *cas = NULL;
 	hl_utility_lp *lp = NULL;
 	hl_status st;
+	size_t i;
 
 	st = hl_cascade_compute(c, a->dtmin, &cas, err);
 	if (st == HL_OK && c->nutil > 0)
@@ -140,6 +212,8 @@ energy(const hl_case *c, hl_audit *a, hl_error *err)
 		a->hot_target = cas->qh;
 		a->cold_target = cas->qc;
 		a->cost_target = lp ? lp->cost : 0.0;
+		for (i = 0; lp != NULL && i < c->nutil; i++)
+			a->target_load[i] = lp->util[i].load;
 		a->price_hot = mean_price(c, a->net, HL_HOT);
 		a->price_cold = mean_price(c, a->net, HL_COLD);
 		a->saving = a->net->hot_now - a->hot_target;
@@ -157,9 +231,6 @@ energy(const hl_case *c, hl_audit *a, hl_error *err)
 static hl_status
 efficiency(const hl_case *c, hl_audit *a, hl_error *err)
 {
-	hl_cascade *cas = NULL;
-	hl_utility_lp *lp = NULL;
-	hl_curves *cv = NULL;
 	hl_error e;
 	hl_status st;
 
@@ -182,33 +253,26 @@ efficiency(const hl_case *c, hl_audit *a, hl_error *err)
 		return HL_OK;
 	}
 	hl_error_clear(&e);
-	st = hl_cascade_compute(c, a->dtmin_now, &cas, err);
-	if (st == HL_OK && c->nutil > 0)
-		st = hl_utility_lp_solve(c, a->dtmin_now, NULL, &lp, &e);
-	if (st == HL_OK)
-		st = hl_sweep_point_from(c, cas, lp, &a->now, &e);
-	if (st == HL_OK)
-		st = hl_curves_compute(c, cas, lp, &cv, err);
+	st = hl_audit_area_at(c, a, a->net->hot_now, a->dtmin_now, &a->now,
+			      &e);
 	if (st == HL_ENOSOLUTION) {
-		snprintf(a->note, sizeof a->note, "no area target at ΔTmin "
-			 "%.2f K: %.180s", a->dtmin_now, e.text);
-		st = HL_OK;
-	} else if (st == HL_OK) {
-		a->have_now = 1;
-		a->area_target_now = hl_audit_area_basis(c, &a->now);
-		if (a->area_existing > 0.0)
-			a->alpha = a->area_target_now / a->area_existing;
-		else
-			snprintf(a->note, sizeof a->note, "no unit has an "
-				 "area: the area efficiency is not defined");
-		hl_audit_shares(c, a, cv);
-	} else if (err != NULL && e.status != HL_OK) {
-		*err = e;
+		snprintf(a->note, sizeof a->note, "no area target at today's "
+			 "energy: %.300s", e.text);
+		return HL_OK;
 	}
-	hl_curves_free(cv);
-	hl_utility_lp_free(lp);
-	hl_cascade_free(cas);
-	return st;
+	if (st != HL_OK) {
+		if (err != NULL)
+			*err = e;
+		return st;
+	}
+	a->have_now = 1;
+	a->area_target_now = hl_audit_area_basis(c, &a->now);
+	if (a->area_existing > 0.0)
+		a->alpha = a->area_target_now / a->area_existing;
+	else
+		snprintf(a->note, sizeof a->note, "no unit has an area: the "
+			 "area efficiency is not defined");
+	return hl_audit_shares(c, a, err);
 }
 
 hl_status
@@ -233,7 +297,9 @@ hl_audit_run(const hl_case *c, hl_audit **out, hl_error *err)
 	}
 	a->vertical = malloc((a->net->nunit + 1) * sizeof *a->vertical);
 	a->unit_alpha = malloc((a->net->nunit + 1) * sizeof *a->unit_alpha);
-	if (a->vertical == NULL || a->unit_alpha == NULL) {
+	a->target_load = calloc(c->nutil + 1, sizeof *a->target_load);
+	if (a->vertical == NULL || a->unit_alpha == NULL ||
+	    a->target_load == NULL) {
 		hl_audit_free(a);
 		return hl_error_nomem(err);
 	}

@@ -30,6 +30,16 @@
  * ΔTmin now: the largest ΔTmin whose minimum hot utility is at most today's
  * (bisection on the monotone problem-table target, Linnhoff & Flower 1978).
  *
+ * The area–energy curve (α, the unit shares, the retrofit curve): the area
+ * target at hot utility E is the vertical-transfer area of the balanced
+ * composites with each utility level's load interpolated linearly in E
+ * between its least-cost load at the targets (utility LP at ΔTmin) and its
+ * load today (negative loads clipped, each side rescaled to its total). At
+ * today's energy that is the area target with today's utility levels. (An
+ * LP at the larger ΔTmin would shift each level out of reach of stream ends
+ * that today's plant does serve.) Without utilities: the process
+ * composites at the ΔTmin of E.
+ *
  * Area efficiency (Tjoe & Linnhoff 1986, Chem. Eng. 93, 47–60, from
  * memory): α = A_target(today's energy) / A_existing, the area target
  * (Townsend & Linnhoff 1984, vertical transfer on the balanced composites)
@@ -91,6 +101,7 @@ typedef struct {
 	double cold_target;      /* kW */
 	double cost_target;      /* per year, least-cost bill at the targets
 				    (0 without utilities) */
+	double *target_load;     /* kW per utility, least cost at ΔTmin */
 	double price_hot;        /* per MWh, today's mean hot utility price */
 	double price_cold;
 	double saving;           /* kW, hot_now − hot_target */
@@ -110,7 +121,7 @@ typedef struct {
 	double alpha;            /* NaN when undefined (see note) */
 	double *vertical;        /* per unit: A_vt, m², NaN when undefined */
 	double *unit_alpha;      /* per unit: α_u, NaN when undefined */
-	char note[240];          /* why α is missing, else "" */
+	char note[400];          /* why α is missing, else "" */
 } hl_audit;
 
 /* Audit c's existing network at c->set.dtmin. On HL_EINPUT from reading
@@ -124,6 +135,16 @@ void hl_audit_free(hl_audit *a);
  * cold duty with no recovery, NaN when ΔTmin 0 already needs more. */
 hl_status hl_audit_dtmin_at(const hl_case *c, double qh, double *dt,
 			    hl_error *err);
+
+/* Utility loads (kW, c->nutil of them) at hot utility e on the area–energy
+ * curve (see above). */
+void hl_audit_loads(const hl_case *c, const hl_audit *a, double e,
+		    double *load);
+
+/* Supertargets at hot utility e, dt = hl_audit_dtmin_at(e), with the loads
+ * of hl_audit_loads. HL_ENOSOLUTION when the curves touch. */
+hl_status hl_audit_area_at(const hl_case *c, const hl_audit *a, double e,
+			   double dt, hl_supertargets *st, hl_error *err);
 
 /* The area the case's exchanger setting counts (area or area_st). */
 double hl_audit_area_basis(const hl_case *c, const hl_supertargets *st);

@@ -9,8 +9,9 @@
 /* The pinch-rule violations of a->net at a->pinch, ranked. */
 hl_status hl_audit_violations(const hl_case *c, hl_audit *a, hl_error *err);
 
-/* Each unit's vertical-transfer area and share on the curves cv (balanced
- * when cv has them, else the process composites: recovery units only). */
-void hl_audit_shares(const hl_case *c, hl_audit *a, const hl_curves *cv);
+/* Each unit's vertical-transfer area and share at today's energy: on the
+ * balanced composites with today's loads, or without utilities on the
+ * process composites (recovery units only). */
+hl_status hl_audit_shares(const hl_case *c, hl_audit *a, hl_error *err);
 
 #endif

@@ -74,38 +74,92 @@ mean_inverse_dt(const hl_curve *hot, const hl_curve *cold, double ha,
 	return sum / (hb - ha);
 }
 
-void
-hl_audit_shares(const hl_case *c, hl_audit *a, const hl_curves *cv)
+/* The composite of one side: its streams' segments and, with loads, its
+ * utilities at them; rising from heat h0. */
+static hl_status
+side_curve(const hl_case *c, hl_kind kind, const double *load, double h0,
+	   hl_curve *out, hl_error *err)
 {
-	int bal = cv->bal_hot.n > 0 && cv->bal_cold.n > 0;
-	const hl_curve *hot = bal ? &cv->bal_hot : &cv->hot;
-	const hl_curve *cold = bal ? &cv->bal_cold : &cv->cold;
-	double lo_h, hi_h;
+	size_t n = 0, i, j, cap = c->nutil + 1;
+	hl_curve_piece *p;
+	hl_status st;
+
+	for (i = 0; i < c->nstream; i++)
+		cap += c->stream[i].nseg;
+	p = malloc(cap * sizeof *p);
+	if (p == NULL)
+		return hl_error_nomem(err);
+	for (i = 0; i < c->nstream; i++) {
+		const hl_stream *s = &c->stream[i];
+
+		for (j = 0; s->kind == kind && j < s->nseg; j++) {
+			const hl_segment *g = &s->seg[j];
+
+			p[n].t_hi = fmax(g->supply, g->target);
+			p[n].t_lo = fmin(g->supply, g->target);
+			p[n].q = g->cp * (p[n].t_hi - p[n].t_lo);
+			n++;
+		}
+	}
+	for (i = 0; load != NULL && i < c->nutil; i++) {
+		if (c->util[i].kind != kind || !(load[i] > 0.0))
+			continue;
+		p[n].t_hi = fmax(c->util[i].supply, c->util[i].target);
+		p[n].t_lo = fmin(c->util[i].supply, c->util[i].target);
+		p[n++].q = load[i];
+	}
+	st = hl_curves_composite(p, n, h0, out, err);
+	free(p);
+	return st;
+}
+
+static void
+unit_share(hl_audit *a, size_t i, const hl_curve *hot, const hl_curve *cold,
+	   int bal)
+{
+	const hl_existing_unit *u = &a->net->unit[i];
+	const hl_side *sd = u->role == HL_ROLE_HEATER ? &u->cold : &u->hot;
+	const hl_curve *own = u->role == HL_ROLE_HEATER ? cold : hot;
+	double lo_h = fmax(hot->h[0], cold->h[0]);
+	double hi_h = fmin(hot->h[hot->n - 1], cold->h[cold->n - 1]);
+	double ha, hb, inv;
+
+	if (isnan(u->area) || isnan(u->u) ||
+	    (!bal && u->role != HL_ROLE_RECOVERY))
+		return;
+	ha = hl_curve_heat_at(own, fmin(sd->t_in, sd->t_out));
+	hb = hl_curve_heat_at(own, fmax(sd->t_in, sd->t_out));
+	inv = mean_inverse_dt(hot, cold, fmax(ha, lo_h), fmin(hb, hi_h));
+	if (isnan(inv))
+		return;
+	a->vertical[i] = u->duty * inv / (u->u * u->f);
+	a->unit_alpha[i] = a->vertical[i] / u->area;
+}
+
+hl_status
+hl_audit_shares(const hl_case *c, hl_audit *a, hl_error *err)
+{
+	int bal = c->nutil > 0;
+	double *load = malloc((c->nutil + 1) * sizeof *load);
+	hl_curve hot = { 0, NULL, NULL }, cold = { 0, NULL, NULL };
+	hl_status st = load ? HL_OK : hl_error_nomem(err);
 	size_t i;
 
-	(void)c;
-	if (hot->n < 2 || cold->n < 2)
-		return;
-	/* Where the two curves face each other. */
-	lo_h = fmax(hot->h[0], cold->h[0]);
-	hi_h = fmin(hot->h[hot->n - 1], cold->h[cold->n - 1]);
-	for (i = 0; i < a->net->nunit; i++) {
-		const hl_existing_unit *u = &a->net->unit[i];
-		const hl_side *sd = u->role == HL_ROLE_HEATER ? &u->cold :
-				    &u->hot;
-		const hl_curve *own = u->role == HL_ROLE_HEATER ? cold : hot;
-		double ha, hb, inv;
-
-		if (isnan(u->area) || isnan(u->u) ||
-		    (!bal && u->role != HL_ROLE_RECOVERY))
-			continue;
-		ha = hl_curve_heat_at(own, fmin(sd->t_in, sd->t_out));
-		hb = hl_curve_heat_at(own, fmax(sd->t_in, sd->t_out));
-		inv = mean_inverse_dt(hot, cold, fmax(ha, lo_h),
-				      fmin(hb, hi_h));
-		if (isnan(inv))
-			continue;
-		a->vertical[i] = u->duty * inv / (u->u * u->f);
-		a->unit_alpha[i] = a->vertical[i] / u->area;
+	if (st == HL_OK) {
+		hl_audit_loads(c, a, a->net->hot_now, load);
+		st = side_curve(c, HL_HOT, bal ? load : NULL, 0.0, &hot, err);
 	}
+	/* Without utilities the cold curve starts at today's cooling. */
+	if (st == HL_OK)
+		st = side_curve(c, HL_COLD, bal ? load : NULL,
+				bal ? 0.0 : a->net->cold_now, &cold, err);
+	for (i = 0; st == HL_OK && hot.n >= 2 && cold.n >= 2 &&
+	     i < a->net->nunit; i++)
+		unit_share(a, i, &hot, &cold, bal);
+	free(hot.h);
+	free(hot.t);
+	free(cold.h);
+	free(cold.t);
+	free(load);
+	return st;
 }

@@ -100,9 +100,10 @@ approach(hl_existing_work *w, hl_existing_unit *u)
 }
 
 /* F and shells: the given count if it can do the duty, else the Xp rule
- * (Ahmad, Linnhoff & Smith 1988), else counterflow. */
+ * (Ahmad, Linnhoff & Smith 1988), else counterflow. Only an estimate is
+ * worth a warning: a given area stands whatever its shells. */
 static hl_status
-shells_f(hl_existing_work *w, hl_existing_unit *u, int given)
+shells_f(hl_existing_work *w, hl_existing_unit *u, int given, int quiet)
 {
 	const hl_settings *set = &w->c->set;
 	double p, r;
@@ -120,14 +121,16 @@ shells_f(hl_existing_work *w, hl_existing_unit *u, int given)
 		return HL_OK;
 	if (hl_exchanger_shells(p, r, set->fmin, set->xp, &n, &u->f, NULL,
 				NULL) == HL_OK) {
-		if (given > 0)
+		if (given > 0 && quiet)
+			n = given;
+		else if (given > 0)
 			rc = hl_existing_warn(w->net, u->file, u->line,
 				"unit '%s': %d shell%s in series cannot do "
 				"this duty at these temperatures; its area is "
 				"estimated with %d", u->name, given,
 				given == 1 ? "" : "s", n);
 		u->shells = n;
-	} else {
+	} else if (!quiet) {
 		u->f = 1.0;
 		rc = hl_existing_warn(w->net, u->file, u->line, "unit '%s': no "
 			"shell-and-tube unit of up to %d shells in series fits "
@@ -154,7 +157,8 @@ hl_existing_size(hl_existing_work *w, hl_existing_unit *u, const hl_unit *row)
 	hl_exchanger_u(u->hot.h, u->cold.h, &u->u, NULL);
 	hl_exchanger_lmtd(u->hot.t_in - u->cold.t_out,
 			  u->hot.t_out - u->cold.t_in, &u->lmtd, NULL);
-	st = shells_f(w, u, row ? row->shells : 0);
+	st = shells_f(w, u, row ? row->shells : 0,
+		      row != NULL && !isnan(row->area));
 	if (st != HL_OK)
 		return st;
 	if (row != NULL && !isnan(row->area)) {

@@ -4,6 +4,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "cascade.h"
 #include "retrofit.h"
 #include "sweep.h"
 
@@ -34,9 +35,17 @@ target_curve(const hl_case *c, const hl_audit *a, hl_retrofit *r,
 	if (!(hi > lo))
 		return HL_OK;
 	for (i = 0; i < N; i++) {
-		double dt = lo + (hi - lo) * (double)i / (N - 1);
+		double dt = lo + (hi - lo) * (double)i / (N - 1), qh, qc;
 		hl_supertargets st;
-		hl_status s = hl_sweep_point_eval(c, dt, &st, NULL);
+		hl_status s;
+
+		/* Below ΔTmin the least-cost levels; above it the loads of
+		 * the area–energy curve (audit.h). */
+		if (dt <= a->dtmin)
+			s = hl_sweep_point_eval(c, dt, &st, NULL);
+		else if ((s = hl_cascade_targets(c, dt, &qh, &qc, NULL)) ==
+			 HL_OK)
+			s = hl_audit_area_at(c, a, qh, dt, &st, NULL);
 
 		if (s == HL_EIO)
 			return hl_error_nomem(err);
@@ -64,7 +73,7 @@ point(const hl_case *c, const hl_audit *a, hl_retrofit *r, double e,
       double dt, hl_retrofit_point *p, hl_error *err)
 {
 	hl_supertargets st;
-	hl_status s = hl_sweep_point_eval(c, dt, &st, err);
+	hl_status s = hl_audit_area_at(c, a, e, dt, &st, err);
 	double saved = a->net->hot_now - e;
 
 	if (s != HL_OK)

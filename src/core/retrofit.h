@@ -16,9 +16,12 @@
  * cold price (audit.h), times the operating hours; simple payback =
  * investment / saving.
  *
+ * A_target(E) with the utility loads of the area–energy curve (audit.h).
+ *
  * The target curve (area target against hot utility over ΔTmin) is given
  * for charts on a grid from half the smaller to 1.5 times the larger of
- * ΔTmin and ΔTmin now.
+ * ΔTmin and ΔTmin now: below ΔTmin with the least-cost utility levels (as
+ * `sweep`), above it with the loads of the area–energy curve.
  *
  * Screening only: re-piping, new shells' placement, pressure drop and the
  * match constraints of a real retrofit are not in it.
