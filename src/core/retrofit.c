@@ -26,7 +26,7 @@ target_curve(const hl_case *c, const hl_audit *a, hl_retrofit *r,
 	enum { N = 41 };
 	double now = isfinite(a->dtmin_now) && a->dtmin_now > 0.0 ?
 		     a->dtmin_now : a->dtmin;
-	double lo = 0.5 * fmin(a->dtmin, now), hi = 1.5 * fmax(a->dtmin, now);
+	double lo = 0.5 * fmin(a->dtmin, now), hi = 1.2 * fmax(a->dtmin, now);
 	size_t i;
 
 	r->curve = malloc(N * sizeof *r->curve);

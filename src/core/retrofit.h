@@ -19,7 +19,7 @@
  * A_target(E) with the utility loads of the area–energy curve (audit.h).
  *
  * The target curve (area target against hot utility over ΔTmin) is given
- * for charts on a grid from half the smaller to 1.5 times the larger of
+ * for charts on a grid from half the smaller to 1.2 times the larger of
  * ΔTmin and ΔTmin now: below ΔTmin with the least-cost utility levels (as
  * `sweep`), above it with the loads of the area–energy curve.
  *

@@ -293,14 +293,15 @@ hl_audit_chart(const hl_case *c, const hl_audit *a, const hl_retrofit *r)
 	if (r != NULL && r->n > 0) {
 		const hl_retrofit_point *t = &r->pt[r->n - 1];
 
-		snprintf(lab, sizeof lab, "targets at ΔTmin %.0f K", a->dtmin);
+		/* Short and above right: between the target curve and the
+		 * retrofit curve (the subtitle gives the ΔTmin). */
 		rc |= hl_svg_chart_add_marker(ch, t->hot_utility,
 					      t->area_target,
 					      HL_SVG_MARK_DIAMOND,
-					      HL_SVG_BLACK, lab, HL_SVG_START);
+					      HL_SVG_BLACK, NULL, HL_SVG_START);
+		rc |= hl_svg_chart_add_text(ch, t->hot_utility, t->area_target,
+					    "targets", HL_SVG_START, 10.0, -10.0);
 	}
-	rc |= hl_svg_chart_add_vline(ch, a->hot_target, "hot utility target",
-				     HL_SVG_GREY, HL_SVG_DOTTED);
 	hl_svg_chart_set_yrange(ch, 0.0, NAN);
 	if (rc < 0) {
 		hl_svg_chart_free(ch);

@@ -128,7 +128,8 @@ energy(FILE *fp, const hl_case *c, const hl_audit *a)
 		money(m1, sizeof m1, a->saving_cost), cur(c), a->price_hot,
 		a->price_cold, cur(c));
 	fprintf(fp, "Utility bill today %s %s/year; at the targets with the "
-		"least-cost utility levels %s %s/year (%s less).\n",
+		"least-cost utility levels %s %s/year\n(%s less: the saving "
+		"above and the cheaper mix of levels).\n",
 		money(m1, sizeof m1, a->net->cost_now), cur(c),
 		money(m2, sizeof m2, a->cost_target), cur(c),
 		money(m3, sizeof m3, a->net->cost_now - a->cost_target));
@@ -143,7 +144,7 @@ unit_width(const hl_audit *a)
 	for (i = 0; i < a->net->nunit; i++)
 		if (chars(a->net->unit[i].name) > w)
 			w = chars(a->net->unit[i].name);
-	return w > 24 ? 24 : w;
+	return w > 28 ? 28 : w;
 }
 
 static void
