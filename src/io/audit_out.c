@@ -75,7 +75,8 @@ exchanger(xmlTextWriterPtr w, const hl_case *c, const hl_audit *a, size_t i)
 
 	rc |= xmlTextWriterStartElement(w, BAD_CAST "exchanger");
 	rc |= hl_xml_str(w, "id", u->name);
-	rc |= hl_xml_int(w, "line", u->line);
+	if (u->line > 0)
+		rc |= hl_xml_int(w, "line", u->line);
 	rc |= hl_xml_str(w, "role", hl_existing_role_name(u->role));
 	if (u->implied)
 		rc |= hl_xml_str(w, "implied", "yes");
