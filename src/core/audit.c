@@ -310,10 +310,6 @@ hl_audit_run(const hl_case *c, hl_audit **out, hl_error *err)
 		st = hl_audit_violations(c, a, err);
 	if (st == HL_OK)
 		st = efficiency(c, a, err);
-	if (st != HL_OK) {
-		hl_audit_free(a);
-		return st;
-	}
 	*out = a;
-	return HL_OK;
+	return st;
 }

@@ -124,9 +124,11 @@ typedef struct {
 	char note[400];          /* why α is missing, else "" */
 } hl_audit;
 
-/* Audit c's existing network at c->set.dtmin. On HL_EINPUT from reading
- * the network, *out still holds net with its warnings (alpha etc. unset).
- * HL_ENOSOLUTION when the utility LP finds no answer at ΔTmin. */
+/* Audit c's existing network at c->set.dtmin. On an error after the
+ * network was read far enough to have warnings, *out still holds the audit
+ * with net and its warnings (the rest unset: show the warnings, then free
+ * it); otherwise *out is NULL. HL_EINPUT: a row with no sensible reading;
+ * HL_ENOSOLUTION: the utility LP finds no answer at ΔTmin. */
 hl_status hl_audit_run(const hl_case *c, hl_audit **out, hl_error *err);
 void hl_audit_free(hl_audit *a);
 

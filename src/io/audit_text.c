@@ -245,11 +245,12 @@ efficiency(FILE *fp, const hl_case *c, const hl_audit *a)
 			"equal today's hot utility there)\n", a->dtmin_now);
 	if (a->have_now)
 		fprintf(fp, "  Area target there         %.1f m² (%s, "
-			"vertical transfer on the balanced composites)\n",
-			a->area_target_now, basis);
-	fprintf(fp, "  Existing area             %.1f m² (%zu of %zu units' "
-		"areas estimated)\n", a->area_existing, a->net->nestimated,
-		a->net->nunit);
+			"vertical transfer on the %s composites)\n",
+			a->area_target_now, basis, c->nutil ? "balanced" :
+			"process");
+	fprintf(fp, "  Existing area             %.1f m² (%s; %zu estimated "
+		"from film coefficients)\n", a->area_existing, c->nutil ?
+		"all units" : "process-to-process units", a->net->nestimated);
 	if (isnan(a->alpha))
 		fprintf(fp, "  α                         not defined: %s\n",
 			a->note);

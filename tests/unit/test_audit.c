@@ -22,6 +22,7 @@
 #include "cascade.h"
 #include "curves.h"
 #include "existing.h"
+#include "gen.h"
 #include "retrofit.h"
 #include "tables.h"
 #include "utility_lp.h"
@@ -656,6 +657,108 @@ test_retrofit_curve(void **state)
 	hl_case_free(c);
 }
 
+static void
+add_row(hl_case *c, const char *name, const char *hot, const char *cold,
+	double duty)
+{
+	hl_unit u;
+
+	memset(&u, 0, sizeof u);
+	u.name = (char *)name;
+	u.hot = (char *)hot;
+	u.cold = (char *)cold;
+	u.duty = duty;
+	u.hot_in = u.hot_out = u.cold_in = u.cold_out = u.area = NAN;
+	u.file = (char *)"random";
+	u.line = (long)c->nunit + 1;
+	assert_int_equal(hl_case_add_unit(c, &u, NULL), HL_OK);
+}
+
+/* Random units along random streams, rows in the order they meet each
+ * stream and no temperatures (the walk places them), the rest of every
+ * stream on a utility that reaches everything. */
+static void
+random_network(hl_case *c, hl_rng *r)
+{
+	double pos[16] = { 0 };
+	char name[32];
+	size_t i, k;
+
+	for (k = 0; k < 12; k++) {
+		size_t h = (size_t)hl_rng_uniform(r, 0, (double)c->nstream);
+		size_t j = (size_t)hl_rng_uniform(r, 0, (double)c->nstream);
+		const hl_stream *sh = &c->stream[h], *sc = &c->stream[j];
+		double d, th0, th1, tc0, tc1;
+
+		if (h >= c->nstream || j >= c->nstream || sh->kind != HL_HOT ||
+		    sc->kind != HL_COLD)
+			continue;
+		d = hl_rng_uniform(r, 0.2, 1.0) *
+		    fmin(hl_stream_duty(sh) - pos[h], hl_stream_duty(sc) - pos[j]);
+		if (!(d > 1.0))
+			continue;
+		th0 = hl_stream_temp_at(sh, pos[h]);
+		th1 = hl_stream_temp_at(sh, pos[h] + d);
+		tc0 = hl_stream_temp_at(sc, pos[j]);
+		tc1 = hl_stream_temp_at(sc, pos[j] + d);
+		if (th0 - tc1 < 1.0 || th1 - tc0 < 1.0)
+			continue;
+		snprintf(name, sizeof name, "R%zu", k);
+		add_row(c, name, sh->name, sc->name, d);
+		pos[h] += d;
+		pos[j] += d;
+	}
+	for (i = 0; i < c->nstream; i++) {
+		const hl_stream *s = &c->stream[i];
+		double rest = hl_stream_duty(s) - pos[i];
+
+		snprintf(name, sizeof name, "U%zu", i);
+		if (rest > 1e-6 * hl_stream_duty(s))
+			add_row(c, name, s->kind == HL_HOT ? s->name : "steam",
+				s->kind == HL_HOT ? "brine" : s->name, rest);
+	}
+}
+
+/* The balance of the pinch rules closes on any network that covers every
+ * stream: QH_now − QHmin = QC_now − QCmin = Σ rules broken − Σ heat passed
+ * up (derived from the energy balance above the pinch, audit.h). */
+static void
+test_random_identity(void **state)
+{
+	static const char util[] =
+		"name,kind,supply,target,price\n"
+		"steam,hot,400,400,30\nbrine,cold,-50,-40,3\n";
+	hl_rng r;
+	int n, broken = 0;
+
+	(void)state;
+	hl_rng_seed(&r, 7);
+	for (n = 0; n < 40; n++) {
+		hl_case *c = hl_gen_case(&r, 2 + n % 4, 2 + n % 3);
+		hl_audit *a = NULL;
+		hl_retrofit *rt = NULL;
+		hl_error e;
+
+		assert_int_equal(hl_utility_table_read_mem(c, "u.csv", util,
+			strlen(util), &e), HL_OK);
+		random_network(c, &r);
+		if (hl_audit_run(c, &a, &e) != HL_OK)
+			fail_msg("case %d: %s:%ld: %s", n, e.file, e.line,
+				 e.text);
+		assert_true(fabs(a->saving - a->saving_cold) <
+			    1e-6 * (1.0 + fabs(a->saving)));
+		assert_true(fabs(a->violations - a->upward - a->saving) <
+			    1e-6 * (1.0 + fabs(a->saving)));
+		assert_true(a->saving > -1e-6 || a->upward > 0.0);
+		broken += a->nviol > 0;
+		assert_int_equal(hl_retrofit_screen(c, a, 5, &rt, &e), HL_OK);
+		hl_retrofit_free(rt);
+		hl_audit_free(a);
+		hl_case_free(c);
+	}
+	assert_true(broken > 20);
+}
+
 int
 main(void)
 {
@@ -674,6 +777,7 @@ main(void)
 		cmocka_unit_test(test_dtmin_at),
 		cmocka_unit_test(test_spaghetti_alpha),
 		cmocka_unit_test(test_retrofit_curve),
+		cmocka_unit_test(test_random_identity),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
