@@ -52,10 +52,11 @@ help(FILE *fp)
 "\n"
 "The retrofit figures are screening estimates for a first discussion, not\n"
 "a retrofit design.\n"
+"\n"
 "%s\n", hl_caution);
 }
 
-enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT, OPT_NETWORK, OPT_SVG };
+enum { OPT_NETWORK = 256, OPT_SVG };
 
 typedef struct {
 	hl_common o;
@@ -64,70 +65,38 @@ typedef struct {
 } audit_opts;
 
 static int
-parse_opt(int ch, const char *arg, audit_opts *s)
-{
-	switch (ch) {
-	case OPT_DTMIN:
-		return hl_cmd_parse_double("audit", "--dtmin", arg, 0.0, 500.0,
-					   &s->o.dtmin);
-	case OPT_UTIL:
-		s->o.utilities = arg;
-		return 0;
-	case OPT_FORMAT:
-		return hl_cmd_parse_format("audit", arg,
-			HL_FMT_BIT(HL_FMT_TEXT) | HL_FMT_BIT(HL_FMT_XML) |
-			HL_FMT_BIT(HL_FMT_CSV), &s->o.format);
-	case OPT_NETWORK:
-		s->network = arg;
-		return 0;
-	case OPT_SVG:
-		s->svg = arg;
-		return 0;
-	default:
-		s->o.output = arg;
-		return 0;
-	}
-}
-
-static int
 parse(int argc, char **argv, audit_opts *s)
 {
 	static const struct option opts[] = {
 		{ "network", required_argument, NULL, OPT_NETWORK },
-		{ "dtmin", required_argument, NULL, OPT_DTMIN },
-		{ "utilities", required_argument, NULL, OPT_UTIL },
-		{ "format", required_argument, NULL, OPT_FORMAT },
+		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
+		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
+		{ "format", required_argument, NULL, HL_OPT_FORMAT },
 		{ "svg", required_argument, NULL, OPT_SVG },
 		{ "output", required_argument, NULL, 'o' },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
-	int ch;
+	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
+				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
+	int ch, rc;
 
 	hl_common_init(&s->o);
 	s->network = s->svg = NULL;
 	optind = 1;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (ch == 'h') {
-			help(stdout);
-			return -1;
+		if (hl_cmd_common_opt("audit", ch, argv, formats, help, &s->o,
+				      &rc)) {
+			if (rc != 0)
+				return rc;
+		} else if (ch == OPT_NETWORK) {
+			s->network = optarg;
+		} else {
+			s->svg = optarg;
 		}
-		if (ch == ':')
-			return hl_cmd_usage("audit", "option '%s' needs a "
-					    "value", argv[optind - 1]);
-		if (ch == '?')
-			return hl_cmd_usage("audit", "unknown option '%s'",
-					    argv[optind - 1]);
-		if (parse_opt(ch, optarg, s) != 0)
-			return 1;
 	}
-	if (optind != argc - 1)
-		return hl_cmd_usage("audit", optind >= argc ?
-				    "give one CASE file" :
-				    "give one CASE file, not several");
-	s->o.input = argv[optind];
-	return 0;
+	return hl_cmd_one_input("audit", argc, argv, &s->o);
 }
 
 /* "heatloom: FILE:LINE: warning: text" for each warning. */

@@ -75,6 +75,28 @@ if [ -n "${XMLLINT:-}" ]; then
 		--format xml -o "$WORK/demo.xml"
 	check_exit 0 "$XMLLINT" --noout --relaxng "$TOP_SRCDIR/doc/results.rng" "$WORK/demo.xml"
 	check_exit 0 "$XMLLINT" --noout "$WORK/demo.svg"
+	# doc/results.md's example runs as printed: every attribute it shows
+	# is in the program's output, on the element it shows it on.
+	sed -n '/^From `heatloom audit cases\/demo.xml/,/^## CSV/p' \
+		"$TOP_SRCDIR/doc/results.md" | sed -n 's/^    //p' | tr '\n' ' ' |
+		sed 's|/> *|/>\n|g; s|"> *|">\n|' >"$WORK/doc-elems"
+	[ "$(grep -c 'exchanger=' "$WORK/doc-elems")" -eq 6 ] && pass ||
+		fail "doc/results.md audit example not found"
+	while read -r line; do
+		case $line in
+		"<violation "*) x=$(printf '%s' "$line" | sed 's/.*exchanger="\([^"]*\)".*/\1/')
+			el="$a/violation[@exchanger='$x']" what="violation '$x'" ;;
+		"<audit "*) el=$a what="<audit>" ;;
+		*) continue ;;
+		esac
+		for at in $(printf '%s' "$line" | grep -o '[a-z-]*="[^"]*"' |
+			    sed 's/ /_/g'); do
+			n=${at%%=*}
+			v=$(printf '%s' "${at#*=}" | tr -d '"' | sed 's/_/ /g')
+			[ "$(xpath "string($el/@$n)" "$WORK/demo.xml")" = "$v" ] && pass ||
+				fail "doc/results.md shows $n=\"$v\" on $what"
+		done
+	done <"$WORK/doc-elems"
 fi
 check_grep "retrofit at constant" "$WORK/demo.svg"
 if [ -n "${RSVG_CONVERT:-}" ]; then
