@@ -12,8 +12,9 @@ CLANG=${CLANG:-clang}
 command -v "$CLANG" >/dev/null || { echo "make fuzz needs clang (Debian clang, libclang-rt-dev)"; exit 1; }
 out="$build/tests/fuzz"
 mkdir -p "$out"
-libsrc=$(ls "$src"/src/core/*.c "$src"/src/io/*.c)
-[ -f "$build/src/io/case_rng.c" ] && libsrc="$libsrc $build/src/io/case_rng.c"
+# The schema source is generated into the build tree (the same folder as
+# the sources in an in-tree build): take it from there, once.
+libsrc="$(ls "$src"/src/core/*.c "$src"/src/io/*.c | grep -v '/case_rng\.c$') $build/src/io/case_rng.c"
 flags="-g -O1 -fsanitize=fuzzer,address,undefined -fno-sanitize-recover=undefined -I$build -I$src/src/core -I$src/src/io $(pkg-config --cflags libxml-2.0)"
 libs="$(pkg-config --libs libxml-2.0) -lglpk -lm"
 status=0
