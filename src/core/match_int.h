@@ -1,0 +1,161 @@
+/* match_int.h - what the files of the match module share (not a contract).
+ *
+ * Data model. Parties are the process streams (case order), then the
+ * utilities. hot[] and cold[] list party indices by side; a pair is (a, b)
+ * with a < nhot, b < ncold, stored at a * ncold + b. Intervals k = 0..nint-1
+ * lie between shifted boundaries t[k] (upper) and t[k+1]; resid[k] is the
+ * heat crossing boundary k downwards. unit[p][k] is a stream's heat in
+ * interval k (kW) or a utility's share of its load there (a fraction);
+ * heat[p][k] is the heat at the loads in use.
+ */
+#ifndef HL_MATCH_INT_H
+#define HL_MATCH_INT_H
+
+#include <stddef.h>
+
+#include "match_milp.h"
+
+/* A pair's rules and standing. */
+typedef struct {
+	unsigned char potential; /* heat could flow from a to b at all */
+	unsigned char allowed;   /* no rule or area forbids it */
+	unsigned char required;  /* a rule requires it */
+	unsigned char cross;     /* joins two plant areas */
+	double maxduty;          /* kW over all its units, HUGE_VAL when free */
+	double cost;             /* objective weight of one unit */
+	long forbid_rule;        /* the first rule forbidding it, -1 none */
+} hl_match_pair;
+
+struct hl_match_problem {
+	const hl_case *c;
+	double dtmin;
+	size_t np;
+	hl_match_party *party;   /* names owned here */
+	const char **area;       /* per party, borrowed from the case */
+	size_t nhot, ncold;
+	size_t *hot, *cold;      /* party indices */
+	size_t *sidx;            /* per party: its index in hot[] or cold[] */
+	size_t nint;
+	double *t;               /* nint + 1 */
+	double *unit;            /* np * nint */
+	double *heat;            /* np * nint */
+	double *film;            /* np * nint, kW/(m²·K) */
+	double *resid;           /* nint + 1 */
+	hl_match_pair *pair;     /* nhot * ncold */
+	size_t nsub;
+	hl_match_sub *sub;
+	double qh0, qc0, qh, qc;
+	int restricted, implicit, penalised;
+	size_t ncause;
+	hl_match_cause *cause;
+	double scale;            /* kW: the larger of the hot and cold totals */
+	int msg_lev;             /* GLPK message level while preparing */
+	double tol;              /* kW: heat at or below it counts as none */
+};
+
+#define HL_MATCH_HEAT(p, i, k) ((p)->heat[(i) * (p)->nint + (k)])
+
+/* Per-subnetwork bounds and the columns of its part of a model. */
+typedef struct {
+	size_t sub, first, nk;   /* intervals first..first+nk-1 */
+	unsigned char *active;   /* per party: heat in this subnetwork */
+	size_t nactive;
+	double *total;           /* per party: its heat here, kW */
+	double *U;               /* per pair: most it can exchange here */
+	double *ub;              /* per pair and interval: most in that interval */
+	double *rub;             /* per hot side index and interval: most heat
+				    it can pass below that interval */
+	size_t subset_bound;     /* N minus the most balanced parts */
+	int *ycol, *qcol, *rcol; /* GLPK columns, 0 when absent */
+	size_t npairs;           /* pairs with a y column */
+} hl_match_sd;
+
+#define HL_MATCH_PAIR(p, a, b) ((a) * (p)->ncold + (b))
+
+/* light: skip the balanced-subset bound (only U is wanted). */
+hl_status hl_match_sd_init(const hl_match_problem *p, size_t s, int light,
+			   hl_match_sd *sd);
+void hl_match_sd_clear(hl_match_sd *sd);
+
+/* A model of some subnetworks solved together (one group). */
+typedef struct {
+	glp_prob *P;
+	size_t ns;
+	hl_match_sd *sd;
+	int textbook;
+	int *sym;                /* triples (sub index, side, party a, party b):
+				    a and b identical, a listed first */
+	size_t nsym;
+	int *sym_rows;           /* rows of the symmetry constraints */
+	size_t nsym_rows;
+} hl_match_model_t;
+
+/* Build the MILP of subnetworks subs[0..ns) into m->P (already created);
+ * tag is a name prefix separating groups in one exported model. */
+hl_status hl_match_build(const hl_match_problem *p, const size_t *subs,
+			 size_t ns, int textbook, hl_match_model_t *m,
+			 hl_error *err);
+void hl_match_model_clear(hl_match_model_t *m);
+
+/* Max-flow test of a match set in one subnetwork (loads fixed). */
+typedef struct hl_match_flow hl_match_flow;
+hl_match_flow *hl_match_flow_create(const hl_match_problem *p,
+				    const hl_match_sd *sd);
+/* 1 when the pairs with open[pi] != 0 can meet every demand. */
+int hl_match_flow_feasible(hl_match_flow *f, const unsigned char *open);
+void hl_match_flow_free(hl_match_flow *f);
+
+/* The most parts a set of n parties with net heats v (hot > 0) and interval
+ * profiles prof (n * nk, hot > 0) splits into, each balanced and feasible
+ * on its own; floor(n / 2) when the search is too large. */
+size_t hl_match_max_parts(size_t n, const double *v, const double *prof,
+			  size_t nk, double tol);
+
+/* Seconds on a monotonic clock. */
+double hl_match_now(void);
+
+/* A growing list of matrix entries for glp_load_matrix (1-based). */
+typedef struct {
+	int *ia, *ja;
+	double *ar;
+	size_t n, cap;
+	int failed;
+} hl_match_mat;
+
+void hl_match_mat_add(hl_match_mat *m, int row, int col, double v);
+/* Load into P (replacing its matrix) and free the list; -1 when memory
+ * ran out while adding. */
+int hl_match_mat_load(hl_match_mat *m, glp_prob *P);
+void hl_match_mat_free(hl_match_mat *m);
+
+/* Add n columns or rows and return the index of the first. */
+int hl_match_add_col(glp_prob *P, int kind, double lo, double hi,
+		     double obj);
+int hl_match_add_row(glp_prob *P, int type, double lo, double hi);
+
+/* Primal simplex from the current basis (a fresh one on trouble), with a
+ * time limit in s (<= 0: none). 0 optimal, 1 infeasible, 2 failure. */
+int hl_match_simplex(glp_prob *P, int msg_lev, double limit);
+
+/* LP-based incumbent for the model m: x[1..ncols] on success; it stops
+ * early on reaching lower. Returns 0 when found, -1 when not. */
+int hl_match_heuristic(const hl_match_problem *p, hl_match_model_t *m,
+		       double deadline, double lower, double *x, double *obj);
+
+/* Restricted-match targets: sets party loads, qh, qc, restricted and
+ * the causes. Called from hl_match_prepare. */
+hl_status hl_match_restrict(hl_match_problem *p, hl_error *err);
+
+/* Fill pair rules with rule `skip' (or the area policy when skip == -2)
+ * left out; skip == -1 leaves nothing out. */
+hl_status hl_match_rules(hl_match_problem *p, long skip, hl_match_pair *pair,
+			 hl_error *err);
+
+/* The second LP: loads of the chosen matches (x: the MILP's column values,
+ * y > 0.5 means used) minimising the area estimate; appends the matches
+ * to r (whose party, t and sub arrays are filled). */
+hl_status hl_match_loads(const hl_match_problem *p, const hl_match_model_t *m,
+			 const double *x, int msg_lev, hl_match_result *r,
+			 hl_error *err);
+
+#endif

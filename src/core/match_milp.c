@@ -1,0 +1,614 @@
+/* match_milp.c - the fewest units, subnetwork by subnetwork.
+ *
+ * Method: Papoulias & Grossmann (1983), expanded transshipment MILP, solved
+ * by GLPK's branch and bound after the root LP and an LP-based incumbent
+ * (match_heur.c). Subnetworks that a required or duty-limited pair links
+ * are solved together, so that "at least one unit" and "at most this duty"
+ * hold over the pair's units on both sides of a pinch.
+ */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "match_int.h"
+
+void
+hl_match_options_default(hl_match_options *o, const hl_case *c)
+{
+	memset(o, 0, sizeof *o);
+	o->time_limit = 10.0;
+	if (c != NULL && isfinite(c->set.time_limit) && c->set.time_limit >= 0.0)
+		o->time_limit = c->set.time_limit;
+}
+
+/* ---- groups ---- */
+
+static size_t
+find_root(size_t *up, size_t s)
+{
+	while (up[s] != s)
+		s = up[s] = up[up[s]];
+	return s;
+}
+
+/* group[s]: the lowest subnetwork of s's group. Also refuses required
+ * pairs that can work in no subnetwork. */
+static hl_status
+group_subs(const hl_match_problem *p, size_t *group, hl_error *err)
+{
+	size_t npair = p->nhot * p->ncold, s, pi;
+	hl_match_sd *sd = calloc(p->nsub + 1, sizeof *sd);
+	hl_status st = HL_OK;
+
+	if (sd == NULL)
+		return hl_error_nomem(err);
+	for (s = 0; s < p->nsub; s++) {
+		group[s] = s;
+		if (hl_match_sd_init(p, s, 1, &sd[s]) != HL_OK)
+			st = hl_error_nomem(err);
+	}
+	for (pi = 0; pi < npair && st == HL_OK; pi++) {
+		const hl_match_pair *q = &p->pair[pi];
+		size_t first = p->nsub, n = 0;
+
+		if (!q->allowed || (!q->required && isinf(q->maxduty)))
+			continue;
+		for (s = 0; s < p->nsub; s++) {
+			if (sd[s].U[pi] <= 0.0)
+				continue;
+			n++;
+			if (first == p->nsub)
+				first = s;
+			else
+				group[find_root(group, s)] = find_root(group, first);
+		}
+		if (q->required && n == 0)
+			st = hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
+				"required match '%s'-'%s' cannot exchange heat "
+				"at these utility loads: its heat would have to "
+				"cross a pinch; drop the rule or change ΔTmin",
+				p->party[p->hot[pi / p->ncold]].name,
+				p->party[p->cold[pi % p->ncold]].name);
+	}
+	for (s = 0; s < p->nsub; s++) {
+		group[s] = find_root(group, s);
+		hl_match_sd_clear(&sd[s]);
+	}
+	/* Roots are the lowest member once every member points at one. */
+	for (s = 0; s < p->nsub; s++) {
+		size_t t;
+
+		for (t = 0; t < s; t++)
+			if (group[t] == group[s]) {
+				group[s] = t;
+				break;
+			}
+		if (t == s)
+			group[s] = s;
+	}
+	free(sd);
+	return st;
+}
+
+/* ---- the search ---- */
+
+typedef struct {
+	const hl_match_problem *p;
+	const hl_match_options *o;
+	hl_match_result *r;
+	int msg_lev;
+	size_t done, total;
+} runner;
+
+typedef struct {
+	const runner *R;
+	const double *x;     /* heuristic incumbent, NULL when none */
+	int given;
+	double bound;
+	double t0, last;
+	const char *label;
+} search;
+
+static void
+report(search *s, glp_tree *T)
+{
+	hl_match_progress pg;
+	glp_prob *P = glp_ios_get_prob(T);
+	int st = glp_mip_status(P);
+
+	pg.label = s->label;
+	pg.done = s->R->done;
+	pg.total = s->R->total;
+	pg.elapsed = hl_match_now() - s->t0;
+	pg.incumbent = st == GLP_FEAS || st == GLP_OPT ? glp_mip_obj_val(P) :
+		HUGE_VAL;
+	pg.bound = s->bound;
+	s->R->o->progress(s->R->o->ctx, &pg);
+}
+
+static void
+on_tree(glp_tree *T, void *info)
+{
+	search *s = info;
+	int b;
+
+	if (glp_ios_reason(T) == GLP_IHEUR && s->x != NULL && !s->given) {
+		s->given = 1;
+		glp_ios_heur_sol(T, s->x);
+	}
+	/* Node bounds only grow down the tree, so the best active bound is
+	   a lower bound that never falls. */
+	b = glp_ios_best_node(T);
+	if (b != 0)
+		s->bound = fmax(s->bound, glp_ios_node_bound(T, b));
+	if (s->R->o->progress != NULL && hl_match_now() - s->last >= 0.5) {
+		s->last = hl_match_now();
+		report(s, T);
+	}
+}
+
+/* Every row and column bound holds at x (GLPK takes a heuristic solution
+ * on trust). */
+static int
+point_ok(glp_prob *P, const double *x)
+{
+	int i, j, n = glp_get_num_cols(P), m = glp_get_num_rows(P), len, k;
+	int *ind = malloc((size_t)(n + 1) * sizeof *ind);
+	double *val = malloc((size_t)(n + 1) * sizeof *val);
+	int ok = ind != NULL && val != NULL;
+
+	for (j = 1; j <= n && ok; j++) {
+		double lo = glp_get_col_lb(P, j), hi = glp_get_col_ub(P, j);
+		int t = glp_get_col_type(P, j);
+
+		if (((t == GLP_LO || t == GLP_DB || t == GLP_FX) &&
+		     x[j] < lo - 1e-9 * (1.0 + fabs(lo))) ||
+		    ((t == GLP_UP || t == GLP_DB || t == GLP_FX) &&
+		     x[j] > hi + 1e-9 * (1.0 + fabs(hi))))
+			ok = 0;
+		if (glp_get_col_kind(P, j) != GLP_CV && x[j] != floor(x[j]))
+			ok = 0;
+	}
+	for (i = 1; i <= m && ok; i++) {
+		double a = 0.0, lo = glp_get_row_lb(P, i), hi = glp_get_row_ub(P, i);
+		double tol = 1e-7 * (1.0 + fmax(fabs(lo), fabs(hi)));
+		int t = glp_get_row_type(P, i);
+
+		len = glp_get_mat_row(P, i, ind, val);
+		for (k = 1; k <= len; k++)
+			a += val[k] * x[ind[k]];
+		if (((t == GLP_LO || t == GLP_DB || t == GLP_FX) && a < lo - tol) ||
+		    ((t == GLP_UP || t == GLP_DB || t == GLP_FX) && a > hi + tol))
+			ok = 0;
+	}
+	free(ind);
+	free(val);
+	return ok;
+}
+
+static int
+integral_costs(const hl_match_model_t *m)
+{
+	int j, n = glp_get_num_cols(m->P);
+
+	for (j = 1; j <= n; j++) {
+		double c = glp_get_obj_coef(m->P, j);
+
+		if (c != floor(c))
+			return 0;
+	}
+	return 1;
+}
+
+/* What one group's solve found. */
+typedef struct {
+	double *x;
+	double obj, bound, seconds;
+	int optimal;
+} outcome;
+
+static double
+lower_bound(double v, int integral)
+{
+	return integral ? ceil(v - 1e-6) : v;
+}
+
+static void
+read_mip(glp_prob *P, double *x)
+{
+	int j, n = glp_get_num_cols(P);
+
+	for (j = 1; j <= n; j++)
+		x[j] = glp_mip_col_val(P, j);
+}
+
+static hl_status
+branch_and_bound(const runner *R, hl_match_model_t *m, search *s,
+		 double deadline, int have, double hobj, outcome *out,
+		 hl_error *err)
+{
+	glp_iocp parm;
+	int ret, ms;
+	double left = deadline - hl_match_now();
+
+	glp_init_iocp(&parm);
+	parm.msg_lev = R->msg_lev;
+	parm.presolve = GLP_OFF;
+	parm.tm_lim = left * 1000.0 > 2e9 ? 2000000000 :
+		(int)fmax(1.0, ceil(left * 1000.0));
+	parm.cb_func = on_tree;
+	parm.cb_info = s;
+	if (!m->textbook) {
+		/* Pseudocost branching, best bound first; Gomory cuts and
+		   proximity search (which improves the heuristic's incumbent)
+		   did best on generated problems (tests/bench). */
+		parm.br_tech = GLP_BR_PCH;
+		parm.bt_tech = GLP_BT_BLB;
+		parm.gmi_cuts = GLP_ON;
+		parm.ps_heur = GLP_ON;
+		parm.ps_tm_lim = (int)fmin(fmax(1000.0, 250.0 * left), 2e9);
+	}
+	ret = glp_intopt(m->P, &parm);
+	ms = glp_mip_status(m->P);
+	if (ms == GLP_OPT || ms == GLP_FEAS) {
+		double obj = glp_mip_obj_val(m->P);
+
+		if (!have || obj < hobj - 1e-9) {
+			read_mip(m->P, out->x);
+			out->obj = obj;
+		}
+		out->optimal = ms == GLP_OPT;
+		if (ms == GLP_OPT)
+			out->bound = out->obj;
+		else
+			out->bound = fmax(out->bound, s->bound);
+		return HL_OK;
+	}
+	if (ms == GLP_NOFEAS)
+		return hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
+			"no network meets the match rules in subnetwork %s",
+			s->label);
+	if (have)
+		return HL_OK;
+	return hl_error_set(err, HL_ENOSOLUTION, NULL, 0, ret == GLP_ETMLIM ?
+		"no network found for subnetwork %s within the time limit; "
+		"raise --time-limit" : "the MILP solver failed on subnetwork "
+		"%s; run with --verbose to see GLPK's messages", s->label);
+}
+
+/* The heuristic may use up to a third of the group's time. */
+static double
+heur_deadline(const runner *R, double t0, double deadline)
+{
+	(void)R;
+	return t0 + (deadline - t0) / 3.0;
+}
+
+static hl_status
+search_group(const runner *R, hl_match_model_t *m, const char *label,
+	     outcome *out, hl_error *err)
+{
+	const hl_match_problem *p = R->p;
+	int integral = integral_costs(m), rc, have = 0;
+	double t0 = hl_match_now(), deadline, hobj = HUGE_VAL;
+	search s;
+
+	deadline = t0 + R->o->time_limit * (double)m->ns;
+	rc = hl_match_simplex(m->P, R->msg_lev, 0.0);
+	if (rc != 0)
+		return hl_error_set(err, HL_ENOSOLUTION, NULL, 0, rc == 1 ?
+			"no network meets the match rules in subnetwork %s" :
+			"the LP relaxation failed in subnetwork %s; run with "
+			"--verbose to see GLPK's messages", label);
+	out->bound = lower_bound(glp_get_obj_val(m->P), integral);
+	out->obj = HUGE_VAL;
+	if (!m->textbook && hl_match_heuristic(p, m, heur_deadline(R, t0,
+			deadline), out->bound, out->x, &hobj) == 0 &&
+	    point_ok(m->P, out->x)) {
+		have = 1;
+		out->obj = hobj;
+	}
+	memset(&s, 0, sizeof s);
+	s.R = R;
+	s.x = have ? out->x : NULL;
+	s.bound = out->bound;
+	s.t0 = s.last = t0;
+	s.label = label;
+	rc = HL_OK;
+	if (have && hobj <= out->bound + 1e-9)
+		out->optimal = 1;
+	else if (R->o->time_limit > 0.0 && hl_match_now() < deadline)
+		rc = branch_and_bound(R, m, &s, deadline, have, hobj, out, err);
+	else if (!have)
+		rc = hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
+			"no network found for subnetwork %s within the time "
+			"limit; raise --time-limit", label);
+	out->bound = lower_bound(out->bound, integral);
+	if (out->bound >= out->obj - 1e-9) {
+		out->bound = out->obj;
+		out->optimal = 1;
+	}
+	out->seconds = hl_match_now() - t0;
+	return rc;
+}
+
+/* ---- results ---- */
+
+static void
+record(const runner *R, const hl_match_model_t *m, const outcome *out,
+       size_t from)
+{
+	hl_match_result *r = R->r;
+	size_t si, i, lower_units = 0;
+
+	for (si = 0; si < m->ns; si++)
+		lower_units += m->sd[si].subset_bound;
+	if (!R->p->penalised)
+		lower_units = (size_t)fmax((double)lower_units, out->bound);
+	for (si = 0; si < m->ns; si++) {
+		hl_match_sub *b = &r->sub[m->sd[si].sub];
+		const hl_match_pair *pair = R->p->pair;
+
+		b->nparty = m->sd[si].nactive;
+		b->euler = b->nparty > 0 ? b->nparty - 1 : 0;
+		b->subset_bound = m->sd[si].subset_bound;
+		b->units = 0;
+		b->objective = 0.0;
+		for (i = from; i < r->nmatch; i++) {
+			const hl_match *mt = &r->match[i];
+
+			if (mt->sub != m->sd[si].sub)
+				continue;
+			b->units++;
+			b->objective += pair[HL_MATCH_PAIR(R->p,
+				R->p->sidx[mt->hot], R->p->sidx[mt->cold])].cost;
+		}
+		b->lower = m->ns == 1 ? lower_units : b->subset_bound;
+		b->optimal = out->optimal;
+		b->bound = m->ns == 1 ? out->bound : 0.0;
+		b->seconds = out->seconds;
+		b->group = m->sd[0].sub;
+	}
+	r->lower += lower_units;
+	r->bound += out->bound;
+	r->seconds += out->seconds;
+	if (!out->optimal)
+		r->optimal = 0;
+}
+
+static hl_status
+solve_group(runner *R, const size_t *subs, size_t ns, hl_error *err)
+{
+	hl_match_model_t m;
+	outcome out;
+	hl_status st;
+	size_t from = R->r->nmatch;
+
+	memset(&m, 0, sizeof m);
+	memset(&out, 0, sizeof out);
+	m.P = glp_create_prob();
+	st = hl_match_build(R->p, subs, ns, R->o->textbook, &m, err);
+	if (st == HL_OK) {
+		out.x = calloc((size_t)glp_get_num_cols(m.P) + 1, sizeof *out.x);
+		if (out.x == NULL)
+			st = hl_error_nomem(err);
+	}
+	if (st == HL_OK)
+		st = search_group(R, &m, R->p->sub[subs[0]].label, &out, err);
+	if (st == HL_OK)
+		st = hl_match_loads(R->p, &m, out.x, R->msg_lev, R->r, err);
+	if (st == HL_OK)
+		record(R, &m, &out, from);
+	free(out.x);
+	hl_match_model_clear(&m);
+	glp_delete_prob(m.P);
+	return st;
+}
+
+static hl_status
+solve_all(runner *R, hl_error *err)
+{
+	const hl_match_problem *p = R->p;
+	size_t *group = malloc((p->nsub + 1) * sizeof *group);
+	size_t *subs = malloc((p->nsub + 1) * sizeof *subs);
+	size_t s, t, n;
+	hl_status st = HL_OK;
+
+	if (group == NULL || subs == NULL) {
+		free(group);
+		free(subs);
+		return hl_error_nomem(err);
+	}
+	st = group_subs(p, group, err);
+	for (s = 0; s < p->nsub && st == HL_OK; s++)
+		R->total += group[s] == s;
+	for (s = 0; s < p->nsub && st == HL_OK; s++) {
+		if (group[s] != s)
+			continue;
+		for (t = s, n = 0; t < p->nsub; t++)
+			if (group[t] == s)
+				subs[n++] = t;
+		st = solve_group(R, subs, n, err);
+		R->done++;
+	}
+	free(group);
+	free(subs);
+	return st;
+}
+
+static hl_status
+result_begin(const hl_match_problem *p, hl_match_result **out)
+{
+	hl_match_result *r = calloc(1, sizeof *r);
+	size_t i;
+
+	*out = r;
+	if (r == NULL)
+		return HL_EIO;
+	r->party = calloc(p->np, sizeof *r->party);
+	r->t = malloc((p->nint + 1) * sizeof *r->t);
+	r->sub = calloc(p->nsub + 1, sizeof *r->sub);
+	r->cause = calloc(p->ncause + 1, sizeof *r->cause);
+	if (!r->party || !r->t || !r->sub || !r->cause)
+		return HL_EIO;
+	for (i = 0; i < p->np; i++) {
+		r->party[i] = p->party[i];
+		r->party[i].name = strdup(p->party[i].name);
+		r->nparty++;
+		if (r->party[i].name == NULL)
+			return HL_EIO;
+	}
+	r->nint = p->nint;
+	memcpy(r->t, p->t, (p->nint + 1) * sizeof *r->t);
+	r->nsub = p->nsub;
+	memcpy(r->sub, p->sub, p->nsub * sizeof *r->sub);
+	r->ncause = p->ncause;
+	memcpy(r->cause, p->cause, p->ncause * sizeof *r->cause);
+	r->qh0 = p->qh0;
+	r->qc0 = p->qc0;
+	r->qh = p->qh;
+	r->qc = p->qc;
+	r->restricted = p->restricted;
+	r->penalised = p->penalised;
+	r->implicit_utilities = p->implicit;
+	r->optimal = 1;
+	return HL_OK;
+}
+
+static void
+result_finish(hl_match_result *r)
+{
+	size_t i;
+
+	for (i = 0; i < r->nsub; i++) {
+		r->units += r->sub[i].units;
+		r->euler += r->sub[i].euler;
+		r->objective += r->sub[i].objective;
+	}
+	r->gap = r->objective > 0.0 ? fmax(0.0, (r->objective - r->bound) /
+					   r->objective) : 0.0;
+	for (i = 0; i < r->nsub; i++) {
+		hl_match_sub *b = &r->sub[i];
+
+		b->gap = b->objective > 0.0 && b->group == i &&
+			b->bound > 0.0 ? fmax(0.0, (b->objective - b->bound) /
+					      b->objective) : 0.0;
+		if (b->optimal)
+			b->gap = 0.0;
+	}
+	for (i = 0; i < r->nmatch; i++) {
+		const hl_match *mt = &r->match[i];
+		hl_match_party *h = &r->party[mt->hot], *c = &r->party[mt->cold];
+
+		if (h->type == HL_PARTY_STREAM && c->type != HL_PARTY_STREAM)
+			h->utility_duty += mt->duty;
+		if (c->type == HL_PARTY_STREAM && h->type != HL_PARTY_STREAM)
+			c->utility_duty += mt->duty;
+	}
+}
+
+void
+hl_match_result_free(hl_match_result *r)
+{
+	size_t i;
+
+	if (r == NULL)
+		return;
+	for (i = 0; i < r->nparty; i++)
+		free(r->party[i].name);
+	for (i = 0; i < r->nmatch; i++) {
+		free(r->match[i].give);
+		free(r->match[i].take);
+	}
+	free(r->party);
+	free(r->t);
+	free(r->sub);
+	free(r->match);
+	free(r->cause);
+	free(r);
+}
+
+hl_status
+hl_match_run(const hl_match_problem *p, const hl_match_options *o,
+	     hl_match_result **out, hl_error *err)
+{
+	runner R;
+	hl_lp_guard g;
+	hl_status st;
+
+	*out = NULL;
+	memset(&R, 0, sizeof R);
+	R.p = p;
+	R.o = o;
+	if (result_begin(p, &R.r) != HL_OK) {
+		hl_match_result_free(R.r);
+		return hl_error_nomem(err);
+	}
+	hl_lp_guard_begin(&g, o->log, o->ctx);
+	if (setjmp(g.jb) != 0)
+		return hl_lp_guard_failed(&g, err);
+	R.msg_lev = hl_lp_guard_msg_lev(&g);
+	st = solve_all(&R, err);
+	hl_lp_guard_end(&g);
+	if (st != HL_OK) {
+		hl_match_result_free(R.r);
+		return st;
+	}
+	result_finish(R.r);
+	*out = R.r;
+	return HL_OK;
+}
+
+hl_status
+hl_match_solve(const hl_case *c, double dtmin, const double *util_load,
+	       const hl_match_options *o, hl_match_result **out,
+	       hl_error *err)
+{
+	hl_match_problem *p;
+	hl_status st;
+
+	*out = NULL;
+	st = hl_match_prepare(c, dtmin, util_load, o->log, o->ctx, &p, err);
+	if (st != HL_OK)
+		return st;
+	st = hl_match_run(p, o, out, err);
+	hl_match_problem_free(p);
+	return st;
+}
+
+hl_status
+hl_match_model(const hl_match_problem *p, int textbook, glp_prob **out,
+	       hl_error *err)
+{
+	size_t *group = malloc((p->nsub + 1) * sizeof *group);
+	size_t *subs = malloc((p->nsub + 1) * sizeof *subs);
+	size_t s, t, n;
+	hl_status st;
+	glp_prob *P = glp_create_prob();
+
+	*out = NULL;
+	glp_set_prob_name(P, "heatloom_matches");
+	st = group == NULL || subs == NULL ? hl_error_nomem(err) :
+		group_subs(p, group, err);
+	for (s = 0; s < p->nsub && st == HL_OK; s++) {
+		hl_match_model_t m;
+
+		if (group[s] != s)
+			continue;
+		for (t = s, n = 0; t < p->nsub; t++)
+			if (group[t] == s)
+				subs[n++] = t;
+		memset(&m, 0, sizeof m);
+		m.P = P;
+		st = hl_match_build(p, subs, n, textbook, &m, err);
+		hl_match_model_clear(&m);
+	}
+	free(group);
+	free(subs);
+	if (st != HL_OK) {
+		glp_delete_prob(P);
+		return st;
+	}
+	*out = P;
+	return HL_OK;
+}
