@@ -1,0 +1,301 @@
+/* matches.c - `heatloom matches`: the fewest exchanger units and their
+ * duties. */
+#include <getopt.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <unistd.h>
+
+#include "cmd.h"
+#include "lp_guard.h"
+#include "match_milp.h"
+#include "matches_out.h"
+#include "model_out.h"
+#include "output.h"
+#include "result_xml.h"
+
+static void
+help(FILE *fp)
+{
+	fprintf(fp,
+"Usage: heatloom matches CASE [options]\n"
+"\n"
+"Which hot stream should heat which cold stream, with what duty, using as\n"
+"few exchanger units as possible while meeting the utility targets (the\n"
+"expanded transshipment MILP of Papoulias & Grossmann, 1983, solved with\n"
+"GLPK). The problem is split at every pinch; a pair working on both sides\n"
+"of a pinch counts as two units. Match rules and plant areas of an XML case\n"
+"file are obeyed; when they raise the utility targets the report says by\n"
+"how much and because of which rule. CASE is an XML case file or a stream\n"
+"table (CSV).\n"
+"\n"
+"Options:\n"
+"  --dtmin K            minimum approach temperature (default: the case's, or 10)\n"
+"  --utilities FILE     utility table (CSV) to add to the case\n"
+"  --format FMT         text (default), xml, or csv (the match table)\n"
+"  -o, --output FILE    write to FILE instead of standard output\n"
+"  --time-limit S       solver time per subnetwork in s (default: the case's,\n"
+"                       or 10); at the limit the best network found is given\n"
+"                       with its gap to the proven bound; 0: heuristic only\n"
+"  --export-model FILE  also write the MILP (CPLEX LP, or free MPS when FILE\n"
+"                       ends in .mps) to solve it with another solver\n"
+"  --quiet              no progress on the terminal\n"
+"  --verbose            show the solver's own messages on standard error\n"
+"  -h, --help           show this help\n"
+"\n"
+"%s\n", hl_caution);
+}
+
+enum {
+	OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT, OPT_TIME, OPT_QUIET,
+	OPT_VERBOSE, OPT_EXPORT
+};
+
+typedef struct {
+	hl_common c;
+	double time_limit;  /* NaN unless --time-limit */
+	const char *export_model;
+} options;
+
+static int
+parse_option(int ch, options *o)
+{
+	switch (ch) {
+	case OPT_DTMIN:
+		return hl_cmd_parse_double("matches", "--dtmin", optarg, 0.0,
+					   500.0, &o->c.dtmin);
+	case OPT_UTIL:
+		o->c.utilities = optarg;
+		return 0;
+	case OPT_FORMAT:
+		return hl_cmd_parse_format("matches", optarg,
+			HL_FMT_BIT(HL_FMT_TEXT) | HL_FMT_BIT(HL_FMT_XML) |
+			HL_FMT_BIT(HL_FMT_CSV), &o->c.format);
+	case OPT_TIME:
+		return hl_cmd_parse_double("matches", "--time-limit", optarg,
+					   0.0, 1e6, &o->time_limit);
+	case OPT_QUIET:
+		o->c.quiet = 1;
+		return 0;
+	case OPT_VERBOSE:
+		o->c.verbose = 1;
+		return 0;
+	case OPT_EXPORT:
+		o->export_model = optarg;
+		return 0;
+	case 'o':
+		o->c.output = optarg;
+		return 0;
+	}
+	return -1;
+}
+
+static int
+parse(int argc, char **argv, options *o)
+{
+	static const struct option opts[] = {
+		{ "dtmin", required_argument, NULL, OPT_DTMIN },
+		{ "utilities", required_argument, NULL, OPT_UTIL },
+		{ "format", required_argument, NULL, OPT_FORMAT },
+		{ "output", required_argument, NULL, 'o' },
+		{ "time-limit", required_argument, NULL, OPT_TIME },
+		{ "quiet", no_argument, NULL, OPT_QUIET },
+		{ "verbose", no_argument, NULL, OPT_VERBOSE },
+		{ "export-model", required_argument, NULL, OPT_EXPORT },
+		{ "help", no_argument, NULL, 'h' },
+		{ NULL, 0, NULL, 0 }
+	};
+	int ch;
+
+	memset(o, 0, sizeof *o);
+	hl_common_init(&o->c);
+	o->time_limit = NAN;
+	optind = 1;
+	opterr = 0;
+	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
+		if (ch == 'h') {
+			help(stdout);
+			return -1;
+		}
+		if (ch == ':')
+			return hl_cmd_usage("matches", "option '%s' needs a "
+					    "value", argv[optind - 1]);
+		if (ch == '?')
+			return hl_cmd_usage("matches", "unknown option '%s'",
+					    argv[optind - 1]);
+		if (parse_option(ch, o) != 0)
+			return 1;
+	}
+	if (optind != argc - 1)
+		return hl_cmd_usage("matches", optind >= argc ?
+				    "give one CASE file" :
+				    "give one CASE file, not several");
+	o->c.input = argv[optind];
+	return 0;
+}
+
+/* ---- terminal feedback ---- */
+
+typedef struct {
+	int shown;          /* a progress line is on the terminal */
+} feedback;
+
+static void
+on_log(void *ctx, const char *text)
+{
+	(void)ctx;
+	fputs(text, stderr);
+}
+
+static void
+on_progress(void *ctx, const hl_match_progress *p)
+{
+	feedback *f = ctx;
+
+	if (isinf(p->incumbent))
+		fprintf(stderr, "\rheatloom: matches: %s (%zu of %zu): "
+			"searching, bound %.0f, %.0f s   ", p->label, p->done + 1,
+			p->total, p->bound, p->elapsed);
+	else
+		fprintf(stderr, "\rheatloom: matches: %s (%zu of %zu): best "
+			"%.0f, bound %.0f, %.0f s   ", p->label, p->done + 1,
+			p->total, p->incumbent, p->bound, p->elapsed);
+	fflush(stderr);
+	f->shown = 1;
+}
+
+static void
+clear_progress(feedback *f)
+{
+	if (f->shown)
+		fprintf(stderr, "\r%72s\r", "");
+	f->shown = 0;
+}
+
+/* ---- the run ---- */
+
+static hl_status
+export_model(const hl_match_problem *p, const options *o, hl_error *err)
+{
+	hl_lp_guard g;
+	glp_prob *P = NULL;
+	hl_status st;
+
+	hl_lp_guard_begin(&g, o->c.verbose ? on_log : NULL, NULL);
+	if (setjmp(g.jb) != 0)
+		return hl_lp_guard_failed(&g, err);
+	st = hl_match_model(p, 0, &P, err);
+	if (st == HL_OK)
+		st = hl_model_write(P, o->export_model, err);
+	if (P != NULL)
+		glp_delete_prob(P);
+	hl_lp_guard_end(&g);
+	return st;
+}
+
+static hl_status
+write_result(const options *o, const hl_case *c, const hl_match_result *r,
+	     hl_error *err)
+{
+	hl_output out;
+	hl_status st = hl_output_open(&out, o->c.output, err);
+
+	if (st != HL_OK)
+		return st;
+	if (o->c.format == HL_FMT_XML) {
+		hl_xml_out *x = hl_xml_out_begin(c->source);
+
+		if (x == NULL)
+			st = hl_error_nomem(err);
+		else if (hl_matches_xml(hl_xml_out_writer(x), c, r,
+					c->set.dtmin) < 0)
+			st = hl_error_set(err, HL_EIO, NULL, 0,
+					  "cannot build XML");
+		else
+			st = hl_xml_out_finish(x, out.fp, err);
+		hl_xml_out_free(x);
+	} else if (o->c.format == HL_FMT_CSV) {
+		hl_matches_csv(out.fp, r);
+	} else {
+		hl_matches_text(out.fp, c, r, c->set.dtmin);
+	}
+	st = st == HL_OK ? hl_output_commit(&out, err) : st;
+	hl_output_abort(&out);
+	return st;
+}
+
+static hl_status
+check_outputs(const options *o, hl_error *err)
+{
+	hl_status st = hl_output_check(o->export_model, err);
+
+	if (st == HL_OK && o->export_model != NULL && o->c.output != NULL &&
+	    strcmp(o->export_model, o->c.output) == 0)
+		st = hl_error_set(err, HL_EUSAGE, o->export_model, 0,
+			"the model and the results cannot go to one file");
+	return st;
+}
+
+static hl_status
+run_matches(const options *o, hl_error *err)
+{
+	hl_case *c = NULL;
+	hl_match_problem *p = NULL;
+	hl_match_result *r = NULL;
+	hl_match_options mo;
+	feedback fb = { 0 };
+	hl_status st;
+
+	st = hl_cmd_load_case(&o->c, &c, err);
+	if (st == HL_OK)
+		st = check_outputs(o, err);
+	if (st != HL_OK) {
+		hl_case_free(c);
+		return st;
+	}
+	hl_match_options_default(&mo, c);
+	if (!isnan(o->time_limit))
+		mo.time_limit = o->time_limit;
+	mo.log = o->c.verbose ? on_log : NULL;
+	if (!o->c.quiet && !o->c.verbose && isatty(STDERR_FILENO))
+		mo.progress = on_progress;
+	mo.ctx = &fb;
+	/* Loads per case utility come from the utility LP; without them the
+	   core matches against one implicit hot and one implicit cold
+	   utility at the problem-table targets. */
+	st = hl_match_prepare(c, c->set.dtmin, NULL, mo.log, mo.ctx, &p, err);
+	if (st == HL_OK && o->export_model != NULL)
+		st = export_model(p, o, err);
+	if (st == HL_OK)
+		st = hl_match_run(p, &mo, &r, err);
+	clear_progress(&fb);
+	if (st == HL_OK)
+		st = write_result(o, c, r, err);
+	hl_match_result_free(r);
+	hl_match_problem_free(p);
+	hl_case_free(c);
+	return st;
+}
+
+static int
+run(int argc, char **argv)
+{
+	options o;
+	hl_error err;
+	int rc = parse(argc, argv, &o);
+
+	if (rc != 0)
+		return rc < 0 ? 0 : rc;
+	hl_error_clear(&err);
+	if (run_matches(&o, &err) != HL_OK)
+		return hl_cmd_fail(&err);
+	return 0;
+}
+
+const hl_command hl_cmd_matches = {
+	"matches", "CASE [--dtmin K] [--utilities FILE] [--format text|xml|csv] "
+	"[-o FILE] [--time-limit S] [--quiet] [--verbose] [--export-model FILE]",
+	"fewest exchanger matches and their duties (MILP)",
+	run, help
+};
