@@ -176,7 +176,8 @@ clear_progress(feedback *f)
 /* ---- the run ---- */
 
 static hl_status
-export_model(const hl_match_problem *p, const options *o, hl_error *err)
+export_model(const hl_match_problem *p, const options *o,
+	     const hl_match_options *mo, hl_error *err)
 {
 	hl_lp_guard g;
 	glp_prob *P = NULL;
@@ -185,7 +186,7 @@ export_model(const hl_match_problem *p, const options *o, hl_error *err)
 	hl_lp_guard_begin(&g, o->c.verbose ? on_log : NULL, NULL);
 	if (setjmp(g.jb) != 0)
 		return hl_lp_guard_failed(&g, err);
-	st = hl_match_model(p, 0, &P, err);
+	st = hl_match_model(p, mo, &P, err);
 	if (st == HL_OK)
 		st = hl_model_write(P, o->export_model, err);
 	if (P != NULL)
@@ -266,7 +267,7 @@ run_matches(const options *o, hl_error *err)
 	   utility at the problem-table targets. */
 	st = hl_match_prepare(c, c->set.dtmin, NULL, mo.log, mo.ctx, &p, err);
 	if (st == HL_OK && o->export_model != NULL)
-		st = export_model(p, o, err);
+		st = export_model(p, o, &mo, err);
 	if (st == HL_OK)
 		st = hl_match_run(p, &mo, &r, err);
 	clear_progress(&fb);

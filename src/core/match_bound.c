@@ -1,18 +1,22 @@
 /* match_bound.c - a lower bound on the units from balanced subsets.
  *
  * Method: the Euler rule for networks (Hohmann 1971; Linnhoff et al. 1982):
- * a network of N streams and utilities in S separate components has at
- * least N - S units, since each component is connected. Each component
+ * a network whose graph has S components over N streams and utilities has
+ * at least N - S units, since each component is connected. Each component
  * exchanges heat only within itself, so its hot and cold heats balance and
- * its own cascade never runs negative. The most components a subnetwork can
- * split into is found by enumerating the balanced subsets (Gray code, one
- * addition per subset) and packing them by depth-first search. Up to 24
- * parties; beyond, or when the search grows too large, floor(N / 2) (each
- * component needs a hot and a cold party) keeps the bound valid.
+ * its own cascade never runs negative. So the units are at least the least
+ * sum of w(part) over the partitions of the parties into such sets, with
+ * w(part) = |part| - 1, or more when a part is known to need more units on
+ * its own (match_milp.c solves the parts). The balanced subsets are
+ * enumerated by Gray code (one addition per subset) up to 24 parties, and
+ * partitions by depth-first search; beyond those limits the bound falls
+ * back to N - floor(N / 2) (each part needs a hot and a cold party), which
+ * is always valid.
  */
 #include <math.h>
 #include <stdint.h>
 #include <stdlib.h>
+#include <string.h>
 
 #include "match_int.h"
 
@@ -20,41 +24,41 @@
 #define MAX_SETS 4096
 #define MAX_STEPS 200000L
 
-typedef struct {
-	size_t n, nk;
-	const double *prof;
-	double tol;
-	uint32_t *set;
-	size_t nset;
-	long steps;
-	int overflow;
-} packer;
-
 /* The subset's own cascade never runs negative (heat only flows down). */
 static int
-feasible(const packer *k, uint32_t mask)
+feasible(const hl_match_balanced *b, const double *prof, uint32_t mask)
 {
 	double r = 0.0;
 	size_t i, j;
 
-	for (j = 0; j < k->nk; j++) {
-		for (i = 0; i < k->n; i++)
+	for (j = 0; j < b->nk; j++) {
+		for (i = 0; i < b->n; i++)
 			if (mask & (1u << i))
-				r += k->prof[i * k->nk + j];
-		if (r < -k->tol)
+				r += prof[i * b->nk + j];
+		if (r < -b->tol)
 			return 0;
 	}
 	return 1;
 }
 
-static void
-collect(packer *k, const double *v)
+void
+hl_match_balanced_find(size_t n, const double *v, const double *prof,
+		       size_t nk, double tol, hl_match_balanced *b)
 {
-	uint32_t full = (k->n == 32) ? 0xffffffffu : ((1u << k->n) - 1u);
-	uint32_t g = 0, prev = 0, m;
+	uint32_t full, g, prev = 0, m;
 	double sum = 0.0;
 
-	for (m = 1; m <= full && !k->overflow; m++) {
+	memset(b, 0, sizeof b[0]);
+	b->n = n;
+	b->nk = nk;
+	b->tol = tol;
+	if (n > MAX_ENUM)
+		return;
+	b->set = malloc(MAX_SETS * sizeof *b->set);
+	if (b->set == NULL)
+		return;
+	full = (uint32_t)((1u << n) - 1u);
+	for (m = 1; m <= full; m++) {
 		uint32_t bit;
 		int i = 0;
 
@@ -64,61 +68,100 @@ collect(packer *k, const double *v)
 			i++;
 		sum += (g & bit) ? v[i] : -v[i];
 		prev = g;
-		if (g == full || fabs(sum) > k->tol || !feasible(k, g))
+		if (g == full || fabs(sum) > tol || !feasible(b, prof, g))
 			continue;
-		if (k->nset == MAX_SETS) {
-			k->overflow = 1;
-			break;
+		if (b->nset == MAX_SETS) {
+			free(b->set);
+			b->set = NULL;
+			b->nset = 0;
+			return;
 		}
-		k->set[k->nset++] = g;
-		if (m == full)
-			break;
+		b->set[b->nset++] = g;
 	}
+	b->complete = 1;
 }
 
-/* Most feasible balanced parts that rem (itself balanced) splits into;
- * 0 when it cannot be split into feasible parts at all. */
-static size_t
+void
+hl_match_balanced_clear(hl_match_balanced *b)
+{
+	free(b->set);
+	memset(b, 0, sizeof *b);
+}
+
+typedef struct {
+	const hl_match_balanced *b;
+	const double *w;
+	double whole;
+	uint32_t full;
+	long steps;
+	int overflow;
+} packer;
+
+static double
+weight_of(const packer *k, uint32_t s)
+{
+	size_t i;
+
+	if (s == k->full)
+		return k->whole;
+	for (i = 0; i < k->b->nset; i++)
+		if (k->b->set[i] == s)
+			return k->w[i];
+	return HUGE_VAL; /* not a feasible balanced set */
+}
+
+/* Least sum of weights over the partitions of rem into sets. */
+static double
 pack(packer *k, uint32_t rem)
 {
 	uint32_t low = rem & (~rem + 1u);
-	size_t i, best = feasible(k, rem) ? 1 : 0;
+	double best = weight_of(k, rem);
+	size_t i;
 
 	if (++k->steps > MAX_STEPS) {
 		k->overflow = 1;
 		return best;
 	}
-	for (i = 0; i < k->nset && !k->overflow; i++) {
-		uint32_t s = k->set[i];
-		size_t rest;
+	for (i = 0; i < k->b->nset && !k->overflow; i++) {
+		uint32_t s = k->b->set[i];
+		double rest;
 
-		if (!(s & low) || (s & ~rem) || s == rem)
+		if (!(s & low) || (s & ~rem) || s == rem || isinf(k->w[i]))
 			continue;
 		rest = pack(k, rem & ~s);
-		if (rest > 0 && rest + 1 > best)
-			best = rest + 1;
+		if (k->w[i] + rest < best)
+			best = k->w[i] + rest;
 	}
 	return best;
 }
 
-size_t
-hl_match_max_parts(size_t n, const double *v, const double *prof, size_t nk,
-		   double tol)
+double
+hl_match_partition_bound(const hl_match_balanced *b, const double *w,
+			 double whole)
 {
-	packer k = { n, nk, prof, tol, NULL, 0, 0, 0 };
-	size_t best;
+	packer k;
+	double best;
+	double fallback = (double)(b->n - b->n / 2);
 
-	if (n < 4)
-		return 1;
-	if (n > MAX_ENUM)
-		return n / 2;
-	k.set = malloc(MAX_SETS * sizeof *k.set);
-	if (k.set == NULL)
-		return n / 2;
-	collect(&k, v);
-	best = k.overflow ? n / 2 : pack(&k, (uint32_t)((1u << n) - 1u));
-	if (k.overflow || best == 0)
-		best = n / 2;
-	free(k.set);
-	return best < 1 ? 1 : best;
+	if (b->n < 4)
+		return whole;
+	if (!b->complete)
+		return fmin(whole, fallback);
+	memset(&k, 0, sizeof k);
+	k.b = b;
+	k.w = w;
+	k.whole = whole;
+	k.full = (uint32_t)((1u << b->n) - 1u);
+	best = pack(&k, k.full);
+	return k.overflow ? fmin(whole, fallback) : best;
+}
+
+double
+hl_match_set_size(uint32_t s)
+{
+	double n = 0.0;
+
+	for (; s != 0; s &= s - 1)
+		n += 1.0;
+	return n;
 }

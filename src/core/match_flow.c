@@ -84,7 +84,7 @@ build(hl_match_flow *f, const hl_match_problem *p, const hl_match_sd *sd)
 		}
 	}
 	for (b = 0; b < p->ncold; b++)
-		for (kk = 0; kk < nk && rc == 0; kk++) {
+		for (kk = 0; kk < nk && rc == 0 && sd->active[p->cold[b]]; kk++) {
 			double h = heat(p, p->cold[b], sd->first + kk);
 
 			if (h <= 0.0)

@@ -43,6 +43,7 @@ typedef struct {
 	size_t ny;
 	hl_match_flow **flow;   /* per subnetwork of the group */
 	unsigned char *open;    /* pairs, for the flow test */
+	int flow_exact;         /* the flow test decides feasibility alone */
 	long effort;
 	double deadline;
 } heur;
@@ -262,28 +263,22 @@ by_duty(const void *a, const void *b)
 	return (x->duty > y->duty) - (x->duty < y->duty);
 }
 
-/* Drop matches while the rest stays feasible, smallest duty first. */
-static int
+/* Drop matches while the rest stays feasible, smallest duty (in the LP
+ * that gave the set) first; the set's cost. */
+static double
 prune(heur *h, const unsigned char *set)
 {
 	ycand **order = malloc((h->ny + 1) * sizeof *order);
 	size_t i, n = 0;
-	int j, ncol = glp_get_num_cols(h->Q);
+	double cost = 0.0;
 
 	if (order == NULL)
-		return -1;
-	for (j = 1; j <= ncol; j++)
-		glp_set_obj_coef(h->Q, j, 0.0);
+		return HUGE_VAL;
 	for (i = 0; i < h->ny; i++) {
 		fix_y(h, i, set[i]);
 		if (h->y[i].in)
 			order[n++] = &h->y[i];
 	}
-	if (lp(h, h->Q) != 0) {
-		free(order);
-		return -1;
-	}
-	read_duties(h, h->Q);
 	qsort(order, n, sizeof *order, by_duty);
 	for (i = 0; i < n && hl_match_now() < h->deadline; i++) {
 		size_t at = (size_t)(order[i] - h->y);
@@ -291,12 +286,14 @@ prune(heur *h, const unsigned char *set)
 		if (forced(h, at))
 			continue;
 		fix_y(h, at, 0);
-		if (!flow_ok(h, h->y[at].si, 1) || lp(h, h->Q) != 0)
+		if (!flow_ok(h, h->y[at].si, 1) ||
+		    (!h->flow_exact && lp(h, h->Q) != 0))
 			fix_y(h, at, 1);
 	}
 	free(order);
-	/* The last LP may have been a refused trial. */
-	return lp(h, h->Q) == 0 ? 0 : -1;
+	for (i = 0; i < h->ny; i++)
+		cost += h->y[i].in ? h->y[i].cost : 0.0;
+	return cost;
 }
 
 static void
@@ -387,10 +384,19 @@ extract(heur *h, double *x)
 }
 
 /* Prune set to a minimal one; its cost, HUGE_VAL when that fails. */
+/* Prune set to a minimal one; when it beats best, its column values (an
+ * LP with the matches fixed) into x and its cost; else HUGE_VAL. */
 static double
-minimal(heur *h, const unsigned char *set, double *x)
+minimal(heur *h, const unsigned char *set, double best, double *x)
 {
-	if (prune(h, set) != 0)
+	int j, ncol = glp_get_num_cols(h->Q);
+	double cost = prune(h, set);
+
+	if (cost >= best)
+		return HUGE_VAL;
+	for (j = 1; j <= ncol; j++)
+		glp_set_obj_coef(h->Q, j, 0.0);
+	if (lp(h, h->Q) != 0)
 		return HUGE_VAL;
 	return extract(h, x);
 }
@@ -560,6 +566,28 @@ try_tick(heur *h, diver *d, const tick *t, int *closed)
 	return 0;
 }
 
+/* Price of heat on each pair in the guide LP: cost / U, times a random
+ * factor in 0.25..4 after the first dive so that the dives differ. */
+static void
+guide_costs(heur *h, uint64_t *rng)
+{
+	size_t i, kk;
+
+	for (i = 0; i < h->ny; i++) {
+		const hl_match_sd *sd = &h->m->sd[h->y[i].si];
+		double w = h->y[i].cost / sd->U[h->y[i].pi];
+
+		if (*rng != 0)
+			w *= pow(4.0, 2.0 * noise(rng) - 1.0);
+		for (kk = 0; kk < sd->nk; kk++) {
+			int j = sd->qcol[h->y[i].pi * sd->nk + kk];
+
+			if (j)
+				glp_set_obj_coef(h->G, j, w);
+		}
+	}
+}
+
 /* One dive: ticks until none is left or none is feasible. */
 static int
 dive(heur *h, unsigned char *set, uint64_t seed)
@@ -578,6 +606,7 @@ dive(heur *h, unsigned char *set, uint64_t seed)
 			d.alive[si * np + i] = h->m->sd[si].active[i];
 	for (i = 0; i < h->ny; i++)
 		set_open(h, i, 1);
+	guide_costs(h, &d.rng);
 	h->effort = DIVE_EFFORT + 20 * (long)h->ny;
 	if (lp(h, h->G) != 0)
 		goto out;
@@ -610,6 +639,24 @@ out:
 
 /* ---- driver ---- */
 
+/* One subnetwork without duty limits or required pairs: a set of
+ * matches is feasible exactly when the flow test says so (the arcs carry
+ * the model's per-interval and residual bounds; the pair bound U never
+ * binds on a feasible flow, being the most the pair could carry alone). */
+static int
+flow_decides(const heur *h)
+{
+	size_t pi;
+
+	if (h->m->ns != 1 || h->flow == NULL || h->flow[0] == NULL)
+		return 0;
+	for (pi = 0; pi < h->p->nhot * h->p->ncold; pi++)
+		if (h->m->sd[0].ycol[pi] != 0 && (h->p->pair[pi].required ||
+		    !isinf(h->p->pair[pi].maxduty)))
+			return 0;
+	return 1;
+}
+
 static void
 setup_flows(heur *h)
 {
@@ -623,6 +670,7 @@ setup_flows(heur *h)
 		free(h->flow);
 		h->flow = NULL;
 	}
+	h->flow_exact = flow_decides(h);
 }
 
 static void
@@ -672,7 +720,7 @@ hl_match_heuristic(const hl_match_problem *p, hl_match_model_t *m,
 	make_relaxation(&h);
 	h.effort = 1L << 30;
 	if (reweight(&h, set) == 0)
-		consider(minimal(&h, set, x2), x2, n, &best, x);
+		consider(minimal(&h, set, best, x2), x2, n, &best, x);
 	make_guide(&h);
 	for (r = 0; best > lower + 1e-9 && r < MAX_DIVES; r++) {
 		if (r > 0 && hl_match_now() > deadline)
@@ -680,7 +728,7 @@ hl_match_heuristic(const hl_match_problem *p, hl_match_model_t *m,
 		if (dive(&h, set, r == 0 ? 0 : 0x9e3779b97f4a7c15ull * r) != 0)
 			break;
 		h.effort = 1L << 30;
-		consider(minimal(&h, set, x2), x2, n, &best, x);
+		consider(minimal(&h, set, best, x2), x2, n, &best, x);
 	}
 out:
 	heur_free(&h);

@@ -12,6 +12,7 @@
 #define HL_MATCH_INT_H
 
 #include <stddef.h>
+#include <stdint.h>
 
 #include "match_milp.h"
 
@@ -55,27 +56,55 @@ struct hl_match_problem {
 
 #define HL_MATCH_HEAT(p, i, k) ((p)->heat[(i) * (p)->nint + (k)])
 
+/* Feasible balanced proper subsets of n parties (bit i = party i). */
+typedef struct {
+	size_t n, nk;
+	double tol;
+	uint32_t *set;
+	size_t nset;
+	int complete;            /* every subset was examined */
+} hl_match_balanced;
+
+/* v: net heats (hot > 0); prof: n * nk interval heats (hot > 0). */
+void hl_match_balanced_find(size_t n, const double *v, const double *prof,
+			    size_t nk, double tol, hl_match_balanced *b);
+void hl_match_balanced_clear(hl_match_balanced *b);
+/* Least sum of w[set] over the partitions into sets of b, whole being the
+ * weight of not splitting; a valid lower bound on the units when w[s] is
+ * one on the units of set s alone as one connected network. */
+double hl_match_partition_bound(const hl_match_balanced *b, const double *w,
+				double whole);
+double hl_match_set_size(uint32_t s);
+
 /* Per-subnetwork bounds and the columns of its part of a model. */
 typedef struct {
 	size_t sub, first, nk;   /* intervals first..first+nk-1 */
 	unsigned char *active;   /* per party: heat in this subnetwork */
 	size_t nactive;
 	double *total;           /* per party: its heat here, kW */
+	double *res;             /* nk + 1: heat of the active parties crossing
+				    each boundary (first..first+nk) */
 	double *U;               /* per pair: most it can exchange here */
 	double *ub;              /* per pair and interval: most in that interval */
 	double *rub;             /* per hot side index and interval: most heat
 				    it can pass below that interval */
-	size_t subset_bound;     /* N minus the most balanced parts */
+	hl_match_balanced bal;   /* over the active parties, in party order */
+	size_t *bit;             /* party of each bit of bal */
+	size_t subset_bound;     /* least units by the partitions (Euler) */
 	int *ycol, *qcol, *rcol; /* GLPK columns, 0 when absent */
 	size_t npairs;           /* pairs with a y column */
 } hl_match_sd;
 
 #define HL_MATCH_PAIR(p, a, b) ((a) * (p)->ncold + (b))
 
-/* light: skip the balanced-subset bound (only U is wanted). */
-hl_status hl_match_sd_init(const hl_match_problem *p, size_t s, int light,
+/* Subnetwork s, all its parties or those with mask[party] set (mask may be
+ * NULL). light: bounds U only, no balanced subsets. */
+hl_status hl_match_sd_init(const hl_match_problem *p, size_t s,
+			   const unsigned char *mask, int light,
 			   hl_match_sd *sd);
 void hl_match_sd_clear(hl_match_sd *sd);
+/* Column maps of sd (before hl_match_build). */
+int hl_match_alloc_cols(const hl_match_problem *p, hl_match_sd *sd);
 
 /* A model of some subnetworks solved together (one group). */
 typedef struct {
@@ -90,11 +119,13 @@ typedef struct {
 	size_t nsym_rows;
 } hl_match_model_t;
 
-/* Build the MILP of subnetworks subs[0..ns) into m->P (already created);
- * tag is a name prefix separating groups in one exported model. */
-hl_status hl_match_build(const hl_match_problem *p, const size_t *subs,
-			 size_t ns, int textbook, hl_match_model_t *m,
-			 hl_error *err);
+/* Build the MILP of the subnetworks whose data m->sd[0..m->ns) holds into
+ * m->P (already created; other groups' rows and columns stay). */
+hl_status hl_match_build(const hl_match_problem *p, int textbook,
+			 hl_match_model_t *m, hl_error *err);
+/* Fill m->sd for subnetworks subs[0..ns). */
+hl_status hl_match_model_init(const hl_match_problem *p, const size_t *subs,
+			      size_t ns, hl_match_model_t *m, hl_error *err);
 void hl_match_model_clear(hl_match_model_t *m);
 
 /* Max-flow test of a match set in one subnetwork (loads fixed). */
@@ -104,12 +135,6 @@ hl_match_flow *hl_match_flow_create(const hl_match_problem *p,
 /* 1 when the pairs with open[pi] != 0 can meet every demand. */
 int hl_match_flow_feasible(hl_match_flow *f, const unsigned char *open);
 void hl_match_flow_free(hl_match_flow *f);
-
-/* The most parts a set of n parties with net heats v (hot > 0) and interval
- * profiles prof (n * nk, hot > 0) splits into, each balanced and feasible
- * on its own; floor(n / 2) when the search is too large. */
-size_t hl_match_max_parts(size_t n, const double *v, const double *prof,
-			  size_t nk, double tol);
 
 /* Seconds on a monotonic clock. */
 double hl_match_now(void);

@@ -44,7 +44,7 @@ group_subs(const hl_match_problem *p, size_t *group, hl_error *err)
 		return hl_error_nomem(err);
 	for (s = 0; s < p->nsub; s++) {
 		group[s] = s;
-		if (hl_match_sd_init(p, s, 1, &sd[s]) != HL_OK)
+		if (hl_match_sd_init(p, s, NULL, 1, &sd[s]) != HL_OK)
 			st = hl_error_nomem(err);
 	}
 	for (pi = 0; pi < npair && st == HL_OK; pi++) {
@@ -103,6 +103,7 @@ typedef struct {
 typedef struct {
 	const runner *R;
 	const double *x;     /* heuristic incumbent, NULL when none */
+	int quiet;           /* no progress reports (a part's solve) */
 	int given;
 	double bound;
 	double t0, last;
@@ -141,7 +142,8 @@ on_tree(glp_tree *T, void *info)
 	b = glp_ios_best_node(T);
 	if (b != 0)
 		s->bound = fmax(s->bound, glp_ios_node_bound(T, b));
-	if (s->R->o->progress != NULL && hl_match_now() - s->last >= 0.5) {
+	if (s->R->o->progress != NULL && !s->quiet &&
+	    hl_match_now() - s->last >= 0.5) {
 		s->last = hl_match_now();
 		report(s, T);
 	}
@@ -276,24 +278,17 @@ branch_and_bound(const runner *R, hl_match_model_t *m, search *s,
 		"%s; run with --verbose to see GLPK's messages", s->label);
 }
 
-/* The heuristic may use up to a third of the group's time. */
-static double
-heur_deadline(const runner *R, double t0, double deadline)
-{
-	(void)R;
-	return t0 + (deadline - t0) / 3.0;
-}
-
+/* Root LP, heuristic (up to a third of the time), then branch and bound
+ * until the deadline. */
 static hl_status
 search_group(const runner *R, hl_match_model_t *m, const char *label,
-	     outcome *out, hl_error *err)
+	     double deadline, int quiet, outcome *out, hl_error *err)
 {
 	const hl_match_problem *p = R->p;
 	int integral = integral_costs(m), rc, have = 0;
-	double t0 = hl_match_now(), deadline, hobj = HUGE_VAL;
+	double t0 = hl_match_now(), hobj = HUGE_VAL;
 	search s;
 
-	deadline = t0 + R->o->time_limit * (double)m->ns;
 	rc = hl_match_simplex(m->P, R->msg_lev, 0.0);
 	if (rc != 0)
 		return hl_error_set(err, HL_ENOSOLUTION, NULL, 0, rc == 1 ?
@@ -302,8 +297,8 @@ search_group(const runner *R, hl_match_model_t *m, const char *label,
 			"--verbose to see GLPK's messages", label);
 	out->bound = lower_bound(glp_get_obj_val(m->P), integral);
 	out->obj = HUGE_VAL;
-	if (!m->textbook && hl_match_heuristic(p, m, heur_deadline(R, t0,
-			deadline), out->bound, out->x, &hobj) == 0 &&
+	if (!m->textbook && hl_match_heuristic(p, m, t0 + (deadline - t0) / 3.0,
+			out->bound, out->x, &hobj) == 0 &&
 	    point_ok(m->P, out->x)) {
 		have = 1;
 		out->obj = hobj;
@@ -311,6 +306,7 @@ search_group(const runner *R, hl_match_model_t *m, const char *label,
 	memset(&s, 0, sizeof s);
 	s.R = R;
 	s.x = have ? out->x : NULL;
+	s.quiet = quiet;
 	s.bound = out->bound;
 	s.t0 = s.last = t0;
 	s.label = label;
@@ -332,14 +328,108 @@ search_group(const runner *R, hl_match_model_t *m, const char *label,
 	return rc;
 }
 
+/* ---- parts of a subnetwork ---- */
+
+#define MAX_REFINE 64   /* balanced subsets worth a solve each */
+
+/* Proven lower bound on the units of the parties in mask, on their own
+ * (a small MILP); HUGE_VAL when they cannot be matched alone. */
+static double
+part_bound(const runner *R, size_t sub, const unsigned char *mask,
+	   double deadline)
+{
+	hl_match_model_t m;
+	outcome out;
+	hl_error err;
+	double lb = 0.0;
+
+	memset(&m, 0, sizeof m);
+	memset(&out, 0, sizeof out);
+	m.P = glp_create_prob();
+	m.sd = calloc(1, sizeof *m.sd);
+	if (m.sd != NULL && hl_match_sd_init(R->p, sub, mask, 0, &m.sd[0]) ==
+	    HL_OK) {
+		m.ns = 1;
+		if (hl_match_alloc_cols(R->p, &m.sd[0]) == 0 &&
+		    hl_match_build(R->p, 0, &m, &err) == HL_OK &&
+		    (out.x = calloc((size_t)glp_get_num_cols(m.P) + 1,
+				    sizeof *out.x)) != NULL) {
+			hl_status st = search_group(R, &m, "part", deadline, 1,
+						    &out, &err);
+
+			lb = st == HL_OK ? out.bound : st == HL_ENOSOLUTION &&
+				strstr(err.text, "no network meets") != NULL ?
+				HUGE_VAL : 0.0;
+		}
+	}
+	free(out.x);
+	hl_match_model_clear(&m);
+	glp_delete_prob(m.P);
+	return lb;
+}
+
+/* Each balanced subset, solved alone, may need more than |set| - 1 units;
+ * then every partition using it needs more too (match_bound.c). Skipped
+ * with area penalties, whose objective is no unit count. */
+static void
+refine_bound(const runner *R, hl_match_sd *sd, double deadline)
+{
+	const hl_match_problem *p = R->p;
+	const hl_match_balanced *b = &sd->bal;
+	unsigned char *mask = NULL;
+	double *w = NULL;
+	size_t i, j;
+
+	if (p->penalised || R->o->textbook || !b->complete || b->nset == 0 ||
+	    b->nset > MAX_REFINE)
+		return;
+	w = malloc(b->nset * sizeof *w);
+	mask = malloc(p->np + 1);
+	if (w == NULL || mask == NULL)
+		goto out;
+	for (i = 0; i < b->nset; i++) {
+		double size = hl_match_set_size(b->set[i]), left;
+
+		w[i] = size - 1.0;
+		left = (deadline - hl_match_now()) / (double)(b->nset - i);
+		if (left <= 0.0)
+			continue;
+		memset(mask, 0, p->np);
+		for (j = 0; j < b->n; j++)
+			if (b->set[i] & (1u << j))
+				mask[sd->bit[j]] = 1;
+		w[i] = fmax(w[i], part_bound(R, sd->sub, mask,
+					     hl_match_now() + left));
+	}
+	sd->subset_bound = (size_t)fmax((double)sd->subset_bound,
+		ceil(hl_match_partition_bound(b, w,
+					      (double)sd->nactive - 1.0) - 1e-9));
+out:
+	free(w);
+	free(mask);
+}
+
+/* Model data of a group, with the bounds refined. */
+static hl_status
+prepare_group(const runner *R, const size_t *subs, size_t ns,
+	      hl_match_model_t *m, double deadline, hl_error *err)
+{
+	size_t si;
+	hl_status st = hl_match_model_init(R->p, subs, ns, m, err);
+
+	for (si = 0; si < m->ns && st == HL_OK; si++)
+		refine_bound(R, &m->sd[si], deadline);
+	return st;
+}
+
 /* ---- results ---- */
 
-static void
+static hl_status
 record(const runner *R, const hl_match_model_t *m, const outcome *out,
-       size_t from)
+       size_t from, hl_error *err)
 {
 	hl_match_result *r = R->r;
-	size_t si, i, lower_units = 0;
+	size_t si, i, lower_units = 0, units = 0;
 
 	for (si = 0; si < m->ns; si++)
 		lower_units += m->sd[si].subset_bound;
@@ -369,11 +459,20 @@ record(const runner *R, const hl_match_model_t *m, const outcome *out,
 		b->seconds = out->seconds;
 		b->group = m->sd[0].sub;
 	}
+	for (si = 0; si < m->ns; si++)
+		units += r->sub[m->sd[si].sub].units;
+	/* A proven bound above the network found means a wrong bound. */
+	if (units < lower_units)
+		return hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
+			"internal check failed: %zu units found below the "
+			"proven bound %zu in subnetwork %s; please report this "
+			"case", units, lower_units, r->sub[m->sd[0].sub].label);
 	r->lower += lower_units;
 	r->bound += out->bound;
 	r->seconds += out->seconds;
 	if (!out->optimal)
 		r->optimal = 0;
+	return HL_OK;
 }
 
 static hl_status
@@ -384,21 +483,26 @@ solve_group(runner *R, const size_t *subs, size_t ns, hl_error *err)
 	hl_status st;
 	size_t from = R->r->nmatch;
 
+	double t0 = hl_match_now(), limit = R->o->time_limit * (double)ns;
+
 	memset(&m, 0, sizeof m);
 	memset(&out, 0, sizeof out);
 	m.P = glp_create_prob();
-	st = hl_match_build(R->p, subs, ns, R->o->textbook, &m, err);
+	st = prepare_group(R, subs, ns, &m, t0 + limit / 4.0, err);
+	if (st == HL_OK)
+		st = hl_match_build(R->p, R->o->textbook, &m, err);
 	if (st == HL_OK) {
 		out.x = calloc((size_t)glp_get_num_cols(m.P) + 1, sizeof *out.x);
 		if (out.x == NULL)
 			st = hl_error_nomem(err);
 	}
 	if (st == HL_OK)
-		st = search_group(R, &m, R->p->sub[subs[0]].label, &out, err);
+		st = search_group(R, &m, R->p->sub[subs[0]].label, t0 + limit, 0,
+				  &out, err);
 	if (st == HL_OK)
 		st = hl_match_loads(R->p, &m, out.x, R->msg_lev, R->r, err);
 	if (st == HL_OK)
-		record(R, &m, &out, from);
+		st = record(R, &m, &out, from, err);
 	free(out.x);
 	hl_match_model_clear(&m);
 	glp_delete_prob(m.P);
@@ -577,16 +681,21 @@ hl_match_solve(const hl_case *c, double dtmin, const double *util_load,
 }
 
 hl_status
-hl_match_model(const hl_match_problem *p, int textbook, glp_prob **out,
-	       hl_error *err)
+hl_match_model(const hl_match_problem *p, const hl_match_options *o,
+	       glp_prob **out, hl_error *err)
 {
 	size_t *group = malloc((p->nsub + 1) * sizeof *group);
 	size_t *subs = malloc((p->nsub + 1) * sizeof *subs);
 	size_t s, t, n;
 	hl_status st;
 	glp_prob *P = glp_create_prob();
+	runner R;
 
 	*out = NULL;
+	memset(&R, 0, sizeof R);
+	R.p = p;
+	R.o = o;
+	R.msg_lev = GLP_MSG_OFF;
 	glp_set_prob_name(P, "heatloom_matches");
 	st = group == NULL || subs == NULL ? hl_error_nomem(err) :
 		group_subs(p, group, err);
@@ -600,7 +709,10 @@ hl_match_model(const hl_match_problem *p, int textbook, glp_prob **out,
 				subs[n++] = t;
 		memset(&m, 0, sizeof m);
 		m.P = P;
-		st = hl_match_build(p, subs, n, textbook, &m, err);
+		st = prepare_group(&R, subs, n, &m, hl_match_now() +
+				   o->time_limit * (double)n / 4.0, err);
+		if (st == HL_OK)
+			st = hl_match_build(p, o->textbook, &m, err);
 		hl_match_model_clear(&m);
 	}
 	free(group);

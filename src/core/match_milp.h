@@ -156,11 +156,14 @@ hl_status hl_match_prepare(const hl_case *c, double dtmin,
 			   hl_match_problem **out, hl_error *err);
 void hl_match_problem_free(hl_match_problem *p);
 
-/* The whole MILP, every subnetwork in one model (rows and columns named by
- * subnetwork and party), for writing out with glp_write_lp/_mps. The caller
+/* The MILP that hl_match_run solves, every subnetwork in one model (rows
+ * and columns named by subnetwork and party), for writing out with
+ * glp_write_lp/_mps: o->textbook picks the plain form, and the balanced-
+ * subset bounds are refined within a quarter of o->time_limit. The caller
  * deletes it with glp_delete_prob. Call inside an hl_lp_guard. */
-hl_status hl_match_model(const hl_match_problem *p, int textbook,
-			 glp_prob **out, hl_error *err);
+hl_status hl_match_model(const hl_match_problem *p,
+			 const hl_match_options *o, glp_prob **out,
+			 hl_error *err);
 
 /* Solve every subnetwork and choose the loads. */
 hl_status hl_match_run(const hl_match_problem *p, const hl_match_options *o,

@@ -36,10 +36,11 @@ heat(const hl_match_problem *p, size_t i, size_t k)
 	return h > p->tol ? h : 0.0;
 }
 
+/* Heat of the subnetwork's parties crossing its boundary kk. */
 static double
-resid(const hl_match_problem *p, size_t k)
+resid(const hl_match_sd *sd, size_t kk)
 {
-	return fmax(0.0, p->resid[k]);
+	return fmax(0.0, sd->res[kk]);
 }
 
 void
@@ -47,6 +48,9 @@ hl_match_sd_clear(hl_match_sd *sd)
 {
 	free(sd->active);
 	free(sd->total);
+	free(sd->res);
+	free(sd->bit);
+	hl_match_balanced_clear(&sd->bal);
 	free(sd->U);
 	free(sd->ub);
 	free(sd->rub);
@@ -67,10 +71,10 @@ hot_reach(const hl_match_problem *p, const hl_match_sd *sd, size_t a,
 
 	for (kk = 0; kk < sd->nk; kk++) {
 		size_t k = sd->first + kk;
-		double carry = kk == 0 ? 0.0 : fmin(resid(p, k), prev);
+		double carry = kk == 0 ? 0.0 : fmin(resid(sd, kk), prev);
 
 		reach[kk] = heat(p, i, k) + carry;
-		rub[kk] = kk + 1 < sd->nk ? fmin(resid(p, k + 1), reach[kk]) :
+		rub[kk] = kk + 1 < sd->nk ? fmin(resid(sd, kk + 1), reach[kk]) :
 			0.0;
 		prev = reach[kk];
 	}
@@ -89,7 +93,7 @@ pair_capacity(const hl_match_problem *p, const hl_match_sd *sd, size_t a,
 		size_t k = sd->first + kk;
 		double use;
 
-		avail = (kk == 0 ? 0.0 : fmin(avail, resid(p, k))) +
+		avail = (kk == 0 ? 0.0 : fmin(avail, resid(sd, kk))) +
 			heat(p, p->hot[a], k);
 		use = fmin(avail, heat(p, p->cold[b], k));
 		u += use;
@@ -98,19 +102,19 @@ pair_capacity(const hl_match_problem *p, const hl_match_sd *sd, size_t a,
 	return u;
 }
 
+/* The balanced subsets of the active parties and the plain Euler bound
+ * over their partitions (each part |part| - 1 units). */
 static void
 subset_bound(const hl_match_problem *p, hl_match_sd *sd)
 {
 	size_t n = 0, i, kk;
-	double *v = malloc(p->np * sizeof *v);
-	double *prof = malloc(p->np * sd->nk * sizeof *prof), tot = 0.0;
+	double *v = malloc(p->np * sizeof *v), *w = NULL, tot = 0.0;
+	double *prof = malloc(p->np * sd->nk * sizeof *prof);
 
-	sd->subset_bound = sd->nactive > 0 ? sd->nactive - sd->nactive / 2 : 0;
-	if (v == NULL || prof == NULL) {
-		free(v);
-		free(prof);
-		return;
-	}
+	sd->bit = malloc((p->np + 1) * sizeof *sd->bit);
+	sd->subset_bound = sd->nactive - sd->nactive / 2;
+	if (v == NULL || prof == NULL || sd->bit == NULL)
+		goto out;
 	for (i = 0; i < p->np; i++) {
 		double sign = p->party[i].kind == HL_HOT ? 1.0 : -1.0;
 
@@ -120,17 +124,44 @@ subset_bound(const hl_match_problem *p, hl_match_sd *sd)
 		for (kk = 0; kk < sd->nk; kk++)
 			prof[n * sd->nk + kk] = sign * heat(p, i, sd->first + kk);
 		tot += sd->total[i];
-		n++;
+		sd->bit[n++] = i;
 	}
-	sd->subset_bound = n - hl_match_max_parts(n, v, prof, sd->nk,
-						  1e-6 * fmax(tot, 1e-12));
+	hl_match_balanced_find(n, v, prof, sd->nk, 1e-6 * fmax(tot, 1e-12),
+			       &sd->bal);
+	w = malloc((sd->bal.nset + 1) * sizeof *w);
+	if (w == NULL)
+		goto out;
+	for (i = 0; i < sd->bal.nset; i++)
+		w[i] = hl_match_set_size(sd->bal.set[i]) - 1.0;
+	sd->subset_bound = (size_t)ceil(hl_match_partition_bound(&sd->bal, w,
+		(double)n - 1.0) - 1e-9);
+out:
 	free(v);
+	free(w);
 	free(prof);
 }
 
+/* Residual cascade of the chosen parties across the subnetwork. */
+static void
+own_cascade(const hl_match_problem *p, hl_match_sd *sd)
+{
+	size_t kk, i;
+
+	sd->res[0] = 0.0;
+	for (kk = 0; kk < sd->nk; kk++) {
+		double r = sd->res[kk];
+
+		for (i = 0; i < p->np; i++)
+			if (sd->active[i])
+				r += (p->party[i].kind == HL_HOT ? 1.0 : -1.0) *
+					heat(p, i, sd->first + kk);
+		sd->res[kk + 1] = r;
+	}
+}
+
 hl_status
-hl_match_sd_init(const hl_match_problem *p, size_t s, int light,
-		 hl_match_sd *sd)
+hl_match_sd_init(const hl_match_problem *p, size_t s,
+		 const unsigned char *mask, int light, hl_match_sd *sd)
 {
 	size_t i, kk, a, b, nk, npair = p->nhot * p->ncold;
 	double *reach;
@@ -144,9 +175,10 @@ hl_match_sd_init(const hl_match_problem *p, size_t s, int light,
 	sd->U = calloc(npair + 1, sizeof *sd->U);
 	sd->ub = calloc(npair * nk + 1, sizeof *sd->ub);
 	sd->rub = calloc(p->nhot * nk + 1, sizeof *sd->rub);
+	sd->res = calloc(nk + 1, sizeof *sd->res);
 	reach = calloc(p->nhot * nk + 1, sizeof *reach);
 	if (!sd->active || !sd->total || !sd->U || !sd->ub || !sd->rub ||
-	    !reach) {
+	    !sd->res || !reach) {
 		free(reach);
 		hl_match_sd_clear(sd);
 		return HL_EIO;
@@ -154,9 +186,11 @@ hl_match_sd_init(const hl_match_problem *p, size_t s, int light,
 	for (i = 0; i < p->np; i++) {
 		for (kk = 0; kk < nk; kk++)
 			sd->total[i] += heat(p, i, sd->first + kk);
-		sd->active[i] = sd->total[i] > p->tol;
+		sd->active[i] = sd->total[i] > p->tol &&
+			(mask == NULL || mask[i]);
 		sd->nactive += sd->active[i];
 	}
+	own_cascade(p, sd);
 	for (a = 0; a < p->nhot; a++)
 		if (sd->active[p->hot[a]])
 			hot_reach(p, sd, a, reach + a * nk, sd->rub + a * nk);
@@ -384,7 +418,7 @@ add_cold_rows(builder *bd, const hl_match_sd *sd)
 	for (b = 0; b < p->ncold; b++) {
 		size_t j = p->cold[b];
 
-		for (kk = 0; kk < nk; kk++) {
+		for (kk = 0; kk < nk && sd->active[j]; kk++) {
 			double h = heat(p, j, sd->first + kk);
 			int r;
 
@@ -665,8 +699,8 @@ hl_match_model_clear(hl_match_model_t *m)
 	m->ns = m->nsym = 0;
 }
 
-static int
-alloc_cols(const hl_match_problem *p, hl_match_sd *sd)
+int
+hl_match_alloc_cols(const hl_match_problem *p, hl_match_sd *sd)
 {
 	size_t npair = p->nhot * p->ncold;
 
@@ -677,7 +711,7 @@ alloc_cols(const hl_match_problem *p, hl_match_sd *sd)
 }
 
 static int
-build_subs(builder *bd, const size_t *subs, size_t ns)
+build_subs(builder *bd)
 {
 	const hl_match_problem *p = bd->p;
 	hl_match_model_t *m = bd->m;
@@ -685,18 +719,11 @@ build_subs(builder *bd, const size_t *subs, size_t ns)
 	size_t si;
 	int rc = buf == NULL ? -1 : 0;
 
-	for (si = 0; si < ns && rc == 0; si++) {
-		if (hl_match_sd_init(p, subs[si], 0, &m->sd[si]) != HL_OK)
-			rc = -1;
-		m->ns = si + 1;
-		if (rc == 0)
-			rc = alloc_cols(p, &m->sd[si]);
-	}
-	for (si = 0; si < ns && rc == 0; si++) {
+	for (si = 0; si < m->ns && rc == 0; si++) {
 		add_pair_cols(bd, &m->sd[si]);
 		add_resid_cols(bd, &m->sd[si]);
 	}
-	for (si = 0; si < ns && rc == 0; si++) {
+	for (si = 0; si < m->ns && rc == 0; si++) {
 		add_hot_rows(bd, &m->sd[si]);
 		add_cold_rows(bd, &m->sd[si]);
 		add_logic_rows(bd, &m->sd[si]);
@@ -714,8 +741,26 @@ build_subs(builder *bd, const size_t *subs, size_t ns)
 }
 
 hl_status
-hl_match_build(const hl_match_problem *p, const size_t *subs, size_t ns,
-	       int textbook, hl_match_model_t *m, hl_error *err)
+hl_match_model_init(const hl_match_problem *p, const size_t *subs, size_t ns,
+		    hl_match_model_t *m, hl_error *err)
+{
+	size_t si;
+
+	m->sd = calloc(ns + 1, sizeof *m->sd);
+	if (m->sd == NULL)
+		return hl_error_nomem(err);
+	for (si = 0; si < ns; si++) {
+		m->ns = si + 1;
+		if (hl_match_sd_init(p, subs[si], NULL, 0, &m->sd[si]) != HL_OK ||
+		    hl_match_alloc_cols(p, &m->sd[si]) != 0)
+			return hl_error_nomem(err);
+	}
+	return HL_OK;
+}
+
+hl_status
+hl_match_build(const hl_match_problem *p, int textbook, hl_match_model_t *m,
+	       hl_error *err)
 {
 	builder bd;
 	size_t i;
@@ -726,18 +771,15 @@ hl_match_build(const hl_match_problem *p, const size_t *subs, size_t ns,
 	bd.m = m;
 	bd.textbook = textbook;
 	m->textbook = textbook;
-	m->sd = calloc(ns + 1, sizeof *m->sd);
 	bd.tok = malloc((p->np + 1) * sizeof *bd.tok);
-	if (m->sd == NULL || bd.tok == NULL) {
-		free(bd.tok);
+	if (bd.tok == NULL)
 		return hl_error_nomem(err);
-	}
 	for (i = 0; i < p->np; i++)
 		token(p, i, bd.tok[i], sizeof bd.tok[i]);
 	unique_tokens(p, bd.tok);
 	glp_set_obj_dir(m->P, GLP_MIN);
 	glp_set_obj_name(m->P, "units");
-	rc = build_subs(&bd, subs, ns);
+	rc = build_subs(&bd);
 	if (rc == 0)
 		rc = hl_match_mat_load(&bd.mat, m->P);
 	hl_match_mat_free(&bd.mat);
