@@ -165,3 +165,47 @@ hl_match_set_size(uint32_t s)
 		n += 1.0;
 	return n;
 }
+
+/* Rebuild the least partition found by pack(): a set s whose weight plus
+ * the best of the rest gives the best. */
+double
+hl_match_partition_best(const hl_match_balanced *b, const double *w,
+			uint32_t *parts, size_t *nparts)
+{
+	packer k;
+	uint32_t rem;
+	double best, left;
+	size_t i;
+
+	*nparts = 0;
+	if (!b->complete || b->nset == 0)
+		return HUGE_VAL;
+	memset(&k, 0, sizeof k);
+	k.b = b;
+	k.w = w;
+	k.whole = HUGE_VAL;
+	k.full = (uint32_t)((1u << b->n) - 1u);
+	best = left = pack(&k, k.full);
+	if (k.overflow || isinf(best))
+		return HUGE_VAL;
+	for (rem = k.full; rem != 0 && *nparts < 32;) {
+		uint32_t low = rem & (~rem + 1u), pick = 0;
+
+		for (i = 0; i < b->nset && pick == 0; i++) {
+			uint32_t s = b->set[i];
+			double rest;
+
+			if (!(s & low) || (s & ~rem) || isinf(w[i]))
+				continue;
+			rest = s == rem ? 0.0 : pack(&k, rem & ~s);
+			if (fabs(w[i] + rest - left) <= 1e-9 * (1.0 + left))
+				pick = s;
+		}
+		if (pick == 0)
+			return HUGE_VAL;
+		parts[(*nparts)++] = pick;
+		left -= weight_of(&k, pick);
+		rem &= ~pick;
+	}
+	return rem == 0 ? best : HUGE_VAL;
+}

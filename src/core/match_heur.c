@@ -689,6 +689,21 @@ heur_free(heur *h)
 		glp_delete_prob(h->G);
 }
 
+/* The network put together from balanced parts (match_milp.c), when
+ * every subnetwork of the group has one. */
+static int
+seeded(heur *h, unsigned char *set)
+{
+	size_t i;
+
+	for (i = 0; i < h->m->ns; i++)
+		if (h->m->sd[i].seed == NULL)
+			return 0;
+	for (i = 0; i < h->ny; i++)
+		set[i] = h->m->sd[h->y[i].si].seed[h->y[i].pi] || forced(h, i);
+	return 1;
+}
+
 /* Keep x2 as the incumbent when it is better. */
 static void
 consider(double c, const double *x2, int n, double *best, double *x)
@@ -719,9 +734,12 @@ hl_match_heuristic(const hl_match_problem *p, hl_match_model_t *m,
 	setup_flows(&h);
 	make_relaxation(&h);
 	h.effort = 1L << 30;
-	if (reweight(&h, set) == 0)
+	if (seeded(&h, set))
 		consider(minimal(&h, set, best, x2), x2, n, &best, x);
-	make_guide(&h);
+	if (best > lower + 1e-9 && reweight(&h, set) == 0)
+		consider(minimal(&h, set, best, x2), x2, n, &best, x);
+	if (best > lower + 1e-9)
+		make_guide(&h);
 	for (r = 0; best > lower + 1e-9 && r < MAX_DIVES; r++) {
 		if (r > 0 && hl_match_now() > deadline)
 			break;

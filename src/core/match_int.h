@@ -74,6 +74,10 @@ void hl_match_balanced_clear(hl_match_balanced *b);
  * one on the units of set s alone as one connected network. */
 double hl_match_partition_bound(const hl_match_balanced *b, const double *w,
 				double whole);
+/* The partition into two or more sets of b with the least sum of w; its
+ * sets into parts[] (up to 32), HUGE_VAL when there is none. */
+double hl_match_partition_best(const hl_match_balanced *b, const double *w,
+			       uint32_t *parts, size_t *nparts);
 double hl_match_set_size(uint32_t s);
 
 /* Per-subnetwork bounds and the columns of its part of a model. */
@@ -91,6 +95,8 @@ typedef struct {
 	hl_match_balanced bal;   /* over the active parties, in party order */
 	size_t *bit;             /* party of each bit of bal */
 	size_t subset_bound;     /* least units by the partitions (Euler) */
+	unsigned char *seed;     /* per pair: a feasible network from parts,
+				    NULL when none */
 	int *ycol, *qcol, *rcol; /* GLPK columns, 0 when absent */
 	size_t npairs;           /* pairs with a y column */
 } hl_match_sd;

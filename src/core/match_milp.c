@@ -332,17 +332,21 @@ search_group(const runner *R, hl_match_model_t *m, const char *label,
 
 #define MAX_REFINE 64   /* balanced subsets worth a solve each */
 
-/* Proven lower bound on the units of the parties in mask, on their own
- * (a small MILP); HUGE_VAL when they cannot be matched alone. */
+/* The parties in mask on their own (a small MILP): a proven lower bound on
+ * their units (HUGE_VAL when they cannot be matched alone), and the best
+ * network found, its units in *obj and its pairs in used[] (HUGE_VAL when
+ * none). */
 static double
-part_bound(const runner *R, size_t sub, const unsigned char *mask,
-	   double deadline)
+part_solve(const runner *R, size_t sub, const unsigned char *mask,
+	   double deadline, double *obj, unsigned char *used)
 {
 	hl_match_model_t m;
 	outcome out;
 	hl_error err;
 	double lb = 0.0;
+	size_t pi;
 
+	*obj = HUGE_VAL;
 	memset(&m, 0, sizeof m);
 	memset(&out, 0, sizeof out);
 	m.P = glp_create_prob();
@@ -360,6 +364,12 @@ part_bound(const runner *R, size_t sub, const unsigned char *mask,
 			lb = st == HL_OK ? out.bound : st == HL_ENOSOLUTION &&
 				strstr(err.text, "no network meets") != NULL ?
 				HUGE_VAL : 0.0;
+			if (st == HL_OK && !isinf(out.obj)) {
+				*obj = out.obj;
+				for (pi = 0; pi < R->p->nhot * R->p->ncold; pi++)
+					used[pi] = m.sd[0].ycol[pi] != 0 &&
+						out.x[m.sd[0].ycol[pi]] > 0.5;
+			}
 		}
 	}
 	free(out.x);
@@ -368,45 +378,87 @@ part_bound(const runner *R, size_t sub, const unsigned char *mask,
 	return lb;
 }
 
+typedef struct {
+	double *lo, *hi;        /* per set: lower bound, units found */
+	unsigned char *used;    /* per set: its pairs (npair each) */
+	unsigned char *mask;
+} parts;
+
+static void
+parts_free(parts *q)
+{
+	free(q->lo);
+	free(q->hi);
+	free(q->used);
+	free(q->mask);
+}
+
+/* The pairs of the best partition of found networks, as the heuristic's
+ * first candidate: a feasible network for the whole subnetwork. */
+static void
+seed_from_parts(const hl_match_problem *p, hl_match_sd *sd, const parts *q)
+{
+	uint32_t chosen[32];
+	size_t n = 0, i, pi, npair = p->nhot * p->ncold;
+
+	if (isinf(hl_match_partition_best(&sd->bal, q->hi, chosen, &n)))
+		return;
+	sd->seed = calloc(npair + 1, 1);
+	for (i = 0; sd->seed != NULL && i < sd->bal.nset; i++) {
+		size_t k;
+
+		for (k = 0; k < n && sd->bal.set[i] != chosen[k]; k++)
+			;
+		if (k == n)
+			continue;
+		for (pi = 0; pi < npair; pi++)
+			sd->seed[pi] |= q->used[i * npair + pi];
+	}
+}
+
 /* Each balanced subset, solved alone, may need more than |set| - 1 units;
- * then every partition using it needs more too (match_bound.c). Skipped
- * with area penalties, whose objective is no unit count. */
+ * then every partition using it needs more too (match_bound.c). The parts'
+ * own networks, put together along the best partition, seed the search.
+ * Skipped with area penalties, whose objective is no unit count. */
 static void
 refine_bound(const runner *R, hl_match_sd *sd, double deadline)
 {
 	const hl_match_problem *p = R->p;
 	const hl_match_balanced *b = &sd->bal;
-	unsigned char *mask = NULL;
-	double *w = NULL;
-	size_t i, j;
+	size_t i, j, npair = p->nhot * p->ncold;
+	parts q;
 
 	if (p->penalised || R->o->textbook || !b->complete || b->nset == 0 ||
 	    b->nset > MAX_REFINE)
 		return;
-	w = malloc(b->nset * sizeof *w);
-	mask = malloc(p->np + 1);
-	if (w == NULL || mask == NULL)
-		goto out;
+	q.lo = malloc(b->nset * sizeof *q.lo);
+	q.hi = malloc(b->nset * sizeof *q.hi);
+	q.used = calloc(b->nset * npair + 1, 1);
+	q.mask = malloc(p->np + 1);
+	if (q.lo == NULL || q.hi == NULL || q.used == NULL || q.mask == NULL) {
+		parts_free(&q);
+		return;
+	}
 	for (i = 0; i < b->nset; i++) {
 		double size = hl_match_set_size(b->set[i]), left;
 
-		w[i] = size - 1.0;
+		q.lo[i] = size - 1.0;
+		q.hi[i] = HUGE_VAL;
 		left = (deadline - hl_match_now()) / (double)(b->nset - i);
 		if (left <= 0.0)
 			continue;
-		memset(mask, 0, p->np);
+		memset(q.mask, 0, p->np);
 		for (j = 0; j < b->n; j++)
 			if (b->set[i] & (1u << j))
-				mask[sd->bit[j]] = 1;
-		w[i] = fmax(w[i], part_bound(R, sd->sub, mask,
-					     hl_match_now() + left));
+				q.mask[sd->bit[j]] = 1;
+		q.lo[i] = fmax(q.lo[i], part_solve(R, sd->sub, q.mask,
+			hl_match_now() + left, &q.hi[i], q.used + i * npair));
 	}
 	sd->subset_bound = (size_t)fmax((double)sd->subset_bound,
-		ceil(hl_match_partition_bound(b, w,
+		ceil(hl_match_partition_bound(b, q.lo,
 					      (double)sd->nactive - 1.0) - 1e-9));
-out:
-	free(w);
-	free(mask);
+	seed_from_parts(p, sd, &q);
+	parts_free(&q);
 }
 
 /* Model data of a group, with the bounds refined. */

@@ -50,6 +50,7 @@ hl_match_sd_clear(hl_match_sd *sd)
 	free(sd->total);
 	free(sd->res);
 	free(sd->bit);
+	free(sd->seed);
 	hl_match_balanced_clear(&sd->bal);
 	free(sd->U);
 	free(sd->ub);

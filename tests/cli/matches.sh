@@ -1,0 +1,119 @@
+#!/bin/sh
+# matches.sh - `heatloom matches` through the command line: the published
+# four-stream problem, the formats, the model file, solver control.
+. "$TOP_SRCDIR/tests/cli/lib.sh"
+
+K4="$DATA/good/kemp4.csv"
+HARD="$DATA/good/gen-10x10-seed8.csv"
+
+# Linnhoff et al. (1982) / Kemp (2007) ch. 2, ΔTmin 10 K: the fewest units
+# meeting the targets is 6, three on each side of the pinch (derived by hand
+# from the Euler rule, references.md).
+check_exit 0 hl matches "$K4" --dtmin 10
+check_grep "Units                  6 (proven optimal)" "$WORK/stdout"
+check_grep "above-pinch-1" "$WORK/stdout"
+check_grep "Screening estimates" "$WORK/stdout"
+check_grep "qualified" "$WORK/stdout"
+
+if [ -n "${XMLLINT:-}" ]; then
+	check_exit 0 hl matches "$K4" --format xml -o "$WORK/m.xml"
+	check_exit 0 "$XMLLINT" --noout --relaxng "$TOP_SRCDIR/doc/results.rng" "$WORK/m.xml"
+	check_near "$(xpath 'string(/results/matches/@units)' "$WORK/m.xml")" 6 0 "units"
+	check_near "$(xpath 'string(/results/matches/@lower-bound)' "$WORK/m.xml")" 6 0 "bound"
+	check_near "$(xpath 'count(/results/matches/match)' "$WORK/m.xml")" 6 0 "matches"
+	check_near "$(xpath 'string(/results/matches/subnetwork[@region="above-pinch-1"]/@units)' "$WORK/m.xml")" 3 0 "above"
+	check_near "$(xpath 'string(/results/matches/subnetwork[@region="below-pinch-1"]/@units)' "$WORK/m.xml")" 3 0 "below"
+	check_near "$(xpath 'string(/results/matches/@hot-utility)' "$WORK/m.xml")" 20 1e-9 "QH"
+	# The independent subset above the pinch is one 240 kW unit (same
+	# derivation).
+	check_near "$(xpath 'string(/results/matches/match[@hot="H1" and @cold="C2"]/@duty)' "$WORK/m.xml")" 240 1e-9 "H1-C2"
+	[ "$(xpath 'string(/results/matches/@optimal)' "$WORK/m.xml")" = true ] && pass || fail "not optimal"
+	# The demo plant too.
+	check_exit 0 hl matches "$CASES/demo-streams.csv" --format xml -o "$WORK/d.xml"
+	check_exit 0 "$XMLLINT" --noout --relaxng "$TOP_SRCDIR/doc/results.rng" "$WORK/d.xml"
+fi
+
+check_exit 0 hl matches "$K4" --format csv -o "$WORK/m.csv"
+check_grep "hot,cold,duty,region,hot_from,hot_to,cold_from,cold_to" "$WORK/m.csv"
+check_grep "H1,C2,240,above-pinch-1," "$WORK/m.csv"
+[ "$(wc -l <"$WORK/m.csv")" -eq 7 ] && pass || fail "csv: want 6 matches"
+
+# The model file: LP by default, MPS by name; another solver (glpsol, from
+# the file alone) finds the same 6 units.
+check_exit 0 hl matches "$K4" --export-model "$WORK/m.lp" -o "$WORK/r.txt"
+check_grep "Minimize" "$WORK/m.lp"
+check_exit 0 hl matches "$K4" --export-model "$WORK/m.mps" -o "$WORK/r.txt"
+check_grep "ROWS" "$WORK/m.mps"
+if command -v glpsol >/dev/null 2>&1; then
+	check_exit 0 glpsol --lp "$WORK/m.lp" -o "$WORK/sol.txt"
+	check_grep "INTEGER OPTIMAL" "$WORK/sol.txt"
+	check_grep "Objective:  units = 6 (MINimum)" "$WORK/sol.txt"
+	check_exit 0 glpsol --freemps "$WORK/m.mps" -o "$WORK/sol2.txt"
+	check_grep "INTEGER OPTIMAL" "$WORK/sol2.txt"
+fi
+check_exit 1 hl matches "$K4" --export-model -
+check_grep "needs a file name" "$WORK/stderr"
+check_exit 1 hl matches "$K4" --export-model "$WORK/same" -o "$WORK/same"
+check_exit 1 hl matches "$K4" --export-model "$K4"
+check_grep "refusing to overwrite an input file" "$WORK/stderr"
+
+# Solver control. A tiny time limit on a hard problem: the best network
+# found with its gap, or exit 3 with a sentence; never a hang.
+set +e
+hl matches "$HARD" --time-limit 0.01 --format xml -o "$WORK/h.xml" 2>"$WORK/herr"
+rc=$?
+set -e
+if [ "$rc" -eq 0 ]; then
+	pass
+	if [ -n "${XMLLINT:-}" ]; then
+		[ "$(xpath 'string(/results/matches/@optimal)' "$WORK/h.xml")" = false ] && pass ||
+			fail "tiny limit: claims optimal"
+		awk -v g="$(xpath 'string(/results/matches/@gap)' "$WORK/h.xml")" \
+			'BEGIN { exit !(g > 0) }' && pass || fail "tiny limit: no gap"
+	fi
+elif [ "$rc" -eq 3 ]; then
+	check_grep "time limit" "$WORK/herr"
+else
+	fail "tiny limit: exit $rc"
+fi
+check_exit 0 hl matches "$HARD" --time-limit 0.01
+check_grep "best found in the time limit" "$WORK/stdout"
+check_exit 0 hl matches "$K4" --time-limit 0
+check_grep "Units                  6" "$WORK/stdout"
+check_exit 1 hl matches "$K4" --time-limit -1
+check_exit 1 hl matches "$K4" --time-limit soon
+check_grep "--time-limit wants a number" "$WORK/stderr"
+
+# --verbose shows GLPK's own messages (its simplex iterations) on stderr;
+# without it stderr stays empty (not a terminal here, so no progress).
+check_exit 0 hl matches "$K4" --verbose
+check_grep "obj =" "$WORK/stderr"
+check_exit 0 hl matches "$K4" --quiet
+[ ! -s "$WORK/stderr" ] && pass || fail "--quiet wrote to stderr"
+check_exit 0 hl matches "$K4"
+[ ! -s "$WORK/stderr" ] && pass || fail "progress without a terminal"
+
+# Progress appears when stderr is a terminal (script(1) gives one), and
+# --quiet silences it.
+if command -v script >/dev/null 2>&1 && script -qc true /dev/null >/dev/null 2>&1; then
+	script -qc "\"$HEATLOOM\" matches \"$HARD\" --time-limit 0.7 -o \"$WORK/p.txt\"" \
+		"$WORK/typescript" >/dev/null 2>&1 || true
+	check_grep "heatloom: matches: " "$WORK/typescript"
+	script -qc "\"$HEATLOOM\" matches \"$HARD\" --time-limit 0.7 --quiet -o \"$WORK/p.txt\"" \
+		"$WORK/typescript2" >/dev/null 2>&1 || true
+	if grep -q "heatloom: matches: " "$WORK/typescript2"; then
+		fail "--quiet showed progress"
+	else
+		pass
+	fi
+fi
+
+# Help and usage.
+check_exit 0 hl help matches
+check_grep "Usage: heatloom matches CASE" "$WORK/stdout"
+check_grep "--export-model" "$WORK/stdout"
+check_grep "screening estimates" "$WORK/stdout"
+check_exit 1 hl matches
+check_exit 1 hl matches "$K4" --format svg
+check_exit 1 hl matches "$K4" --bogus
+finish
