@@ -98,34 +98,39 @@ typedef struct {
 	hl_match_result *r;
 	int msg_lev;
 	size_t done, total;
+	double *last;        /* time of the last progress report */
 } runner;
+
+/* Report progress at most twice a second, from any stage of a group. */
+static void
+tick(const runner *R, const char *label, double t0, double incumbent,
+     double bound)
+{
+	hl_match_progress pg;
+	double now = hl_match_now();
+
+	if (R->o->progress == NULL || R->last == NULL || now - *R->last < 0.5)
+		return;
+	*R->last = now;
+	pg.label = label;
+	pg.done = R->done;
+	pg.total = R->total;
+	pg.elapsed = now - t0;
+	pg.incumbent = incumbent;
+	pg.bound = bound;
+	R->o->progress(R->o->ctx, &pg);
+}
 
 typedef struct {
 	const runner *R;
 	const double *x;     /* heuristic incumbent, NULL when none */
+	double xobj;         /* its objective */
 	int quiet;           /* no progress reports (a part's solve) */
 	int given;
 	double bound;
-	double t0, last;
+	double t0;
 	const char *label;
 } search;
-
-static void
-report(search *s, glp_tree *T)
-{
-	hl_match_progress pg;
-	glp_prob *P = glp_ios_get_prob(T);
-	int st = glp_mip_status(P);
-
-	pg.label = s->label;
-	pg.done = s->R->done;
-	pg.total = s->R->total;
-	pg.elapsed = hl_match_now() - s->t0;
-	pg.incumbent = st == GLP_FEAS || st == GLP_OPT ? glp_mip_obj_val(P) :
-		HUGE_VAL;
-	pg.bound = s->bound;
-	s->R->o->progress(s->R->o->ctx, &pg);
-}
 
 static void
 on_tree(glp_tree *T, void *info)
@@ -142,10 +147,13 @@ on_tree(glp_tree *T, void *info)
 	b = glp_ios_best_node(T);
 	if (b != 0)
 		s->bound = fmax(s->bound, glp_ios_node_bound(T, b));
-	if (s->R->o->progress != NULL && !s->quiet &&
-	    hl_match_now() - s->last >= 0.5) {
-		s->last = hl_match_now();
-		report(s, T);
+	if (!s->quiet) {
+		glp_prob *P = glp_ios_get_prob(T);
+		int st = glp_mip_status(P);
+
+		tick(s->R, s->label, s->t0, st == GLP_FEAS || st == GLP_OPT ?
+		     glp_mip_obj_val(P) : s->x != NULL ? s->xobj : HUGE_VAL,
+		     s->bound);
 	}
 }
 
@@ -303,12 +311,15 @@ search_group(const runner *R, hl_match_model_t *m, const char *label,
 		have = 1;
 		out->obj = hobj;
 	}
+	if (!quiet)
+		tick(R, label, t0, hobj, out->bound);
 	memset(&s, 0, sizeof s);
 	s.R = R;
 	s.x = have ? out->x : NULL;
+	s.xobj = hobj;
 	s.quiet = quiet;
 	s.bound = out->bound;
-	s.t0 = s.last = t0;
+	s.t0 = t0;
 	s.label = label;
 	rc = HL_OK;
 	if (have && hobj <= out->bound + 1e-9)
@@ -426,6 +437,7 @@ refine_bound(const runner *R, hl_match_sd *sd, double deadline)
 	const hl_match_problem *p = R->p;
 	const hl_match_balanced *b = &sd->bal;
 	size_t i, j, npair = p->nhot * p->ncold;
+	double t0 = hl_match_now();
 	parts q;
 
 	if (p->penalised || R->o->textbook || !b->complete || b->nset == 0 ||
@@ -453,6 +465,8 @@ refine_bound(const runner *R, hl_match_sd *sd, double deadline)
 				q.mask[sd->bit[j]] = 1;
 		q.lo[i] = fmax(q.lo[i], part_solve(R, sd->sub, q.mask,
 			hl_match_now() + left, &q.hi[i], q.used + i * npair));
+		tick(R, p->sub[sd->sub].label, t0, HUGE_VAL,
+		     (double)sd->subset_bound);
 	}
 	sd->subset_bound = (size_t)fmax((double)sd->subset_bound,
 		ceil(hl_match_partition_bound(b, q.lo,
@@ -691,11 +705,14 @@ hl_match_run(const hl_match_problem *p, const hl_match_options *o,
 	runner R;
 	hl_lp_guard g;
 	hl_status st;
+	double last;
 
 	*out = NULL;
 	memset(&R, 0, sizeof R);
 	R.p = p;
 	R.o = o;
+	last = hl_match_now();
+	R.last = &last;
 	if (result_begin(p, &R.r) != HL_OK) {
 		hl_match_result_free(R.r);
 		return hl_error_nomem(err);

@@ -96,10 +96,10 @@ check_exit 0 hl matches "$K4"
 # Progress appears when stderr is a terminal (script(1) gives one), and
 # --quiet silences it.
 if command -v script >/dev/null 2>&1 && script -qc true /dev/null >/dev/null 2>&1; then
-	script -qc "\"$HEATLOOM\" matches \"$HARD\" --time-limit 0.7 -o \"$WORK/p.txt\"" \
+	script -qc "\"$HEATLOOM\" matches \"$HARD\" --time-limit 1.2 -o \"$WORK/p.txt\"" \
 		"$WORK/typescript" >/dev/null 2>&1 || true
 	check_grep "heatloom: matches: " "$WORK/typescript"
-	script -qc "\"$HEATLOOM\" matches \"$HARD\" --time-limit 0.7 --quiet -o \"$WORK/p.txt\"" \
+	script -qc "\"$HEATLOOM\" matches \"$HARD\" --time-limit 1.2 --quiet -o \"$WORK/p.txt\"" \
 		"$WORK/typescript2" >/dev/null 2>&1 || true
 	if grep -q "heatloom: matches: " "$WORK/typescript2"; then
 		fail "--quiet showed progress"
