@@ -9,12 +9,15 @@
 #include <string.h>
 #include <unistd.h>
 #include <cmocka.h>
+#include <libxml/parser.h>
+#include <libxml/relaxng.h>
 
 #include "gen.h"
 #include "match_brute.h"
 #include "match_check.h"
 #include "match_milp.h"
 #include "matches_out.h"
+#include "result_xml.h"
 
 /* Heat balances hold to this share of the largest party heat (LP
  * tolerances are 1e-7 relative). */
@@ -650,6 +653,64 @@ test_export_round_trip(void **state)
 	hl_case_free(c);
 }
 
+/* The XML writer's <matches> follows doc/results.rng, with rules, isolated
+ * streams, penalties and case utilities present (the command line cannot
+ * give rules without a case file). */
+static int
+valid_xml(const hl_case *c, const hl_match_result *r, const char *rng)
+{
+	hl_xml_out *x = hl_xml_out_begin("case.xml");
+	char *buf = NULL;
+	size_t len = 0;
+	FILE *fp = open_memstream(&buf, &len);
+	xmlRelaxNGParserCtxtPtr pc = xmlRelaxNGNewParserCtxt(rng);
+	xmlRelaxNGPtr schema = xmlRelaxNGParse(pc);
+	xmlRelaxNGValidCtxtPtr vc = xmlRelaxNGNewValidCtxt(schema);
+	xmlDocPtr doc;
+	int ok;
+
+	assert_int_equal(hl_matches_xml(hl_xml_out_writer(x), c, r, 10.0), 0);
+	assert_int_equal(hl_xml_out_finish(x, fp, NULL), HL_OK);
+	fclose(fp);
+	doc = xmlReadMemory(buf, (int)len, "m.xml", NULL, XML_PARSE_NONET);
+	ok = doc != NULL && xmlRelaxNGValidateDoc(vc, doc) == 0;
+	xmlFreeDoc(doc);
+	xmlRelaxNGFreeValidCtxt(vc);
+	xmlRelaxNGFree(schema);
+	xmlRelaxNGFreeParserCtxt(pc);
+	hl_xml_out_free(x);
+	free(buf);
+	return ok;
+}
+
+static void
+test_xml_schema(void **state)
+{
+	const char *top = getenv("TOP_SRCDIR");
+	char rng[1024];
+	hl_case *c;
+	hl_match_result *r;
+
+	(void)state;
+	if (top == NULL)
+		skip();
+	snprintf(rng, sizeof rng, "%s/doc/results.rng", top);
+	c = four_stream();
+	add_rule(c, HL_RULE_FORBID, "H1", "C1", NAN, 3);
+	add_rule(c, HL_RULE_FORBID, "H2", "C1", NAN, 4);
+	add_rule(c, HL_RULE_MAX_DUTY, "H1", "C2", 500.0, 5);
+	add_rule(c, HL_RULE_REQUIRE, "H2", "C2", NAN, 6);
+	r = solve(c, NULL, 10.0);
+	assert_true(valid_xml(c, r, rng));
+	hl_match_result_free(r);
+	hl_case_free(c);
+	c = four_stream_areas(HL_AREAS_PENALISE);
+	r = solve(c, NULL, 10.0);
+	assert_true(valid_xml(c, r, rng));
+	hl_match_result_free(r);
+	hl_case_free(c);
+}
+
 int
 main(void)
 {
@@ -669,6 +730,7 @@ main(void)
 		cmocka_unit_test(test_utility_levels),
 		cmocka_unit_test(test_tiny_time_limit),
 		cmocka_unit_test(test_export_round_trip),
+		cmocka_unit_test(test_xml_schema),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
