@@ -112,7 +112,7 @@ text_status(FILE *fp, const hl_match_result *r)
 }
 
 static void
-text_utilities(FILE *fp, const hl_match_result *r)
+text_utilities(FILE *fp, const hl_case *c, const hl_match_result *r)
 {
 	size_t i;
 
@@ -121,7 +121,10 @@ text_utilities(FILE *fp, const hl_match_result *r)
 	if (r->implicit_utilities)
 		fprintf(fp, "                       (one hot utility above every "
 			"stream and one cold utility below,\n"
-			"                        at the problem-table targets)\n");
+			"                        at the problem-table targets%s)\n",
+			c->nutil > 0 ? "; the case's utility\n"
+			"                        levels are not apportioned here" :
+			"");
 	for (i = 0; i < r->nparty && !r->implicit_utilities; i++) {
 		const hl_match_party *q = &r->party[i];
 
@@ -240,7 +243,7 @@ hl_matches_text(FILE *fp, const hl_case *c, const hl_match_result *r,
 	fprintf(fp, "Matches for %s (fewest units: transshipment MILP)\n\n",
 		c->source ? c->source : "");
 	fprintf(fp, "ΔTmin                  %.1f K\n", dtmin);
-	text_utilities(fp, r);
+	text_utilities(fp, c, r);
 	text_status(fp, r);
 	text_subs(fp, r);
 	text_matches(fp, r);
