@@ -107,7 +107,7 @@ drop_rows(glp_prob *P, const char *const *pre)
 static void
 make_relaxation(heur *h)
 {
-	static const char *const pre[] = { "sym_", "units_", "n_", NULL };
+	static const char *const pre[] = { "sym_", "units_", "n_", "w_", NULL };
 	size_t k;
 
 	h->Q = glp_create_prob();
@@ -122,8 +122,8 @@ make_relaxation(heur *h)
 static void
 make_guide(heur *h)
 {
-	static const char *const pre[] = { "sym_", "units_", "n_", "d_", "u_",
-					   "min_", "req_", NULL };
+	static const char *const pre[] = { "sym_", "units_", "n_", "w_", "d_",
+					   "u_", "min_", "req_", NULL };
 	size_t i, kk;
 
 	h->G = glp_create_prob();

@@ -512,6 +512,97 @@ cover_count(const hl_match_problem *p, const hl_match_sd *sd, size_t i,
 	return m;
 }
 
+/* Most heat hot a can give cold b using only intervals lo..hi of the
+ * subnetwork (its heat there, b's demand there): the greedy pass of
+ * pair_capacity on a window. */
+static double
+window_capacity(const hl_match_problem *p, const hl_match_sd *sd, size_t a,
+		size_t b, size_t lo, size_t hi)
+{
+	double avail = 0.0, u = 0.0;
+	size_t kk;
+
+	for (kk = lo; kk <= hi; kk++) {
+		size_t k = sd->first + kk;
+		double use;
+
+		avail = (kk == lo ? 0.0 : fmin(avail, resid(sd, kk))) +
+			heat(p, p->hot[a], k);
+		use = fmin(avail, heat(p, p->cold[b], k));
+		u += use;
+		avail -= use;
+	}
+	return fmin(u, sd->U[HL_MATCH_PAIR(p, a, b)]);
+}
+
+/* Fewest partners whose window capacities cover need; partners with none
+ * are left out of the row (flag 0 in in[]). */
+static size_t
+window_count(double *cap, size_t n, double need)
+{
+	size_t m;
+	double sum = 0.0;
+
+	qsort(cap, n, sizeof *cap, cmp_desc);
+	for (m = 0; m < n && sum < need; m++)
+		sum += cap[m];
+	return m;
+}
+
+/* For cold party b, the demand in its intervals from the top of the
+ * subnetwork down to kk can only come from hot parties with heat at or
+ * above; for hot a, its heat from kk to the bottom only goes to cold
+ * parties below. Each window gives sum y >= m over the partners that can
+ * serve it, m from their capacities on the window. A row is added when it
+ * differs from the previous window's. */
+static void
+add_window_rows(builder *bd, const hl_match_sd *sd, int side, size_t x,
+		double *cap, unsigned char *in, unsigned char *prev)
+{
+	const hl_match_problem *p = bd->p;
+	size_t no = side ? p->nhot : p->ncold, nk = sd->nk, kk, o, n, m;
+	size_t me = side ? p->cold[x] : p->hot[x], pm = 0;
+	int r;
+
+	memset(prev, 0, no);
+	for (kk = 0; kk < nk; kk++) {
+		size_t lo = side ? 0 : nk - 1 - kk, hi = side ? kk : nk - 1;
+		double need = 0.0;
+		size_t j;
+		int same = 1;
+
+		for (j = lo; j <= hi; j++)
+			need += heat(p, me, sd->first + j);
+		if (need <= 1e-9 * sd->total[me])
+			continue;
+		for (o = 0, n = 0; o < no; o++) {
+			size_t pi = side ? HL_MATCH_PAIR(p, o, x) :
+				HL_MATCH_PAIR(p, x, o);
+			double c = sd->ycol[pi] == 0 ? 0.0 : side ?
+				window_capacity(p, sd, o, x, lo, hi) :
+				window_capacity(p, sd, x, o, lo, hi);
+
+			in[o] = c > p->tol;
+			if (in[o])
+				cap[n++] = c;
+			same &= in[o] == prev[o];
+		}
+		m = window_count(cap, n, need * (1.0 - 1e-7));
+		if (m == 0 || (same && m == pm))
+			continue;
+		memcpy(prev, in, no);
+		pm = m;
+		r = hl_match_add_row(bd->m->P, GLP_LO, (double)m, 0.0);
+		name_row(bd->m->P, r, "w_s%zu_%s_%zu", sd->sub + 1, bd->tok[me],
+			 sd->first + (side ? hi : lo) + 1);
+		for (o = 0; o < no; o++)
+			if (in[o])
+				hl_match_mat_add(&bd->mat, r, sd->ycol[side ?
+					HL_MATCH_PAIR(p, o, x) :
+					HL_MATCH_PAIR(p, x, o)], 1.0);
+	}
+}
+
 static void
 add_count_rows(builder *bd, const hl_match_sd *sd, double *buf)
 {
@@ -534,6 +625,21 @@ add_count_rows(builder *bd, const hl_match_sd *sd, double *buf)
 			    p->cold[b] == i))
 				hl_match_mat_add(&bd->mat, r, sd->ycol[o], 1.0);
 		}
+	}
+	{
+		size_t no = p->nhot > p->ncold ? p->nhot : p->ncold, x;
+		double *cap = malloc((no + 1) * sizeof *cap);
+		unsigned char *in = malloc(no + 1), *prev = malloc(no + 1);
+
+		for (x = 0; cap && in && prev && x < p->ncold; x++)
+			if (sd->active[p->cold[x]])
+				add_window_rows(bd, sd, 1, x, cap, in, prev);
+		for (x = 0; cap && in && prev && x < p->nhot; x++)
+			if (sd->active[p->hot[x]])
+				add_window_rows(bd, sd, 0, x, cap, in, prev);
+		free(cap);
+		free(in);
+		free(prev);
 	}
 	if (sd->subset_bound < 2)
 		return;
