@@ -8,12 +8,13 @@
 #include <unistd.h>
 
 #include "cmd.h"
-#include "lp_guard.h"
+#include "glpk_guard.h"
 #include "match_milp.h"
 #include "matches_out.h"
 #include "model_out.h"
 #include "output.h"
 #include "result_xml.h"
+#include "utility_lp.h"
 
 static void
 help(FILE *fp)
@@ -25,10 +26,12 @@ help(FILE *fp)
 "few exchanger units as possible while meeting the utility targets (the\n"
 "expanded transshipment MILP of Papoulias & Grossmann, 1983, solved with\n"
 "GLPK). The problem is split at every pinch; a pair working on both sides\n"
-"of a pinch counts as two units. Match rules and plant areas of an XML case\n"
-"file are obeyed; when they raise the utility targets the report says by\n"
-"how much and because of which rule. CASE is an XML case file or a stream\n"
-"table (CSV).\n"
+"of a pinch counts as two units. With the case's utilities the network meets\n"
+"the least-cost loads of the utility LP (see targets); without, one hot\n"
+"utility above every stream and one cold utility below, at the targets.\n"
+"Match rules and plant areas of an XML case file are obeyed; when they raise\n"
+"the utility targets the report says by how much and because of which rule.\n"
+"CASE is an XML case file or a stream table (CSV).\n"
 "\n"
 "Options:\n"
 "  --dtmin K            minimum approach temperature (default: the case's, or 10)\n"
@@ -47,10 +50,7 @@ help(FILE *fp)
 "%s\n", hl_caution);
 }
 
-enum {
-	OPT_DTMIN = 256, OPT_UTIL, OPT_FORMAT, OPT_TIME, OPT_QUIET,
-	OPT_VERBOSE, OPT_EXPORT
-};
+enum { OPT_TIME = 256, OPT_EXPORT };
 
 typedef struct {
 	hl_common c;
@@ -59,54 +59,23 @@ typedef struct {
 } options;
 
 static int
-parse_option(int ch, options *o)
-{
-	switch (ch) {
-	case OPT_DTMIN:
-		return hl_cmd_parse_double("matches", "--dtmin", optarg, 0.0,
-					   500.0, &o->c.dtmin);
-	case OPT_UTIL:
-		o->c.utilities = optarg;
-		return 0;
-	case OPT_FORMAT:
-		return hl_cmd_parse_format("matches", optarg,
-			HL_FMT_BIT(HL_FMT_TEXT) | HL_FMT_BIT(HL_FMT_XML) |
-			HL_FMT_BIT(HL_FMT_CSV), &o->c.format);
-	case OPT_TIME:
-		return hl_cmd_parse_double("matches", "--time-limit", optarg,
-					   0.0, 1e6, &o->time_limit);
-	case OPT_QUIET:
-		o->c.quiet = 1;
-		return 0;
-	case OPT_VERBOSE:
-		o->c.verbose = 1;
-		return 0;
-	case OPT_EXPORT:
-		o->export_model = optarg;
-		return 0;
-	case 'o':
-		o->c.output = optarg;
-		return 0;
-	}
-	return -1;
-}
-
-static int
 parse(int argc, char **argv, options *o)
 {
 	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, OPT_DTMIN },
-		{ "utilities", required_argument, NULL, OPT_UTIL },
-		{ "format", required_argument, NULL, OPT_FORMAT },
+		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
+		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
+		{ "format", required_argument, NULL, HL_OPT_FORMAT },
 		{ "output", required_argument, NULL, 'o' },
 		{ "time-limit", required_argument, NULL, OPT_TIME },
-		{ "quiet", no_argument, NULL, OPT_QUIET },
-		{ "verbose", no_argument, NULL, OPT_VERBOSE },
+		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
+		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
 		{ "export-model", required_argument, NULL, OPT_EXPORT },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
-	int ch;
+	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
+				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
+	int ch, rc;
 
 	memset(o, 0, sizeof *o);
 	hl_common_init(&o->c);
@@ -114,25 +83,19 @@ parse(int argc, char **argv, options *o)
 	optind = 1;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (ch == 'h') {
-			help(stdout);
-			return -1;
+		if (hl_cmd_common_opt("matches", ch, argv, formats, help, &o->c,
+				      &rc)) {
+			if (rc != 0)
+				return rc;
+		} else if (ch == OPT_TIME) {
+			if (hl_cmd_parse_double("matches", "--time-limit", optarg,
+						0.0, 1e6, &o->time_limit) != 0)
+				return 1;
+		} else if (ch == OPT_EXPORT) {
+			o->export_model = optarg;
 		}
-		if (ch == ':')
-			return hl_cmd_usage("matches", "option '%s' needs a "
-					    "value", argv[optind - 1]);
-		if (ch == '?')
-			return hl_cmd_usage("matches", "unknown option '%s'",
-					    argv[optind - 1]);
-		if (parse_option(ch, o) != 0)
-			return 1;
 	}
-	if (optind != argc - 1)
-		return hl_cmd_usage("matches", optind >= argc ?
-				    "give one CASE file" :
-				    "give one CASE file, not several");
-	o->c.input = argv[optind];
-	return 0;
+	return hl_cmd_one_input("matches", argc, argv, &o->c);
 }
 
 /* ---- terminal feedback ---- */
@@ -140,13 +103,6 @@ parse(int argc, char **argv, options *o)
 typedef struct {
 	int shown;          /* a progress line is on the terminal */
 } feedback;
-
-static void
-on_log(void *ctx, const char *text)
-{
-	(void)ctx;
-	fputs(text, stderr);
-}
 
 static void
 on_progress(void *ctx, const hl_match_progress *p)
@@ -179,19 +135,20 @@ static hl_status
 export_model(const hl_match_problem *p, const options *o,
 	     const hl_match_options *mo, hl_error *err)
 {
-	hl_lp_guard g;
+	hl_glpk_guard g;
 	glp_prob *P = NULL;
 	hl_status st;
 
-	hl_lp_guard_begin(&g, o->c.verbose ? on_log : NULL, NULL);
-	if (setjmp(g.jb) != 0)
-		return hl_lp_guard_failed(&g, err);
+	hl_glpk_guard_begin(&g, o->c.verbose ? hl_cmd_log_stderr : NULL, NULL,
+			    o->c.verbose);
+	if (HL_GLPK_CRASHED(&g))
+		return hl_glpk_guard_crash(&g, "writing the model", err);
 	st = hl_match_model(p, mo, &P, err);
 	if (st == HL_OK)
 		st = hl_model_write(P, o->export_model, err);
 	if (P != NULL)
 		glp_delete_prob(P);
-	hl_lp_guard_end(&g);
+	hl_glpk_guard_end(&g);
 	return st;
 }
 
@@ -226,6 +183,28 @@ write_result(const options *o, const hl_case *c, const hl_match_result *r,
 	return st;
 }
 
+/* The utility LP's load of each case utility, or NULL without utilities. */
+static hl_status
+utility_loads(const hl_case *c, const options *o, double **out,
+	      hl_error *err)
+{
+	hl_utility_lp_opts uo = { o->c.verbose, hl_cmd_log_stderr, NULL, NAN };
+	hl_utility_lp *u = NULL;
+	hl_status st;
+	size_t i;
+
+	*out = NULL;
+	if (c->nutil == 0)
+		return HL_OK;
+	st = hl_utility_lp_solve(c, c->set.dtmin, &uo, &u, err);
+	if (st == HL_OK && (*out = malloc(c->nutil * sizeof **out)) == NULL)
+		st = hl_error_nomem(err);
+	for (i = 0; st == HL_OK && i < c->nutil; i++)
+		(*out)[i] = u->util[i].load;
+	hl_utility_lp_free(u);
+	return st;
+}
+
 static hl_status
 check_outputs(const options *o, hl_error *err)
 {
@@ -246,6 +225,7 @@ run_matches(const options *o, hl_error *err)
 	hl_match_result *r = NULL;
 	hl_match_options mo;
 	feedback fb = { 0 };
+	double *loads = NULL;
 	hl_status st;
 
 	st = hl_cmd_load_case(&o->c, &c, err);
@@ -258,14 +238,17 @@ run_matches(const options *o, hl_error *err)
 	hl_match_options_default(&mo, c);
 	if (!isnan(o->time_limit))
 		mo.time_limit = o->time_limit;
-	mo.log = o->c.verbose ? on_log : NULL;
+	mo.log = o->c.verbose ? hl_cmd_log_stderr : NULL;
 	if (!o->c.quiet && !o->c.verbose && isatty(STDERR_FILENO))
 		mo.progress = on_progress;
 	mo.ctx = &fb;
-	/* Loads per case utility come from the utility LP; without them the
-	   core matches against one implicit hot and one implicit cold
-	   utility at the problem-table targets. */
-	st = hl_match_prepare(c, c->set.dtmin, NULL, mo.log, mo.ctx, &p, err);
+	/* With utilities, the least-cost loads of the utility LP (their
+	   utility pinches split the network too); without, the core's
+	   implicit pair at the problem-table targets. */
+	st = utility_loads(c, o, &loads, err);
+	if (st == HL_OK)
+		st = hl_match_prepare(c, c->set.dtmin, loads, mo.log, mo.ctx, &p,
+				      err);
 	if (st == HL_OK && o->export_model != NULL)
 		st = export_model(p, o, &mo, err);
 	if (st == HL_OK)
@@ -275,6 +258,7 @@ run_matches(const options *o, hl_error *err)
 		st = write_result(o, c, r, err);
 	hl_match_result_free(r);
 	hl_match_problem_free(p);
+	free(loads);
 	hl_case_free(c);
 	return st;
 }

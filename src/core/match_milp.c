@@ -703,7 +703,7 @@ hl_match_run(const hl_match_problem *p, const hl_match_options *o,
 	     hl_match_result **out, hl_error *err)
 {
 	runner R;
-	hl_lp_guard g;
+	hl_glpk_guard g;
 	hl_status st;
 	double last;
 
@@ -717,12 +717,15 @@ hl_match_run(const hl_match_problem *p, const hl_match_options *o,
 		hl_match_result_free(R.r);
 		return hl_error_nomem(err);
 	}
-	hl_lp_guard_begin(&g, o->log, o->ctx);
-	if (setjmp(g.jb) != 0)
-		return hl_lp_guard_failed(&g, err);
-	R.msg_lev = hl_lp_guard_msg_lev(&g);
+	hl_glpk_guard_begin(&g, o->log, o->ctx, o->log != NULL);
+	if (HL_GLPK_CRASHED(&g)) {
+		/* R.r is set before the jump point and never changed after. */
+		hl_match_result_free(R.r);
+		return hl_glpk_guard_crash(&g, "the match MILP", err);
+	}
+	R.msg_lev = g.verbose ? GLP_MSG_ON : GLP_MSG_OFF;
 	st = solve_all(&R, err);
-	hl_lp_guard_end(&g);
+	hl_glpk_guard_end(&g);
 	if (st != HL_OK) {
 		hl_match_result_free(R.r);
 		return st;

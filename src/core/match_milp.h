@@ -38,7 +38,7 @@
 #include <glpk.h>
 
 #include "case.h"
-#include "lp_guard.h"
+#include "glpk_guard.h"
 #include "status.h"
 
 /* Who takes part: a process stream, a case utility, or an implicit one. */
@@ -86,7 +86,7 @@ typedef struct {
 	size_t euler;       /* N - 1, the Euler/Hohmann count */
 	size_t lower;       /* proven lower bound on its units */
 	size_t subset_bound; /* N minus the most balanced subsets it splits in */
-	double objective;   /* units, plus area penalties */
+	double objective;   /* units, cross-area ones at their penalty */
 	double bound;       /* proven lower bound on the objective */
 	int optimal;        /* 1: proven optimal, 0: best found */
 	double gap;         /* (objective - bound) / objective */
@@ -138,7 +138,7 @@ typedef struct {
 	double time_limit;      /* s per subnetwork, >= 0; 0: heuristic only */
 	int textbook;           /* the plain model: big-M = the smaller heat,
 				   no cuts, no heuristic (for comparison) */
-	hl_lp_log log;          /* GLPK's own output, NULL for none */
+	hl_glpk_log log;        /* GLPK's own output, NULL for none */
 	void (*progress)(void *ctx, const hl_match_progress *p);
 	void *ctx;              /* passed to log and progress */
 } hl_match_options;
@@ -152,7 +152,7 @@ typedef struct hl_match_problem hl_match_problem;
  * lift them to the restricted-match targets when the rules demand it, and
  * split the problem at its pinches. log may be NULL. */
 hl_status hl_match_prepare(const hl_case *c, double dtmin,
-			   const double *util_load, hl_lp_log log, void *ctx,
+			   const double *util_load, hl_glpk_log log, void *ctx,
 			   hl_match_problem **out, hl_error *err);
 void hl_match_problem_free(hl_match_problem *p);
 
@@ -160,7 +160,7 @@ void hl_match_problem_free(hl_match_problem *p);
  * and columns named by subnetwork and party), for writing out with
  * glp_write_lp/_mps: o->textbook picks the plain form, and the balanced-
  * subset bounds are refined within a quarter of o->time_limit. The caller
- * deletes it with glp_delete_prob. Call inside an hl_lp_guard. */
+ * deletes it with glp_delete_prob. Call inside an hl_glpk_guard. */
 hl_status hl_match_model(const hl_match_problem *p,
 			 const hl_match_options *o, glp_prob **out,
 			 hl_error *err);

@@ -373,10 +373,10 @@ check_rules(const hl_case *c, hl_error *err)
 		if (st != HL_OK)
 			return st;
 		if (r->kind == HL_RULE_MAX_DUTY &&
-		    !(isfinite(r->max_duty) && r->max_duty > 0.0))
+		    !(isfinite(r->max_duty) && r->max_duty >= 0.0))
 			return hl_error_set(err, HL_EINPUT, r->file, r->line,
-				"maximum duty of a match must be > 0 kW (to "
-				"forbid the pair, say so)");
+				"maximum duty of a match must be a number >= 0 "
+				"kW");
 	}
 	if (c->set.area_policy == HL_AREAS_PENALISE &&
 	    !(isfinite(c->set.area_penalty) && c->set.area_penalty >= 0.0))
@@ -561,10 +561,10 @@ hl_match_problem_free(hl_match_problem *p)
 }
 
 static hl_status
-prepare(hl_match_problem *p, const double *util_load, hl_lp_log log,
+prepare(hl_match_problem *p, const double *util_load, hl_glpk_log log,
 	void *ctx, hl_error *err)
 {
-	hl_lp_guard g;
+	hl_glpk_guard g;
 	hl_status st;
 	size_t i;
 
@@ -587,12 +587,13 @@ prepare(hl_match_problem *p, const double *util_load, hl_lp_log log,
 	}
 	p->qh = p->qh0;
 	p->qc = p->qc0;
-	hl_lp_guard_begin(&g, log, ctx);
-	if (setjmp(g.jb) != 0)
-		return hl_lp_guard_failed(&g, err);
-	p->msg_lev = hl_lp_guard_msg_lev(&g);
+	hl_glpk_guard_begin(&g, log, ctx, log != NULL);
+	if (HL_GLPK_CRASHED(&g))
+		return hl_glpk_guard_crash(&g, "the restricted-match targets",
+					   err);
+	p->msg_lev = g.verbose ? GLP_MSG_ON : GLP_MSG_OFF;
 	st = hl_match_restrict(p, err);
-	hl_lp_guard_end(&g);
+	hl_glpk_guard_end(&g);
 	if (st == HL_OK)
 		st = apply_loads(p, err);
 	if (st == HL_OK)
@@ -603,7 +604,7 @@ prepare(hl_match_problem *p, const double *util_load, hl_lp_log log,
 
 hl_status
 hl_match_prepare(const hl_case *c, double dtmin, const double *util_load,
-		 hl_lp_log log, void *ctx, hl_match_problem **out,
+		 hl_glpk_log log, void *ctx, hl_match_problem **out,
 		 hl_error *err)
 {
 	hl_match_problem *p;
@@ -619,7 +620,7 @@ hl_match_prepare(const hl_case *c, double dtmin, const double *util_load,
 	p->c = c;
 	p->dtmin = dtmin;
 	p->penalised = c->set.area_policy == HL_AREAS_PENALISE &&
-		c->set.area_penalty > 0.0;
+		c->set.area_penalty != 1.0;
 	st = prepare(p, util_load, log, ctx, err);
 	if (st != HL_OK) {
 		hl_match_problem_free(p);

@@ -4,7 +4,9 @@
  * demand of the cold party in the shifted intervals (heat only flows down).
  * Plant areas apply first, then the rules in file order: forbid, require (a
  * require rule overrides the area policy, never a forbid rule), max-duty
- * (the smallest one wins). Two utilities are never matched.
+ * (the smallest one wins). With penalised plant areas a unit joining two
+ * areas counts as area_penalty units (case.h). Two utilities are never
+ * matched.
  */
 #include <math.h>
 #include <string.h>
@@ -64,7 +66,7 @@ base_pair(const hl_match_problem *p, size_t a, size_t b, long skip,
 		q->allowed = 0;
 		q->forbid_rule = -2;
 	} else if (p->c->set.area_policy == HL_AREAS_PENALISE) {
-		q->cost += p->c->set.area_penalty;
+		q->cost = p->c->set.area_penalty; /* counts as that many units */
 	}
 }
 

@@ -105,8 +105,9 @@ text_status(FILE *fp, const hl_match_result *r)
 			"limit; proven lower bound %zu, gap %.1f %%)\n", r->units,
 			r->lower, 100.0 * r->gap);
 	if (r->penalised)
-		fprintf(fp, "Objective              %.4g (units plus cross-area "
-			"penalties), lower bound %.4g\n", r->objective, r->bound);
+		fprintf(fp, "Objective              %.4g (cross-area units "
+			"counted at their penalty), lower bound %.4g\n",
+			r->objective, r->bound);
 	fprintf(fp, "Euler bound (N - 1)    %zu, summed over the subnetworks\n",
 		r->euler);
 }

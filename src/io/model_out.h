@@ -11,7 +11,7 @@
 
 #include "status.h"
 
-/* Call inside an hl_lp_guard. */
+/* Call inside an hl_glpk_guard. */
 hl_status hl_model_write(glp_prob *P, const char *path, hl_error *err);
 
 #endif
