@@ -7,8 +7,10 @@
  * hold over the pair's units on both sides of a pinch.
  */
 #include <math.h>
+#include <pthread.h>
 #include <stdlib.h>
 #include <string.h>
+#include <unistd.h>
 
 #include "match_int.h"
 
@@ -17,6 +19,7 @@ hl_match_options_default(hl_match_options *o, const hl_case *c)
 {
 	memset(o, 0, sizeof *o);
 	o->time_limit = 10.0;
+	o->threads = 2;
 	if (c != NULL && isfinite(c->set.time_limit) && c->set.time_limit >= 0.0)
 		o->time_limit = c->set.time_limit;
 }
@@ -99,7 +102,23 @@ typedef struct {
 	int msg_lev;
 	size_t done, total;
 	double *last;        /* time of the last progress report */
+	pthread_mutex_t *lock; /* guards last, done and progress; NULL when
+				  one thread solves everything */
 } runner;
+
+static void
+lock(const runner *R)
+{
+	if (R->lock != NULL)
+		pthread_mutex_lock(R->lock);
+}
+
+static void
+unlock(const runner *R)
+{
+	if (R->lock != NULL)
+		pthread_mutex_unlock(R->lock);
+}
 
 /* Report progress at most twice a second, from any stage of a group. */
 static void
@@ -109,16 +128,20 @@ tick(const runner *R, const char *label, double t0, double incumbent,
 	hl_match_progress pg;
 	double now = hl_match_now();
 
-	if (R->o->progress == NULL || R->last == NULL || now - *R->last < 0.5)
+	if (R->o->progress == NULL || R->last == NULL)
 		return;
-	*R->last = now;
-	pg.label = label;
-	pg.done = R->done;
-	pg.total = R->total;
-	pg.elapsed = now - t0;
-	pg.incumbent = incumbent;
-	pg.bound = bound;
-	R->o->progress(R->o->ctx, &pg);
+	lock(R);
+	if (now - *R->last >= 0.5) {
+		*R->last = now;
+		pg.label = label;
+		pg.done = R->done;
+		pg.total = R->total;
+		pg.elapsed = now - t0;
+		pg.incumbent = incumbent;
+		pg.bound = bound;
+		R->o->progress(R->o->ctx, &pg);
+	}
+	unlock(R);
 }
 
 typedef struct {
@@ -490,9 +513,20 @@ prepare_group(const runner *R, const size_t *subs, size_t ns,
 
 /* ---- results ---- */
 
+/* One group of subnetworks to solve, with what it found. */
+typedef struct {
+	size_t *subs, ns;
+	hl_match_result part;   /* its matches (nint, match, nmatch only) */
+	size_t lower;           /* proven least units */
+	double bound, seconds;
+	int optimal;
+	hl_status st;
+	hl_error err;
+} job;
+
 static hl_status
 record(const runner *R, const hl_match_model_t *m, const outcome *out,
-       size_t from, hl_error *err)
+       job *J, hl_error *err)
 {
 	hl_match_result *r = R->r;
 	size_t si, i, lower_units = 0, units = 0;
@@ -502,6 +536,7 @@ record(const runner *R, const hl_match_model_t *m, const outcome *out,
 	if (!R->p->penalised)
 		lower_units = (size_t)fmax((double)lower_units, out->bound);
 	for (si = 0; si < m->ns; si++) {
+		/* Each job writes only its own subnetworks. */
 		hl_match_sub *b = &r->sub[m->sd[si].sub];
 		const hl_match_pair *pair = R->p->pair;
 
@@ -510,8 +545,8 @@ record(const runner *R, const hl_match_model_t *m, const outcome *out,
 		b->subset_bound = m->sd[si].subset_bound;
 		b->units = 0;
 		b->objective = 0.0;
-		for (i = from; i < r->nmatch; i++) {
-			const hl_match *mt = &r->match[i];
+		for (i = 0; i < J->part.nmatch; i++) {
+			const hl_match *mt = &J->part.match[i];
 
 			if (mt->sub != m->sd[si].sub)
 				continue;
@@ -524,37 +559,34 @@ record(const runner *R, const hl_match_model_t *m, const outcome *out,
 		b->bound = m->ns == 1 ? out->bound : 0.0;
 		b->seconds = out->seconds;
 		b->group = m->sd[0].sub;
+		units += b->units;
 	}
-	for (si = 0; si < m->ns; si++)
-		units += r->sub[m->sd[si].sub].units;
 	/* A proven bound above the network found means a wrong bound. */
 	if (units < lower_units)
 		return hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
 			"internal check failed: %zu units found below the "
 			"proven bound %zu in subnetwork %s; please report this "
 			"case", units, lower_units, r->sub[m->sd[0].sub].label);
-	r->lower += lower_units;
-	r->bound += out->bound;
-	r->seconds += out->seconds;
-	if (!out->optimal)
-		r->optimal = 0;
+	J->lower = lower_units;
+	J->bound = out->bound;
+	J->seconds = out->seconds;
+	J->optimal = out->optimal;
 	return HL_OK;
 }
 
 static hl_status
-solve_group(runner *R, const size_t *subs, size_t ns, hl_error *err)
+solve_group(const runner *R, job *J, hl_error *err)
 {
 	hl_match_model_t m;
 	outcome out;
 	hl_status st;
-	size_t from = R->r->nmatch;
-
-	double t0 = hl_match_now(), limit = R->o->time_limit * (double)ns;
+	double t0 = hl_match_now(), limit = R->o->time_limit * (double)J->ns;
 
 	memset(&m, 0, sizeof m);
 	memset(&out, 0, sizeof out);
+	J->part.nint = R->p->nint;
 	m.P = glp_create_prob();
-	st = prepare_group(R, subs, ns, &m, t0 + limit / 4.0, err);
+	st = prepare_group(R, J->subs, J->ns, &m, t0 + limit / 4.0, err);
 	if (st == HL_OK)
 		st = hl_match_build(R->p, R->o->textbook, &m, err);
 	if (st == HL_OK) {
@@ -563,47 +595,220 @@ solve_group(runner *R, const size_t *subs, size_t ns, hl_error *err)
 			st = hl_error_nomem(err);
 	}
 	if (st == HL_OK)
-		st = search_group(R, &m, R->p->sub[subs[0]].label, t0 + limit, 0,
-				  &out, err);
+		st = search_group(R, &m, R->p->sub[J->subs[0]].label, t0 + limit,
+				  0, &out, err);
 	if (st == HL_OK)
-		st = hl_match_loads(R->p, &m, out.x, R->msg_lev, R->r, err);
+		st = hl_match_loads(R->p, &m, out.x, R->msg_lev, &J->part, err);
 	if (st == HL_OK)
-		st = record(R, &m, &out, from, err);
+		st = record(R, &m, &out, J, err);
 	free(out.x);
 	hl_match_model_clear(&m);
 	glp_delete_prob(m.P);
 	return st;
 }
 
-static hl_status
-solve_all(runner *R, hl_error *err)
-{
-	const hl_match_problem *p = R->p;
-	size_t *group = malloc((p->nsub + 1) * sizeof *group);
-	size_t *subs = malloc((p->nsub + 1) * sizeof *subs);
-	size_t s, t, n;
-	hl_status st = HL_OK;
+/* ---- the groups, on one or two threads ---- */
 
-	if (group == NULL || subs == NULL) {
+typedef struct {
+	runner *R;
+	job *jobs;
+	size_t njobs;
+	size_t next;            /* the next job to take (under lock) */
+	size_t cur;             /* the helper's job, for a crash */
+	pthread_mutex_t mutex;
+	pthread_t helper;
+	int helper_running;
+} pool;
+
+static int
+take(pool *pl, size_t *i)
+{
+	lock(pl->R);
+	*i = pl->next++;
+	unlock(pl->R);
+	return *i < pl->njobs;
+}
+
+static void
+run_jobs(pool *pl, int helper)
+{
+	size_t i;
+
+	while (take(pl, &i)) {
+		if (helper)
+			pl->cur = i;
+		hl_error_clear(&pl->jobs[i].err);
+		pl->jobs[i].st = solve_group(pl->R, &pl->jobs[i],
+					     &pl->jobs[i].err);
+		lock(pl->R);
+		pl->R->done++;
+		unlock(pl->R);
+	}
+}
+
+/* The second thread: its own GLPK environment and guard (GLPK keeps its
+ * environment per thread). */
+static void *
+helper_main(void *arg)
+{
+	pool *pl = arg;
+	const hl_match_options *o = pl->R->o;
+	hl_glpk_guard g;
+
+	pl->cur = pl->njobs;
+	hl_glpk_guard_begin(&g, o->log, o->ctx, o->log != NULL);
+	if (HL_GLPK_CRASHED(&g)) {
+		job *J = &pl->jobs[pl->cur < pl->njobs ? pl->cur : 0];
+
+		J->st = hl_glpk_guard_crash(&g, "the match MILP", &J->err);
+		return NULL;
+	}
+	run_jobs(pl, 1);
+	hl_glpk_guard_end(&g);
+	glp_free_env();
+	return NULL;
+}
+
+/* Threads to use: the options' count, at most one per group and per
+ * processor online. */
+static int
+threads(const runner *R, size_t njobs)
+{
+	long cpus = sysconf(_SC_NPROCESSORS_ONLN);
+	int n = R->o->threads < 1 ? 1 : R->o->threads;
+
+	if (cpus > 0 && n > cpus)
+		n = (int)cpus;
+	if ((size_t)n > njobs)
+		n = (int)njobs;
+	return n > 2 ? 2 : n;
+}
+
+/* Wait for the helper (also after a GLPK crash of this thread). */
+static void
+join_helper(pool *pl)
+{
+	if (!pl->helper_running)
+		return;
+	pthread_join(pl->helper, NULL);
+	pl->helper_running = 0;
+	pl->R->lock = NULL;
+	pthread_mutex_destroy(&pl->mutex);
+}
+
+static void
+run_pool(pool *pl)
+{
+	if (threads(pl->R, pl->njobs) == 2 &&
+	    pthread_mutex_init(&pl->mutex, NULL) == 0) {
+		pl->R->lock = &pl->mutex;
+		if (pthread_create(&pl->helper, NULL, helper_main, pl) == 0) {
+			pl->helper_running = 1;
+		} else {
+			pl->R->lock = NULL;
+			pthread_mutex_destroy(&pl->mutex);
+		}
+	}
+	run_jobs(pl, 0);
+	join_helper(pl);
+}
+
+/* The jobs' matches into the result, in subnetwork order. */
+static hl_status
+merge(runner *R, pool *pl, hl_error *err)
+{
+	hl_match_result *r = R->r;
+	size_t i, n = 0;
+
+	for (i = 0; i < pl->njobs; i++) {
+		if (pl->jobs[i].st != HL_OK) {
+			if (err != NULL)
+				*err = pl->jobs[i].err;
+			return pl->jobs[i].st;
+		}
+		n += pl->jobs[i].part.nmatch;
+	}
+	r->match = calloc(n + 1, sizeof *r->match);
+	if (r->match == NULL)
+		return hl_error_nomem(err);
+	for (i = 0; i < pl->njobs; i++) {
+		job *J = &pl->jobs[i];
+
+		memcpy(r->match + r->nmatch, J->part.match,
+		       J->part.nmatch * sizeof *r->match);
+		r->nmatch += J->part.nmatch;
+		free(J->part.match);
+		J->part.match = NULL;
+		J->part.nmatch = 0;
+		r->lower += J->lower;
+		r->bound += J->bound;
+		r->seconds += J->seconds;
+		if (!J->optimal)
+			r->optimal = 0;
+	}
+	return HL_OK;
+}
+
+static void
+jobs_free(pool *pl)
+{
+	size_t i, k;
+
+	for (i = 0; i < pl->njobs; i++) {
+		job *J = &pl->jobs[i];
+
+		for (k = 0; k < J->part.nmatch; k++) {
+			free(J->part.match[k].give);
+			free(J->part.match[k].take);
+		}
+		free(J->part.match);
+		free(J->subs);
+	}
+	free(pl->jobs);
+}
+
+static hl_status
+make_jobs(const hl_match_problem *p, pool *pl, hl_error *err)
+{
+	size_t *group = malloc((p->nsub + 1) * sizeof *group);
+	size_t s, t;
+	hl_status st;
+
+	pl->jobs = calloc(p->nsub + 1, sizeof *pl->jobs);
+	if (group == NULL || pl->jobs == NULL) {
 		free(group);
-		free(subs);
 		return hl_error_nomem(err);
 	}
 	st = group_subs(p, group, err);
-	for (s = 0; s < p->nsub && st == HL_OK; s++)
-		R->total += group[s] == s;
 	for (s = 0; s < p->nsub && st == HL_OK; s++) {
+		job *J;
+
 		if (group[s] != s)
 			continue;
-		for (t = s, n = 0; t < p->nsub; t++)
+		J = &pl->jobs[pl->njobs++];
+		J->subs = malloc((p->nsub + 1) * sizeof *J->subs);
+		if (J->subs == NULL) {
+			st = hl_error_nomem(err);
+			break;
+		}
+		for (t = s; t < p->nsub; t++)
 			if (group[t] == s)
-				subs[n++] = t;
-		st = solve_group(R, subs, n, err);
-		R->done++;
+				J->subs[J->ns++] = t;
 	}
 	free(group);
-	free(subs);
 	return st;
+}
+
+static hl_status
+solve_all(runner *R, pool *pl, hl_error *err)
+{
+	hl_status st = make_jobs(R->p, pl, err);
+
+	if (st != HL_OK)
+		return st;
+	R->total = pl->njobs;
+	run_pool(pl);
+	return merge(R, pl, err);
 }
 
 static hl_status
@@ -698,41 +903,59 @@ hl_match_result_free(hl_match_result *r)
 	free(r);
 }
 
+static void
+runner_free(runner *R, pool *pl)
+{
+	if (pl != NULL) {
+		jobs_free(pl);
+		free(pl);
+	}
+	if (R != NULL) {
+		free(R->last);
+		free(R);
+	}
+}
+
 hl_status
 hl_match_run(const hl_match_problem *p, const hl_match_options *o,
 	     hl_match_result **out, hl_error *err)
 {
-	runner R;
+	/* On the heap: both are changed after the jump point below. */
+	runner *R = calloc(1, sizeof *R);
+	pool *pl = calloc(1, sizeof *pl);
 	hl_glpk_guard g;
 	hl_status st;
-	double last;
 
 	*out = NULL;
-	memset(&R, 0, sizeof R);
-	R.p = p;
-	R.o = o;
-	last = hl_match_now();
-	R.last = &last;
-	if (result_begin(p, &R.r) != HL_OK) {
-		hl_match_result_free(R.r);
+	if (R == NULL || pl == NULL || (R->last = malloc(sizeof *R->last)) ==
+	    NULL || result_begin(p, &R->r) != HL_OK) {
+		if (R != NULL)
+			hl_match_result_free(R->r);
+		runner_free(R, pl);
 		return hl_error_nomem(err);
 	}
+	R->p = p;
+	R->o = o;
+	*R->last = hl_match_now();
+	pl->R = R;
 	hl_glpk_guard_begin(&g, o->log, o->ctx, o->log != NULL);
 	if (HL_GLPK_CRASHED(&g)) {
-		/* R.r is set before the jump point and never changed after. */
-		hl_match_result_free(R.r);
+		join_helper(pl);
+		hl_match_result_free(R->r);
+		runner_free(R, pl);
 		return hl_glpk_guard_crash(&g, "the match MILP", err);
 	}
-	R.msg_lev = g.verbose ? GLP_MSG_ON : GLP_MSG_OFF;
-	st = solve_all(&R, err);
+	R->msg_lev = g.verbose ? GLP_MSG_ON : GLP_MSG_OFF;
+	st = solve_all(R, pl, err);
 	hl_glpk_guard_end(&g);
 	if (st != HL_OK) {
-		hl_match_result_free(R.r);
-		return st;
+		hl_match_result_free(R->r);
+	} else {
+		result_finish(R->r);
+		*out = R->r;
 	}
-	result_finish(R.r);
-	*out = R.r;
-	return HL_OK;
+	runner_free(R, pl);
+	return st;
 }
 
 hl_status

@@ -138,6 +138,9 @@ typedef struct {
 	double time_limit;      /* s per subnetwork, >= 0; 0: heuristic only */
 	int textbook;           /* the plain model: big-M = the smaller heat,
 				   no cuts, no heuristic (for comparison) */
+	int threads;            /* subnetworks solved at once: 1 or 2 (default
+				   2, never more than the processors online);
+				   each thread has its own GLPK environment */
 	hl_glpk_log log;        /* GLPK's own output, NULL for none */
 	void (*progress)(void *ctx, const hl_match_progress *p);
 	void *ctx;              /* passed to log and progress */

@@ -245,6 +245,39 @@ test_textbook_agrees(void **state)
 	}
 }
 
+/* Subnetworks solved on two threads (each with its own GLPK environment)
+ * give what one thread gives. */
+static void
+test_threads_agree(void **state)
+{
+	int seed;
+
+	(void)state;
+	for (seed = 1; seed <= 4; seed++) {
+		hl_rng rng;
+		hl_case *c;
+		hl_match_options o;
+		hl_match_result *two, *one;
+		hl_error err;
+		size_t s;
+
+		hl_rng_seed(&rng, (uint64_t)(500 + seed));
+		c = hl_gen_case(&rng, 4, 4);
+		two = solve(c, NULL, 10.0);
+		hl_match_options_default(&o, c);
+		o.threads = 1;
+		assert_int_equal(hl_match_solve(c, 10.0, NULL, &o, &one, &err),
+				 HL_OK);
+		assert_int_equal(one->nsub, two->nsub);
+		for (s = 0; s < one->nsub; s++)
+			assert_int_equal(one->sub[s].units, two->sub[s].units);
+		assert_int_equal(one->optimal, two->optimal);
+		hl_match_result_free(one);
+		hl_match_result_free(two);
+		hl_case_free(c);
+	}
+}
+
 /* Two identical hot streams (parallel trains): the symmetry rows keep the
  * exhaustive search's count. */
 static void
@@ -698,6 +731,7 @@ main(void)
 		cmocka_unit_test(test_segmented_stream),
 		cmocka_unit_test(test_brute_force),
 		cmocka_unit_test(test_textbook_agrees),
+		cmocka_unit_test(test_threads_agree),
 		cmocka_unit_test(test_identical_streams),
 		cmocka_unit_test(test_forbid_unique_optimum),
 		cmocka_unit_test(test_forbid_all_of_cold),
