@@ -13,7 +13,10 @@
 #include "netcheck.h"
 #include "netfix.h"
 #include "network.h"
+#include "network_out.h"
+#include "network_xml.h"
 #include "profile.h"
+#include "result_xml.h"
 
 /* Temperatures and heats are compared to this (K or kW): the placement
  * computes them in double precision from exact data. */
@@ -462,6 +465,122 @@ test_bad_input(void **state)
 	free(f);
 }
 
+/* The XML as design writes it. */
+static char *
+to_xml(const hl_network *net, size_t *len)
+{
+	hl_xml_out *x = hl_xml_out_begin("test");
+	FILE *fp = tmpfile();
+	char *buf;
+	long n;
+
+	assert_non_null(x);
+	assert_non_null(fp);
+	assert_int_equal(hl_network_xml(hl_xml_out_writer(x), net), 0);
+	assert_int_equal(hl_xml_out_finish(x, fp, NULL), HL_OK);
+	hl_xml_out_free(x);
+	n = ftell(fp);
+	rewind(fp);
+	buf = calloc((size_t)n + 1, 1);
+	assert_non_null(buf);
+	assert_int_equal(fread(buf, 1, (size_t)n, fp), (size_t)n);
+	fclose(fp);
+	*len = (size_t)n;
+	return buf;
+}
+
+static hl_netcheck *
+check_text(const char *xml, size_t len)
+{
+	hl_network *net = NULL;
+	hl_netcheck *r = NULL;
+	hl_error err;
+
+	if (hl_network_xml_read_mem("mem.xml", xml, len, &net, &err) !=
+	    HL_OK) {
+		print_error("read: %s:%ld: %s\n", err.file, err.line, err.text);
+		fail();
+	}
+	assert_int_equal(hl_netcheck_run(net, &r, NULL), HL_OK);
+	hl_network_free(net);
+	return r;
+}
+
+/* Replace the first `from` after `anchor` by `to` (same length or not). */
+static char *
+edit(const char *xml, const char *anchor, const char *from, const char *to)
+{
+	const char *a = strstr(xml, anchor), *p;
+	char *out;
+	size_t n;
+
+	assert_non_null(a);
+	p = strstr(a, from);
+	assert_non_null(p);
+	n = strlen(xml) - strlen(from) + strlen(to) + 1;
+	out = malloc(n);
+	assert_non_null(out);
+	snprintf(out, n, "%.*s%s%s", (int)(p - xml), xml, to, p + strlen(from));
+	return out;
+}
+
+/* Written and read back, the network is sound as it stands; the check of
+ * the file names the exchanger (with its line) of a changed duty, a
+ * changed temperature and a broken approach. */
+static void
+test_xml_roundtrip(void **state)
+{
+	netfix *f = kemp4(1);
+	hl_network *net = place(f);
+	const hl_network_unit *u = unit_of(net, "H1", "C2", 240);
+	char anchor[64], *xml, *bad;
+	hl_netcheck *r;
+	size_t len, i;
+
+	(void)state;
+	xml = to_xml(net, &len);
+	r = check_text(xml, len);
+	for (i = 0; i < r->n; i++)
+		print_error("finding: %s: %s\n", r->f[i].what, r->f[i].text);
+	assert_int_equal(r->n, 0);
+	hl_netcheck_free(r);
+
+	snprintf(anchor, sizeof anchor, "id=\"%s\"", u->id);
+	bad = edit(xml, anchor, "duty=\"240\"", "duty=\"250\"");
+	r = check_text(bad, strlen(bad));
+	assert_true(r->n > 0);
+	assert_string_equal(r->f[0].what, u->id);
+	assert_true(r->f[0].line > 0);
+	hl_netcheck_free(r);
+	free(bad);
+
+	bad = edit(xml, anchor, "cold-out=\"140\"", "cold-out=\"141\"");
+	r = check_text(bad, strlen(bad));
+	assert_true(r->n > 0);
+	assert_string_equal(r->f[0].what, u->id);
+	hl_netcheck_free(r);
+	free(bad);
+
+	bad = edit(xml, "<network", "emat=\"10\"", "emat=\"12\"");
+	{
+		char *b2 = edit(bad, "<network", "dtmin=\"10\"",
+		    "dtmin=\"12\"");
+
+		r = check_text(b2, strlen(b2));
+		free(b2);
+	}
+	for (i = 0; i < r->n; i++)
+		if (strcmp(r->f[i].what, u->id) == 0 &&
+		    strstr(r->f[i].text, "EMAT") != NULL)
+			break;
+	assert_true(i < r->n);
+	hl_netcheck_free(r);
+	free(bad);
+	free(xml);
+	hl_network_free(net);
+	free(f);
+}
+
 int
 main(void)
 {
@@ -475,6 +594,7 @@ main(void)
 		cmocka_unit_test(test_generated),
 		cmocka_unit_test(test_check_tamper),
 		cmocka_unit_test(test_bad_input),
+		cmocka_unit_test(test_xml_roundtrip),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
