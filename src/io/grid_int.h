@@ -32,6 +32,10 @@ int hl_grid_layout_make(const hl_network *net, const hl_grid_opts *o,
 			hl_grid_layout *L);
 void hl_grid_layout_free(hl_grid_layout *L);
 
+/* Where a long stream name breaks into two lines (the index of the space),
+ * or its length when it fits on one. */
+size_t hl_grid_name_break(const char *name);
+
 /* Width of a text in units at font size fs: a fair sans-serif average. */
 double hl_grid_text_width(const char *s, double fs);
 

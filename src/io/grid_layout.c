@@ -10,17 +10,23 @@
  * joins the column before it when its mark fits beside what is there.
  */
 #include <math.h>
+#include <stdint.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
 #include "grid_int.h"
 
-#define ROW 40.0      /* between stream lines */
+#define ROW 38.0      /* between stream lines */
 #define BRANCH 22.0   /* between the branches of a split */
 #define GAP 30.0      /* between the hot and the cold block */
 #define TOP 96.0      /* first stream line */
-#define COL_MIN 30.0  /* the narrowest column that stays legible */
-#define END_ROOM 56.0 /* from a line's end to the nearest column */
+#define COL_EASY 30.0 /* a column wide enough for every label */
+#define COL_MIN 22.0  /* the narrowest column that stays legible */
+#define END_ROOM 92.0 /* from a line's end to the nearest column */
+#define END_UNIT 48.0 /* from a line's end to a heater or cooler there */
+#define WIDE 1028.0   /* 257 mm: A4 landscape inside its margins */
+#define NAME_LINE 14  /* characters of a stream name before it wraps */
 
 double
 hl_grid_text_width(const char *s, double fs)
@@ -214,8 +220,33 @@ span(const hl_grid_layout *L, size_t i, double *lo, double *hi)
 	*hi = fmax(a, b) + 12.0;
 }
 
+/* A heater or cooler that is the last stage of its stream, alone: drawn
+ * at the stream's target end, outside the columns. */
+static int
+end_unit(const hl_network *net, size_t i)
+{
+	const hl_network_unit *u = &net->unit[i];
+	size_t p, j;
+	int g, last = 0;
+
+	if (!is_utility_unit(net, u))
+		return 0;
+	p = net->party[u->hot].utility ? u->cold : u->hot;
+	g = p == u->hot ? u->hot_stage : u->cold_stage;
+	for (j = 0; j < net->nunit; j++) {
+		int h = stage_on(net, &net->unit[j], p);
+
+		if (h > last)
+			last = h;
+		if (j != i && h == g)
+			return 0;
+	}
+	return g == last;
+}
+
 /* Columns: each unit in order, a heater or cooler into the last column
- * when its predecessors are all further left and its mark fits there. */
+ * when its predecessors are all further left and its mark fits there;
+ * col[u] = SIZE_MAX for one drawn at its stream's end. */
 static size_t
 columns(const hl_network *net, const unsigned char *left, const size_t *order,
 	hl_grid_layout *L, size_t *col)
@@ -224,9 +255,13 @@ columns(const hl_network *net, const unsigned char *left, const size_t *order,
 
 	for (k = 0; k < n; k++) {
 		size_t u = order[k];
-		int join = k > 0 && is_utility_unit(net, &net->unit[u]);
+		int join = ncol > 0 && is_utility_unit(net, &net->unit[u]);
 		double lo, hi;
 
+		if (end_unit(net, u)) {
+			col[u] = SIZE_MAX;
+			continue;
+		}
 		span(L, u, &lo, &hi);
 		for (j = 0; j < k && join; j++) {
 			size_t v = order[j];
@@ -244,19 +279,44 @@ columns(const hl_network *net, const unsigned char *left, const size_t *order,
 	return ncol;
 }
 
+size_t
+hl_grid_name_break(const char *name)
+{
+	size_t n = strlen(name), best = n, i;
+	double mid = 0.5 * (double)n;
+
+	if (n <= NAME_LINE)
+		return n;
+	for (i = 1; i + 1 < n; i++)
+		if (name[i] == ' ' && (best == n || fabs((double)i - mid) <
+		    fabs((double)best - mid)))
+			best = i;
+	return best;
+}
+
+/* The widest stream name, on two lines where it is long. */
 static double
 name_margin(const hl_network *net)
 {
+	char a[256];
 	double w = 40.0;
-	size_t p;
+	size_t p, k;
 
-	for (p = 0; p < net->nparty; p++)
-		if (!net->party[p].utility)
-			w = fmax(w, hl_grid_text_width(net->party[p].name, 12.0));
+	for (p = 0; p < net->nparty; p++) {
+		const char *s = net->party[p].name;
+
+		if (net->party[p].utility)
+			continue;
+		k = hl_grid_name_break(s);
+		snprintf(a, sizeof a, "%.*s", (int)k, s);
+		w = fmax(w, hl_grid_text_width(a, 12.0));
+		if (s[k] != '\0')
+			w = fmax(w, hl_grid_text_width(s + k + 1, 12.0));
+	}
 	return fmin(w, 150.0) + 20.0;
 }
 
-/* Half a column more on each side of a split's columns, for the split and
+/* Most of a column more on each side of a split's columns, for the split and
  * mixing points and their labels: extra[c] is the room before column c. */
 static void
 split_room(const hl_network *net, const size_t *col, size_t ncol,
@@ -269,10 +329,12 @@ split_room(const hl_network *net, const size_t *col, size_t ncol,
 		size_t lo = col[i], hi = col[i];
 		int split = 0;
 
+		if (col[i] == SIZE_MAX)
+			continue;
 		for (j = 0; j < net->nunit; j++) {
 			const hl_network_unit *v = &net->unit[j];
 
-			if (j == i)
+			if (j == i || col[j] == SIZE_MAX)
 				continue;
 			if ((!net->party[u->hot].utility && v->hot == u->hot &&
 			    v->hot_stage == u->hot_stage) ||
@@ -287,19 +349,36 @@ split_room(const hl_network *net, const size_t *col, size_t ncol,
 		if (!split)
 			continue;
 		if (lo > 0)
-			extra[lo] = fmax(extra[lo], 0.5);
+			extra[lo] = fmax(extra[lo], 0.8);
 		if (hi + 1 < ncol)
-			extra[hi + 1] = fmax(extra[hi + 1], 0.5);
+			extra[hi + 1] = fmax(extra[hi + 1], 0.8);
 	}
 }
 
-/* x of every column, a wider gap where a pinch falls between two. */
+/* The column step: as wide as an A4 page allows, at least COL_EASY, the
+ * page widening to A4 landscape before the step shrinks to COL_MIN. */
+static double
+column_step(double slots, double fixed)
+{
+	double span = fmax(slots - 1.0, 1.0);
+	double step = (GRID_WIDTH - fixed) / span;
+
+	if (step >= COL_EASY)
+		return step;
+	step = (WIDE - fixed) / span;
+	if (step >= COL_EASY)
+		return COL_EASY;
+	return fmax(step, COL_MIN);
+}
+
+/* x of every column, a wider gap where a pinch falls between two, and of
+ * the units drawn at the stream ends. */
 static void
 place_columns(const hl_network *net, const size_t *col, size_t ncol,
 	      hl_grid_layout *L)
 {
 	double *cx = calloc(ncol + 1, sizeof *cx), slots = 0.0, step, x0, x1;
-	double *extra = calloc(ncol + 1, sizeof *extra);
+	double *extra = calloc(ncol + 1, sizeof *extra), fixed;
 	int *creg = calloc(ncol + 1, sizeof *creg);
 	size_t i, c;
 
@@ -310,19 +389,20 @@ place_columns(const hl_network *net, const size_t *col, size_t ncol,
 		return;
 	}
 	for (i = 0; i < net->nunit; i++)
-		creg[col[i]] = L->region[i];
+		if (col[i] != SIZE_MAX)
+			creg[col[i]] = L->region[i];
 	split_room(net, col, ncol, extra);
 	for (c = 0; c < ncol; c++) {
 		if (c > 0 && creg[c] != creg[c - 1])
-			extra[c] += 0.8;
+			extra[c] += 0.6;
 		slots += 1.0 + (c > 0 ? extra[c] : 0.0);
 	}
-	/* Room at both ends of the lines for the end temperatures. */
+	/* Room at both ends of the lines for the end temperatures and the
+	 * heaters and coolers there. */
 	L->left = name_margin(net);
 	x0 = L->left + END_ROOM;
-	step = (GRID_WIDTH - 16.0 - END_ROOM - x0) / fmax(slots - 1.0, 1.0);
-	if (step < COL_MIN)
-		step = COL_MIN;
+	fixed = x0 + END_ROOM + 16.0;
+	step = column_step(slots, fixed);
 	if (ncol == 1)
 		x0 = 0.5 * (x0 + GRID_WIDTH - 16.0 - END_ROOM);
 	for (c = 0, x1 = x0; c < ncol; c++) {
@@ -333,8 +413,13 @@ place_columns(const hl_network *net, const size_t *col, size_t ncol,
 	L->width = fmax(GRID_WIDTH, (ncol > 0 ? cx[ncol - 1] : x0) + 16.0 +
 	    END_ROOM);
 	L->right = L->width - 16.0;
-	for (i = 0; i < net->nunit; i++)
-		L->x[i] = cx[col[i]];
+	for (i = 0; i < net->nunit; i++) {
+		if (col[i] != SIZE_MAX)
+			L->x[i] = cx[col[i]];
+		else
+			L->x[i] = isnan(L->yh[i]) ? L->left + END_UNIT :
+			    L->right - END_UNIT;
+	}
 	/* A pinch line between the last column above it and the first
 	 * below. */
 	for (i = 0; i < L->npinch; i++) {

@@ -304,11 +304,20 @@ draw_stream(W w, const hl_network *net, const hl_grid_layout *L, size_t p)
 	double y = L->row[p], prev_hi = NAN, prev_lo = NAN;
 	int hot = s->kind == HL_HOT, g, last = max_stage(net, p), rc = 0;
 	char t[32];
+	size_t k;
 
 	rc |= line(w, L->left, y, L->right, y, col, 2.4, NULL);
 	rc |= arrow(w, hot ? L->right + 2 : L->left - 2, y, hot, col);
-	rc |= text(w, L->left - 14, y + 4, FS_NAME, "end", 0, 0, INK, "%s",
-	    s->name);
+	k = hl_grid_name_break(s->name);
+	if (s->name[k] == '\0')
+		rc |= text(w, L->left - 14, y + 4, FS_NAME, "end", 0, 0, INK,
+		    "%s", s->name);
+	else {
+		rc |= text(w, L->left - 14, y - 2, FS_NAME, "end", 0, 0, INK,
+		    "%.*s", (int)k, s->name);
+		rc |= text(w, L->left - 14, y + 11, FS_NAME, "end", 0, 0, INK,
+		    "%s", s->name + k + 1);
+	}
 	temp(t, sizeof t, s->supply);
 	rc |= text(w, hot ? L->left + 3 : L->right - 3, y - 6, FS_T,
 	    hot ? "start" : "end", 1, 1, col, "%s °C", t);
@@ -373,39 +382,13 @@ square(W w, double x, double y, const char *fill)
 	return rc | end(w);
 }
 
-/* "E5 20": a heater's or cooler's id (bold) and duty on one line. */
-static int
-id_duty(W w, double x, double y, const hl_network_unit *u)
-{
-	char d[32];
-	int rc = start(w, "text");
-
-	snprintf(d, sizeof d, " %.0f", u->duty);
-	rc |= num(w, "x", x);
-	rc |= num(w, "y", y);
-	rc |= num(w, "font-size", FS_ID);
-	rc |= attr(w, "text-anchor", "middle");
-	rc |= attr(w, "fill", INK);
-	rc |= attr(w, "stroke", "#ffffff");
-	rc |= attr(w, "stroke-width", "3");
-	rc |= attr(w, "paint-order", "stroke");
-	rc |= start(w, "tspan");
-	rc |= attr(w, "font-weight", "bold");
-	rc |= xmlTextWriterWriteString(w, BAD_CAST u->id);
-	rc |= end(w);
-	rc |= xmlTextWriterWriteString(w, BAD_CAST d);
-	return rc | end(w);
-}
-
 /* A unit: linked round marks with the id above and the duty (kW) below;
- * a heater or cooler a square on its one process stream, labelled on the
- * side of the line where that stream's temperatures are not (below a cold
- * stream, above a hot one). */
+ * a heater or cooler a square on its one process stream. */
 static int
 draw_unit(W w, const hl_network *net, const hl_grid_layout *L, size_t i)
 {
 	const hl_network_unit *u = &net->unit[i];
-	double x = L->x[i], yh = L->yh[i], yc = L->yc[i];
+	double x = L->x[i], yh = L->yh[i], yc = L->yc[i], y;
 	int rc = 0;
 
 	if (!isnan(yh) && !isnan(yc)) {
@@ -418,13 +401,12 @@ draw_unit(W w, const hl_network *net, const hl_grid_layout *L, size_t i)
 		    u->duty);
 		return rc;
 	}
-	if (isnan(yh)) {
-		rc |= square(w, x, yc, hex(HL_SVG_ORANGE));
-		rc |= id_duty(w, x, yc + 20, u);
-	} else {
-		rc |= square(w, x, yh, hex(HL_SVG_SKY));
-		rc |= id_duty(w, x, yh - 11, u);
-	}
+	/* Id over duty below the line: two short lines fit between close
+	 * columns, and a hot line's end temperature stays clear above. */
+	y = isnan(yh) ? yc : yh;
+	rc |= square(w, x, y, hex(isnan(yh) ? HL_SVG_ORANGE : HL_SVG_SKY));
+	rc |= text(w, x, y + 20, FS_ID, "middle", 1, 1, INK, "%s", u->id);
+	rc |= text(w, x, y + 31, FS_T, "middle", 0, 1, INK, "%.0f", u->duty);
 	return rc;
 }
 
