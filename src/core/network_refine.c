@@ -1,6 +1,12 @@
-/* network_refine.c - when the matches cannot be placed as they are.
+/* network_refine.c - choices beyond one placement of the matches.
  *
- * Two ways out keep a network feasible: relaxation (network_relax.c: heat
+ * Fewer units: two matches of one pair (a MILP gives a pair on both sides
+ * of a pinch as two) become one unit when the network that results keeps
+ * every approach with no more energy and is cheaper (or, unpriced, has
+ * fewer units); smallest pairs first.
+ *
+ * When the matches cannot be placed as they are, two ways out keep a
+ * network feasible: relaxation (network_relax.c: heat
  * to utilities, an energy penalty) and more units: the match that breaks
  * its approach most is cut in two by heat, its hotter half on both sides
  * (from its per-interval loads, or its windows) becoming one unit and the
@@ -22,6 +28,9 @@ typedef struct {
 	hl_network_match *m;
 	long *origin;        /* the input match each comes from */
 	double **own;        /* loads owned here (2 arrays per match), or NULL */
+	size_t nin;
+	long *also;          /* per input match: the input match whose unit
+				took its heat too, -1 when none */
 } mlist;
 
 static void
@@ -34,6 +43,7 @@ mlist_free(mlist *L)
 	free(L->own);
 	free(L->m);
 	free(L->origin);
+	free(L->also);
 	memset(L, 0, sizeof *L);
 }
 
@@ -67,6 +77,12 @@ mlist_from_input(mlist *L, const hl_network_input *in)
 
 	memset(L, 0, sizeof *L);
 	L->nint = in->t != NULL ? in->nint : 0;
+	L->nin = in->nmatch;
+	L->also = malloc((in->nmatch + 1) * sizeof *L->also);
+	if (L->also == NULL)
+		return HL_EIO;
+	for (i = 0; i < in->nmatch; i++)
+		L->also[i] = -1;
 	for (i = 0; i < in->nmatch; i++) {
 		if (L->n == L->cap && mlist_grow(L) != HL_OK)
 			return HL_EIO;
@@ -163,6 +179,101 @@ mlist_split(mlist *L, size_t i)
 	return HL_OK;
 }
 
+static hl_status
+mlist_copy(mlist *dst, const mlist *src)
+{
+	size_t i;
+
+	memset(dst, 0, sizeof *dst);
+	dst->nint = src->nint;
+	dst->nin = src->nin;
+	dst->also = malloc((src->nin + 1) * sizeof *dst->also);
+	if (dst->also == NULL)
+		return HL_EIO;
+	memcpy(dst->also, src->also, src->nin * sizeof *src->also);
+	for (i = 0; i < src->n; i++) {
+		int k;
+
+		if (dst->n == dst->cap && mlist_grow(dst) != HL_OK)
+			return HL_EIO;
+		dst->m[i] = src->m[i];
+		dst->origin[i] = src->origin[i];
+		for (k = 0; k < 2; k++) {
+			const double *a = src->own[2 * i + k];
+			double *b = NULL;
+
+			if (a != NULL) {
+				b = malloc((src->nint + 1) * sizeof *b);
+				if (b == NULL)
+					return HL_EIO;
+				memcpy(b, a, src->nint * sizeof *b);
+			}
+			dst->own[2 * i + k] = b;
+		}
+		if (dst->own[2 * i] != NULL)
+			dst->m[i].give = dst->own[2 * i];
+		if (dst->own[2 * i + 1] != NULL)
+			dst->m[i].take = dst->own[2 * i + 1];
+		dst->n++;
+	}
+	return HL_OK;
+}
+
+/* Sum of two load arrays (either may be NULL), owned by the result. */
+static double *
+add_loads(const double *a, const double *b, size_t n)
+{
+	double *s;
+	size_t k;
+
+	if (a == NULL || b == NULL || n == 0)
+		return NULL;
+	s = malloc(n * sizeof *s);
+	for (k = 0; s != NULL && k < n; k++)
+		s[k] = a[k] + b[k];
+	return s;
+}
+
+/* Match j's heat into match i (one unit for both), j dropped. */
+static hl_status
+mlist_merge(mlist *L, size_t i, size_t j)
+{
+	hl_network_match *a = &L->m[i], *b = &L->m[j];
+	double *g = add_loads(a->give, b->give, L->nint);
+	double *t = add_loads(a->take, b->take, L->nint);
+	long root = L->origin[i];
+
+	if ((a->give != NULL && b->give != NULL && L->nint > 0) &&
+	    (g == NULL || t == NULL)) {
+		free(g);
+		free(t);
+		return HL_EIO;
+	}
+	a->duty += b->duty;
+	a->hot_hi = fmax(a->hot_hi, b->hot_hi);
+	a->hot_lo = fmin(a->hot_lo, b->hot_lo);
+	a->cold_hi = fmax(a->cold_hi, b->cold_hi);
+	a->cold_lo = fmin(a->cold_lo, b->cold_lo);
+	free(L->own[2 * i]);
+	free(L->own[2 * i + 1]);
+	L->own[2 * i] = g;
+	L->own[2 * i + 1] = t;
+	a->give = g;
+	a->take = t;
+	while (L->also[root] >= 0)
+		root = L->also[root];
+	L->also[L->origin[j]] = root;
+	free(L->own[2 * j]);
+	free(L->own[2 * j + 1]);
+	memmove(&L->m[j], &L->m[j + 1], (L->n - j - 1) * sizeof *L->m);
+	memmove(&L->origin[j], &L->origin[j + 1],
+	    (L->n - j - 1) * sizeof *L->origin);
+	memmove(&L->own[2 * j], &L->own[2 * j + 2],
+	    2 * (L->n - j - 1) * sizeof *L->own);
+	L->n--;
+	return HL_OK;
+}
+
 /* Every utility the network uses has a price. */
 static int
 priced(const hl_network *net)
@@ -235,19 +346,38 @@ attempt(const hl_network_input *in, const mlist *L, hl_network **out,
 	return HL_OK;
 }
 
+/* The input match whose unit(s) carry match k's heat. */
+static long
+root_of(const mlist *L, long k)
+{
+	while (L->also[k] >= 0)
+		k = L->also[k];
+	return k;
+}
+
 /* What the network changed against the input's matches, in notes. */
 static hl_status
-note_changes(hl_network *net, const hl_network_input *in, hl_error *err)
+note_changes(hl_network *net, const hl_network_input *in, const mlist *L,
+	     hl_error *err)
 {
-	size_t i, k;
+	size_t i, k, j;
 	hl_status st = HL_OK;
 
 	for (k = 0; k < in->nmatch && st == HL_OK; k++) {
 		const hl_network_match *m = &in->match[k];
+		const char *h = in->party[m->hot].name;
+		const char *c = in->party[m->cold].name;
 		char ids[128] = "";
-		double sum = 0.0;
-		size_t n = 0, len;
+		double sum = 0.0, want = 0.0;
+		size_t n = 0, len, nmerged = 0;
 
+		if (L->also[k] >= 0)
+			continue;
+		for (j = 0; j < in->nmatch; j++)
+			if (root_of(L, (long)j) == (long)k) {
+				want += in->match[j].duty;
+				nmerged += j != k;
+			}
 		for (i = 0; i < net->nunit; i++)
 			if (net->unit[i].match == (long)k) {
 				len = strlen(ids);
@@ -259,19 +389,21 @@ note_changes(hl_network *net, const hl_network_input *in, hl_error *err)
 		if (n == 0)
 			st = hl_network_add_note(net, err, "the match %s to %s "
 			    "(%.1f kW) is dropped: no placement keeps its "
-			    "approach", in->party[m->hot].name,
-			    in->party[m->cold].name, m->duty);
+			    "approach", h, c, want);
+		else if (nmerged > 0)
+			st = hl_network_add_note(net, err, "%zu matches %s to %s "
+			    "(%.1f kW in all) are one unit here (%s): it keeps "
+			    "the approach and saves %s", nmerged + 1, h, c,
+			    want, ids, nmerged > 1 ? "units" : "a unit");
 		else if (n > 1)
 			st = hl_network_add_note(net, err, "the match %s to %s "
 			    "(%.1f kW) is placed as %zu units (%s): as one unit "
-			    "it cannot keep the approach", in->party[m->hot].name,
-			    in->party[m->cold].name, m->duty, n, ids);
-		if (st == HL_OK && n > 0 && fabs(sum - m->duty) > 1e-6 *
-		    fmax(1.0, m->duty))
+			    "it cannot keep the approach", h, c, want, n, ids);
+		if (st == HL_OK && n > 0 && fabs(sum - want) > 1e-6 *
+		    fmax(1.0, want))
 			st = hl_network_add_note(net, err, "%s (%s to %s) "
 			    "carries %.1f kW instead of the match's %.1f kW",
-			    ids, in->party[m->hot].name,
-			    in->party[m->cold].name, sum, m->duty);
+			    ids, h, c, sum, want);
 	}
 	for (i = 0; i < net->nunit && st == HL_OK; i++) {
 		const hl_network_unit *u = &net->unit[i];
@@ -288,6 +420,114 @@ note_changes(hl_network *net, const hl_network_input *in, hl_error *err)
 		    "%.1f kW more hot and cold utility than the matches: "
 		    "their loads allow no placement that keeps every approach",
 		    net->penalty);
+	return st;
+}
+
+/* A merge must not cost energy: a better than b with no more penalty,
+ * by total annual cost when priced, else by fewer units, then capital. */
+static int
+prefer_merge(const hl_network *a, const hl_network *b)
+{
+	double tol = 1e-6 * fmax(1.0, fmax(a->qh, b->qh));
+
+	if (a->penalty > b->penalty + tol)
+		return 0;
+	if (priced(a) && priced(b))
+		return a->total_cost < b->total_cost * (1.0 - 1e-9);
+	return a->nunit < b->nunit || (a->nunit == b->nunit &&
+	    a->capital < b->capital);
+}
+
+/* The match that breaks the approach most in a placement of L. */
+static hl_status
+attempt_worst(const hl_network_input *in, const mlist *L, long *worst,
+	      hl_error *err)
+{
+	hl_network *net = NULL;
+	hl_status st = attempt(in, L, &net, worst, err);
+
+	hl_network_free(net);
+	return st;
+}
+
+/* Whether the pair of input matches (a, b) was tried already. */
+static int
+tried(const long *t, size_t n, long a, long b)
+{
+	size_t i;
+
+	for (i = 0; i < n; i++)
+		if ((t[2 * i] == a && t[2 * i + 1] == b) ||
+		    (t[2 * i] == b && t[2 * i + 1] == a))
+			return 1;
+	return 0;
+}
+
+/* The two entries of one hot and one cold party, from different input
+ * matches and not tried yet, whose smaller duty is least; 0 when none. */
+static int
+next_pair(const mlist *L, const long *t, size_t nt, size_t *bi, size_t *bj)
+{
+	double small = HUGE_VAL;
+	size_t i, j;
+
+	for (i = 0; i < L->n; i++)
+		for (j = i + 1; j < L->n; j++) {
+			double d = fmin(L->m[i].duty, L->m[j].duty);
+
+			if (L->m[i].hot != L->m[j].hot ||
+			    L->m[i].cold != L->m[j].cold ||
+			    L->origin[i] == L->origin[j] ||
+			    tried(t, nt, L->origin[i], L->origin[j]))
+				continue;
+			if (d < small) {
+				small = d;
+				*bi = i;
+				*bj = j;
+			}
+		}
+	return isfinite(small);
+}
+
+/* Try one unit for two matches of a pair (the same hot and cold party,
+ * e.g. on the two sides of a pinch), smallest first; keep each merge whose
+ * network is better. */
+static hl_status
+try_merges(const hl_network_input *in, mlist *L, hl_network **best,
+	   hl_error *err)
+{
+	long *t = malloc((2 * in->nmatch * in->nmatch + 2) * sizeof *t);
+	size_t nt = 0, i = 0, j = 0;
+	hl_status st = HL_OK;
+
+	if (t == NULL)
+		return hl_error_nomem(err);
+	while (st == HL_OK && next_pair(L, t, nt, &i, &j)) {
+		hl_network *net = NULL;
+		mlist trial;
+		long worst;
+
+		t[2 * nt] = L->origin[i];
+		t[2 * nt + 1] = L->origin[j];
+		nt++;
+		if (mlist_copy(&trial, L) != HL_OK ||
+		    mlist_merge(&trial, i, j) != HL_OK) {
+			mlist_free(&trial);
+			st = hl_error_nomem(err);
+			break;
+		}
+		if (attempt(in, &trial, &net, &worst, err) == HL_OK &&
+		    prefer_merge(net, *best)) {
+			hl_network_free(*best);
+			*best = net;
+			mlist_free(L);
+			*L = trial;
+			continue;
+		}
+		hl_network_free(net);
+		mlist_free(&trial);
+	}
+	free(t);
 	return st;
 }
 
@@ -309,6 +549,10 @@ hl_network_place(const hl_network_input *in, hl_network **out,
 		return hl_error_nomem(err);
 	}
 	st = attempt(in, &L, &best, &worst, err);
+	if (st == HL_OK)
+		st = try_merges(in, &L, &best, err);
+	if (st == HL_OK && best->penalty > 0.0)
+		st = attempt_worst(in, &L, &worst, err);
 	for (cuts = 0, idle = 0; st == HL_OK && worst >= 0 && cuts < limit &&
 	     idle < 2; cuts++) {
 		if ((size_t)worst >= L.n || mlist_split(&L, (size_t)worst) !=
@@ -325,9 +569,9 @@ hl_network_place(const hl_network_input *in, hl_network **out,
 			idle++;
 		}
 	}
-	mlist_free(&L);
 	if (st == HL_OK)
-		st = note_changes(best, in, err);
+		st = note_changes(best, in, &L, err);
+	mlist_free(&L);
 	if (st != HL_OK) {
 		hl_network_free(best);
 		return st;

@@ -359,6 +359,33 @@ test_relax_mix(void **state)
 	free(f);
 }
 
+/* Two matches of one pair that can be one unit (built by hand): H 200 ->
+ * 100 °C and C 50 -> 150 °C, both cp 1 kW/K, need no utility at ΔTmin 10
+ * K (every approach is 50 K); given as two matches (60 kW on the hot end,
+ * 40 kW on the cold end, as a MILP gives a pair on two sides of a
+ * boundary), they become one unit of 100 kW, with a note saying so. */
+static void
+test_merge_pair(void **state)
+{
+	netfix *f = fix_new(10.0);
+	size_t h = netfix_stream(f, "H", 200, 100, 1.0, NAN);
+	size_t c = netfix_stream(f, "C", 50, 150, 1.0, NAN);
+	hl_network *net;
+
+	(void)state;
+	f->qh = f->qc = 0.0;
+	netfix_match(f, h, c, 60, 200, 140, 90, 150);
+	netfix_match(f, h, c, 40, 140, 100, 50, 90);
+	net = place(f);
+	assert_int_equal(net->nunit, 1);
+	assert_ends(&net->unit[0], 200, 100, 50, 150);
+	assert_int_equal(net->nnote, 1);
+	assert_non_null(strstr(net->note[0], "one unit"));
+	assert_sound(net);
+	hl_network_free(net);
+	free(f);
+}
+
 /* Generated problems (gen.h) with matches from a greedy cascade: every
  * network passes the check, keeps every approach, uses the targets (or
  * says, in a note, what it needed beyond them) and has one unit per match
@@ -591,6 +618,7 @@ main(void)
 		cmocka_unit_test(test_kemp4_sized),
 		cmocka_unit_test(test_split),
 		cmocka_unit_test(test_relax_mix),
+		cmocka_unit_test(test_merge_pair),
 		cmocka_unit_test(test_generated),
 		cmocka_unit_test(test_check_tamper),
 		cmocka_unit_test(test_bad_input),
