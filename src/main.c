@@ -14,7 +14,7 @@ static const hl_command *const commands[] = {
 	&hl_cmd_size,
 	&hl_cmd_curves,
 	&hl_cmd_sweep,
-	&hl_cmd_audit, \
+	&hl_cmd_audit,
 	&hl_cmd_check,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])

@@ -178,10 +178,9 @@ check_stream(hl_netcheck *r, const hl_network *net, size_t p)
 
 	for (i = 0; i < net->nunit; i++) {
 		const hl_network_unit *u = &net->unit[i];
-		int g = u->hot == p ? u->hot_stage : u->cold == p ?
-		    u->cold_stage : -1;
+		int g = u->hot == p ? u->hot_stage : u->cold_stage;
 
-		if (g == -1)
+		if (u->hot != p && u->cold != p)
 			continue;
 		if (g < 1)
 			return add(r, u->id, u->line, "has no stage on stream "
