@@ -503,6 +503,86 @@ hl_net_rescore(hl_net_place *P, size_t p)
 	return score_cached(P);
 }
 
+/* Re-evaluate lane p's units without scoring. */
+static void
+touch_lane(hl_net_place *P, size_t p)
+{
+	const hl_net_lane *L = &P->lane[p];
+	size_t b, k;
+
+	if (P->net->party[p].utility)
+		return;
+	eval_lane(P, p);
+	for (b = 0; b < L->n; b++)
+		for (k = 0; k < L->b[b].n; k++)
+			eval_unit(P, L->b[b].u[k]);
+}
+
+hl_net_score
+hl_net_rescore2(hl_net_place *P, size_t p, size_t q)
+{
+	P->evals++;
+	touch_lane(P, p);
+	touch_lane(P, q);
+	return score_cached(P);
+}
+
+hl_status
+hl_net_snap_take2(const hl_net_place *P, size_t p, size_t q, hl_net_snap *s)
+{
+	hl_net_snap t = { 0 };
+	size_t i;
+
+	if (P->net->party[p].utility)
+		return hl_net_snap_take(P, q, s);
+	if (hl_net_snap_take(P, p, s) != HL_OK)
+		return HL_EIO;
+	if (P->net->party[q].utility)
+		return HL_OK;
+	if (hl_net_snap_take(P, q, &t) != HL_OK) {
+		hl_net_snap_free(&t);
+		return HL_EIO;
+	}
+	/* Append q's units (a unit on both lanes is already in s). */
+	for (i = 0; i < t.n; i++) {
+		size_t j;
+
+		for (j = 0; j < s->n && s->idx[j] != t.idx[i]; j++)
+			;
+		if (j < s->n)
+			continue;
+		if (s->n == s->cap) {
+			size_t cap = 2 * s->cap + 8;
+			void *a;
+
+			if ((a = realloc(s->idx, cap * sizeof *s->idx)) == NULL)
+				goto nomem;
+			s->idx = a;
+			if ((a = realloc(s->u, cap * sizeof *s->u)) == NULL)
+				goto nomem;
+			s->u = a;
+			if ((a = realloc(s->viol, cap * sizeof *s->viol)) ==
+			    NULL)
+				goto nomem;
+			s->viol = a;
+			if ((a = realloc(s->cost, cap * sizeof *s->cost)) ==
+			    NULL)
+				goto nomem;
+			s->cost = a;
+			s->cap = cap;
+		}
+		s->idx[s->n] = t.idx[i];
+		s->u[s->n] = t.u[i];
+		s->viol[s->n] = t.viol[i];
+		s->cost[s->n++] = t.cost[i];
+	}
+	hl_net_snap_free(&t);
+	return HL_OK;
+nomem:
+	hl_net_snap_free(&t);
+	return HL_EIO;
+}
+
 hl_status
 hl_net_snap_take(const hl_net_place *P, size_t p, hl_net_snap *s)
 {

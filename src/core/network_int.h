@@ -88,6 +88,11 @@ double hl_net_unit_violation(const hl_net_place *P, size_t u);
 hl_net_score hl_net_score_now(hl_net_place *P);
 /* Score after a change to lane p only (re-evaluates its units). */
 hl_net_score hl_net_rescore(hl_net_place *P, size_t p);
+/* Score after a change to lanes p and q (either may be a utility's). */
+hl_net_score hl_net_rescore2(hl_net_place *P, size_t p, size_t q);
+/* Remember the units of lanes p and q. */
+hl_status hl_net_snap_take2(const hl_net_place *P, size_t p, size_t q,
+			    hl_net_snap *s);
 /* Remember lane p's units; put them back as they were. */
 hl_status hl_net_snap_take(const hl_net_place *P, size_t p, hl_net_snap *s);
 void hl_net_snap_restore(hl_net_place *P, const hl_net_snap *s);
@@ -104,17 +109,23 @@ hl_net_score hl_net_search_splits(hl_net_place *P, hl_net_score cur,
 				  hl_status *st);
 hl_net_score hl_net_search_unsplit(hl_net_place *P, hl_net_score cur,
 				   hl_status *st);
+/* Shift heat between two units of one pair (all balances keep). */
+hl_net_score hl_net_search_pairs(hl_net_place *P, hl_net_score cur,
+				 hl_status *st);
 
 /* Check a placement input: parties, duties, stream balances, targets. */
 hl_status hl_net_check_input(const hl_network_input *in, hl_error *err);
 /* One placement of in's matches (network_place.c), relaxed where it must
  * be; *worst: the match that broke the approach most before relaxing, -1
- * when none did. Units keep in's match indices; no notes. */
+ * when none did, and *keep the fraction of its duty its place allowed.
+ * Units keep in's match indices; no notes. */
 hl_status hl_net_attempt(const hl_network_input *in, hl_network **out,
-			 long *worst, hl_error *err);
+			 long *worst, double *keep, hl_error *err);
 
 /* Relaxation (network_relax.c): cut the duty of violating units and move
  * the heat to utilities until V is nil. */
 hl_status hl_net_relax(hl_net_place *P, hl_error *err);
+/* Largest duty (kW) unit k can carry where it stands (after hl_net_eval). */
+double hl_net_max_duty(const hl_net_place *P, size_t k);
 
 #endif

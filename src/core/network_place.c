@@ -228,13 +228,14 @@ build(const hl_network_input *in, hl_network *net, hl_net_place **out,
 	return HL_OK;
 }
 
-/* The match of the unit that misses the most approach, -1 if none. */
+/* The match of the unit that misses the most approach (-1 if none), and
+ * the fraction of its duty its place allows. */
 static long
-worst_match(const hl_net_place *P)
+worst_match(const hl_net_place *P, double *keep)
 {
 	double worst = HL_NET_VTOL;
 	long pick = -1;
-	size_t k;
+	size_t k, at = 0;
 
 	for (k = 0; k < P->net->nunit; k++) {
 		double v = hl_net_unit_violation(P, k);
@@ -242,15 +243,18 @@ worst_match(const hl_net_place *P)
 		if (v > worst && P->net->unit[k].match >= 0) {
 			worst = v;
 			pick = P->net->unit[k].match;
+			at = k;
 		}
 	}
+	*keep = pick < 0 ? NAN : hl_net_max_duty(P, at) /
+	    P->net->unit[at].duty;
 	return pick;
 }
 
 /* Steps 2-4; *worst is the match that broke the approach most before any
  * relaxation (-1 when none did). */
 static hl_status
-search(hl_net_place *P, long *worst, hl_error *err)
+search(hl_net_place *P, long *worst, double *keep, hl_error *err)
 {
 	hl_net_score cur = hl_net_score_now(P);
 	hl_status st = HL_OK;
@@ -259,6 +263,8 @@ search(hl_net_place *P, long *worst, hl_error *err)
 	*worst = -1;
 	if (cur.v > HL_NET_VTOL)
 		cur = hl_net_search_order(P, cur, &st);
+	if (cur.v > HL_NET_VTOL && st == HL_OK)
+		cur = hl_net_search_pairs(P, cur, &st);
 	for (round = 0; round < 8 && cur.v > HL_NET_VTOL && st == HL_OK;
 	     round++) {
 		hl_net_score before = cur;
@@ -266,6 +272,8 @@ search(hl_net_place *P, long *worst, hl_error *err)
 		cur = hl_net_search_splits(P, cur, &st);
 		if (st == HL_OK)
 			cur = hl_net_search_order(P, cur, &st);
+		if (st == HL_OK && cur.v > HL_NET_VTOL)
+			cur = hl_net_search_pairs(P, cur, &st);
 		if (!hl_net_better(cur, before))
 			break;
 	}
@@ -273,7 +281,7 @@ search(hl_net_place *P, long *worst, hl_error *err)
 		return hl_error_nomem(err);
 	if (cur.v > HL_NET_VTOL) {
 		hl_net_eval(P);
-		*worst = worst_match(P);
+		*worst = worst_match(P, keep);
 		st = hl_net_relax(P, err);
 		if (st != HL_OK)
 			return st;
@@ -282,6 +290,8 @@ search(hl_net_place *P, long *worst, hl_error *err)
 	cur = hl_net_search_unsplit(P, cur, &st);
 	if (st == HL_OK)
 		cur = hl_net_search_order(P, cur, &st);
+	if (st == HL_OK)
+		cur = hl_net_search_pairs(P, cur, &st);
 	for (p = 0; p < P->net->nparty && st == HL_OK; p++)
 		for (b = 0; b < P->lane[p].n && st == HL_OK; b++)
 			if (P->lane[p].b[b].n > 1)
@@ -383,13 +393,14 @@ finish(hl_network *net, const hl_network_input *in, hl_error *err)
 
 hl_status
 hl_net_attempt(const hl_network_input *in, hl_network **out, long *worst,
-	       hl_error *err)
+	       double *keep, hl_error *err)
 {
 	hl_network *net;
 	hl_net_place *P = NULL;
 	hl_status st;
 
 	*worst = -1;
+	*keep = NAN;
 	net = hl_network_create();
 	if (net == NULL)
 		return hl_error_nomem(err);
@@ -402,7 +413,7 @@ hl_net_attempt(const hl_network_input *in, hl_network **out, long *worst,
 	}
 	st = build(in, net, &P, err);
 	if (st == HL_OK)
-		st = search(P, worst, err);
+		st = search(P, worst, keep, err);
 	hl_net_place_free(P);
 	if (st == HL_OK)
 		st = finish(net, in, err);

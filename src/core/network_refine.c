@@ -128,9 +128,10 @@ cut_heat(const hl_network_match *m, size_t nint)
 	return best;
 }
 
-/* Cut match i in two: its hotter x kW on both sides, and the rest. */
+/* Cut match i in two: its hotter x kW on both sides, and the rest; x is
+ * frac of its duty, or (frac NaN) at the interval boundary nearest half. */
 static hl_status
-mlist_split(mlist *L, size_t i)
+mlist_split(mlist *L, size_t i, double frac)
 {
 	hl_network_match a = L->m[i], b = L->m[i];
 	double x, f;
@@ -149,7 +150,7 @@ mlist_split(mlist *L, size_t i)
 					free(g[k]);
 				return HL_EIO;
 			}
-		x = cut_heat(&a, L->nint);
+		x = isnan(frac) ? cut_heat(&a, L->nint) : frac * a.duty;
 		cut_loads(L->m[i].give, L->nint, x, g[0], g[1]);
 		cut_loads(L->m[i].take, L->nint, x, g[2], g[3]);
 		free(L->own[2 * i]);
@@ -163,7 +164,7 @@ mlist_split(mlist *L, size_t i)
 		b.give = g[1];
 		b.take = g[3];
 	} else {
-		x = 0.5 * a.duty;
+		x = (isnan(frac) ? 0.5 : frac) * a.duty;
 	}
 	f = x / a.duty;
 	a.duty = x;
@@ -326,7 +327,7 @@ prefer(const hl_network *a, const hl_network *b)
 
 static hl_status
 attempt(const hl_network_input *in, const mlist *L, hl_network **out,
-	long *worst, hl_error *err)
+	long *worst, double *keep, hl_error *err)
 {
 	hl_network_input sub = *in;
 	hl_status st;
@@ -335,7 +336,7 @@ attempt(const hl_network_input *in, const mlist *L, hl_network **out,
 
 	sub.match = L->m;
 	sub.nmatch = L->n;
-	st = hl_net_attempt(&sub, out, &w, err);
+	st = hl_net_attempt(&sub, out, &w, keep, err);
 	if (st != HL_OK)
 		return st;
 	*worst = w;
@@ -441,10 +442,10 @@ prefer_merge(const hl_network *a, const hl_network *b)
 /* The match that breaks the approach most in a placement of L. */
 static hl_status
 attempt_worst(const hl_network_input *in, const mlist *L, long *worst,
-	      hl_error *err)
+	      double *keep, hl_error *err)
 {
 	hl_network *net = NULL;
-	hl_status st = attempt(in, L, &net, worst, err);
+	hl_status st = attempt(in, L, &net, worst, keep, err);
 
 	hl_network_free(net);
 	return st;
@@ -506,6 +507,7 @@ try_merges(const hl_network_input *in, mlist *L, hl_network **best,
 		hl_network *net = NULL;
 		mlist trial;
 		long worst;
+		double keep;
 
 		t[2 * nt] = L->origin[i];
 		t[2 * nt + 1] = L->origin[j];
@@ -516,7 +518,7 @@ try_merges(const hl_network_input *in, mlist *L, hl_network **best,
 			st = hl_error_nomem(err);
 			break;
 		}
-		if (attempt(in, &trial, &net, &worst, err) == HL_OK &&
+		if (attempt(in, &trial, &net, &worst, &keep, err) == HL_OK &&
 		    prefer_merge(net, *best)) {
 			hl_network_free(*best);
 			*best = net;
@@ -531,14 +533,73 @@ try_merges(const hl_network_input *in, mlist *L, hl_network **best,
 	return st;
 }
 
+/* Cut L's entry w in two at each of a few places (where its unit stood,
+ * the complement, half by its loads) and keep the best network in *L and
+ * *best when it beats *best; 1 when it did. */
+static int
+try_cuts(const hl_network_input *in, mlist *L, long w, double keep,
+	 hl_network **best, long *worst, double *next_keep, hl_error *err)
+{
+	double frac[3] = { keep, 1.0 - keep, NAN };
+	hl_network *top = NULL;
+	mlist top_l;
+	long top_w = -1;
+	double top_k = NAN;
+	int f, won = 0;
+
+	memset(&top_l, 0, sizeof top_l);
+	for (f = 0; f < 3; f++) {
+		hl_network *net = NULL;
+		mlist trial;
+		long wv;
+		double kv;
+
+		if (!isnan(frac[f]) && (frac[f] < 0.05 || frac[f] > 0.95))
+			continue;
+		if (mlist_copy(&trial, L) != HL_OK ||
+		    mlist_split(&trial, (size_t)w, frac[f]) != HL_OK ||
+		    attempt(in, &trial, &net, &wv, &kv, err) != HL_OK) {
+			mlist_free(&trial);
+			continue;
+		}
+		if (top == NULL || prefer(net, top)) {
+			hl_network_free(top);
+			mlist_free(&top_l);
+			top = net;
+			top_l = trial;
+			top_w = wv;
+			top_k = kv;
+		} else {
+			hl_network_free(net);
+			mlist_free(&trial);
+		}
+	}
+	if (top == NULL)
+		return 0;
+	/* The next cut starts from the best of these, kept or not. */
+	*worst = top_w;
+	*next_keep = top_k;
+	mlist_free(L);
+	*L = top_l;
+	if (prefer(top, *best)) {
+		hl_network_free(*best);
+		*best = top;
+		won = 1;
+	} else {
+		hl_network_free(top);
+	}
+	return won;
+}
+
 hl_status
 hl_network_place(const hl_network_input *in, hl_network **out,
 		 hl_error *err)
 {
-	hl_network *best = NULL, *net;
+	hl_network *best = NULL;
 	size_t cuts, idle, limit = 8;
 	mlist L;
 	long worst;
+	double keep;
 	hl_status st;
 
 	st = hl_net_check_input(in, err);
@@ -548,27 +609,16 @@ hl_network_place(const hl_network_input *in, hl_network **out,
 		mlist_free(&L);
 		return hl_error_nomem(err);
 	}
-	st = attempt(in, &L, &best, &worst, err);
+	st = attempt(in, &L, &best, &worst, &keep, err);
 	if (st == HL_OK)
 		st = try_merges(in, &L, &best, err);
 	if (st == HL_OK && best->penalty > 0.0)
-		st = attempt_worst(in, &L, &worst, err);
-	for (cuts = 0, idle = 0; st == HL_OK && worst >= 0 && cuts < limit &&
-	     idle < 2; cuts++) {
-		if ((size_t)worst >= L.n || mlist_split(&L, (size_t)worst) !=
-		    HL_OK)
-			break;
-		if (attempt(in, &L, &net, &worst, err) != HL_OK)
-			break;
-		if (prefer(net, best)) {
-			hl_network_free(best);
-			best = net;
-			idle = 0;
-		} else {
-			hl_network_free(net);
-			idle++;
-		}
-	}
+		st = attempt_worst(in, &L, &worst, &keep, err);
+	for (cuts = 0, idle = 0; st == HL_OK && best->penalty > 0.0 &&
+	     worst >= 0 && (size_t)worst < L.n && cuts < limit && idle < 2;
+	     cuts++)
+		idle = try_cuts(in, &L, worst, keep, &best, &worst, &keep,
+		    err) ? 0 : idle + 1;
 	if (st == HL_OK)
 		st = note_changes(best, in, &L, err);
 	mlist_free(&L);

@@ -35,8 +35,8 @@ outlet_at(const hl_network_party *p, double t_in, double t_out, double share,
 
 /* Largest duty (kW) of unit k with its inlets and shares as they are that
  * keeps its required approach: bisection on the monotone approach. */
-static double
-max_duty(const hl_net_place *P, size_t k)
+double
+hl_net_max_duty(const hl_net_place *P, size_t k)
 {
 	const hl_network *net = P->net;
 	const hl_network_unit *u = &net->unit[k];
@@ -211,7 +211,7 @@ hl_net_relax(hl_net_place *P, hl_error *err)
 		u = &net->unit[k];
 		hot = u->hot;
 		cold = u->cold;
-		d = max_duty(P, (size_t)k);
+		d = hl_net_max_duty(P, (size_t)k);
 		/* A sliver of a unit is not worth its shell. */
 		if (d < 0.02 * u->duty)
 			d = 0.0;

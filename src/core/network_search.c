@@ -279,3 +279,68 @@ hl_net_search_unsplit(hl_net_place *P, hl_net_score cur, hl_status *st)
 	hl_net_snap_free(&snap);
 	return cur;
 }
+
+/* Pattern search on the heat of two units of one hot and one cold party:
+ * a step of their sum moves from one to the other, halving from a tenth
+ * to 10⁻⁴ when no move helps. Both streams' balances keep, and so does
+ * every utility load. No unit falls below 2 % of the pair's heat. */
+static hl_net_score
+pair_shift(hl_net_place *P, size_t a, size_t b, hl_net_score cur,
+	   hl_status *st)
+{
+	hl_network_unit *ua = &P->net->unit[a], *ub = &P->net->unit[b];
+	size_t h = ua->hot, c = ua->cold;
+	double sum = ua->duty + ub->duty, step = 0.1;
+	hl_net_snap snap = { 0 };
+
+	if ((*st = hl_net_snap_take2(P, h, c, &snap)) != HL_OK)
+		return cur;
+	while (step >= 1e-4 && budget_left(P)) {
+		int kept = 0, dir;
+
+		for (dir = -1; dir <= 1; dir += 2) {
+			double d = dir * step * sum;
+			hl_net_score s;
+
+			if (ua->duty + d < HL_NET_SMIN * sum ||
+			    ub->duty - d < HL_NET_SMIN * sum)
+				continue;
+			ua->duty += d;
+			ub->duty -= d;
+			s = hl_net_rescore2(P, h, c);
+			if (hl_net_better(s, cur)) {
+				cur = s;
+				kept = 1;
+				if ((*st = hl_net_snap_take2(P, h, c, &snap)) !=
+				    HL_OK)
+					goto out;
+			} else {
+				hl_net_snap_restore(P, &snap);
+			}
+		}
+		if (!kept)
+			step *= 0.5;
+	}
+out:
+	hl_net_snap_free(&snap);
+	return cur;
+}
+
+hl_net_score
+hl_net_search_pairs(hl_net_place *P, hl_net_score cur, hl_status *st)
+{
+	hl_network *net = P->net;
+	size_t a, b;
+
+	*st = HL_OK;
+	for (a = 0; a < net->nunit && *st == HL_OK; a++)
+		for (b = a + 1; b < net->nunit && *st == HL_OK; b++) {
+			if (net->unit[a].duty <= 0.0 ||
+			    net->unit[b].duty <= 0.0 ||
+			    net->unit[a].hot != net->unit[b].hot ||
+			    net->unit[a].cold != net->unit[b].cold)
+				continue;
+			cur = pair_shift(P, a, b, cur, st);
+		}
+	return cur;
+}
