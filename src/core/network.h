@@ -87,6 +87,9 @@ typedef struct {
 	const hl_network_match *match;
 	size_t nint;              /* shifted intervals of give/take, 0: none */
 	const double *t;          /* nint + 1 shifted boundaries, falling */
+	const long *group;        /* per match, or NULL: matches of one group
+				     are pieces of one match, and the
+				     placement may shift heat between them */
 	double qh_target;         /* kW, minimum hot utility (problem table) */
 	double qc_target;
 	double restriction;       /* kW of hot utility the match rules added */

@@ -53,6 +53,7 @@ hl_net_place_free(hl_net_place *P)
 	free(P->key_cold);
 	free(P->viol);
 	free(P->cost);
+	free(P->group);
 	free(P);
 }
 
@@ -241,6 +242,7 @@ hl_net_place_add_unit(hl_net_place *P, const hl_network_unit *u,
 		size_t cap = P->cap ? 2 * P->cap : 16;
 		double **arr[4] = { &P->key_hot, &P->key_cold, &P->viol,
 		    &P->cost };
+		long *g;
 		int i;
 
 		for (i = 0; i < 4; i++) {
@@ -250,10 +252,15 @@ hl_net_place_add_unit(hl_net_place *P, const hl_network_unit *u,
 				return HL_EIO;
 			*arr[i] = a;
 		}
+		g = realloc(P->group, cap * sizeof *g);
+		if (g == NULL)
+			return HL_EIO;
+		P->group = g;
 		P->cap = cap;
 	}
 	P->viol[k] = 0.0;
 	P->cost[k] = NAN;
+	P->group[k] = -1;
 	if (hl_network_add_unit(net, u, NULL) != HL_OK)
 		return HL_EIO;
 	net->unit[k].required = hl_network_required(&net->set,

@@ -16,7 +16,7 @@
 #include "network.h"
 
 /* V at or below this (K) counts as feasible. */
-#define HL_NET_VTOL 1e-7
+#define HL_NET_VTOL 1e-6
 /* The smallest branch share a split may give. */
 #define HL_NET_SMIN 0.02
 
@@ -43,6 +43,7 @@ typedef struct {
 	double *key_cold;
 	double *viol;         /* per unit: missing approach, K */
 	double *cost;         /* per unit: objective, NaN until computed */
+	long *group;          /* per unit: its match's group, -1: none */
 	size_t cap;           /* units allocated in the arrays above */
 	int by_area;          /* no cost law: the objective is area */
 	size_t evals;         /* evaluations so far */
@@ -109,7 +110,8 @@ hl_net_score hl_net_search_splits(hl_net_place *P, hl_net_score cur,
 				  hl_status *st);
 hl_net_score hl_net_search_unsplit(hl_net_place *P, hl_net_score cur,
 				   hl_status *st);
-/* Shift heat between two units of one pair (all balances keep). */
+/* Shift heat between two units of one group (pieces of one match: all
+ * balances keep). */
 hl_net_score hl_net_search_pairs(hl_net_place *P, hl_net_score cur,
 				 hl_status *st);
 

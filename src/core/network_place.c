@@ -222,6 +222,8 @@ build(const hl_network_input *in, hl_network *net, hl_net_place **out,
 			hl_net_place_free(P);
 			return hl_error_nomem(err);
 		}
+		P->group[net->nunit - 1] = in->group != NULL ? in->group[i] :
+		    -1;
 	}
 	sort_lanes(P);
 	*out = P;
@@ -290,8 +292,6 @@ search(hl_net_place *P, long *worst, double *keep, hl_error *err)
 	cur = hl_net_search_unsplit(P, cur, &st);
 	if (st == HL_OK)
 		cur = hl_net_search_order(P, cur, &st);
-	if (st == HL_OK)
-		cur = hl_net_search_pairs(P, cur, &st);
 	for (p = 0; p < P->net->nparty && st == HL_OK; p++)
 		for (b = 0; b < P->lane[p].n && st == HL_OK; b++)
 			if (P->lane[p].b[b].n > 1)

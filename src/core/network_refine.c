@@ -11,10 +11,10 @@
  * its approach most is cut in two by heat, its hotter half on both sides
  * (from its per-interval loads, or its windows) becoming one unit and the
  * rest another, and the whole placement runs again. Up to a few such cuts
- * are tried (two in a row without gain end it); the network kept is the
- * one of least total annual cost when every utility it uses has a price,
- * else the one of least energy penalty where each added unit must save 1 %
- * of the recovered heat. See doc/methods.md, "Network placement".
+ * are tried (two in a row without gain end it); a cut is kept only when it
+ * saves energy, and then when it lowers the total annual cost (every
+ * utility used has a price) or saves 1 % of the recovered heat per unit it
+ * adds. See doc/methods.md, "Network placement".
  */
 #include <math.h>
 #include <stdio.h>
@@ -305,24 +305,23 @@ recovery(const hl_network *net)
 	return q;
 }
 
-/* a better than b: by total annual cost when both are priced; else each
- * unit a adds must save at least 1 % of the recovered heat in penalty
- * (a rule of thumb of this program, no source). */
+/* a better than b, for a cut: only when it saves energy, and then by
+ * total annual cost when both are priced, else when each unit it adds
+ * saves at least 1 % of the recovered heat (a rule of thumb of this
+ * program, no source). More units for the same energy are never better:
+ * the cost law does not see what each unit costs to install and pipe. */
 static int
 prefer(const hl_network *a, const hl_network *b)
 {
 	double tol = 1e-6 * fmax(1.0, fmax(a->qh, b->qh));
 	double more = (double)a->nunit - (double)b->nunit;
 
+	if (!(a->penalty < b->penalty - tol))
+		return 0;
 	if (priced(a) && priced(b))
 		return a->total_cost < b->total_cost * (1.0 - 1e-9);
-	if (a->penalty < b->penalty - tol)
-		return more <= 0.0 || b->penalty - a->penalty >=
-		    0.01 * recovery(b) * more;
-	if (a->penalty <= b->penalty + tol)
-		return a->nunit < b->nunit || (a->nunit == b->nunit &&
-		    a->capital < b->capital);
-	return 0;
+	return more <= 0.0 || b->penalty - a->penalty >=
+	    0.01 * recovery(b) * more;
 }
 
 static hl_status
@@ -336,6 +335,7 @@ attempt(const hl_network_input *in, const mlist *L, hl_network **out,
 
 	sub.match = L->m;
 	sub.nmatch = L->n;
+	sub.group = L->origin;
 	st = hl_net_attempt(&sub, out, &w, keep, err);
 	if (st != HL_OK)
 		return st;
@@ -400,8 +400,9 @@ note_changes(hl_network *net, const hl_network_input *in, const mlist *L,
 			st = hl_network_add_note(net, err, "the match %s to %s "
 			    "(%.1f kW) is placed as %zu units (%s): as one unit "
 			    "it cannot keep the approach", h, c, want, n, ids);
-		if (st == HL_OK && n > 0 && fabs(sum - want) > 1e-6 *
-		    fmax(1.0, want))
+		/* Differences below what the report shows are no news. */
+		if (st == HL_OK && n > 0 && fabs(sum - want) > fmax(0.05,
+		    1e-3 * want))
 			st = hl_network_add_note(net, err, "%s (%s to %s) "
 			    "carries %.1f kW instead of the match's %.1f kW",
 			    ids, h, c, sum, want);
@@ -562,7 +563,9 @@ try_cuts(const hl_network_input *in, mlist *L, long w, double keep,
 			mlist_free(&trial);
 			continue;
 		}
-		if (top == NULL || prefer(net, top)) {
+		if (top == NULL || net->penalty < top->penalty - 1e-9 ||
+		    (net->penalty <= top->penalty + 1e-9 &&
+		    net->nunit < top->nunit)) {
 			hl_network_free(top);
 			mlist_free(&top_l);
 			top = net;
@@ -612,6 +615,7 @@ hl_network_place(const hl_network_input *in, hl_network **out,
 	st = attempt(in, &L, &best, &worst, &keep, err);
 	if (st == HL_OK)
 		st = try_merges(in, &L, &best, err);
+
 	if (st == HL_OK && best->penalty > 0.0)
 		st = attempt_worst(in, &L, &worst, &keep, err);
 	for (cuts = 0, idle = 0; st == HL_OK && best->penalty > 0.0 &&

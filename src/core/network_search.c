@@ -280,7 +280,7 @@ hl_net_search_unsplit(hl_net_place *P, hl_net_score cur, hl_status *st)
 	return cur;
 }
 
-/* Pattern search on the heat of two units of one hot and one cold party:
+/* Pattern search on the heat of two pieces of one match (same parties):
  * a step of their sum moves from one to the other, halving from a tenth
  * to 10⁻⁴ when no move helps. Both streams' balances keep, and so does
  * every utility load. No unit falls below 2 % of the pair's heat. */
@@ -336,9 +336,8 @@ hl_net_search_pairs(hl_net_place *P, hl_net_score cur, hl_status *st)
 	for (a = 0; a < net->nunit && *st == HL_OK; a++)
 		for (b = a + 1; b < net->nunit && *st == HL_OK; b++) {
 			if (net->unit[a].duty <= 0.0 ||
-			    net->unit[b].duty <= 0.0 ||
-			    net->unit[a].hot != net->unit[b].hot ||
-			    net->unit[a].cold != net->unit[b].cold)
+			    net->unit[b].duty <= 0.0 || P->group[a] < 0 ||
+			    P->group[a] != P->group[b])
 				continue;
 			cur = pair_shift(P, a, b, cur, st);
 		}
