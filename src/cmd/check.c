@@ -44,31 +44,19 @@ static int
 parse(int argc, char **argv, hl_common *o)
 {
 	static const struct option opts[] = {
-		{ "quiet", no_argument, NULL, 'q' },
+		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
-	int ch;
+	int ch, rc;
 
 	hl_common_init(o);
 	optind = 1;
 	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":qh", opts, NULL)) != -1) {
-		switch (ch) {
-		case 'q':
-			o->quiet = 1;
-			break;
-		case 'h':
-			help(stdout);
-			return -1;
-		case ':':
-			return hl_cmd_usage("check", "option '%s' needs a "
-			    "value", argv[optind - 1]);
-		default:
-			return hl_cmd_usage("check", "unknown option '%s'",
-			    argv[optind - 1]);
-		}
-	}
+	while ((ch = getopt_long(argc, argv, ":h", opts, NULL)) != -1)
+		if (hl_cmd_common_opt("check", ch, argv, 0, help, o, &rc) &&
+		    rc != 0)
+			return rc;
 	if (optind != argc - 1)
 		return hl_cmd_usage("check", optind >= argc ?
 		    "give one network file (XML)" :
