@@ -23,7 +23,7 @@
 #define TOP 96.0      /* first stream line */
 #define COL_EASY 30.0 /* a column wide enough for every label */
 #define COL_MIN 22.0  /* the narrowest column that stays legible */
-#define END_ROOM 92.0 /* from a line's end to the nearest column */
+#define END_ROOM 104.0/* from a line's end to the nearest column */
 #define END_UNIT 48.0 /* from a line's end to a heater or cooler there */
 #define WIDE 1028.0   /* 257 mm: A4 landscape inside its margins */
 #define NAME_LINE 14  /* characters of a stream name before it wraps */

@@ -456,9 +456,17 @@ draw_key(W w, const hl_network *net, const hl_grid_layout *L,
 	if (k % 2 == 1)
 		y += KEY_ROW - 2;
 	if (o != NULL && o->footnote != NULL) {
-		/* Two lines at most, broken at a space near the middle. */
-		const char *f = o->footnote;
-		size_t n = strlen(f), cut = n;
+		/* Two lines at most, broken at a space near the middle; the
+		 * text's own line breaks are blanks. */
+		char f[1024];
+		size_t n, cut, m;
+
+		snprintf(f, sizeof f, "%s", o->footnote);
+		for (m = 0; f[m] != '\0'; m++)
+			if (f[m] == '\n')
+				f[m] = ' ';
+		n = strlen(f);
+		cut = n;
 
 		y += 8;
 		if (hl_grid_text_width(f, FS_FOOT) > L->width - 48) {

@@ -35,11 +35,12 @@ wrapped(FILE *fp, const char *s, const char *first, const char *next,
 	size_t col = 0, n;
 	char word[512];
 
+	/* Line breaks in the text are blanks like any other. */
 	for (;;) {
-		s += strspn(s, " ");
+		s += strspn(s, " \n");
 		if (*s == '\0')
 			break;
-		n = strcspn(s, " ");
+		n = strcspn(s, " \n");
 		snprintf(word, sizeof word, "%.*s", (int)n, s);
 		if (col > 0 && col + 1 + width(word) > cols) {
 			fputc('\n', fp);
