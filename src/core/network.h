@@ -1,0 +1,195 @@
+/* network.h - a network of heat exchangers: matches placed on their streams,
+ * split where they must be, every temperature known, every unit sized.
+ *
+ * Data model. A network has parties (process streams and utilities) and
+ * units (exchangers). Each unit joins one hot and one cold party. Along a
+ * process stream the units stand in stages, numbered 1, 2, … from the supply
+ * end: a stage of one unit is plain series; a stage of several units is a
+ * split, the stream divided into parallel branches (one unit each, carrying
+ * the fraction `share` of the stream's cp; the shares of a stage sum to 1)
+ * that mix again after the stage. Every branch of a stage enters at the
+ * stage's inlet temperature; the mixed outlet follows from the heat balance.
+ * A utility serves its units in parallel, each from the utility's supply
+ * temperature to an outlet between supply and target (equal to both when it
+ * condenses or boils).
+ *
+ * The approach a unit must keep at every point is
+ *	required = min(EMAT, ΔT_hot + ΔT_cold)
+ * where EMAT (exchanger minimum approach temperature) is the case's `emat`
+ * or ΔTmin, and ΔT_hot, ΔT_cold are the two parties' ΔT contributions
+ * (their dt_contrib, or ΔTmin/2): without stream contributions this is EMAT.
+ *
+ * Placement (hl_network_place): see doc/methods.md, "Network placement".
+ * The input is a set of matches (hot party, cold party, duty, and where in
+ * temperature each exchanges its heat: per-interval loads or windows), as a
+ * match MILP gives them or as built by hand.
+ *
+ * Sizing: U from 1/U = 1/h_hot + 1/h_cold (h_default where a party has no
+ * h, reported as assumed), LMTD, F, shells, area and cost by exchanger.h;
+ * a unit whose side crosses a change of cp is sized piece by piece
+ * (profile.h) with the F of its terminal temperatures.
+ *
+ * Ownership: a network owns all its strings and arrays; hl_network_free
+ * accepts NULL. Units: °C, kW, kW/K, kW/(m²·K), m², currency.
+ * Errors: HL_EINPUT for an input that contradicts itself (a match on two
+ * parties of one kind, a duty above what its streams hold), HL_ENOSOLUTION
+ * when no feasible network exists even with relaxed loads, HL_EIO when
+ * memory runs out.
+ */
+#ifndef HL_NETWORK_H
+#define HL_NETWORK_H
+
+#include <stddef.h>
+
+#include "case.h"
+#include "exchanger.h"
+#include "status.h"
+
+typedef struct {
+	char *name;
+	hl_kind kind;
+	int utility;        /* 1: a utility, 0: a process stream */
+	int implicit;       /* utility not in the case (a bare stream table) */
+	double supply;      /* °C */
+	double target;      /* °C */
+	size_t nseg;        /* process streams: segments, supply end first;
+			       utilities: 0 */
+	hl_segment *seg;
+	double h;           /* utilities: kW/(m²·K), NaN: not given (h_default
+			       used); process streams give h per segment */
+	double dt_contrib;  /* K as given, NaN: ΔTmin/2 */
+	double load;        /* kW: a process stream's duty; a utility's load
+			       (in a network: the Σ of its units' duties) */
+	double price;       /* utilities: currency per MWh, NaN: none */
+	double max_load;    /* utilities: kW, NaN: unlimited */
+	long line;          /* line in the network file, 0 when built */
+} hl_network_party;
+
+/* A match to place. Where it exchanges: either per-interval loads give[k]
+ * (heat leaving the hot party in interval k) and take[k] (heat entering the
+ * cold party there) over the input's shifted intervals, or a window of real
+ * temperatures on each side; NaN windows and NULL loads leave the position
+ * to the search. */
+typedef struct {
+	size_t hot, cold;   /* party indices */
+	double duty;        /* kW, > 0 */
+	const double *give; /* nint values or NULL */
+	const double *take;
+	double hot_hi, hot_lo;   /* °C, hot side window, NaN unknown */
+	double cold_lo, cold_hi; /* °C, cold side window */
+} hl_network_match;
+
+typedef struct {
+	const hl_settings *set;   /* dtmin, emat, sizing and cost settings */
+	size_t nparty;
+	const hl_network_party *party;
+	size_t nmatch;
+	const hl_network_match *match;
+	size_t nint;              /* shifted intervals of give/take, 0: none */
+	const double *t;          /* nint + 1 shifted boundaries, falling */
+	const long *group;        /* per match, or NULL: matches of one group
+				     are pieces of one match, and the
+				     placement may shift heat between them */
+	double qh_target;         /* kW, minimum hot utility (problem table) */
+	double qc_target;
+	double restriction;       /* kW of hot utility the match rules added */
+} hl_network_input;
+
+/* assumed h flags of a unit */
+#define HL_NETWORK_H_HOT 1u
+#define HL_NETWORK_H_COLD 2u
+
+typedef struct {
+	char id[16];        /* "E1"…, heaters "H1"…, coolers "C1"… */
+	size_t hot, cold;   /* party indices */
+	long match;         /* input match, -1: added by the placement */
+	double duty;        /* kW */
+	double hot_in, hot_out, cold_in, cold_out;  /* °C */
+	double hot_share, cold_share;  /* fraction of the party's flow */
+	int hot_stage, cold_stage;     /* 1-based along a process stream,
+					  0 on a utility */
+	hl_exchanger_type type;
+	double u;           /* kW/(m²·K) */
+	unsigned assumed;   /* HL_NETWORK_H_* where h_default was used */
+	double required;    /* K, the approach the unit must keep */
+	double approach;    /* K, its smallest hot − cold difference */
+	double lmtd;        /* K, effective counterflow mean (pieces) */
+	double ft;          /* F of all shells, 1 for counterflow */
+	int shells;
+	double area;        /* m², total */
+	double area_shell;  /* m² */
+	double cost;        /* currency, shells·(a + b·area_shell^c) */
+	char *note;         /* NULL or one sentence for the report */
+	long line;          /* line in the network file, 0 when built */
+} hl_network_unit;
+
+typedef struct {
+	hl_settings set;           /* a copy; set.currency is owned */
+	size_t nparty;
+	hl_network_party *party;
+	size_t nunit;
+	hl_network_unit *unit;
+	size_t nmatch;             /* matches the placement was given */
+	double qh, qc;             /* kW of hot and cold utility used */
+	double qh_target, qc_target;
+	double restriction;        /* kW above the targets from match rules */
+	double penalty;            /* kW above them from the placement */
+	size_t nsplit;             /* split stages */
+	double area, capital;      /* m², currency */
+	double crf;                /* capital recovery factor, 1/year */
+	double capital_annual, energy_cost, total_cost;  /* currency/year */
+	size_t nnote;
+	char **note;               /* what the placement had to change */
+	char *source;              /* the case or network file, NULL */
+} hl_network;
+
+hl_network *hl_network_create(void);
+void hl_network_free(hl_network *net);
+
+/* Copy a party into the network (deep copy). */
+hl_status hl_network_add_party(hl_network *net, const hl_network_party *p,
+			       hl_error *err);
+/* Append a unit (note copied); its id is kept when set. */
+hl_status hl_network_add_unit(hl_network *net, const hl_network_unit *u,
+			      hl_error *err);
+/* Append a note (printf-style). */
+hl_status hl_network_add_note(hl_network *net, hl_error *err,
+			      const char *fmt, ...)
+	__attribute__((format(printf, 3, 4)));
+void hl_network_party_free(hl_network_party *p);
+
+/* Required approach (K) between two parties under the settings. */
+double hl_network_required(const hl_settings *set, const hl_network_party *hot,
+			   const hl_network_party *cold);
+
+/* ΔT contribution (K) of a party at set->dtmin. */
+double hl_network_shift(const hl_settings *set, const hl_network_party *p);
+
+/* Size unit u of net in place from its duty and terminal temperatures:
+ * U (and assumed flags), required approach, approach, LMTD, F, shells,
+ * area, cost. A shell-and-tube unit that would need more shells than
+ * HL_EXCHANGER_MAX_SHELLS is sized as counterflow, with a note. Errors:
+ * HL_EINPUT (naming the unit) when its temperatures cannot exchange heat. */
+hl_status hl_network_size_unit(const hl_network *net, hl_network_unit *u,
+			       hl_error *err);
+
+/* Fill the totals: utility use, splits, area, capital, CRF, annual costs. */
+void hl_network_totals(hl_network *net);
+
+/* Place and size the matches of in. On HL_OK *out is a network that closes
+ * every balance and keeps every required approach; where the loads allow no
+ * such placement, heat moved to utilities (net->penalty, with notes) or
+ * units added or dropped say what changed. */
+hl_status hl_network_place(const hl_network_input *in, hl_network **out,
+			   hl_error *err);
+
+/* Parties of a case for a network input: process streams in case order,
+ * then the case's utilities with their loads (util_load, kW, one per
+ * utility; NULL: all 0). Caller frees each with hl_network_party_free and
+ * the array with free(). */
+hl_status hl_network_parties_from_case(const hl_case *c,
+				       const double *util_load,
+				       hl_network_party **out, size_t *n,
+				       hl_error *err);
+
+#endif

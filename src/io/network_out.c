@@ -1,0 +1,558 @@
+/* network_out.c - writers of a designed network (network_out.h). */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "network_out.h"
+#include "profile.h"
+#include "result_xml.h"
+
+const char *
+hl_network_type_name(hl_exchanger_type t)
+{
+	return t == HL_EXCH_COUNTERFLOW ? "counterflow" : "shell-and-tube";
+}
+
+/* Characters (not bytes) of a UTF-8 string. */
+static size_t
+width(const char *s)
+{
+	size_t n = 0;
+
+	for (; *s != '\0'; s++)
+		n += ((unsigned char)*s & 0xC0) != 0x80;
+	return n;
+}
+
+/* s broken at spaces into lines of at most `cols` characters, the first
+ * led by `first`, the others by `next`. */
+static void
+wrapped(FILE *fp, const char *s, const char *first, const char *next,
+	size_t cols)
+{
+	const char *lead = first;
+	size_t col = 0, n;
+	char word[512];
+
+	/* Line breaks in the text are blanks like any other. */
+	for (;;) {
+		s += strspn(s, " \n");
+		if (*s == '\0')
+			break;
+		n = strcspn(s, " \n");
+		snprintf(word, sizeof word, "%.*s", (int)n, s);
+		if (col > 0 && col + 1 + width(word) > cols) {
+			fputc('\n', fp);
+			col = 0;
+			lead = next;
+		}
+		if (col == 0) {
+			fputs(lead, fp);
+			col = width(lead);
+		} else {
+			fputc(' ', fp);
+			col++;
+		}
+		fputs(word, fp);
+		col += width(word);
+		s += n;
+	}
+	fputc('\n', fp);
+}
+
+#define NCOL 16
+#define CELL 96
+
+static const char *const head[2][NCOL] = {
+	{ "unit", "hot", "cold", "duty", "hot in", "hot out", "cold in",
+	  "cold out", "hot", "cold", "U", "LMTD", "F", "shells", "area",
+	  "cost" },
+	{ "", "", "", "kW", "°C", "°C", "°C", "°C", "share", "share",
+	  "kW/(m²K)", "K", "", "", "m²", "" }
+};
+
+static void
+cells(const hl_network *net, const hl_network_unit *u, char c[NCOL][CELL])
+{
+	snprintf(c[0], CELL, "%s", u->id);
+	snprintf(c[1], CELL, "%s", net->party[u->hot].name);
+	snprintf(c[2], CELL, "%s", net->party[u->cold].name);
+	snprintf(c[3], CELL, "%.1f", u->duty);
+	snprintf(c[4], CELL, "%.1f", u->hot_in);
+	snprintf(c[5], CELL, "%.1f", u->hot_out);
+	snprintf(c[6], CELL, "%.1f", u->cold_in);
+	snprintf(c[7], CELL, "%.1f", u->cold_out);
+	snprintf(c[8], CELL, "%.3f", u->hot_share);
+	snprintf(c[9], CELL, "%.3f", u->cold_share);
+	snprintf(c[10], CELL, "%.3f%s", u->u, u->assumed ? "*" : "");
+	snprintf(c[11], CELL, "%.2f", u->lmtd);
+	snprintf(c[12], CELL, "%.3f", u->ft);
+	snprintf(c[13], CELL, "%d%s", u->shells,
+	    u->type == HL_EXCH_COUNTERFLOW ? " CF" : "");
+	snprintf(c[14], CELL, "%.2f", u->area);
+	snprintf(c[15], CELL, "%.0f", u->cost);
+}
+
+/* One line of the table: text columns left, numbers right; no blanks at
+ * the end. */
+static void
+row(FILE *fp, char c[NCOL][CELL], const size_t *w)
+{
+	char line[NCOL * (CELL + 2) + 1];
+	size_t i, n = 0, end;
+
+	for (i = 0; i < NCOL; i++) {
+		size_t pad = w[i] - width(c[i]), k;
+		int left = i < 3;
+
+		if (i > 0)
+			n += (size_t)snprintf(line + n, sizeof line - n, "  ");
+		for (k = 0; !left && k < pad; k++)
+			line[n++] = ' ';
+		n += (size_t)snprintf(line + n, sizeof line - n, "%s", c[i]);
+		for (k = 0; left && k < pad; k++)
+			line[n++] = ' ';
+	}
+	line[n] = '\0';
+	for (end = n; end > 0 && line[end - 1] == ' '; end--)
+		;
+	line[end] = '\0';
+	fprintf(fp, "%s\n", line);
+}
+
+static void
+text_table(FILE *fp, const hl_network *net)
+{
+	char c[NCOL][CELL];
+	size_t w[NCOL], i, k;
+
+	for (k = 0; k < NCOL; k++)
+		w[k] = width(head[0][k]) > width(head[1][k]) ?
+		    width(head[0][k]) : width(head[1][k]);
+	for (i = 0; i < net->nunit; i++) {
+		cells(net, &net->unit[i], c);
+		for (k = 0; k < NCOL; k++)
+			if (width(c[k]) > w[k])
+				w[k] = width(c[k]);
+	}
+	for (k = 0; k < 2; k++) {
+		char h[NCOL][CELL];
+		size_t j;
+
+		for (j = 0; j < NCOL; j++)
+			snprintf(h[j], CELL, "%s", head[k][j]);
+		row(fp, h, w);
+	}
+	for (i = 0; i < net->nunit; i++) {
+		cells(net, &net->unit[i], c);
+		row(fp, c, w);
+	}
+}
+
+/* "C1  20.0 → E5 → 35.0 → [E1 0.57 | E2 0.43] → 80.0": the stages of a
+ * process stream from its supply end. */
+static void
+text_chain(FILE *fp, const hl_network *net, size_t p)
+{
+	const hl_network_party *s = &net->party[p];
+	char buf[2048];
+	size_t n, i;
+	int stage, last = 0;
+
+	for (i = 0; i < net->nunit; i++) {
+		const hl_network_unit *u = &net->unit[i];
+		int g = u->hot == p ? u->hot_stage : u->cold == p ?
+		    u->cold_stage : 0;
+
+		if (g > last)
+			last = g;
+	}
+	n = (size_t)snprintf(buf, sizeof buf, "%.1f", s->supply);
+	for (stage = 1; stage <= last && n < sizeof buf; stage++) {
+		size_t count = 0;
+		double out = s->supply;
+
+		for (i = 0; i < net->nunit; i++) {
+			const hl_network_unit *u = &net->unit[i];
+
+			if ((u->hot == p ? u->hot_stage : u->cold == p ?
+			    u->cold_stage : 0) == stage)
+				count++;
+		}
+		n += (size_t)snprintf(buf + n, sizeof buf - n, " → %s",
+		    count > 1 ? "[" : "");
+		for (i = 0, count = 0; i < net->nunit && n < sizeof buf; i++) {
+			const hl_network_unit *u = &net->unit[i];
+			int hot = u->hot == p;
+			double share = hot ? u->hot_share : u->cold_share;
+
+			if ((hot ? u->hot_stage : u->cold == p ? u->cold_stage :
+			    0) != stage)
+				continue;
+			if (share < 1.0)
+				n += (size_t)snprintf(buf + n, sizeof buf - n,
+				    "%s%s %.2f", count ? " | " : "", u->id,
+				    share);
+			else
+				n += (size_t)snprintf(buf + n, sizeof buf - n,
+				    "%s", u->id);
+			out = hot ? u->hot_out : u->cold_out;
+			count++;
+		}
+		if (count > 1)
+			n += (size_t)snprintf(buf + n, sizeof buf - n, "]");
+		/* After a split the branches mix: show the mixed outlet. */
+		if (count > 1) {
+			double q = 0.0;
+
+			for (i = 0; i < net->nunit; i++) {
+				const hl_network_unit *u = &net->unit[i];
+
+				if ((u->hot == p ? u->hot_stage : u->cold == p ?
+				    u->cold_stage : 0) <= stage &&
+				    (u->hot == p || u->cold == p))
+					q += u->duty;
+			}
+			out = hl_profile_temp(s->seg, s->nseg, s->kind, q);
+		}
+		if (n < sizeof buf && !isnan(out))
+			n += (size_t)snprintf(buf + n, sizeof buf - n,
+			    " → %.1f", out);
+	}
+	fprintf(fp, "  %s (%s): ", s->name, s->kind == HL_HOT ? "hot" :
+	    "cold");
+	wrapped(fp, buf, "", "      ", 72);
+}
+
+static void
+text_summary(FILE *fp, const hl_network *net)
+{
+	const hl_settings *set = &net->set;
+	double emat = isnan(set->emat) ? set->dtmin : set->emat;
+	const char *cur = set->currency != NULL ? set->currency : "";
+
+	fprintf(fp, "Heat exchanger network: %s\n\n", net->source != NULL ?
+	    net->source : "");
+	fprintf(fp, "ΔTmin %.1f K, EMAT %.1f K; ", set->dtmin, emat);
+	if (set->exchanger == HL_EXCH_SHELL_TUBE)
+		fprintf(fp, "shell-and-tube units, F floor %.2f, Xp %.2f\n",
+		    set->fmin, set->xp);
+	else
+		fprintf(fp, "counterflow units (F = 1)\n");
+	fprintf(fp, "Hot utility        %10.1f kW (target %.1f kW)\n", net->qh,
+	    net->qh_target);
+	fprintf(fp, "Cold utility       %10.1f kW (target %.1f kW)\n", net->qc,
+	    net->qc_target);
+	if (net->restriction > 0.0)
+		fprintf(fp, "Match rules add    %10.1f kW to each\n",
+		    net->restriction);
+	if (net->penalty > 0.0)
+		fprintf(fp, "Placement adds     %10.1f kW to each (see the "
+		    "notes)\n", net->penalty);
+	fprintf(fp, "Units              %10zu for %zu matches, %zu stream "
+	    "split%s\n", net->nunit, net->nmatch, net->nsplit,
+	    net->nsplit == 1 ? "" : "s");
+	fprintf(fp, "Area               %10.1f m²\n", net->area);
+	fprintf(fp, "Capital            %10.0f %s (annualised %.0f %s/year, "
+	    "CRF %.4f: %.3g %% over %.3g years)\n", net->capital, cur,
+	    net->capital_annual, cur, net->crf, 100.0 * set->interest,
+	    set->life);
+	fprintf(fp, "Energy             %10.0f %s/year (%.0f h/year)\n",
+	    net->energy_cost, cur, set->hours);
+	fprintf(fp, "Total annual cost  %10.0f %s/year\n\n", net->total_cost,
+	    cur);
+}
+
+static void
+text_notes(FILE *fp, const hl_network *net)
+{
+	char buf[640];
+	size_t i;
+	int any = net->nnote > 0;
+
+	for (i = 0; i < net->nunit; i++)
+		any |= net->unit[i].note != NULL;
+	if (!any)
+		return;
+	fprintf(fp, "\nNotes\n");
+	for (i = 0; i < net->nnote; i++)
+		wrapped(fp, net->note[i], "  ", "      ", 78);
+	for (i = 0; i < net->nunit; i++)
+		if (net->unit[i].note != NULL) {
+			snprintf(buf, sizeof buf, "%s: %s", net->unit[i].id,
+			    net->unit[i].note);
+			wrapped(fp, buf, "  ", "      ", 78);
+		}
+}
+
+/* Which parties lent h_default to the U of some unit. */
+static void
+text_assumed(FILE *fp, const hl_network *net)
+{
+	char buf[1024];
+	size_t i, j, n = 0;
+
+	buf[0] = '\0';
+	for (i = 0; i < net->nparty; i++) {
+		int used = 0;
+
+		for (j = 0; j < net->nunit && !used; j++) {
+			const hl_network_unit *u = &net->unit[j];
+
+			used = (u->hot == i && (u->assumed & HL_NETWORK_H_HOT)) ||
+			    (u->cold == i && (u->assumed & HL_NETWORK_H_COLD));
+		}
+		if (used && n < sizeof buf)
+			n += (size_t)snprintf(buf + n, sizeof buf - n, "%s%s",
+			    n ? ", " : "", net->party[i].name);
+	}
+	fprintf(fp, "\n");
+	if (n > 0) {
+		char line[1200];
+
+		snprintf(line, sizeof line, "* U assumes h = %.3g kW/(m²K) "
+		    "(the setting h_default) for: %s. Give each stream its "
+		    "h (film coefficient with fouling) for a better "
+		    "estimate.", net->set.h_default, buf);
+		wrapped(fp, line, "", "  ", 78);
+	}
+	snprintf(buf, sizeof buf, "Cost per shell %.6g + %.6g·A^%.3g (A in "
+	    "m², the setting cost a, b, c; the built-in law is illustrative, "
+	    "not a price). Shells: the fewest in series with F at or above "
+	    "the floor and each shell's P within Xp of its maximum (Ahmad, "
+	    "Linnhoff & Smith 1988); CF: pure counterflow. Shares: the "
+	    "fraction of a stream's flow through the unit (1 unless the "
+	    "stream is split).", net->set.cost_a, net->set.cost_b,
+	    net->set.cost_c);
+	wrapped(fp, buf, "", "", 78);
+}
+
+void
+hl_network_text(FILE *fp, const hl_network *net, const char *caution)
+{
+	size_t i;
+
+	text_summary(fp, net);
+	text_table(fp, net);
+	fprintf(fp, "\nStreams, stage by stage from the supply end (°C)\n");
+	for (i = 0; i < net->nparty; i++)
+		if (!net->party[i].utility)
+			text_chain(fp, net, i);
+	text_notes(fp, net);
+	text_assumed(fp, net);
+	if (caution != NULL) {
+		fputc('\n', fp);
+		wrapped(fp, caution, "", "", 78);
+	}
+}
+
+static int
+xml_opt(xmlTextWriterPtr w, const char *name, double v)
+{
+	return isnan(v) ? 0 : hl_xml_num(w, name, v);
+}
+
+static int
+xml_party(xmlTextWriterPtr w, const hl_network_party *p)
+{
+	int rc = 0;
+	size_t k;
+
+	rc |= xmlTextWriterStartElement(w, BAD_CAST(p->utility ? "utility" :
+	    "stream"));
+	rc |= hl_xml_str(w, "name", p->name);
+	rc |= hl_xml_str(w, "kind", p->kind == HL_HOT ? "hot" : "cold");
+	rc |= hl_xml_num(w, "supply", p->supply);
+	rc |= hl_xml_num(w, "target", p->target);
+	if (p->utility) {
+		rc |= hl_xml_num(w, "load", p->load);
+		rc |= xml_opt(w, "price", p->price);
+		rc |= xml_opt(w, "h", p->h);
+		rc |= xml_opt(w, "max-load", p->max_load);
+	} else if (p->nseg == 1) {
+		rc |= hl_xml_num(w, "cp", p->seg[0].cp);
+		rc |= xml_opt(w, "h", p->seg[0].h);
+	}
+	rc |= xml_opt(w, "dt-contrib", p->dt_contrib);
+	if (p->utility && p->implicit)
+		rc |= hl_xml_str(w, "implicit", "yes");
+	for (k = 0; !p->utility && p->nseg > 1 && k < p->nseg; k++) {
+		rc |= xmlTextWriterStartElement(w, BAD_CAST "segment");
+		rc |= hl_xml_num(w, "supply", p->seg[k].supply);
+		rc |= hl_xml_num(w, "target", p->seg[k].target);
+		rc |= hl_xml_num(w, "cp", p->seg[k].cp);
+		rc |= xml_opt(w, "h", p->seg[k].h);
+		rc |= xmlTextWriterEndElement(w);
+	}
+	rc |= xmlTextWriterEndElement(w);
+	return rc;
+}
+
+static int
+xml_unit(xmlTextWriterPtr w, const hl_network *net, const hl_network_unit *u)
+{
+	int rc = 0;
+
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "exchanger");
+	rc |= hl_xml_str(w, "id", u->id);
+	rc |= hl_xml_str(w, "hot", net->party[u->hot].name);
+	rc |= hl_xml_str(w, "cold", net->party[u->cold].name);
+	rc |= hl_xml_str(w, "type", hl_network_type_name(u->type));
+	rc |= hl_xml_num(w, "duty", u->duty);
+	rc |= hl_xml_num(w, "hot-in", u->hot_in);
+	rc |= hl_xml_num(w, "hot-out", u->hot_out);
+	rc |= hl_xml_num(w, "cold-in", u->cold_in);
+	rc |= hl_xml_num(w, "cold-out", u->cold_out);
+	rc |= hl_xml_num(w, "hot-share", u->hot_share);
+	rc |= hl_xml_num(w, "cold-share", u->cold_share);
+	rc |= hl_xml_num(w, "u", u->u);
+	rc |= hl_xml_num(w, "lmtd", u->lmtd);
+	rc |= hl_xml_num(w, "ft", u->ft);
+	rc |= hl_xml_int(w, "shells", u->shells);
+	rc |= hl_xml_num(w, "area", u->area);
+	rc |= hl_xml_num(w, "area-shell", u->area_shell);
+	rc |= hl_xml_num(w, "cost", u->cost);
+	if (u->hot_stage > 0)
+		rc |= hl_xml_int(w, "hot-stage", u->hot_stage);
+	if (u->cold_stage > 0)
+		rc |= hl_xml_int(w, "cold-stage", u->cold_stage);
+	rc |= hl_xml_num(w, "approach", u->approach);
+	rc |= hl_xml_num(w, "required", u->required);
+	if (u->match >= 0)
+		rc |= hl_xml_int(w, "match", u->match + 1);
+	if (u->assumed != 0)
+		rc |= hl_xml_str(w, "assumed", u->assumed ==
+		    (HL_NETWORK_H_HOT | HL_NETWORK_H_COLD) ? "h-hot h-cold" :
+		    u->assumed == HL_NETWORK_H_HOT ? "h-hot" : "h-cold");
+	if (u->note != NULL)
+		rc |= hl_xml_str(w, "note", u->note);
+	rc |= xmlTextWriterEndElement(w);
+	return rc;
+}
+
+int
+hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
+{
+	const hl_settings *set = &net->set;
+	size_t i;
+	int rc = 0;
+
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "network");
+	rc |= hl_xml_num(w, "dtmin", set->dtmin);
+	rc |= hl_xml_num(w, "emat", isnan(set->emat) ? set->dtmin : set->emat);
+	rc |= hl_xml_str(w, "exchanger", hl_network_type_name(set->exchanger));
+	rc |= hl_xml_num(w, "fmin", set->fmin);
+	rc |= hl_xml_num(w, "xp", set->xp);
+	rc |= hl_xml_num(w, "h-default", set->h_default);
+	rc |= hl_xml_num(w, "cost-a", set->cost_a);
+	rc |= hl_xml_num(w, "cost-b", set->cost_b);
+	rc |= hl_xml_num(w, "cost-c", set->cost_c);
+	rc |= hl_xml_num(w, "interest", set->interest);
+	rc |= hl_xml_num(w, "life", set->life);
+	rc |= hl_xml_num(w, "hours", set->hours);
+	if (set->currency != NULL)
+		rc |= hl_xml_str(w, "currency", set->currency);
+	rc |= hl_xml_num(w, "hot-target", net->qh_target);
+	rc |= hl_xml_num(w, "cold-target", net->qc_target);
+	rc |= hl_xml_num(w, "hot-utility", net->qh);
+	rc |= hl_xml_num(w, "cold-utility", net->qc);
+	rc |= hl_xml_num(w, "rule-penalty", net->restriction);
+	rc |= hl_xml_num(w, "energy-penalty", net->penalty);
+	rc |= hl_xml_int(w, "matches", (long)net->nmatch);
+	rc |= hl_xml_int(w, "units", (long)net->nunit);
+	rc |= hl_xml_int(w, "splits", (long)net->nsplit);
+	rc |= hl_xml_num(w, "area", net->area);
+	rc |= hl_xml_num(w, "capital-cost", net->capital);
+	rc |= hl_xml_num(w, "crf", net->crf);
+	rc |= hl_xml_num(w, "annual-capital-cost", net->capital_annual);
+	rc |= hl_xml_num(w, "energy-cost", net->energy_cost);
+	rc |= hl_xml_num(w, "total-cost", net->total_cost);
+	for (i = 0; i < net->nparty && rc >= 0; i++)
+		if (!net->party[i].utility)
+			rc |= xml_party(w, &net->party[i]);
+	for (i = 0; i < net->nparty && rc >= 0; i++)
+		if (net->party[i].utility)
+			rc |= xml_party(w, &net->party[i]);
+	for (i = 0; i < net->nunit && rc >= 0; i++)
+		rc |= xml_unit(w, net, &net->unit[i]);
+	for (i = 0; i < net->nnote && rc >= 0; i++)
+		rc |= xmlTextWriterWriteElement(w, BAD_CAST "note",
+		    BAD_CAST net->note[i]);
+	rc |= xmlTextWriterEndElement(w);
+	return rc < 0 ? -1 : 0;
+}
+
+/* A CSV field, quoted when RFC 4180 needs it. */
+static void
+csv_text(FILE *fp, const char *s, int first)
+{
+	const char *p;
+
+	if (!first)
+		fputc(',', fp);
+	if (strpbrk(s, ",\"\r\n") == NULL && s[0] != ' ' && s[0] != '#') {
+		fputs(s, fp);
+		return;
+	}
+	fputc('"', fp);
+	for (p = s; *p != '\0'; p++) {
+		if (*p == '"')
+			fputc('"', fp);
+		fputc(*p, fp);
+	}
+	fputc('"', fp);
+}
+
+static void
+csv_num(FILE *fp, double v)
+{
+	char b[64];
+
+	fputc(',', fp);
+	if (!isfinite(v))
+		return;
+	hl_format_number(b, sizeof b, v);
+	fputs(b, fp);
+}
+
+void
+hl_network_csv(FILE *fp, const hl_network *net)
+{
+	size_t i;
+
+	fputs("id,hot,cold,type,duty,hot_in,hot_out,cold_in,cold_out,"
+	    "hot_share,cold_share,hot_stage,cold_stage,u,lmtd,f,shells,area,"
+	    "area_shell,cost,approach,required,assumed,note\n", fp);
+	for (i = 0; i < net->nunit; i++) {
+		const hl_network_unit *u = &net->unit[i];
+
+		csv_text(fp, u->id, 1);
+		csv_text(fp, net->party[u->hot].name, 0);
+		csv_text(fp, net->party[u->cold].name, 0);
+		csv_text(fp, hl_network_type_name(u->type), 0);
+		csv_num(fp, u->duty);
+		csv_num(fp, u->hot_in);
+		csv_num(fp, u->hot_out);
+		csv_num(fp, u->cold_in);
+		csv_num(fp, u->cold_out);
+		csv_num(fp, u->hot_share);
+		csv_num(fp, u->cold_share);
+		csv_num(fp, u->hot_stage > 0 ? u->hot_stage : NAN);
+		csv_num(fp, u->cold_stage > 0 ? u->cold_stage : NAN);
+		csv_num(fp, u->u);
+		csv_num(fp, u->lmtd);
+		csv_num(fp, u->ft);
+		csv_num(fp, u->shells);
+		csv_num(fp, u->area);
+		csv_num(fp, u->area_shell);
+		csv_num(fp, u->cost);
+		csv_num(fp, u->approach);
+		csv_num(fp, u->required);
+		csv_text(fp, u->assumed == 0 ? "" : u->assumed ==
+		    (HL_NETWORK_H_HOT | HL_NETWORK_H_COLD) ? "h-hot h-cold" :
+		    u->assumed == HL_NETWORK_H_HOT ? "h-hot" : "h-cold", 0);
+		csv_text(fp, u->note != NULL ? u->note : "", 0);
+		fputc('\n', fp);
+	}
+}
