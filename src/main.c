@@ -15,6 +15,7 @@ static const hl_command *const commands[] = {
 	&hl_cmd_curves,
 	&hl_cmd_sweep,
 	&hl_cmd_audit,
+	&hl_cmd_report,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 

@@ -1,0 +1,350 @@
+/* report.c - `heatloom report`: the whole study as one HTML file. */
+#include <getopt.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+
+#include "config.h"
+
+#include "cascade.h"
+#include "cmd.h"
+#include "curves.h"
+#include "output.h"
+#include "report_html.h"
+#include "sensitivity.h"
+#include "sweep.h"
+#include "targets_out.h"
+#include "utility_lp.h"
+
+static void
+help(FILE *fp)
+{
+	fprintf(fp,
+"Usage: heatloom report CASE -o FILE.html [options]\n"
+"\n"
+"The study as one self-contained HTML file for a client: the case and its\n"
+"stream and utility data, the energy targets and pinch with the heat\n"
+"cascade, the utility levels chosen at least cost, the composite, grand\n"
+"composite and balanced curves, the supertargets at the chosen ΔTmin and\n"
+"the trade-off over a range of ΔTmin, the stream data ranked by their\n"
+"effect on the targets, the settings (defaults named as such), the methods\n"
+"with references, and the caution. Charts and styles are inline: the file\n"
+"needs no network, script or other file, and prints on A4 and Letter.\n"
+"Every number is the rounding of the one in the XML results of the same\n"
+"command (targets, sweep).\n"
+"\n"
+"Options:\n"
+"  --dtmin K          ΔTmin of the study (default: the case's, or 10)\n"
+"  --utilities FILE   utility table (CSV) to add to the case\n"
+"  --from K           first ΔTmin of the trade-off (default 2)\n"
+"  --to K             last ΔTmin of the trade-off (default 40)\n"
+"  --step K           its grid step (default 1)\n"
+"  --no-sweep         leave the trade-off over ΔTmin out\n"
+"  --title TEXT       title of the report (default: from the case file name)\n"
+"  --author TEXT      name shown as \"prepared by\"\n"
+"  --date TEXT        date shown (default: today, or SOURCE_DATE_EPOCH)\n"
+"  -o, --output FILE  write to FILE instead of standard output\n"
+"  --verbose          show the LP solver's messages on standard error\n"
+"  -h, --help         show this help\n"
+"\n"
+"%s\n", hl_caution);
+}
+
+enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FROM, OPT_TO, OPT_STEP, OPT_NOSWEEP,
+       OPT_TITLE, OPT_AUTHOR, OPT_DATE, OPT_VERBOSE };
+
+typedef struct {
+	hl_common o;
+	double from, to, step;
+	int sweep;
+	const char *title, *author, *date;
+} report_opts;
+
+static int
+parse_value(int ch, const char *arg, report_opts *s)
+{
+	static const char *const names[] = { "--from", "--to", "--step" };
+	double *dst[] = { &s->from, &s->to, &s->step };
+	int k = ch - OPT_FROM;
+
+	if (ch == OPT_DTMIN)
+		return hl_cmd_parse_double("report", "--dtmin", arg, 0.0,
+					   500.0, &s->o.dtmin);
+	return hl_cmd_parse_double("report", names[k], arg, k == 2 ? 1e-3 :
+				   0.0, 500.0, dst[k]);
+}
+
+static int
+check_args(int argc, char **argv, report_opts *s)
+{
+	if (optind != argc - 1)
+		return hl_cmd_usage("report", optind >= argc ?
+				    "give one CASE file" :
+				    "give one CASE file, not several");
+	if (s->to < s->from)
+		return hl_cmd_usage("report", "--to %g is below --from %g",
+				    s->to, s->from);
+	if ((s->to - s->from) / s->step > 10000.0)
+		return hl_cmd_usage("report", "more than 10001 grid points; "
+				    "use a larger --step");
+	s->o.input = argv[optind];
+	return 0;
+}
+
+static int
+parse(int argc, char **argv, report_opts *s)
+{
+	static const struct option opts[] = {
+		{ "dtmin", required_argument, NULL, OPT_DTMIN },
+		{ "utilities", required_argument, NULL, OPT_UTIL },
+		{ "from", required_argument, NULL, OPT_FROM },
+		{ "to", required_argument, NULL, OPT_TO },
+		{ "step", required_argument, NULL, OPT_STEP },
+		{ "no-sweep", no_argument, NULL, OPT_NOSWEEP },
+		{ "title", required_argument, NULL, OPT_TITLE },
+		{ "author", required_argument, NULL, OPT_AUTHOR },
+		{ "date", required_argument, NULL, OPT_DATE },
+		{ "output", required_argument, NULL, 'o' },
+		{ "verbose", no_argument, NULL, OPT_VERBOSE },
+		{ "help", no_argument, NULL, 'h' },
+		{ NULL, 0, NULL, 0 }
+	};
+	int ch;
+
+	memset(s, 0, sizeof *s);
+	hl_common_init(&s->o);
+	s->from = 2.0;
+	s->to = 40.0;
+	s->step = 1.0;
+	s->sweep = 1;
+	optind = 1;
+	opterr = 0;
+	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
+		switch (ch) {
+		case OPT_DTMIN:
+		case OPT_FROM:
+		case OPT_TO:
+		case OPT_STEP:
+			if (parse_value(ch, optarg, s) != 0)
+				return 1;
+			break;
+		case OPT_UTIL:
+			s->o.utilities = optarg;
+			break;
+		case OPT_NOSWEEP:
+			s->sweep = 0;
+			break;
+		case OPT_TITLE:
+			s->title = optarg;
+			break;
+		case OPT_AUTHOR:
+			s->author = optarg;
+			break;
+		case OPT_DATE:
+			s->date = optarg;
+			break;
+		case 'o':
+			s->o.output = optarg;
+			break;
+		case OPT_VERBOSE:
+			s->o.verbose = 1;
+			break;
+		case 'h':
+			help(stdout);
+			return -1;
+		case ':':
+			return hl_cmd_usage("report", "option '%s' needs a "
+					    "value", argv[optind - 1]);
+		default:
+			return hl_cmd_usage("report", "unknown option '%s'",
+					    argv[optind - 1]);
+		}
+	}
+	return check_args(argc, argv, s);
+}
+
+/* Everything the report shows, computed before the file is opened. */
+typedef struct {
+	hl_case *c;
+	hl_cascade *cas;
+	hl_threshold th;
+	hl_utility_lp *lp;
+	hl_curves *cv;
+	hl_supertargets st;
+	int have_st;
+	hl_sweep *sw;
+	hl_sensitivity *sv;
+	char st_note[HL_ERROR_TEXT], sw_note[HL_ERROR_TEXT];
+	char date[32];
+} study;
+
+static void
+study_free(study *s)
+{
+	hl_sensitivity_free(s->sv);
+	hl_sweep_free(s->sw);
+	hl_curves_free(s->cv);
+	hl_utility_lp_free(s->lp);
+	hl_cascade_free(s->cas);
+	hl_case_free(s->c);
+}
+
+/* A stage whose failure leaves its section with the reason instead of
+ * failing the report: only "no answer" (exit 3) counts as such. */
+static hl_status
+optional(hl_status st, const hl_error *e, char *note, size_t size)
+{
+	if (st != HL_ENOSOLUTION)
+		return st;
+	snprintf(note, size, "%s", e->text);
+	return HL_OK;
+}
+
+static hl_status
+compute_optional(const report_opts *o, study *s, hl_error *err)
+{
+	hl_error e;
+	hl_status st;
+
+	hl_error_clear(&e);
+	st = hl_sweep_point_from(s->c, s->cas, s->lp, &s->st, &e);
+	s->have_st = st == HL_OK;
+	st = optional(st, &e, s->st_note, sizeof s->st_note);
+	if (st == HL_OK && o->sweep) {
+		st = hl_sweep_run(s->c, o->from, o->to, o->step, &s->sw, &e);
+		st = optional(st, &e, s->sw_note, sizeof s->sw_note);
+	}
+	if (st != HL_OK)
+		*err = e;
+	return st;
+}
+
+static hl_status
+compute(const report_opts *o, study *s, hl_error *err)
+{
+	hl_utility_lp_opts lo = { o->o.verbose, hl_cmd_log_stderr, NULL,
+				  NAN };
+	hl_status st;
+
+	memset(s, 0, sizeof *s);
+	st = hl_cmd_load_case(&o->o, &s->c, err);
+	if (st == HL_OK)
+		st = hl_cascade_compute(s->c, s->c->set.dtmin, &s->cas, err);
+	if (st == HL_OK) {
+		s->th.kind = hl_cascade_threshold_kind(s->cas);
+		st = hl_cascade_threshold_dtmin(s->c, s->cas, &s->th.dtmin,
+						err);
+	}
+	if (st == HL_OK && s->c->nutil > 0)
+		st = hl_utility_lp_solve(s->c, s->c->set.dtmin, &lo, &s->lp,
+					 err);
+	if (st == HL_OK)
+		st = hl_curves_compute(s->c, s->cas, s->lp, &s->cv, err);
+	if (st == HL_OK)
+		st = hl_sensitivity_compute(s->c, s->cas, &s->sv, err);
+	if (st == HL_OK)
+		st = compute_optional(o, s, err);
+	return st;
+}
+
+/* Today, or the time SOURCE_DATE_EPOCH fixes (reproducible output). */
+static const char *
+date_of(const report_opts *o, char *buf, size_t size)
+{
+	const char *env = getenv("SOURCE_DATE_EPOCH");
+	time_t t = time(NULL);
+	struct tm tm;
+
+	if (o->date != NULL)
+		return *o->date ? o->date : NULL;
+	if (env != NULL && *env != '\0')
+		t = (time_t)strtoll(env, NULL, 10);
+	if (gmtime_r(&t, &tm) == NULL || strftime(buf, size, "%Y-%m-%d",
+						  &tm) == 0)
+		return NULL;
+	return buf;
+}
+
+static const char *
+dtmin_from(const report_opts *o, const hl_case *c)
+{
+	hl_settings def;
+
+	if (!isnan(o->o.dtmin))
+		return "command line (--dtmin)";
+	hl_settings_default(&def);
+	return c->set.dtmin == def.dtmin ? "built-in default" :
+	       "set for this case";
+}
+
+static void
+fill(const report_opts *o, study *s, hl_report_data *d)
+{
+	memset(d, 0, sizeof *d);
+	d->meta.title = o->title;
+	d->meta.author = o->author;
+	d->meta.date = date_of(o, s->date, sizeof s->date);
+	d->meta.generator = PACKAGE_STRING;
+	d->meta.dtmin_from = dtmin_from(o, s->c);
+	d->meta.caution = hl_caution;
+	d->c = s->c;
+	d->cas = s->cas;
+	d->th = &s->th;
+	d->lp = s->lp;
+	d->cv = s->cv;
+	d->st = s->have_st ? &s->st : NULL;
+	d->st_note = s->st_note[0] ? s->st_note : NULL;
+	d->sw = s->sw;
+	d->sw_note = s->sw_note[0] ? s->sw_note : NULL;
+	d->sw_from = o->from;
+	d->sw_to = o->to;
+	d->sw_step = o->step;
+	d->sv = s->sv;
+}
+
+static hl_status
+run_report(const report_opts *o, hl_error *err)
+{
+	study s;
+	hl_report_data d;
+	hl_output out;
+	hl_status st = compute(o, &s, err);
+
+	if (st == HL_OK) {
+		fill(o, &s, &d);
+		st = hl_output_open(&out, o->o.output, err);
+	}
+	if (st == HL_OK) {
+		st = hl_report_html_write(out.fp, &d, err);
+		if (st == HL_OK)
+			st = hl_output_commit(&out, err);
+		hl_output_abort(&out);
+	}
+	study_free(&s);
+	return st;
+}
+
+static int
+run(int argc, char **argv)
+{
+	report_opts o;
+	hl_error err;
+	int rc = parse(argc, argv, &o);
+
+	if (rc != 0)
+		return rc < 0 ? 0 : rc;
+	hl_error_clear(&err);
+	if (run_report(&o, &err) != HL_OK)
+		return hl_cmd_fail(&err);
+	return 0;
+}
+
+const hl_command hl_cmd_report = {
+	"report", "CASE -o FILE.html [--dtmin K] [--utilities FILE] "
+	"[--from K --to K --step K] [--no-sweep] [--title TEXT] "
+	"[--author TEXT] [--date TEXT] [--verbose]",
+	"the whole study as one self-contained HTML report for a client",
+	run, help
+};
