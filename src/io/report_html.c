@@ -78,7 +78,7 @@ masthead(hl_html *h, const hl_report_data *d)
 	hl_html_elem(h, "p", "kicker", "Heat recovery screening study");
 	hl_html_elem(h, "h1", NULL, title);
 	hl_html_start(h, "p", "byline");
-	hl_html_textf(h, "Case %s", d->c->source ? d->c->source : "");
+	hl_html_textf(h, "Case %s", hl_report_case_name(d->c));
 	if (d->meta.author != NULL)
 		hl_html_textf(h, " \xc2\xb7 prepared by %s", d->meta.author);
 	if (d->meta.date != NULL)
@@ -86,7 +86,7 @@ masthead(hl_html *h, const hl_report_data *d)
 	hl_html_textf(h, " \xc2\xb7 %s", d->meta.generator);
 	hl_html_end(h);
 	hl_html_start(h, "p", "caution-banner");
-	hl_html_elem(h, "strong", NULL, "Screening estimate. ");
+	hl_html_elem(h, "strong", NULL, "Caution. ");
 	hl_html_text(h, d->meta.caution);
 	hl_html_end(h);
 	hl_html_end(h);

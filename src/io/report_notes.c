@@ -30,7 +30,9 @@ static void
 setting(hl_report *r, const char *name, const char *value,
 	const char *source)
 {
-	hl_report_row_start(r, source == DEFAULT_TEXT ? "default" : NULL);
+	hl_report_row_start(r, strncmp(source, DEFAULT_TEXT,
+				       sizeof DEFAULT_TEXT - 1) == 0 ?
+			    "default" : NULL);
 	hl_report_cell(r, name);
 	hl_report_cell(r, value);
 	hl_report_cell(r, source);

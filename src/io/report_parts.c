@@ -11,12 +11,17 @@ hl_report_currency(const hl_case *c)
 }
 
 const char *
+hl_report_base(const char *path)
+{
+	const char *slash = path ? strrchr(path, '/') : NULL;
+
+	return slash ? slash + 1 : path;
+}
+
+const char *
 hl_report_case_name(const hl_case *c)
 {
-	const char *s = c->source ? c->source : "case", *slash;
-
-	slash = strrchr(s, '/');
-	return slash ? slash + 1 : s;
+	return hl_report_base(c->source ? c->source : "case");
 }
 
 void

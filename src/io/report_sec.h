@@ -35,8 +35,9 @@ typedef struct {
 
 /* The case's currency label, "" when none. */
 const char *hl_report_currency(const hl_case *c);
-/* The file name part of the case's source path ("demo.xml"). */
+/* The file name part of the case's source path ("demo.xml"), of any path. */
 const char *hl_report_case_name(const hl_case *c);
+const char *hl_report_base(const char *path);
 
 /* A paragraph; a note in smaller type; a paragraph that says why a part is
  * missing. */
