@@ -52,8 +52,8 @@ help(FILE *fp)
 "%s\n", hl_caution);
 }
 
-enum { OPT_DTMIN = 256, OPT_UTIL, OPT_FROM, OPT_TO, OPT_STEP, OPT_NOSWEEP,
-       OPT_TITLE, OPT_AUTHOR, OPT_DATE, OPT_VERBOSE };
+enum { OPT_FROM = 256, OPT_TO, OPT_STEP, OPT_NOSWEEP, OPT_TITLE, OPT_AUTHOR,
+       OPT_DATE };
 
 typedef struct {
 	hl_common o;
@@ -62,43 +62,39 @@ typedef struct {
 	const char *title, *author, *date;
 } report_opts;
 
+/* The report's own options; 0, or 1 after a usage error. */
 static int
-parse_value(int ch, const char *arg, report_opts *s)
+own_option(int ch, const char *arg, report_opts *s)
 {
 	static const char *const names[] = { "--from", "--to", "--step" };
 	double *dst[] = { &s->from, &s->to, &s->step };
 	int k = ch - OPT_FROM;
 
-	if (ch == OPT_DTMIN)
-		return hl_cmd_parse_double("report", "--dtmin", arg, 0.0,
-					   500.0, &s->o.dtmin);
-	return hl_cmd_parse_double("report", names[k], arg, k == 2 ? 1e-3 :
-				   0.0, 500.0, dst[k]);
-}
-
-static int
-check_args(int argc, char **argv, report_opts *s)
-{
-	if (optind != argc - 1)
-		return hl_cmd_usage("report", optind >= argc ?
-				    "give one CASE file" :
-				    "give one CASE file, not several");
-	if (s->to < s->from)
-		return hl_cmd_usage("report", "--to %g is below --from %g",
-				    s->to, s->from);
-	if ((s->to - s->from) / s->step > 10000.0)
-		return hl_cmd_usage("report", "more than 10001 grid points; "
-				    "use a larger --step");
-	s->o.input = argv[optind];
-	return 0;
+	switch (ch) {
+	case OPT_NOSWEEP:
+		s->sweep = 0;
+		return 0;
+	case OPT_TITLE:
+		s->title = arg;
+		return 0;
+	case OPT_AUTHOR:
+		s->author = arg;
+		return 0;
+	case OPT_DATE:
+		s->date = arg;
+		return 0;
+	default:
+		return hl_cmd_parse_double("report", names[k], arg, k == 2 ?
+					   1e-3 : 0.0, 500.0, dst[k]) != 0;
+	}
 }
 
 static int
 parse(int argc, char **argv, report_opts *s)
 {
 	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, OPT_DTMIN },
-		{ "utilities", required_argument, NULL, OPT_UTIL },
+		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
+		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
 		{ "from", required_argument, NULL, OPT_FROM },
 		{ "to", required_argument, NULL, OPT_TO },
 		{ "step", required_argument, NULL, OPT_STEP },
@@ -107,11 +103,11 @@ parse(int argc, char **argv, report_opts *s)
 		{ "author", required_argument, NULL, OPT_AUTHOR },
 		{ "date", required_argument, NULL, OPT_DATE },
 		{ "output", required_argument, NULL, 'o' },
-		{ "verbose", no_argument, NULL, OPT_VERBOSE },
+		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
-	int ch;
+	int ch, rc;
 
 	memset(s, 0, sizeof *s);
 	hl_common_init(&s->o);
@@ -122,47 +118,23 @@ parse(int argc, char **argv, report_opts *s)
 	optind = 1;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		switch (ch) {
-		case OPT_DTMIN:
-		case OPT_FROM:
-		case OPT_TO:
-		case OPT_STEP:
-			if (parse_value(ch, optarg, s) != 0)
-				return 1;
-			break;
-		case OPT_UTIL:
-			s->o.utilities = optarg;
-			break;
-		case OPT_NOSWEEP:
-			s->sweep = 0;
-			break;
-		case OPT_TITLE:
-			s->title = optarg;
-			break;
-		case OPT_AUTHOR:
-			s->author = optarg;
-			break;
-		case OPT_DATE:
-			s->date = optarg;
-			break;
-		case 'o':
-			s->o.output = optarg;
-			break;
-		case OPT_VERBOSE:
-			s->o.verbose = 1;
-			break;
-		case 'h':
-			help(stdout);
-			return -1;
-		case ':':
-			return hl_cmd_usage("report", "option '%s' needs a "
-					    "value", argv[optind - 1]);
-		default:
-			return hl_cmd_usage("report", "unknown option '%s'",
-					    argv[optind - 1]);
+		if (hl_cmd_common_opt("report", ch, argv, 0, help, &s->o,
+				      &rc)) {
+			if (rc != 0)
+				return rc;
+		} else if (own_option(ch, optarg, s) != 0) {
+			return 1;
 		}
 	}
-	return check_args(argc, argv, s);
+	if ((rc = hl_cmd_one_input("report", argc, argv, &s->o)) != 0)
+		return rc;
+	if (s->to < s->from)
+		return hl_cmd_usage("report", "--to %g is below --from %g",
+				    s->to, s->from);
+	if ((s->to - s->from) / s->step > 10000.0)
+		return hl_cmd_usage("report", "more than 10001 grid points; "
+				    "use a larger --step");
+	return 0;
 }
 
 /* Everything the report shows, computed before the file is opened. */
