@@ -245,10 +245,10 @@ dtmin_from(const report_opts *o, const hl_case *c)
 	hl_settings def;
 
 	if (!isnan(o->o.dtmin))
-		return "command line (--dtmin)";
+		return "the command line, --dtmin";
 	hl_settings_default(&def);
 	return c->set.dtmin == def.dtmin ? "built-in default" :
-	       "set for this case";
+	       "differs from the default: set for this case";
 }
 
 static void

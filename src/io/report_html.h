@@ -36,9 +36,8 @@ typedef struct {
 	const char *author;       /* "Prepared by", NULL: left out */
 	const char *date;         /* "2026-12-02", NULL: left out */
 	const char *generator;    /* "heatloom 0.1.0" */
-	const char *dtmin_from;   /* where ΔTmin came from: "the case file",
-				     "the command line (--dtmin)", "the
-				     default" */
+	const char *dtmin_from;   /* where ΔTmin came from, as the Source
+				     column of the settings says it */
 	const char *caution;      /* the safety wording */
 } hl_report_meta;
 

@@ -16,7 +16,7 @@ always(const hl_report_data *d)
 }
 
 static const char DEFAULT_TEXT[] = "built-in default";
-static const char CASE_TEXT[] = "set for this case";
+static const char CASE_TEXT[] = "differs from the default: set for this case";
 
 static const char *
 source_of(int is_default)
@@ -71,7 +71,7 @@ settings_rows(hl_report *r, const hl_settings *s, const hl_settings *def)
 	snprintf(v, B, "%g + %g·A^%g %s per shell, A in m²", s->cost_a,
 		 s->cost_b, s->cost_c, cur);
 	setting(r, "Exchanger cost law", v, cost_default ?
-		"built-in default (illustrative, not a price)" : CASE_TEXT);
+		"built-in default: illustrative, not a price" : CASE_TEXT);
 	snprintf(v, B, "%g %% a year", 100.0 * s->interest);
 	setting(r, "Interest rate", v, source_of(s->interest == def->interest));
 	snprintf(v, B, "%g years", s->life);
@@ -112,10 +112,11 @@ write_assumptions(hl_report *r)
 
 	hl_settings_default(&def);
 	hl_report_para(r, "Every result rests on the settings below. A value "
-		       "marked as the built-in default was not chosen for "
-		       "this plant: it is heatloom's general starting value "
-		       "and should be replaced by the site's own where it "
-		       "matters.");
+		       "that equals heatloom's built-in default is named so: "
+		       "it is a general starting value that may not have been "
+		       "chosen for this plant. Confirm it, or replace it with "
+		       "the site's own where it matters (the cost law above "
+		       "all).");
 	hl_report_table_start(r, "data settings", "Settings of the study.", 3,
 			      head, NULL, NULL);
 	settings_rows(r, &c->set, &def);

@@ -33,7 +33,7 @@ super_facts(hl_report *r)
 	char v[2 * B], a[B];
 
 	hl_report_facts_start(r, NULL);
-	snprintf(v, sizeof v, "%s (from %s)", hl_report_fmt_dt(a, B,
+	snprintf(v, sizeof v, "%s (source: %s)", hl_report_fmt_dt(a, B,
 		 st->dtmin), r->d->meta.dtmin_from ? r->d->meta.dtmin_from :
 		 "the case");
 	hl_report_fact(r, "Chosen ΔTmin", v, "s-dtmin");
@@ -170,19 +170,20 @@ sweep_table(hl_report *r)
 	static const int num[] = { 1, 1, 1, 1, 1, 1, 1, 1, 1 };
 	const hl_sweep *sw = r->d->sw;
 	const char *cur = hl_report_currency(r->d->c);
-	char cu[64], cap[256];
+	char cu[64], cap[384], thin[128];
 	const char *unit[9] = { "K", "kW", "kW", "m²", "", "", cu, cu, cu };
 	size_t i, every = (sw->n + MAX_ROWS - 1) / MAX_ROWS;
 
 	snprintf(cu, sizeof cu, "%s/yr", *cur ? cur : "per");
 	if (every < 1)
 		every = 1;
+	snprintf(thin, sizeof thin, "; one grid point in %zu, the last, the "
+		 "least-cost and the chosen one are shown", every);
 	snprintf(cap, sizeof cap, "Supertargets over ΔTmin (%s area; capital "
-		 "annualised)%s. The grid's least total cost and the chosen "
-		 "ΔTmin are marked.", r->d->c->set.exchanger ==
+		 "annualised)%s. Shaded: the grid's least total cost (orange) "
+		 "and the chosen ΔTmin (blue-grey).", r->d->c->set.exchanger ==
 		 HL_EXCH_SHELL_TUBE ? "shell-and-tube" : "counterflow",
-		 every > 1 ? "; every second point or more of the grid is "
-		 "left out" : "");
+		 every > 1 ? thin : "");
 	hl_report_table_start(r, "data sweep", cap, 9, head, unit, num);
 	for (i = 0; i < sw->n; i++)
 		if (shown(r->d, i, every))
