@@ -39,8 +39,12 @@ hl_report_note(hl_report *r, const char *text)
 void
 hl_report_missing(hl_report *r, const char *what, const char *why)
 {
+	const char *text = why ? why : "not computed";
+	size_t n = strlen(text);
+
 	hl_html_start(r->h, "p", "missing");
-	hl_html_textf(r->h, "%s: %s", what, why ? why : "not computed");
+	hl_html_textf(r->h, "%s: %s%s", what, text, n > 0 &&
+		      text[n - 1] == '.' ? "" : ".");
 	hl_html_end(r->h);
 }
 
