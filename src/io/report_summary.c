@@ -33,11 +33,12 @@ job(hl_report *r)
 
 	hl_html_start(r->h, "p", "lead");
 	hl_html_textf(r->h, "This study screens the heat recovery between the "
-		      "%zu process streams of case %s: %zu hot streams that "
-		      "must give up %s and %zu cold streams that must take up "
-		      "%s", c->nstream, hl_report_case_name(c), hot,
+		      "%zu process streams of case %s: %zu hot stream%s that "
+		      "must give up %s and %zu cold stream%s that must take "
+		      "up %s", c->nstream, hl_report_case_name(c), hot,
+		      hot == 1 ? "" : "s",
 		      hl_report_fmt_duty(a, B, d->cas->hot_total),
-		      c->nstream - hot,
+		      c->nstream - hot, c->nstream - hot == 1 ? "" : "s",
 		      hl_report_fmt_duty(b, B, d->cas->cold_total));
 	if (c->nutil > 0)
 		hl_html_textf(r->h, ", with %zu utility levels to choose from",

@@ -6,6 +6,9 @@
 #include "report_sec.h"
 
 #define B 64
+/* A cascade with more boundaries than this is left to the CSV results: as
+ * pages of a report it would bury the rest. */
+#define MAX_CASCADE_ROWS 80
 
 static int
 always(const hl_report_data *d)
@@ -136,7 +139,15 @@ write_targets(hl_report *r)
 		       "it or a heater below it each add their duty to both "
 		       "the hot and the cold utility.");
 	target_facts(r);
-	cascade_table(r);
+	if (r->d->cas->nb <= MAX_CASCADE_ROWS) {
+		cascade_table(r);
+		return;
+	}
+	hl_html_start(r->h, "p", "note");
+	hl_html_textf(r->h, "The problem table has %zu boundaries, too many "
+		      "to print here; heatloom targets --format csv writes it "
+		      "in full.", r->d->cas->nb);
+	hl_html_end(r->h);
 }
 
 const hl_report_section hl_report_sec_targets = {

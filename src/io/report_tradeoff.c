@@ -41,8 +41,8 @@ super_facts(hl_report *r)
 		       hl_report_fmt_area(v, B, st->area), "s-area");
 	hl_report_fact(r, "Area target, shell-and-tube",
 		       hl_report_fmt_area(v, B, st->area_st), "s-area-st");
-	snprintf(v, sizeof v, "%d (N − 1 in each of %zu subnetworks)",
-		 st->units, st->nsub);
+	snprintf(v, sizeof v, "%d (N − 1 in each of %zu subnetwork%s)",
+		 st->units, st->nsub, st->nsub == 1 ? "" : "s");
 	hl_report_fact(r, "Units target", v, "s-units");
 	snprintf(v, sizeof v, "%d", st->shells);
 	hl_report_fact(r, "Shells target", v, "s-shells");

@@ -205,6 +205,18 @@ expect t-qh "20.0 kW"
 expect t-qc "60.0 kW"
 expect t-pinch1 "90.0 °C hot / 80.0 °C cold (85.0 °C shifted)"
 
+# A threshold problem (invented, checked by hand): hot 200 -> 100 °C and
+# cold 20 -> 50 °C, cp 1 kW/K each, need no hot utility until the cold
+# target plus ΔTmin passes the hot supply, at ΔTmin 150 K.
+printf 'name,supply,target,cp\nH1,200,100,1\nC1,20,50,1\n' >"$WORK/thr.csv"
+R="$WORK/thr.html"
+check_exit 0 hl report "$WORK/thr.csv" --no-sweep -o "$R"
+check_exit 0 "$HTML_CHECK" "$R"
+expect t-qh "0 kW"
+expect t-qc "70.0 kW"
+expect t-threshold "150.0 K (hot utility is needed above it)"
+check_grep 'no heating utility' "$R"
+
 # --- Defaults named as defaults; the caution; bad use. --------------------
 check_grep 'built-in default' "$WORK/r.html"
 check_grep 'qualified engineers under local codes' "$WORK/r.html"
