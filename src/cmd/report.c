@@ -8,15 +8,22 @@
 
 #include "config.h"
 
+#include "audit.h"
 #include "cascade.h"
 #include "cmd.h"
 #include "curves.h"
 #include "output.h"
 #include "report_html.h"
+#include "retrofit.h"
 #include "sensitivity.h"
 #include "sweep.h"
+#include "tables.h"
 #include "targets_out.h"
 #include "utility_lp.h"
+
+/* Points of the retrofit curve, as `heatloom audit` takes them, so that the
+ * two agree number for number. */
+#define RETROFIT_POINTS 11
 
 static void
 help(FILE *fp)
@@ -30,14 +37,19 @@ help(FILE *fp)
 "composite and balanced curves, the supertargets at the chosen ΔTmin and\n"
 "the trade-off over a range of ΔTmin, the stream data ranked by their\n"
 "effect on the targets, the settings (defaults named as such), the methods\n"
-"with references, and the caution. Charts and styles are inline: the file\n"
+"with references, and the caution. For a site with an existing network (the\n"
+"case's <network> or --network) also the audit: energy today against the\n"
+"targets and the saving, the culprits, the units as read, the area\n"
+"efficiency and a retrofit at constant α with its payback. Charts and\n"
+"styles are inline: the file\n"
 "needs no network, script or other file, and prints on A4 and Letter.\n"
 "Every number is the rounding of the one in the XML results of the same\n"
-"command (targets, sweep).\n"
+"command (targets, sweep, audit).\n"
 "\n"
 "Options:\n"
 "  --dtmin K          ΔTmin of the study (default: the case's, or 10)\n"
 "  --utilities FILE   utility table (CSV) to add to the case\n"
+"  --network FILE     today's network (CSV), instead of the case's own\n"
 "  --from K           first ΔTmin of the trade-off (default 2)\n"
 "  --to K             last ΔTmin of the trade-off (default 40)\n"
 "  --step K           its grid step (default 1)\n"
@@ -53,13 +65,14 @@ help(FILE *fp)
 }
 
 enum { OPT_FROM = 256, OPT_TO, OPT_STEP, OPT_NOSWEEP, OPT_TITLE, OPT_AUTHOR,
-       OPT_DATE };
+       OPT_DATE, OPT_NETWORK };
 
 typedef struct {
 	hl_common o;
 	double from, to, step;
 	int sweep;
 	const char *title, *author, *date;
+	const char *network;
 } report_opts;
 
 /* The report's own options; 0, or 1 after a usage error. */
@@ -83,6 +96,9 @@ own_option(int ch, const char *arg, report_opts *s)
 	case OPT_DATE:
 		s->date = arg;
 		return 0;
+	case OPT_NETWORK:
+		s->network = arg;
+		return 0;
 	default:
 		return hl_cmd_parse_double("report", names[k], arg, k == 2 ?
 					   1e-3 : 0.0, 500.0, dst[k]) != 0;
@@ -102,6 +118,7 @@ parse(int argc, char **argv, report_opts *s)
 		{ "title", required_argument, NULL, OPT_TITLE },
 		{ "author", required_argument, NULL, OPT_AUTHOR },
 		{ "date", required_argument, NULL, OPT_DATE },
+		{ "network", required_argument, NULL, OPT_NETWORK },
 		{ "output", required_argument, NULL, 'o' },
 		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
 		{ "help", no_argument, NULL, 'h' },
@@ -148,13 +165,18 @@ typedef struct {
 	int have_st;
 	hl_sweep *sw;
 	hl_sensitivity *sv;
+	hl_audit *audit;
+	hl_retrofit *retrofit;
 	char st_note[HL_ERROR_TEXT], sw_note[HL_ERROR_TEXT];
+	char audit_note[HL_ERROR_TEXT];
 	char date[32];
 } study;
 
 static void
 study_free(study *s)
 {
+	hl_retrofit_free(s->retrofit);
+	hl_audit_free(s->audit);
 	hl_sensitivity_free(s->sv);
 	hl_sweep_free(s->sw);
 	hl_curves_free(s->cv);
@@ -193,6 +215,68 @@ compute_optional(const report_opts *o, study *s, hl_error *err)
 	return st;
 }
 
+/* "heatloom: FILE:LINE: warning: text" for each warning of the reading of
+ * today's network, as `heatloom audit` prints them. */
+static void
+print_warnings(const hl_existing *net)
+{
+	size_t i;
+
+	for (i = 0; net != NULL && i < net->nwarn; i++) {
+		const hl_error *w = &net->warn[i];
+
+		fprintf(stderr, "heatloom: ");
+		if (w->file[0] != '\0' && w->line > 0)
+			fprintf(stderr, "%s:%ld: ", w->file, w->line);
+		else if (w->file[0] != '\0')
+			fprintf(stderr, "%s: ", w->file);
+		fprintf(stderr, "warning: %s\n", w->text);
+	}
+}
+
+/* The audit, when the case has today's network: bad network rows fail the
+ * report as they fail `heatloom audit`; no answer leaves a note. */
+static hl_status
+compute_audit(study *s, hl_error *err)
+{
+	hl_error e;
+	hl_status st;
+
+	if (s->c->nunit == 0)
+		return HL_OK;
+	hl_error_clear(&e);
+	st = hl_audit_run(s->c, &s->audit, &e);
+	print_warnings(s->audit ? s->audit->net : NULL);
+	if (st == HL_OK)
+		st = hl_retrofit_screen(s->c, s->audit, RETROFIT_POINTS,
+					&s->retrofit, &e);
+	if (st == HL_ENOSOLUTION) {
+		hl_retrofit_free(s->retrofit);
+		s->retrofit = NULL;
+		hl_audit_free(s->audit);
+		s->audit = NULL;
+		snprintf(s->audit_note, sizeof s->audit_note, "%s", e.text);
+		return HL_OK;
+	}
+	if (st != HL_OK)
+		*err = e;
+	return st;
+}
+
+static hl_status
+load(const report_opts *o, study *s, hl_error *err)
+{
+	hl_status st;
+
+	hl_output_protect(o->network);
+	st = hl_cmd_load_case(&o->o, &s->c, err);
+	if (st == HL_OK && o->network != NULL) {
+		hl_case_clear_units(s->c);
+		st = hl_network_table_read(s->c, o->network, err);
+	}
+	return st;
+}
+
 static hl_status
 compute(const report_opts *o, study *s, hl_error *err)
 {
@@ -201,7 +285,7 @@ compute(const report_opts *o, study *s, hl_error *err)
 	hl_status st;
 
 	memset(s, 0, sizeof *s);
-	st = hl_cmd_load_case(&o->o, &s->c, err);
+	st = load(o, s, err);
 	if (st == HL_OK)
 		st = hl_cascade_compute(s->c, s->c->set.dtmin, &s->cas, err);
 	if (st == HL_OK) {
@@ -218,6 +302,8 @@ compute(const report_opts *o, study *s, hl_error *err)
 		st = hl_sensitivity_compute(s->c, s->cas, &s->sv, err);
 	if (st == HL_OK)
 		st = compute_optional(o, s, err);
+	if (st == HL_OK)
+		st = compute_audit(s, err);
 	return st;
 }
 
@@ -274,6 +360,10 @@ fill(const report_opts *o, study *s, hl_report_data *d)
 	d->sw_to = o->to;
 	d->sw_step = o->step;
 	d->sv = s->sv;
+	d->audit = s->audit;
+	d->retrofit = s->retrofit;
+	d->audit_note = s->audit_note[0] ? s->audit_note : NULL;
+	d->network_file = o->network;
 }
 
 static hl_status
@@ -314,7 +404,7 @@ run(int argc, char **argv)
 }
 
 const hl_command hl_cmd_report = {
-	"report", "CASE -o FILE.html [--dtmin K] [--utilities FILE] "
+	"report", "CASE -o FILE.html [--dtmin K] [--utilities FILE] [--network FILE] "
 	"[--from K --to K --step K] [--no-sweep] [--title TEXT] "
 	"[--author TEXT] [--date TEXT] [--verbose]",
 	"the whole study as one self-contained HTML report for a client",

@@ -21,9 +21,11 @@
 
 #include <stdio.h>
 
+#include "audit.h"
 #include "cascade.h"
 #include "case.h"
 #include "curves.h"
+#include "retrofit.h"
 #include "sensitivity.h"
 #include "status.h"
 #include "supertarget.h"
@@ -55,6 +57,10 @@ typedef struct {
 	double sw_from, sw_to, sw_step;   /* K, the grid asked for */
 	const hl_sensitivity *sv;         /* NULL: not run */
 	const char *sv_note;
+	const hl_audit *audit;            /* NULL: no existing network */
+	const hl_retrofit *retrofit;      /* with audit, NULL: not run */
+	const char *audit_note;
+	const char *network_file;         /* --network, NULL: the case's */
 } hl_report_data;
 
 /* Write the whole report to fp. Errors: HL_EIO when memory runs out or a

@@ -169,6 +169,7 @@ const hl_report_section hl_report_sec_assumptions = {
 typedef struct {
 	const char *use;       /* what the method does in this report */
 	const char *ref;       /* the reference */
+	int audit;             /* 1: only with an audit of today's network */
 } method;
 
 static const method methods[] = {
@@ -176,44 +177,51 @@ static const method methods[] = {
 	  "temperatures.",
 	  "Linnhoff, B. & Flower, J. R. (1978). Synthesis of heat exchanger "
 	  "networks: I. Systematic generation of energy optimal networks. "
-	  "AIChE Journal 24(4), 633–642." },
+	  "AIChE Journal 24(4), 633–642.", 0 },
 	{ "Composite and grand composite curves, threshold problems, the "
 	  "pinch rules.",
 	  "Linnhoff, B. et al. (1982). A User Guide on Process Integration "
-	  "for the Efficient Use of Energy. IChemE, Rugby." },
+	  "for the Efficient Use of Energy. IChemE, Rugby.", 0 },
 	{ "Utility levels at least cost: the transshipment linear program, "
 	  "solved with GLPK.",
 	  "Papoulias, S. A. & Grossmann, I. E. (1983). A structural "
 	  "optimization approach in process synthesis – II: Heat recovery "
-	  "networks. Computers & Chemical Engineering 7(6), 707–721." },
+	  "networks. Computers & Chemical Engineering 7(6), 707–721.", 0 },
 	{ "Area target: vertical heat transfer over the enthalpy intervals of "
 	  "the balanced composite curves.",
 	  "Townsend, D. W. & Linnhoff, B. (1984). Surface area targets for "
-	  "heat exchanger networks. IChemE Annual Research Meeting, Bath." },
+	  "heat exchanger networks. IChemE Annual Research Meeting, Bath.", 0 },
 	{ "F correction of one shell pass with 2, 4, … tube passes.",
 	  "Bowman, R. A., Mueller, A. C. & Nagle, W. M. (1940). Mean "
 	  "temperature difference in design. Transactions of the ASME 62, "
-	  "283–294." },
+	  "283–294.", 0 },
 	{ "Shells in series by the Xp rule; the shell target.",
 	  "Ahmad, S., Linnhoff, B. & Smith, R. (1988). Design of multipass "
 	  "heat exchangers: an alternative approach. Journal of Heat "
 	  "Transfer 110, 304–309; Ahmad, S. & Smith, R. (1989), Transactions "
-	  "of the IChemE 67A." },
+	  "of the IChemE 67A.", 0 },
 	{ "Units target: N − 1 in each subnetwork between pinches.",
 	  "Hohmann, E. C. (1971). Optimum networks for heat exchange. PhD "
-	  "thesis, University of Southern California." },
+	  "thesis, University of Southern California.", 0 },
 	{ "Capital annualised by the capital recovery factor "
 	  "i(1+i)^n / ((1+i)^n − 1).",
-	  "The standard annuity formula of engineering economics." },
+	  "The standard annuity formula of engineering economics.", 0 },
 	{ "Optimum ΔTmin: the best grid point refined by golden-section "
 	  "search.",
 	  "Kiefer, J. (1953). Sequential minimax search for a maximum. "
-	  "Proceedings of the American Mathematical Society 4, 502–506." },
+	  "Proceedings of the American Mathematical Society 4, 502–506.", 0 },
 	{ "Sensitivity: exact one-sided derivatives of the targets from the "
 	  "active pinch of the problem table; bands re-solved at the corners "
 	  "of the tolerance box.",
 	  "heatloom's own method on the problem table of Linnhoff & Flower "
-	  "(1978), described in doc/methods.md of its source." },
+	  "(1978), described in doc/methods.md of its source.", 0 },
+	{ "Audit: each kW across the pinch costs a kW of heating and of "
+	  "cooling; the pinch rules of today's units.",
+	  "Linnhoff, B. et al. (1982), as above.", 1 },
+	{ "Area efficiency α of today's network and the retrofit at constant "
+	  "α.",
+	  "Tjoe, T. N. & Linnhoff, B. (1986). Using pinch technology for "
+	  "process retrofit. Chemical Engineering 93, 47–60.", 1 },
 };
 
 static void
@@ -227,6 +235,8 @@ write_methods(hl_report *r)
 		       "settings, rounded for reading.");
 	hl_html_start(r->h, "ol", "methods");
 	for (i = 0; i < sizeof methods / sizeof methods[0]; i++) {
+		if (methods[i].audit && r->d->audit == NULL)
+			continue;
 		hl_html_start(r->h, "li", NULL);
 		hl_html_elem(r->h, "span", "use", methods[i].use);
 		hl_html_text(r->h, " ");

@@ -1,5 +1,6 @@
 /* report_summary.c - the first page: what the study is, the headline
  * figures, and what they mean in a few sentences. */
+#include <math.h>
 #include <stdio.h>
 
 #include "report_sec.h"
@@ -133,6 +134,35 @@ finding_pinch(hl_report *r)
 }
 
 static void
+finding_audit(hl_report *r)
+{
+	const hl_audit *a = r->d->audit;
+	const hl_existing_unit *u;
+	char x[B], y[B], z[B];
+
+	if (a == NULL)
+		return;
+	finding_start(r);
+	hl_html_textf(r->h, "Today the plant uses %s of heating, %s more than "
+		      "the target", hl_report_fmt_duty(x, B, a->net->hot_now),
+		      hl_report_fmt_duty(y, B, a->saving));
+	if (a->nviol > 0) {
+		u = &a->net->unit[a->viol[0].unit];
+		hl_html_textf(r->h, "; %zu unit%s break%s the pinch rules, the "
+			      "largest %s (%s, %s)", a->nviol, a->nviol == 1 ?
+			      "" : "s", a->nviol == 1 ? "s" : "", u->name,
+			      a->viol[0].kind == HL_VIOL_ACROSS ? "heat across "
+			      "the pinch" : a->viol[0].kind == HL_VIOL_HOT_BELOW ?
+			      "heating below the pinch" : a->viol[0].kind ==
+			      HL_VIOL_COLD_ABOVE ? "cooling above the pinch" :
+			      "heat passed up", hl_report_fmt_duty(z, B,
+			      a->viol[0].duty));
+	}
+	hl_html_text(r->h, ".");
+	hl_html_end(r->h);
+}
+
+static void
 finding_utilities(hl_report *r)
 {
 	const hl_case *c = r->d->c;
@@ -214,6 +244,33 @@ finding_measure(hl_report *r)
 	hl_html_end(r->h);
 }
 
+/* For a site with today's network: where it stands and what a retrofit
+ * would pay, in place of the capital targets of a new design. */
+static void
+audit_tiles(hl_report *r)
+{
+	const hl_report_data *d = r->d;
+	const hl_audit *a = d->audit;
+	const char *cur = hl_report_currency(d->c);
+	const hl_retrofit_point *t = d->retrofit && d->retrofit->n > 0 ?
+		&d->retrofit->pt[d->retrofit->n - 1] : NULL;
+	char v[B], y[B];
+
+	hl_html_start(r->h, "div", "tiles capital");
+	tile(r, hl_report_fmt_duty(v, B, a->net->hot_now), "heating today",
+	     "sum-hot-now");
+	tile(r, hl_report_fmt_money(v, B, a->saving_cost, cur, 1),
+	     "saving potential at today's prices", "sum-saving");
+	if (t != NULL) {
+		tile(r, hl_report_fmt_area(v, B, t->new_area), "new area to "
+		     "reach the targets", "sum-new-area");
+		snprintf(v, sizeof v, "%s years", isnan(t->payback) ? "–" :
+			 hl_report_fmt_fixed(y, B, t->payback, 1));
+		tile(r, v, "simple payback of that retrofit", "sum-payback");
+	}
+	hl_html_end(r->h);
+}
+
 /* The capital side, when the supertargets ran: a second row of tiles. */
 static void
 capital_tiles(hl_report *r)
@@ -244,8 +301,12 @@ write_summary(hl_report *r)
 {
 	job(r);
 	tiles(r);
-	capital_tiles(r);
+	if (r->d->audit != NULL)
+		audit_tiles(r);
+	else
+		capital_tiles(r);
 	hl_html_start(r->h, "ul", "findings");
+	finding_audit(r);
 	finding_pinch(r);
 	finding_utilities(r);
 	finding_tradeoff(r);

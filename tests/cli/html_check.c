@@ -2,7 +2,10 @@
  * reader's browser would have to fetch.
  *
  * Usage: html_check FILE
- * Prints one line per finding on standard output:
+ *        html_check --table CLASS FILE
+ * The second form prints the body rows of every <table> whose class list
+ * holds CLASS, one line per row, the cells' text separated by tabs.
+ * The first prints one line per finding on standard output:
  *   section ID         a <div class="section"> of the report, in order
  *   figure ID          a <div class="figure"> holding an inline <svg>
  *   external WHERE V   a reference to anything outside the file: a src,
@@ -81,14 +84,81 @@ check_style(const char *where, const char *css)
 	}
 }
 
+/* cls is one of the space-separated names of n's class attribute. */
 static int
 has_class(xmlNodePtr n, const char *cls)
 {
 	xmlChar *v = xmlGetProp(n, BAD_CAST "class");
-	int yes = v != NULL && strcmp((char *)v, cls) == 0;
+	const char *p = (const char *)v;
+	size_t len = strlen(cls);
+	int yes = 0;
 
+	while (p != NULL && *p != '\0' && !yes) {
+		size_t k = strcspn(p, " ");
+
+		yes = k == len && strncmp(p, cls, len) == 0;
+		p += k;
+		p += strspn(p, " ");
+	}
 	xmlFree(v);
 	return yes;
+}
+
+static void
+print_cell(xmlNodePtr td)
+{
+	xmlChar *t = xmlNodeGetContent(td);
+	char *p;
+
+	for (p = (char *)t; p != NULL && *p != '\0'; p++)
+		if (*p == '\t' || *p == '\n')
+			*p = ' ';
+	fputs(t ? (char *)t : "", stdout);
+	xmlFree(t);
+}
+
+/* The rows of every tbody below n, cells tab-separated. */
+static void
+print_rows(xmlNodePtr n)
+{
+	xmlNodePtr tr, td;
+
+	for (; n != NULL; n = n->next) {
+		if (n->type != XML_ELEMENT_NODE)
+			continue;
+		if (strcmp((char *)n->name, "tbody") != 0) {
+			print_rows(n->children);
+			continue;
+		}
+		for (tr = n->children; tr != NULL; tr = tr->next) {
+			int first = 1;
+
+			if (tr->type != XML_ELEMENT_NODE)
+				continue;
+			for (td = tr->children; td != NULL; td = td->next) {
+				if (td->type != XML_ELEMENT_NODE)
+					continue;
+				if (!first)
+					putchar('\t');
+				print_cell(td);
+				first = 0;
+			}
+			putchar('\n');
+		}
+	}
+}
+
+static void
+tables(xmlNodePtr n, const char *cls)
+{
+	for (; n != NULL; n = n->next) {
+		if (n->type != XML_ELEMENT_NODE)
+			continue;
+		if (strcmp((char *)n->name, "table") == 0 && has_class(n, cls))
+			print_rows(n->children);
+		else
+			tables(n->children, cls);
+	}
 }
 
 static void
@@ -151,19 +221,25 @@ walk(xmlNodePtr n)
 int
 main(int argc, char **argv)
 {
+	const char *file = argv[argc - 1], *cls = NULL;
 	htmlDocPtr doc;
 
-	if (argc != 2) {
-		fprintf(stderr, "usage: html_check FILE\n");
+	if (argc == 4 && strcmp(argv[1], "--table") == 0) {
+		cls = argv[2];
+	} else if (argc != 2) {
+		fprintf(stderr, "usage: html_check [--table CLASS] FILE\n");
 		return 2;
 	}
 	xmlSetStructuredErrorFunc(NULL, on_error);
-	doc = htmlReadFile(argv[1], "UTF-8", HTML_PARSE_NONET);
+	doc = htmlReadFile(file, "UTF-8", HTML_PARSE_NONET);
 	if (doc == NULL) {
-		fprintf(stderr, "html_check: cannot parse %s\n", argv[1]);
+		fprintf(stderr, "html_check: cannot parse %s\n", file);
 		return 2;
 	}
-	walk(xmlDocGetRootElement(doc));
+	if (cls != NULL)
+		tables(xmlDocGetRootElement(doc), cls);
+	else
+		walk(xmlDocGetRootElement(doc));
 	xmlFreeDoc(doc);
 	xmlCleanupParser();
 	return errors > 0;

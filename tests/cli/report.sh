@@ -71,17 +71,50 @@ shown() {
 x() { xpath "string($1)" "$2"; }
 
 # sig V S MAXDEC: report_fmt.h's rule, by the same printf rounding.
-sig() {
-	awk -v v="$1" -v s="$2" -v md="$3" 'BEGIN {
-		if (v == 0) { print "0"; exit }
-		a = v < 0 ? -v : v
-		m = log(a) / log(10); f = int(m); if (f > m) f--
-		if (10 ^ (f + 1) <= a) f++; if (10 ^ f > a) f--
-		d = s - 1 - f; if (d > md) d = md
-		if (d >= 0) { printf("%." d "f\n", v); exit }
-		q = 10 ^ (-d); printf("%.0f\n", sprintf("%.0f", v / q) * q) }'
+ROUND='
+function sig(v, s, md,    a, m, f, d, q) {
+	if (v == 0) return "0"
+	a = v < 0 ? -v : v
+	m = log(a) / log(10); f = int(m); if (f > m) f--
+	if (10 ^ (f + 1) <= a) f++; if (10 ^ f > a) f--
+	d = s - 1 - f; if (d > md) d = md
+	if (d >= 0) return sprintf("%." d "f", v)
+	q = 10 ^ (-d); return sprintf("%.0f", sprintf("%.0f", v / q) * q)
 }
+function fix1(v) { return sprintf("%.1f", v) }'
+sig() { awk -v v="$1" -v s="$2" -v md="$3" "$ROUND"' BEGIN { print sig(v, s, md) }'; }
 fix1() { awk -v v="$1" 'BEGIN { printf("%.1f\n", v) }'; }
+
+# attrs XPATH FILE: the values of the attributes XPATH selects, one a line.
+attrs() {
+	"$XMLLINT" --xpath "$1" "$2" 2>/dev/null | sed 's/^[^=]*="\(.*\)"$/\1/'
+}
+# xml_tsv FILE XPATH ATTR...: one line per element, its attributes by tabs.
+xml_tsv() {
+	f=$1; e=$2; shift 2
+	k=0
+	for a in "$@"; do
+		attrs "$e/@$a" "$f" >"$WORK/col.$k"
+		k=$((k + 1))
+	done
+	j=0; set --
+	while [ "$j" -lt "$k" ]; do set -- "$@" "$WORK/col.$j"; j=$((j + 1)); done
+	paste "$@"
+}
+# html_tsv CLASS: the body rows of the report's table of that class.
+html_tsv() {
+	"$HTML_CHECK" --table "$1" "$R" | sed -e "s/$NNBSP//g" -e "s/$MINUS/-/g"
+}
+# compare NAME XML.tsv HTML.tsv PROGRAM: PROGRAM (awk, with the rounding
+# functions, x[] the XML row and $0 the report row of the same index)
+# prints a line per mismatch; none and as many rows on both sides pass.
+compare() {
+	bad=$(awk -F'\t' "$ROUND"'
+		NR == FNR { xml[FNR] = $0; nx = FNR; next }
+		{ n = split(xml[FNR], x, "\t"); '"$4"' }
+		END { if (FNR != nx) print "rows: " FNR " in the report, " nx " in the XML" }' "$2" "$3")
+	if [ -z "$bad" ]; then pass; else fail "$1: $(echo "$bad" | head -3)"; fi
+}
 
 # expect ID WANT: the element's text is WANT.
 expect() {
@@ -144,24 +177,23 @@ esac
 # Sweep: the optimum, and every row of the table against its <point>.
 expect w-optimum "$(fix1 "$(x '/results/sweep/optimum/@dtmin' "$W")") K"
 expect sum-optimum "$(fix1 "$(x '/results/sweep/optimum/@dtmin' "$W")") K ($(sig "$(x '/results/sweep/optimum/@total-cost' "$W")" 3 0) EUR/yr)"
-rows=$(xpath "count(//*[local-name()='table'][contains(@class,'sweep')]/*[local-name()='tbody']/*)" "$R")
+# The table shows some grid points: each row is found by its ΔTmin.
+html_tsv sweep >"$WORK/sweep.tsv"
+rows=$(wc -l <"$WORK/sweep.tsv")
 [ "$rows" -ge 15 ] && [ "$rows" -le 24 ] && pass || fail "sweep table has $rows rows"
-i=1
-while [ "$i" -le "$rows" ]; do
-	row="(//*[local-name()='table'][contains(@class,'sweep')]/*[local-name()='tbody']/*)[$i]"
-	dt=$(xpath "string($row/*[1])" "$R")
-	pt="/results/sweep/point[round(@dtmin * 10) = round($dt * 10)]"
-	for col in 2:hot-utility:1 8:energy-cost:0 9:total-cost:0; do
-		c=${col%%:*}; rest=${col#*:}; attr=${rest%%:*}; md=${rest#*:}
-		got=$(xpath "string($row/*[$c])" "$R" | sed "s/$NNBSP//g")
-		want=$(sig "$(x "$pt/@$attr" "$W")" 3 "$md")
-		[ "$got" = "$want" ] && pass || fail "sweep ΔTmin $dt $attr '$got', want '$want'"
-	done
-	got=$(xpath "string($row/*[4])" "$R")
-	want=$(fix1 "$(x "$pt/@area-shell-and-tube" "$W")")
-	[ "$got" = "$want" ] && pass || fail "sweep ΔTmin $dt area '$got', want '$want'"
-	i=$((i + 1))
-done
+xml_tsv "$W" /results/sweep/point dtmin hot-utility cold-utility \
+	area-shell-and-tube units shells annual-capital-cost energy-cost \
+	total-cost >"$WORK/points.tsv"
+bad=$(awk -F'\t' "$ROUND"'
+	NR == FNR { row[fix1($1)] = $0; next }
+	!($1 in row) { print "no grid point at " $1; next }
+	{ split(row[$1], x, "\t")
+	  want = sig(x[2], 3, 1) "|" sig(x[3], 3, 1) "|" fix1(x[4]) "|" x[5] "|" x[6] "|" \
+		sig(x[7], 3, 0) "|" sig(x[8], 3, 0) "|" sig(x[9], 3, 0)
+	  got = $2 "|" $3 "|" $4 "|" $5 "|" $6 "|" $7 "|" $8 "|" $9
+	  if (got != want) print "ΔTmin " $1 ": " got ", want " want }' \
+	"$WORK/points.tsv" "$WORK/sweep.tsv")
+[ -z "$bad" ] && pass || fail "sweep table: $(echo "$bad" | head -3)"
 
 # Sensitivity: the ranking's first rows and the bands.
 for k in 1 2 3; do
@@ -194,6 +226,67 @@ case $(xpath "string(//*[@id='u-cost'])" "$R") in
 *[0-9]"$NNBSP"[0-9][0-9][0-9]*) pass ;;
 *) fail "utility cost not grouped in threes" ;;
 esac
+
+# --- The audit of today's network (cases/demo-network.csv): its section
+# between the utility choice and the curves, and its numbers against
+# `heatloom audit --format xml`. ------------------------------------------
+R="$WORK/a.html"
+A="$WORK/a.xml"
+check_exit 0 hl report "$CASES/demo.xml" --network "$CASES/demo-network.csv" \
+	--no-sweep -o "$R"
+check_exit 0 hl audit "$CASES/demo.xml" --network "$CASES/demo-network.csv" \
+	--format xml -o "$A"
+check_exit 0 "$HTML_CHECK" "$R"
+got=$("$HTML_CHECK" "$R" | grep '^section ' | cut -d' ' -f2 | tr '\n' ' ')
+[ "$got" = "summary data targets utility-choice audit curves tradeoff sensitivity assumptions methods caution " ] \
+	&& pass || fail "audit sections: $got"
+# cell ID N: the text of the N-th cell of the row with that id.
+cell() {
+	xpath "string(//*[@id='$1']/*[$2])" "$R" | sed -e "s/$NNBSP//g" -e "s/$MINUS/-/g"
+}
+AU=/results/audit
+for side in hot cold; do
+	[ "$(cell a-$side 2)" = "$(sig "$(x "$AU/@$side-utility-now" "$A")" 3 1)" ] && pass \
+		|| fail "audit $side today '$(cell a-$side 2)'"
+	[ "$(cell a-$side 3)" = "$(sig "$(x "$AU/@$side-utility-target" "$A")" 3 1)" ] && pass \
+		|| fail "audit $side target '$(cell a-$side 3)'"
+done
+[ "$(cell a-hot 4)" = "$(sig "$(x "$AU/@saving" "$A")" 3 1)" ] && pass || fail "audit saving '$(cell a-hot 4)'"
+expect a-saving-cost "$(sig "$(x "$AU/@saving-cost" "$A")" 3 0) EUR/yr"
+expect sum-saving "$(sig "$(x "$AU/@saving-cost" "$A")" 3 0) EUR/yr"
+expect a-cost-now "$(sig "$(x "$AU/@utility-cost-now" "$A")" 3 0) EUR/yr"
+expect a-cost-target "$(sig "$(x "$AU/@utility-cost-target" "$A")" 3 0) EUR/yr"
+expect a-dtmin-now "$(fix1 "$(x "$AU/@dtmin-now" "$A")") K (the targets equal today's hot utility there)"
+expect a-area-existing "$(fix1 "$(x "$AU/@area-existing" "$A")") m²"
+expect a-area-target-now "$(fix1 "$(x "$AU/@area-target-now" "$A")") m²"
+expect a-alpha "$(sig "$(x "$AU/@alpha" "$A")" 3 3) (area target at today's energy / existing area)"
+# The culprits, rank by rank.
+[ "$(x "count($AU/violation)" "$A")" -ge 1 ] && pass || fail "the demo network breaks no pinch rule?"
+# The XML lists the violations by rank, as the report does.
+xml_tsv "$A" "$AU/violation" rank exchanger duty saving >"$WORK/viol.tsv"
+html_tsv culprits >"$WORK/culprits.tsv"
+compare culprits "$WORK/viol.tsv" "$WORK/culprits.tsv" '
+	if ($1 != x[1] || $2 != x[2] || $4 != sig(x[3], 3, 1) || $5 != sig(x[4], 3, 0))
+		print "rank " x[1] ": " $1 "|" $2 "|" $4 "|" $5'
+# The retrofit curve, point by point (payback is absent today: "today").
+xml_tsv "$A" "$AU/retrofit/point" hot-utility dtmin area-retrofit new-area \
+	investment saving >"$WORK/retro.tsv"
+html_tsv retrofit >"$WORK/retrofit.tsv"
+compare retrofit "$WORK/retro.tsv" "$WORK/retrofit.tsv" '
+	want = sig(x[1], 3, 1) "|" fix1(x[2]) "|" fix1(x[3]) "|" fix1(x[4]) "|" sig(x[5], 3, 0) "|" sig(x[6], 3, 0)
+	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6
+	if (got != want) print "point " FNR ": " got ", want " want'
+paybacks=$(attrs "$AU/retrofit/point/@payback" "$A" | awk '{ printf("%.1f ", $1) }')
+got=$(awk -F'\t' 'NR > 1 { printf("%s ", $7) }' "$WORK/retrofit.tsv")
+[ "$got" = "$paybacks" ] && pass || fail "retrofit paybacks '$got', want '$paybacks'"
+pb=$(fix1 "$(x "$AU/retrofit/point[last()]/@payback" "$A")")
+expect a-payback "$pb years"
+expect sum-payback "$pb years"
+check_grep 'Tjoe' "$R"
+# A bad network row stops the report as it stops the audit, nothing written.
+printf 'name,hot,cold,duty\nX-1,no such stream,reactor feed,100\n' >"$WORK/badnet.csv"
+check_exit 2 hl report "$CASES/demo.xml" --network "$WORK/badnet.csv" -o "$WORK/no.html"
+[ ! -e "$WORK/no.html" ] && pass || fail "a report with a bad network left a file"
 
 # --- An outside value: the four-stream problem of Linnhoff et al., User
 # Guide on Process Integration (IChemE 1982); Kemp, Pinch Analysis and
