@@ -82,6 +82,7 @@ const char hl_report_css[] =
 "background:var(--tint);break-inside:avoid}\n"
 ".tile-value{display:block;font-size:14pt;font-weight:bold;"
 "line-height:1.2;white-space:nowrap}\n"
+".tile-unit{font-size:9.5pt;font-weight:bold;color:var(--soft)}\n"
 ".tile-name{display:block;font-size:8pt;color:var(--soft)}\n"
 "ul.findings{margin:0 0 3mm;padding-left:5mm}\n"
 "ul.findings li{margin-bottom:1.5mm}\n"

@@ -2,6 +2,7 @@
  * figures, and what they mean in a few sentences. */
 #include <math.h>
 #include <stdio.h>
+#include <string.h>
 
 #include "report_sec.h"
 
@@ -53,13 +54,22 @@ job(hl_report *r)
 	hl_html_end(r->h);
 }
 
+/* A headline figure: the number large, its unit (from the no-break space
+ * that report_fmt puts before it) smaller, the name below. */
 static void
 tile(hl_report *r, const char *value, const char *name, const char *id)
 {
+	const char *unit = strstr(value, HL_NBSP);
+	char num[B];
+
+	snprintf(num, sizeof num, "%.*s", unit ? (int)(unit - value) :
+		 (int)strlen(value), value);
 	hl_html_start(r->h, "div", "tile");
 	hl_html_start(r->h, "span", "tile-value");
 	hl_html_attr(r->h, "id", id);
-	hl_html_text(r->h, value);
+	hl_html_text(r->h, num);
+	if (unit != NULL)
+		hl_html_elem(r->h, "span", "tile-unit", unit);
 	hl_html_end(r->h);
 	hl_html_elem(r->h, "span", "tile-name", name);
 	hl_html_end(r->h);
@@ -264,7 +274,7 @@ audit_tiles(hl_report *r)
 	if (t != NULL) {
 		tile(r, hl_report_fmt_area(v, B, t->new_area), "new area to "
 		     "reach the targets", "sum-new-area");
-		snprintf(v, sizeof v, "%s years", isnan(t->payback) ? "–" :
+		snprintf(v, sizeof v, "%s" HL_NBSP "years", isnan(t->payback) ? "–" :
 			 hl_report_fmt_fixed(y, B, t->payback, 1));
 		tile(r, v, "simple payback of that retrofit", "sum-payback");
 	}
