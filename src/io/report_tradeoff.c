@@ -9,7 +9,7 @@
 
 #define B 64
 /* More sweep points than this are thinned to every k-th in the table. */
-#define MAX_ROWS 20
+#define MAX_ROWS 14
 
 static int
 present(const hl_report_data *d)
