@@ -17,6 +17,7 @@ static const hl_command *const commands[] = {
 	&hl_cmd_audit,
 	&hl_cmd_matches,
 	&hl_cmd_check,
+	&hl_cmd_report,
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 

@@ -27,6 +27,7 @@ extern const hl_command hl_cmd_sweep;
 extern const hl_command hl_cmd_audit;
 extern const hl_command hl_cmd_matches;
 extern const hl_command hl_cmd_check;
+extern const hl_command hl_cmd_report;
 
 /* Output formats a command may accept. */
 typedef enum { HL_FMT_TEXT, HL_FMT_XML, HL_FMT_CSV } hl_format;
