@@ -344,9 +344,11 @@ order_identical(heur *h, double *x)
 			const int *s = h->m->sym + 5 * e;
 			const hl_match_sd *sd = &h->m->sd[s[0]];
 			int side = s[1];
-			size_t a = (size_t)s[2], b = (size_t)s[3], o = (size_t)s[4];
-			size_t ia = side ? HL_MATCH_PAIR(p, o, a) : HL_MATCH_PAIR(p, a, o);
-			size_t ib = side ? HL_MATCH_PAIR(p, o, b) : HL_MATCH_PAIR(p, b, o);
+			size_t a = (size_t)s[2], b = (size_t)s[3];
+			size_t o = (size_t)s[4], ia, ib;
+
+			ia = side ? HL_MATCH_PAIR(p, o, a) : HL_MATCH_PAIR(p, a, o);
+			ib = side ? HL_MATCH_PAIR(p, o, b) : HL_MATCH_PAIR(p, b, o);
 
 			if (x[sd->ycol[ia]] >= x[sd->ycol[ib]] - 0.5)
 				continue;
@@ -487,7 +489,8 @@ free_ticks(heur *h, diver *d)
 				living_heat(h, d, i, side, &cnt);
 				if (cnt != 1)
 					continue;
-				d->alive[h->y[i].si * np + cand_party(h, i, side)] = 0;
+				d->alive[h->y[i].si * np +
+					 cand_party(h, i, side)] = 0;
 				again = 1;
 			}
 	}
@@ -621,9 +624,12 @@ dive(heur *h, unsigned char *set, uint64_t seed)
 			if (h->effort <= 0 || hl_match_now() > h->deadline)
 				break;
 			done = try_tick(h, &d, &d.t[k], closed);
-			if (done)
-				d.alive[h->y[d.t[k].cand].si * np +
-					cand_party(h, d.t[k].cand, d.t[k].side)] = 0;
+			if (done) {
+				size_t c = d.t[k].cand;
+
+				d.alive[h->y[c].si * np +
+					cand_party(h, c, d.t[k].side)] = 0;
+			}
 		}
 		if (!done)
 			break;

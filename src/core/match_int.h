@@ -11,6 +11,7 @@
 #ifndef HL_MATCH_INT_H
 #define HL_MATCH_INT_H
 
+#include <pthread.h>
 #include <stddef.h>
 #include <stdint.h>
 
@@ -188,5 +189,81 @@ hl_status hl_match_rules(hl_match_problem *p, long skip, hl_match_pair *pair,
 hl_status hl_match_loads(const hl_match_problem *p, const hl_match_model_t *m,
 			 const double *x, int msg_lev, hl_match_result *r,
 			 hl_error *err);
+
+/* ---- solving (match_search.c, match_parts.c, match_pool.c) ---- */
+
+/* What every group's solve shares. */
+typedef struct {
+	const hl_match_problem *p;
+	const hl_match_options *o;
+	hl_match_result *r;
+	int msg_lev;
+	size_t done, total;
+	double *last;        /* time of the last progress report */
+	pthread_mutex_t *lock; /* guards last, done and progress; NULL when
+				  one thread solves everything */
+} hl_match_runner;
+
+void hl_match_lock(const hl_match_runner *R);
+void hl_match_unlock(const hl_match_runner *R);
+/* Report progress at most twice a second, from any stage of a group. */
+void hl_match_tick(const hl_match_runner *R, const char *label, double t0,
+		   double incumbent, double bound);
+
+/* What one group's solve found. */
+typedef struct {
+	double *x;
+	double obj, bound, seconds;
+	int optimal;
+} hl_match_outcome;
+
+/* Root LP, heuristic (up to a third of the time), then branch and bound
+ * until the deadline; quiet: no progress (a part's solve). out->x must
+ * hold the model's columns. */
+hl_status hl_match_search(const hl_match_runner *R, hl_match_model_t *m,
+			  const char *label, double deadline, int quiet,
+			  hl_match_outcome *out, hl_error *err);
+
+/* Model data of a group, with the balanced-subset bounds refined by
+ * solving the parts until the deadline. */
+hl_status hl_match_prepare_group(const hl_match_runner *R, const size_t *subs,
+				 size_t ns, hl_match_model_t *m,
+				 double deadline, hl_error *err);
+
+/* group[s]: the lowest subnetwork of s's group (linked by required or
+ * duty-limited pairs); refuses required pairs that can work nowhere. */
+hl_status hl_match_group_subs(const hl_match_problem *p, size_t *group,
+			      hl_error *err);
+
+/* One group of subnetworks to solve, with what it found. */
+typedef struct {
+	size_t *subs, ns;
+	hl_match_result part;   /* its matches (nint, match, nmatch only) */
+	size_t lower;           /* proven least units */
+	double bound, seconds;
+	int optimal;
+	hl_status st;
+	hl_error err;
+} hl_match_job;
+
+/* The groups to solve and the threads solving them. */
+typedef struct {
+	hl_match_runner *R;
+	hl_match_job *jobs;
+	size_t njobs;
+	size_t next;            /* the next job to take (under lock) */
+	size_t cur;             /* the helper's job, for a crash */
+	pthread_mutex_t mutex;
+	pthread_t helper;
+	int helper_running;
+} hl_match_pool;
+
+/* Make the jobs, solve them (two at a time when R->o->threads allows),
+ * and merge their matches into R->r. */
+hl_status hl_match_solve_all(hl_match_runner *R, hl_match_pool *pl,
+			     hl_error *err);
+/* Wait for the helper thread, if one runs (also after a GLPK crash). */
+void hl_match_join_helper(hl_match_pool *pl);
+void hl_match_jobs_free(hl_match_pool *pl);
 
 #endif

@@ -59,7 +59,7 @@ typedef struct {
 	double top, bottom; /* shifted °C of its range; equal when isothermal */
 	double supply, target; /* real °C */
 	int isolated;       /* process stream none of whose pairs with process
-			       streams is allowed: its duty all goes to utilities */
+			       streams is allowed: its duty goes to utilities */
 	double utility_duty; /* process streams: kW exchanged with utilities */
 } hl_match_party;
 

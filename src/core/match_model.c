@@ -208,9 +208,12 @@ hl_match_sd_init(const hl_match_problem *p, size_t s,
 			if (u <= p->tol)
 				continue;
 			sd->U[pi] = u;
-			for (kk = 0; kk < nk; kk++)
-				sd->ub[pi * nk + kk] = fmin(fmin(reach[a * nk + kk],
-					heat(p, p->cold[b], sd->first + kk)), u);
+			for (kk = 0; kk < nk; kk++) {
+				double d = heat(p, p->cold[b], sd->first + kk);
+
+				sd->ub[pi * nk + kk] =
+					fmin(fmin(reach[a * nk + kk], d), u);
+			}
 		}
 	}
 	free(reach);
@@ -676,7 +679,8 @@ identical(const hl_match_problem *p, const hl_match_sd *sd, int side,
 			 heat(p, i2, sd->first + kk)) > eps)
 			return 0;
 	for (o = 0; o < nother; o++) {
-		size_t pi = side_pair(p, side, x, o), pj = side_pair(p, side, x2, o);
+		size_t pi = side_pair(p, side, x, o);
+		size_t pj = side_pair(p, side, x2, o);
 		const hl_match_pair *q = &p->pair[pi], *q2 = &p->pair[pj];
 
 		if ((sd->ycol[pi] != 0) != (sd->ycol[pj] != 0))
@@ -741,10 +745,10 @@ add_sym_rows(builder *bd, const hl_match_sd *sd, int si, int side)
 			name_row(bd->m->P, r, "sym_s%zu_%s_%s", sd->sub + 1,
 				 bd->tok[side ? p->cold[last] : p->hot[last]],
 				 bd->tok[side ? p->cold[x2] : p->hot[x2]]);
-			hl_match_mat_add(&bd->mat, r,
-					 sd->ycol[side_pair(p, side, last, o)], 1.0);
-			hl_match_mat_add(&bd->mat, r,
-					 sd->ycol[side_pair(p, side, x2, o)], -1.0);
+			hl_match_mat_add(&bd->mat, r, sd->ycol[side_pair(p, side,
+					 last, o)], 1.0);
+			hl_match_mat_add(&bd->mat, r, sd->ycol[side_pair(p, side,
+					 x2, o)], -1.0);
 			if (add_sym(bd->m, si, side, last, x2, o) != 0) {
 				free(done);
 				return -1;
@@ -784,10 +788,12 @@ add_link_rows(builder *bd)
 			r = hl_match_add_row(m->P, GLP_UP, 0.0, q->maxduty);
 			name_row(m->P, r, "max_%s_%s", ht, ct);
 			for (s = 0; s < m->ns; s++)
-				for (kk = 0; kk < m->sd[s].nk; kk++)
+				for (kk = 0; kk < m->sd[s].nk; kk++) {
+					size_t at = pi * m->sd[s].nk + kk;
+
 					hl_match_mat_add(&bd->mat, r,
-						m->sd[s].qcol[pi * m->sd[s].nk + kk],
-						1.0);
+							 m->sd[s].qcol[at], 1.0);
+				}
 		}
 	}
 }
