@@ -1,12 +1,12 @@
 /* report.c - `heatloom report`: the whole study as one HTML file. */
+#include "config.h"
+
 #include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 #include <time.h>
-
-#include "config.h"
 
 #include "audit.h"
 #include "cascade.h"
