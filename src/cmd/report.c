@@ -1,4 +1,6 @@
 /* report.c - `heatloom report`: the whole study as one HTML file. */
+#include "config.h"
+
 #include <getopt.h>
 #include <math.h>
 #include <stdio.h>
@@ -6,12 +8,11 @@
 #include <string.h>
 #include <time.h>
 
-#include "config.h"
-
 #include "audit.h"
 #include "cascade.h"
 #include "cmd.h"
 #include "curves.h"
+#include "match_milp.h"
 #include "output.h"
 #include "report_html.h"
 #include "retrofit.h"
@@ -165,9 +166,11 @@ typedef struct {
 	int have_st;
 	hl_sweep *sw;
 	hl_sensitivity *sv;
+	hl_match_result *mr;
 	hl_audit *audit;
 	hl_retrofit *retrofit;
 	char st_note[HL_ERROR_TEXT], sw_note[HL_ERROR_TEXT];
+	char mr_note[HL_ERROR_TEXT];
 	char audit_note[HL_ERROR_TEXT];
 	char date[32];
 } study;
@@ -177,6 +180,7 @@ study_free(study *s)
 {
 	hl_retrofit_free(s->retrofit);
 	hl_audit_free(s->audit);
+	hl_match_result_free(s->mr);
 	hl_sensitivity_free(s->sv);
 	hl_sweep_free(s->sw);
 	hl_curves_free(s->cv);
@@ -209,6 +213,36 @@ compute_optional(const report_opts *o, study *s, hl_error *err)
 	if (st == HL_OK && o->sweep) {
 		st = hl_sweep_run(s->c, o->from, o->to, o->step, &s->sw, &e);
 		st = optional(st, &e, s->sw_note, sizeof s->sw_note);
+	}
+	if (st != HL_OK)
+		*err = e;
+	return st;
+}
+
+/* The fewest units at the utility LP's loads (the implicit pair at the
+ * problem-table targets without utilities), as `heatloom matches` runs it;
+ * no answer within the rules leaves a note, bad rules fail the report. */
+static hl_status
+compute_matches(study *s, hl_error *err)
+{
+	hl_match_options mo;
+	double *loads = NULL;
+	hl_error e;
+	hl_status st = HL_OK;
+	size_t i;
+
+	if (s->lp != NULL &&
+	    (loads = malloc(s->c->nutil * sizeof *loads)) == NULL)
+		return hl_error_nomem(err);
+	for (i = 0; loads != NULL && i < s->c->nutil; i++)
+		loads[i] = s->lp->util[i].load;
+	hl_match_options_default(&mo, s->c);
+	hl_error_clear(&e);
+	st = hl_match_solve(s->c, s->c->set.dtmin, loads, &mo, &s->mr, &e);
+	free(loads);
+	if (st == HL_ENOSOLUTION) {
+		snprintf(s->mr_note, sizeof s->mr_note, "%s", e.text);
+		return HL_OK;
 	}
 	if (st != HL_OK)
 		*err = e;
@@ -303,6 +337,8 @@ compute(const report_opts *o, study *s, hl_error *err)
 	if (st == HL_OK)
 		st = compute_optional(o, s, err);
 	if (st == HL_OK)
+		st = compute_matches(s, err);
+	if (st == HL_OK)
 		st = compute_audit(s, err);
 	return st;
 }
@@ -360,6 +396,8 @@ fill(const report_opts *o, study *s, hl_report_data *d)
 	d->sw_to = o->to;
 	d->sw_step = o->step;
 	d->sv = s->sv;
+	d->mr = s->mr;
+	d->mr_note = s->mr_note[0] ? s->mr_note : NULL;
 	d->audit = s->audit;
 	d->retrofit = s->retrofit;
 	d->audit_note = s->audit_note[0] ? s->audit_note : NULL;

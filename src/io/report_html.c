@@ -18,6 +18,7 @@ static const hl_report_section *const sections[] = {
 	&hl_report_sec_audit,
 	&hl_report_sec_curves,
 	&hl_report_sec_tradeoff,
+	&hl_report_sec_matches,
 	&hl_report_sec_sensitivity,
 	&hl_report_sec_assumptions,
 	&hl_report_sec_methods,
@@ -96,7 +97,7 @@ masthead(hl_html *h, const hl_report_data *d)
 static void
 contents(hl_html *h, const hl_report_data *d)
 {
-	size_t i, n = 0;
+	size_t i;
 	char href[64];
 
 	hl_html_start(h, "div", "contents");
@@ -112,11 +113,9 @@ contents(hl_html *h, const hl_report_data *d)
 		hl_html_text(h, sections[i]->title);
 		hl_html_end(h);
 		hl_html_end(h);
-		n++;
 	}
 	hl_html_end(h);
 	hl_html_end(h);
-	(void)n;
 }
 
 static void

@@ -25,6 +25,7 @@
 #include "cascade.h"
 #include "case.h"
 #include "curves.h"
+#include "match_milp.h"
 #include "retrofit.h"
 #include "sensitivity.h"
 #include "status.h"
@@ -57,6 +58,8 @@ typedef struct {
 	double sw_from, sw_to, sw_step;   /* K, the grid asked for */
 	const hl_sensitivity *sv;         /* NULL: not run */
 	const char *sv_note;
+	const hl_match_result *mr;        /* NULL: not run */
+	const char *mr_note;
 	const hl_audit *audit;            /* NULL: no existing network */
 	const hl_retrofit *retrofit;      /* with audit, NULL: not run */
 	const char *audit_note;

@@ -169,8 +169,18 @@ const hl_report_section hl_report_sec_assumptions = {
 typedef struct {
 	const char *use;       /* what the method does in this report */
 	const char *ref;       /* the reference */
-	int audit;             /* 1: only with an audit of today's network */
+	int needs;             /* the stage it needs: NEED_* */
 } method;
+
+enum { NEED_NONE = 0, NEED_AUDIT = 1, NEED_MATCHES = 2 };
+
+static int
+method_shown(const method *m, const hl_report_data *d)
+{
+	return m->needs == NEED_NONE ||
+	       (m->needs == NEED_AUDIT && d->audit != NULL) ||
+	       (m->needs == NEED_MATCHES && d->mr != NULL);
+}
 
 static const method methods[] = {
 	{ "Energy targets and pinch: the problem table on shifted "
@@ -217,11 +227,16 @@ static const method methods[] = {
 	  "(1978), described in doc/methods.md of its source.", 0 },
 	{ "Audit: each kW across the pinch costs a kW of heating and of "
 	  "cooling; the pinch rules of today's units.",
-	  "Linnhoff, B. et al. (1982), as above.", 1 },
+	  "Linnhoff, B. et al. (1982), as above.", NEED_AUDIT },
 	{ "Area efficiency α of today's network and the retrofit at constant "
 	  "α.",
 	  "Tjoe, T. N. & Linnhoff, B. (1986). Using pinch technology for "
-	  "process retrofit. Chemical Engineering 93, 47–60.", 1 },
+	  "process retrofit. Chemical Engineering 93, 47–60.", NEED_AUDIT },
+	{ "Fewest units and the duty of every match: the expanded "
+	  "transshipment MILP per subnetwork between pinches, solved with "
+	  "GLPK.",
+	  "Papoulias, S. A. & Grossmann, I. E. (1983), as above.",
+	  NEED_MATCHES },
 };
 
 static void
@@ -235,7 +250,7 @@ write_methods(hl_report *r)
 		       "settings, rounded for reading.");
 	hl_html_start(r->h, "ol", "methods");
 	for (i = 0; i < sizeof methods / sizeof methods[0]; i++) {
-		if (methods[i].audit && r->d->audit == NULL)
+		if (!method_shown(&methods[i], r->d))
 			continue;
 		hl_html_start(r->h, "li", NULL);
 		hl_html_elem(r->h, "span", "use", methods[i].use);

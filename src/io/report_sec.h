@@ -84,6 +84,7 @@ extern const hl_report_section hl_report_sec_choice;
 extern const hl_report_section hl_report_sec_audit;
 extern const hl_report_section hl_report_sec_curves;
 extern const hl_report_section hl_report_sec_tradeoff;
+extern const hl_report_section hl_report_sec_matches;
 extern const hl_report_section hl_report_sec_sensitivity;
 extern const hl_report_section hl_report_sec_assumptions;
 extern const hl_report_section hl_report_sec_methods;

@@ -32,7 +32,7 @@ else pass; fi
 # --- Sections: those the demo's stages produce, in order. ----------------
 "$HTML_CHECK" "$R" >"$WORK/found"
 grep '^section ' "$WORK/found" | cut -d' ' -f2 | tr '\n' ' ' >"$WORK/sections"
-want="summary data targets utility-choice curves tradeoff sensitivity assumptions methods caution "
+want="summary data targets utility-choice curves tradeoff matches sensitivity assumptions methods caution "
 [ "$(cat "$WORK/sections")" = "$want" ] && pass || fail "demo sections: $(cat "$WORK/sections")"
 # Composite, grand composite, balanced composite, cost and area charts.
 [ "$(grep -c '^figure ' "$WORK/found")" -eq 5 ] && pass || fail "demo figures: $(grep -c '^figure ' "$WORK/found")"
@@ -43,7 +43,7 @@ check_exit 0 hl report "$CASES/demo-streams.csv" --no-sweep -o "$WORK/s.html"
 check_exit 0 "$HTML_CHECK" "$WORK/s.html"
 "$HTML_CHECK" "$WORK/s.html" >"$WORK/found2"
 got=$(grep '^section ' "$WORK/found2" | cut -d' ' -f2 | tr '\n' ' ')
-[ "$got" = "summary data targets curves tradeoff sensitivity assumptions methods caution " ] \
+[ "$got" = "summary data targets curves tradeoff matches sensitivity assumptions methods caution " ] \
 	&& pass || fail "stream-table sections: $got"
 [ "$(grep -c '^figure ' "$WORK/found2")" -eq 2 ] && pass || fail "stream-table figures"
 check_grep 'the total annual cost is least at ΔTmin' "$R"
@@ -227,6 +227,20 @@ case $(xpath "string(//*[@id='u-cost'])" "$R") in
 *) fail "utility cost not grouped in threes" ;;
 esac
 
+# --- The match table against `heatloom matches --format xml`, match by
+# match in the same order. -------------------------------------------------
+M="$WORK/m.xml"
+check_exit 0 hl matches "$CASES/demo.xml" --format xml -o "$M"
+R="$WORK/r.html"
+expect m-units "$(x '/results/matches/@units' "$M") units"
+xml_tsv "$M" /results/matches/match hot cold duty region hot-from hot-to \
+	cold-from cold-to >"$WORK/match.tsv"
+html_tsv matches >"$WORK/matches.tsv"
+compare matches "$WORK/match.tsv" "$WORK/matches.tsv" '
+	want = FNR "|" x[1] "|" x[2] "|" sig(x[3], 3, 1) "|" x[4] "|" fix1(x[5]) " → " fix1(x[6]) "|" fix1(x[7]) " → " fix1(x[8])
+	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6 "|" $7
+	if (got != want) print "match " FNR ": " got ", want " want'
+
 # --- The audit of today's network (cases/demo-network.csv): its section
 # between the utility choice and the curves, and its numbers against
 # `heatloom audit --format xml`. ------------------------------------------
@@ -238,7 +252,7 @@ check_exit 0 hl audit "$CASES/demo.xml" --network "$CASES/demo-network.csv" \
 	--format xml -o "$A"
 check_exit 0 "$HTML_CHECK" "$R"
 got=$("$HTML_CHECK" "$R" | grep '^section ' | cut -d' ' -f2 | tr '\n' ' ')
-[ "$got" = "summary data targets utility-choice audit curves tradeoff sensitivity assumptions methods caution " ] \
+[ "$got" = "summary data targets utility-choice audit curves tradeoff matches sensitivity assumptions methods caution " ] \
 	&& pass || fail "audit sections: $got"
 # cell ID N: the text of the N-th cell of the row with that id.
 cell() {
