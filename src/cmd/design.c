@@ -16,6 +16,7 @@
 #include "cmd.h"
 #include "grid_svg.h"
 #include "match_milp.h"
+#include "matches_out.h"
 #include "netcheck.h"
 #include "network.h"
 #include "network_match.h"
@@ -208,8 +209,8 @@ solve(const options *o, run_state *s, hl_error *err)
 	return st;
 }
 
-/* The results document: targets (with the utility levels) and the
- * network, in memory. */
+/* The results document: targets (with the utility levels), the matches
+ * and the network, in memory. */
 static hl_status
 build_xml(run_state *s, hl_error *err)
 {
@@ -226,6 +227,8 @@ build_xml(run_state *s, hl_error *err)
 	if (hl_targets_xml_begin(hl_xml_out_writer(x), s->cas, &th) < 0 ||
 	    (s->lp != NULL && hl_utility_lp_xml(hl_xml_out_writer(x), s->c,
 	    s->lp) < 0) || hl_targets_xml_end(hl_xml_out_writer(x)) < 0 ||
+	    hl_matches_xml(hl_xml_out_writer(x), s->c, s->mr,
+	    s->c->set.dtmin) < 0 ||
 	    hl_network_xml(hl_xml_out_writer(x), s->net) < 0) {
 		hl_xml_out_free(x);
 		return hl_error_set(err, HL_EIO, NULL, 0, "cannot build the "
