@@ -98,6 +98,17 @@ valid "$X"
 check_near "$(net hot-utility)" 20 1e-9 "segmented hot utility"
 check_exit 0 hl check "$X"
 
+# A forbidden pair raises the utilities above the targets: the network
+# declares the rise (hot-utility = hot-target + rule-penalty), no H1-C2 unit
+# is built, and the check accepts it.
+check_exit 0 hl design "$DATA/good/kemp4-forbid.xml" --format xml -o "$X"
+valid "$X"
+check_near "$(net hot-target)" 20 1e-9 "forbid target"
+check_near "$(net hot-utility)" "$(awk -v t="$(net hot-target)" -v r="$(net rule-penalty)" 'BEGIN { printf "%.15g", t + r }')" 1e-9 "forbid rise"
+awk -v r="$(net rule-penalty)" 'BEGIN { exit !(r > 0) }' && pass || fail "no rule penalty"
+check_near "$(xpath "count(/results/network/exchanger[@hot='H1' and @cold='C2'])" "$X")" 0 0 "forbidden pair"
+check_exit 0 hl check "$X"
+
 # A stream that must split (tests/data/good/split3.csv, built by hand): C
 # splits between H1 and H2, both branches enter at 80 °C, shares sum to 1.
 check_exit 0 hl design "$DATA/good/split3.csv" --utilities "$DATA/good/split3-utilities.csv" --format xml -o "$X"
