@@ -26,6 +26,7 @@ extern const hl_command hl_cmd_curves;
 extern const hl_command hl_cmd_sweep;
 extern const hl_command hl_cmd_audit;
 extern const hl_command hl_cmd_matches;
+extern const hl_command hl_cmd_design;
 extern const hl_command hl_cmd_check;
 extern const hl_command hl_cmd_report;
 

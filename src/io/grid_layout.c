@@ -20,7 +20,7 @@
 #define ROW 38.0      /* between stream lines */
 #define BRANCH 22.0   /* between the branches of a split */
 #define GAP 30.0      /* between the hot and the cold block */
-#define TOP 96.0      /* first stream line */
+#define TOP 104.0     /* first stream line */
 #define COL_EASY 30.0 /* a column wide enough for every label */
 #define COL_MIN 22.0  /* the narrowest column that stays legible */
 #define END_ROOM 104.0/* from a line's end to the nearest column */

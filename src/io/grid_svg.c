@@ -177,21 +177,27 @@ static int
 draw_pinches(W w, const hl_grid_layout *L, const hl_network *net,
 	     const hl_grid_opts *o)
 {
+	double last_end = -HUGE_VAL;
 	size_t i;
-	int rc = 0;
+	int rc = 0, up = 0;
 
 	for (i = 0; i < L->npinch; i++) {
-		char h[32], c[32];
-		double x = L->pinch_x[i], half = net->set.dtmin / 2.0;
+		char h[32], c[32], label[96];
+		double x = L->pinch_x[i], half = net->set.dtmin / 2.0, wd;
 
 		if (isnan(x))
 			continue;
-		rc |= line(w, x, L->top - 26, x, L->bottom + 14,
-		    hex(HL_SVG_GREY), 1.4, "6 4");
 		temp(h, sizeof h, o->pinch[i] + half);
 		temp(c, sizeof c, o->pinch[i] - half);
-		rc |= text(w, x, L->top - 30, FS_T, "middle", 0, 1, INK_SOFT,
-		    "pinch %s / %s °C", h, c);
+		snprintf(label, sizeof label, "pinch %s / %s °C", h, c);
+		wd = hl_grid_text_width(label, FS_T);
+		/* A label that would touch the one before it goes a row up. */
+		up = x - 0.5 * wd < last_end + 6.0 ? !up : 0;
+		last_end = x + 0.5 * wd;
+		rc |= line(w, x, L->top - (up ? 38 : 26), x, L->bottom + 14,
+		    hex(HL_SVG_GREY), 1.4, "6 4");
+		rc |= text(w, x, L->top - (up ? 42 : 30), FS_T, "middle", 0, 1,
+		    INK_SOFT, "%s", label);
 	}
 	return rc;
 }

@@ -1,0 +1,119 @@
+/* network_match.c - the match MILP's result as a placement input. */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "network_match.h"
+
+void
+hl_network_feed_free(hl_network_feed *f)
+{
+	size_t i;
+
+	if (f == NULL)
+		return;
+	for (i = 0; f->party != NULL && i < f->in.nparty; i++)
+		hl_network_party_free(&f->party[i]);
+	free(f->party);
+	free(f->match);
+	memset(f, 0, sizeof *f);
+}
+
+/* One party of the result as a network party (deep copy of its data). */
+static hl_status
+party_of(const hl_case *c, const hl_match_party *q, hl_network_party *p)
+{
+	hl_network_party t;
+
+	memset(&t, 0, sizeof t);
+	t.name = q->name;
+	t.kind = q->kind;
+	t.h = NAN;
+	t.dt_contrib = NAN;
+	t.price = NAN;
+	t.max_load = NAN;
+	t.load = q->load;
+	t.supply = q->supply;
+	t.target = q->target;
+	if (q->type == HL_PARTY_STREAM) {
+		const hl_stream *s = &c->stream[q->index];
+
+		t.nseg = s->nseg;
+		t.seg = s->seg;
+		t.dt_contrib = s->dt_contrib;
+		t.load = hl_stream_duty(s);
+	} else if (q->type == HL_PARTY_UTILITY) {
+		const hl_utility *u = &c->util[q->index];
+
+		t.utility = 1;
+		t.h = u->h;
+		t.dt_contrib = u->dt_contrib;
+		t.price = u->price;
+		t.max_load = u->max_load;
+	} else {
+		t.utility = 1;
+		t.implicit = 1;
+	}
+	*p = t;
+	p->name = strdup(t.name);
+	p->seg = NULL;
+	if (t.nseg > 0) {
+		p->seg = malloc(t.nseg * sizeof *p->seg);
+		if (p->seg != NULL)
+			memcpy(p->seg, t.seg, t.nseg * sizeof *t.seg);
+	}
+	if (p->name == NULL || (t.nseg > 0 && p->seg == NULL)) {
+		hl_network_party_free(p);
+		return HL_EIO;
+	}
+	return HL_OK;
+}
+
+hl_status
+hl_network_from_matches(const hl_case *c, const hl_match_result *r,
+			double qh_min, double qc_min, hl_network_feed *out,
+			hl_error *err)
+{
+	hl_network_feed f;
+	size_t i;
+
+	memset(&f, 0, sizeof f);
+	f.party = calloc(r->nparty + 1, sizeof *f.party);
+	f.match = calloc(r->nmatch + 1, sizeof *f.match);
+	if (f.party == NULL || f.match == NULL) {
+		hl_network_feed_free(&f);
+		return hl_error_nomem(err);
+	}
+	for (i = 0; i < r->nparty; i++, f.in.nparty++)
+		if (party_of(c, &r->party[i], &f.party[i]) != HL_OK) {
+			hl_network_feed_free(&f);
+			return hl_error_nomem(err);
+		}
+	for (i = 0; i < r->nmatch; i++) {
+		const hl_match *m = &r->match[i];
+		hl_network_match *n = &f.match[i];
+
+		n->hot = m->hot;
+		n->cold = m->cold;
+		n->duty = m->duty;
+		n->give = m->give;
+		n->take = m->take;
+		n->hot_hi = m->hot_from;
+		n->hot_lo = m->hot_to;
+		n->cold_lo = m->cold_from;
+		n->cold_hi = m->cold_to;
+	}
+	f.in.set = &c->set;
+	f.in.party = f.party;
+	f.in.match = f.match;
+	f.in.nmatch = r->nmatch;
+	f.in.nint = r->nint;
+	f.in.t = r->t;
+	f.in.qh_target = qh_min;
+	f.in.qc_target = qc_min;
+	f.in.restriction = fmax(0.0, r->qh - qh_min);
+	if (f.in.restriction <= 1e-6 * fmax(1.0, qh_min))
+		f.in.restriction = 0.0;
+	*out = f;
+	return HL_OK;
+}
