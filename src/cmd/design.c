@@ -288,32 +288,6 @@ self_check(run_state *s, hl_error *err)
 	return st;
 }
 
-/* Shifted temperatures of the process and utility pinches, hottest first,
- * for the diagram. */
-static size_t
-pinches(const run_state *s, double *t, size_t max)
-{
-	size_t n = 0, i, j;
-
-	for (i = 0; i < s->cas->npinch && n < max; i++)
-		t[n++] = s->cas->t[s->cas->pinch[i]];
-	for (i = 0; s->lp != NULL && i < s->lp->npinch && n < max; i++) {
-		for (j = 0; j < n && fabs(t[j] - s->lp->pinch[i].shifted) >
-		    1e-9; j++)
-			;
-		if (j == n)
-			t[n++] = s->lp->pinch[i].shifted;
-	}
-	for (i = 1; i < n; i++)
-		for (j = i; j > 0 && t[j] > t[j - 1]; j--) {
-			double x = t[j];
-
-			t[j] = t[j - 1];
-			t[j - 1] = x;
-		}
-	return n;
-}
-
 static hl_status
 write_svg(const options *o, const run_state *s, hl_error *err)
 {
@@ -323,7 +297,7 @@ write_svg(const options *o, const run_state *s, hl_error *err)
 	hl_output out;
 	hl_status st;
 
-	go.npinch = pinches(s, pin, 64);
+	go.npinch = hl_network_pinches(s->cas, s->lp, pin, 64);
 	snprintf(title, sizeof title, "Heat exchanger network: %s",
 	    s->c->source != NULL ? s->c->source : o->c.input);
 	go.title = title;
@@ -360,36 +334,6 @@ write_main(const options *o, const run_state *s, hl_error *err)
 	return st;
 }
 
-/* The largest EMAT, a tenth of ΔTmin at a time below the one used, at
- * which the matches place without moving heat to utilities; NaN if none
- * down to half ΔTmin. */
-static double
-emat_hint(const run_state *s)
-{
-	hl_network_input in = s->feed.in;
-	hl_settings set = *in.set;
-	double used = isnan(set.emat) ? set.dtmin : set.emat, e;
-	int k;
-
-	in.set = &set;
-	for (k = 1; k <= 5; k++) {
-		hl_network *net = NULL;
-		int clean;
-
-		e = used - 0.1 * k * set.dtmin;
-		if (e < 0.5 * set.dtmin - 1e-9)
-			break;
-		set.emat = e;
-		if (hl_network_place(&in, &net, NULL) != HL_OK)
-			continue;
-		clean = net->penalty <= 0.0;
-		hl_network_free(net);
-		if (clean)
-			return e;
-	}
-	return NAN;
-}
-
 /* What an engineer must not miss, on stderr. */
 static void
 warn(const run_state *s)
@@ -397,7 +341,7 @@ warn(const run_state *s)
 	const hl_network *net = s->net;
 
 	if (net->penalty > 0.0) {
-		double e = emat_hint(s);
+		double e = hl_network_emat_hint(&s->feed.in);
 
 		fprintf(stderr, "heatloom: warning: the network uses %.1f kW "
 		    "more hot and cold utility than the targets: no placement "

@@ -13,6 +13,8 @@
 #include "cmd.h"
 #include "curves.h"
 #include "match_milp.h"
+#include "netcheck.h"
+#include "network_match.h"
 #include "output.h"
 #include "report_html.h"
 #include "retrofit.h"
@@ -55,6 +57,11 @@ help(FILE *fp)
 "  --to K             last ΔTmin of the trade-off (default 40)\n"
 "  --step K           its grid step (default 1)\n"
 "  --no-sweep         leave the trade-off over ΔTmin out\n"
+"  --emat K           exchanger minimum approach of the network, at most\n"
+"                     ΔTmin (default: the case's, or ΔTmin)\n"
+"  --time-limit S     seconds per subnetwork for the match MILP (default:\n"
+"                     the case's, or 10)\n"
+"  --no-design        leave the matches and the network out\n"
 "  --title TEXT       title of the report (default: from the case file name)\n"
 "  --author TEXT      name shown as \"prepared by\"\n"
 "  --date TEXT        date shown (default: today, or SOURCE_DATE_EPOCH)\n"
@@ -65,13 +72,14 @@ help(FILE *fp)
 "%s\n", hl_caution);
 }
 
-enum { OPT_FROM = 256, OPT_TO, OPT_STEP, OPT_NOSWEEP, OPT_TITLE, OPT_AUTHOR,
-       OPT_DATE, OPT_NETWORK };
+enum { OPT_FROM = 256, OPT_TO, OPT_STEP, OPT_EMAT, OPT_TIME, OPT_NOSWEEP,
+       OPT_NODESIGN, OPT_TITLE, OPT_AUTHOR, OPT_DATE, OPT_NETWORK };
 
 typedef struct {
 	hl_common o;
 	double from, to, step;
-	int sweep;
+	double emat, time_limit;   /* NaN unless given */
+	int sweep, design;
 	const char *title, *author, *date;
 	const char *network;
 } report_opts;
@@ -80,13 +88,20 @@ typedef struct {
 static int
 own_option(int ch, const char *arg, report_opts *s)
 {
-	static const char *const names[] = { "--from", "--to", "--step" };
-	double *dst[] = { &s->from, &s->to, &s->step };
+	static const char *const names[] = { "--from", "--to", "--step",
+		"--emat", "--time-limit" };
+	static const double lo[] = { 0.0, 0.0, 1e-3, 0.0, 0.0 };
+	static const double hi[] = { 500.0, 500.0, 500.0, 500.0, 86400.0 };
+	double *dst[] = { &s->from, &s->to, &s->step, &s->emat,
+			  &s->time_limit };
 	int k = ch - OPT_FROM;
 
 	switch (ch) {
 	case OPT_NOSWEEP:
 		s->sweep = 0;
+		return 0;
+	case OPT_NODESIGN:
+		s->design = 0;
 		return 0;
 	case OPT_TITLE:
 		s->title = arg;
@@ -101,8 +116,8 @@ own_option(int ch, const char *arg, report_opts *s)
 		s->network = arg;
 		return 0;
 	default:
-		return hl_cmd_parse_double("report", names[k], arg, k == 2 ?
-					   1e-3 : 0.0, 500.0, dst[k]) != 0;
+		return hl_cmd_parse_double("report", names[k], arg, lo[k],
+					   hi[k], dst[k]) != 0;
 	}
 }
 
@@ -116,6 +131,9 @@ parse(int argc, char **argv, report_opts *s)
 		{ "to", required_argument, NULL, OPT_TO },
 		{ "step", required_argument, NULL, OPT_STEP },
 		{ "no-sweep", no_argument, NULL, OPT_NOSWEEP },
+		{ "emat", required_argument, NULL, OPT_EMAT },
+		{ "time-limit", required_argument, NULL, OPT_TIME },
+		{ "no-design", no_argument, NULL, OPT_NODESIGN },
 		{ "title", required_argument, NULL, OPT_TITLE },
 		{ "author", required_argument, NULL, OPT_AUTHOR },
 		{ "date", required_argument, NULL, OPT_DATE },
@@ -133,6 +151,8 @@ parse(int argc, char **argv, report_opts *s)
 	s->to = 40.0;
 	s->step = 1.0;
 	s->sweep = 1;
+	s->design = 1;
+	s->emat = s->time_limit = NAN;
 	optind = 1;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
@@ -167,10 +187,16 @@ typedef struct {
 	hl_sweep *sw;
 	hl_sensitivity *sv;
 	hl_match_result *mr;
+	hl_network_feed feed;
+	hl_network *net;
+	double pinch[64];
+	size_t npinch;
+	double emat_hint;
+	size_t findings;
 	hl_audit *audit;
 	hl_retrofit *retrofit;
 	char st_note[HL_ERROR_TEXT], sw_note[HL_ERROR_TEXT];
-	char mr_note[HL_ERROR_TEXT];
+	char mr_note[HL_ERROR_TEXT], net_note[HL_ERROR_TEXT];
 	char audit_note[HL_ERROR_TEXT];
 	char date[32];
 } study;
@@ -180,6 +206,8 @@ study_free(study *s)
 {
 	hl_retrofit_free(s->retrofit);
 	hl_audit_free(s->audit);
+	hl_network_free(s->net);
+	hl_network_feed_free(&s->feed);
 	hl_match_result_free(s->mr);
 	hl_sensitivity_free(s->sv);
 	hl_sweep_free(s->sw);
@@ -223,7 +251,7 @@ compute_optional(const report_opts *o, study *s, hl_error *err)
  * problem-table targets without utilities), as `heatloom matches` runs it;
  * no answer within the rules leaves a note, bad rules fail the report. */
 static hl_status
-compute_matches(study *s, hl_error *err)
+compute_matches(const report_opts *o, study *s, hl_error *err)
 {
 	hl_match_options mo;
 	double *loads = NULL;
@@ -237,6 +265,8 @@ compute_matches(study *s, hl_error *err)
 	for (i = 0; loads != NULL && i < s->c->nutil; i++)
 		loads[i] = s->lp->util[i].load;
 	hl_match_options_default(&mo, s->c);
+	if (!isnan(o->time_limit))
+		mo.time_limit = o->time_limit;
 	hl_error_clear(&e);
 	st = hl_match_solve(s->c, s->c->set.dtmin, loads, &mo, &s->mr, &e);
 	free(loads);
@@ -247,6 +277,43 @@ compute_matches(study *s, hl_error *err)
 	if (st != HL_OK)
 		*err = e;
 	return st;
+}
+
+/* The matches laid out and sized as `heatloom design` does, with its
+ * independent check; a layout that cannot be found leaves a note. */
+static hl_status
+compute_network(study *s, hl_error *err)
+{
+	hl_netcheck *chk = NULL;
+	hl_error e;
+	hl_status st;
+
+	s->emat_hint = NAN;
+	if (s->mr == NULL)
+		return HL_OK;
+	hl_error_clear(&e);
+	st = hl_network_from_matches(s->c, s->mr, s->cas->qh, s->cas->qc,
+				     &s->feed, &e);
+	if (st == HL_OK)
+		st = hl_network_place(&s->feed.in, &s->net, &e);
+	if (st == HL_OK)
+		st = hl_netcheck_run(s->net, &chk, &e);
+	if (st == HL_ENOSOLUTION || st == HL_EINPUT) {
+		snprintf(s->net_note, sizeof s->net_note, "%s", e.text);
+		hl_network_free(s->net);
+		s->net = NULL;
+		return HL_OK;
+	}
+	if (st != HL_OK) {
+		*err = e;
+		return st;
+	}
+	s->findings = chk->n;
+	hl_netcheck_free(chk);
+	s->npinch = hl_network_pinches(s->cas, s->lp, s->pinch, 64);
+	if (s->net->penalty > 0.0)
+		s->emat_hint = hl_network_emat_hint(&s->feed.in);
+	return HL_OK;
 }
 
 /* "heatloom: FILE:LINE: warning: text" for each warning of the reading of
@@ -308,6 +375,13 @@ load(const report_opts *o, study *s, hl_error *err)
 		hl_case_clear_units(s->c);
 		st = hl_network_table_read(s->c, o->network, err);
 	}
+	if (st == HL_OK && !isnan(o->emat)) {
+		if (o->emat > s->c->set.dtmin || !(o->emat > 0.0))
+			return hl_error_set(err, HL_EUSAGE, NULL, 0, "report: "
+			    "--emat %g K must lie above 0 and not above ΔTmin "
+			    "%g K", o->emat, s->c->set.dtmin);
+		s->c->set.emat = o->emat;
+	}
 	return st;
 }
 
@@ -336,8 +410,10 @@ compute(const report_opts *o, study *s, hl_error *err)
 		st = hl_sensitivity_compute(s->c, s->cas, &s->sv, err);
 	if (st == HL_OK)
 		st = compute_optional(o, s, err);
-	if (st == HL_OK)
-		st = compute_matches(s, err);
+	if (st == HL_OK && o->design)
+		st = compute_matches(o, s, err);
+	if (st == HL_OK && o->design)
+		st = compute_network(s, err);
 	if (st == HL_OK)
 		st = compute_audit(s, err);
 	return st;
@@ -402,6 +478,12 @@ fill(const report_opts *o, study *s, hl_report_data *d)
 	d->retrofit = s->retrofit;
 	d->audit_note = s->audit_note[0] ? s->audit_note : NULL;
 	d->network_file = o->network;
+	d->net = s->net;
+	d->net_note = s->net_note[0] ? s->net_note : NULL;
+	d->net_npinch = s->npinch;
+	d->net_pinch = s->pinch;
+	d->net_emat_hint = s->emat_hint;
+	d->net_findings = s->findings;
 }
 
 static hl_status
@@ -443,7 +525,8 @@ run(int argc, char **argv)
 
 const hl_command hl_cmd_report = {
 	"report", "CASE -o FILE.html [--dtmin K] [--utilities FILE] [--network FILE] "
-	"[--from K --to K --step K] [--no-sweep] [--title TEXT] "
+	"[--from K --to K --step K] [--no-sweep] [--emat K] [--time-limit S] "
+	"[--no-design] [--title TEXT] "
 	"[--author TEXT] [--date TEXT] [--verbose]",
 	"the whole study as one self-contained HTML report for a client",
 	run, help

@@ -117,3 +117,58 @@ hl_network_from_matches(const hl_case *c, const hl_match_result *r,
 	*out = f;
 	return HL_OK;
 }
+
+/* Search downward from the EMAT in use, a tenth of ΔTmin at a time to half
+ * of it (common practice, no source: EMAT below ΔTmin is the trade's way to
+ * let a network reach its targets). */
+double
+hl_network_emat_hint(const hl_network_input *in0)
+{
+	hl_network_input in = *in0;
+	hl_settings set = *in0->set;
+	double used = isnan(set.emat) ? set.dtmin : set.emat, e;
+	int k;
+
+	in.set = &set;
+	for (k = 1; k <= 5; k++) {
+		hl_network *net = NULL;
+		int clean;
+
+		e = used - 0.1 * k * set.dtmin;
+		if (e < 0.5 * set.dtmin - 1e-9)
+			break;
+		set.emat = e;
+		if (hl_network_place(&in, &net, NULL) != HL_OK)
+			continue;
+		clean = net->penalty <= 0.0;
+		hl_network_free(net);
+		if (clean)
+			return e;
+	}
+	return NAN;
+}
+
+size_t
+hl_network_pinches(const hl_cascade *cas, const hl_utility_lp *lp, double *t,
+		   size_t max)
+{
+	size_t n = 0, i, j;
+
+	for (i = 0; i < cas->npinch && n < max; i++)
+		t[n++] = cas->t[cas->pinch[i]];
+	for (i = 0; lp != NULL && i < lp->npinch && n < max; i++) {
+		for (j = 0; j < n && fabs(t[j] - lp->pinch[i].shifted) > 1e-9;
+		     j++)
+			;
+		if (j == n)
+			t[n++] = lp->pinch[i].shifted;
+	}
+	for (i = 1; i < n; i++)
+		for (j = i; j > 0 && t[j] > t[j - 1]; j--) {
+			double x = t[j];
+
+			t[j] = t[j - 1];
+			t[j - 1] = x;
+		}
+	return n;
+}

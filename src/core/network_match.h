@@ -13,9 +13,11 @@
 #ifndef HL_NETWORK_MATCH_H
 #define HL_NETWORK_MATCH_H
 
+#include "cascade.h"
 #include "case.h"
 #include "match_milp.h"
 #include "network.h"
+#include "utility_lp.h"
 
 typedef struct {
 	hl_network_input in;      /* what hl_network_place takes */
@@ -30,5 +32,16 @@ hl_status hl_network_from_matches(const hl_case *c,
 				  double qc_min, hl_network_feed *out,
 				  hl_error *err);
 void hl_network_feed_free(hl_network_feed *f);
+
+/* The largest EMAT below the one in use (in steps of ΔTmin/10, down to
+ * ΔTmin/2) at which in's matches place without moving heat to utilities;
+ * NaN when none does. Each step is one more placement. */
+double hl_network_emat_hint(const hl_network_input *in);
+
+/* Shifted temperatures (°C) of the process pinches and the utility LP's
+ * pinches (lp may be NULL), each once, hottest first, at most max of them:
+ * where a grid diagram draws its dashed lines. Returns their count. */
+size_t hl_network_pinches(const hl_cascade *cas, const hl_utility_lp *lp,
+			  double *t, size_t max);
 
 #endif

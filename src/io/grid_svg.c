@@ -546,38 +546,49 @@ key_height(const hl_network *net, const hl_grid_opts *o)
 }
 
 hl_status
-hl_grid_svg_write(const hl_network *net, const hl_grid_opts *o, FILE *fp,
-		  hl_error *err)
+hl_grid_svg_write_into(const hl_network *net, const hl_grid_opts *o, W w,
+		       hl_error *err)
 {
 	hl_grid_layout L;
-	xmlBufferPtr buf;
-	W w;
 	int rc;
-	size_t len;
 
 	if (hl_grid_layout_make(net, o, &L) != 0)
 		return hl_error_nomem(err);
-	buf = xmlBufferCreate();
-	w = buf != NULL ? xmlNewTextWriterMemory(buf, 0) : NULL;
+	rc = draw(w, net, &L, o, L.key_top + key_height(net, o));
+	hl_grid_layout_free(&L);
+	if (rc < 0)
+		return hl_error_set(err, HL_EIO, NULL, 0, "cannot write the "
+		    "grid diagram");
+	return HL_OK;
+}
+
+hl_status
+hl_grid_svg_write(const hl_network *net, const hl_grid_opts *o, FILE *fp,
+		  hl_error *err)
+{
+	xmlBufferPtr buf = xmlBufferCreate();
+	W w = buf != NULL ? xmlNewTextWriterMemory(buf, 0) : NULL;
+	hl_status st;
+	size_t len;
+
 	if (w == NULL) {
 		if (buf != NULL)
 			xmlBufferFree(buf);
-		hl_grid_layout_free(&L);
 		return hl_error_nomem(err);
 	}
 	xmlTextWriterSetIndent(w, 1);
 	xmlTextWriterSetIndentString(w, BAD_CAST " ");
-	rc = xmlTextWriterStartDocument(w, "1.0", "UTF-8", NULL);
-	rc |= draw(w, net, &L, o, L.key_top + key_height(net, o));
-	rc |= xmlTextWriterEndDocument(w);
-	xmlFreeTextWriter(w);
-	hl_grid_layout_free(&L);
-	len = (size_t)xmlBufferLength(buf);
-	if (rc < 0 || fwrite(xmlBufferContent(buf), 1, len, fp) != len) {
-		xmlBufferFree(buf);
-		return hl_error_set(err, HL_EIO, NULL, 0, "cannot write the "
+	st = xmlTextWriterStartDocument(w, "1.0", "UTF-8", NULL) < 0 ?
+	    hl_error_set(err, HL_EIO, NULL, 0, "cannot write the grid "
+	    "diagram") : hl_grid_svg_write_into(net, o, w, err);
+	if (st == HL_OK && xmlTextWriterEndDocument(w) < 0)
+		st = hl_error_set(err, HL_EIO, NULL, 0, "cannot write the "
 		    "grid diagram");
-	}
+	xmlFreeTextWriter(w);
+	len = (size_t)xmlBufferLength(buf);
+	if (st == HL_OK && fwrite(xmlBufferContent(buf), 1, len, fp) != len)
+		st = hl_error_set(err, HL_EIO, NULL, 0, "cannot write the "
+		    "grid diagram");
 	xmlBufferFree(buf);
-	return HL_OK;
+	return st;
 }

@@ -21,6 +21,8 @@
 
 #include <stdio.h>
 
+#include <libxml/xmlwriter.h>
+
 #include "network.h"
 #include "status.h"
 
@@ -36,5 +38,10 @@ typedef struct {
  * memory runs out or the writer fails. */
 hl_status hl_grid_svg_write(const hl_network *net, const hl_grid_opts *o,
 			    FILE *fp, hl_error *err);
+
+/* The same diagram as one <svg> element into w (inline in an HTML or XML
+ * document that the caller owns). */
+hl_status hl_grid_svg_write_into(const hl_network *net, const hl_grid_opts *o,
+				 xmlTextWriterPtr w, hl_error *err);
 
 #endif

@@ -98,6 +98,34 @@ hl_output_check(const char *path, hl_error *err)
 	return HL_OK;
 }
 
+/* A device, pipe or socket (/dev/null, a FIFO, /dev/stdout): renaming a
+ * file over it would replace the device, and a reader of a pipe waits for
+ * the path it opened, so these are written in place. */
+static int
+is_stream(const char *path)
+{
+	struct stat st;
+
+	return stat(path, &st) == 0 && !S_ISREG(st.st_mode) &&
+	       !S_ISDIR(st.st_mode);
+}
+
+static hl_status
+open_stream(hl_output *o, const char *path, hl_error *err)
+{
+	o->fp = fopen(path, "w");
+	if (o->fp == NULL)
+		return hl_error_set(err, HL_EIO, path, 0, "cannot write: %s",
+			strerror(errno));
+	o->path = strdup(path);
+	if (o->path == NULL) {
+		fclose(o->fp);
+		o->fp = NULL;
+		return hl_error_nomem(err);
+	}
+	return HL_OK;
+}
+
 hl_status
 hl_output_open(hl_output *o, const char *path, hl_error *err)
 {
@@ -112,6 +140,8 @@ hl_output_open(hl_output *o, const char *path, hl_error *err)
 	st = hl_output_check(path, err);
 	if (st != HL_OK)
 		return st;
+	if (is_stream(path))
+		return open_stream(o, path, err);
 	o->path = strdup(path);
 	o->tmp = malloc(strlen(path) + 16);
 	if (o->path == NULL || o->tmp == NULL) {
@@ -164,7 +194,12 @@ hl_output_commit(hl_output *o, hl_error *err)
 	bad = ferror(o->fp) != 0;
 	bad |= fclose(o->fp) != 0;
 	o->fp = NULL;
-	if (bad || rename(o->tmp, o->path) != 0) {
+	if (o->tmp == NULL && !bad) {	/* written in place (open_stream) */
+		free(o->path);
+		o->path = NULL;
+		return HL_OK;
+	}
+	if (bad || o->tmp == NULL || rename(o->tmp, o->path) != 0) {
 		int e = errno;
 
 		hl_output_abort(o);

@@ -3,7 +3,9 @@
  * A result is written to a temporary file in the destination's folder and
  * renamed over the destination only when complete, so a failed or interrupted
  * run leaves no partial file (SIGINT and SIGTERM remove the temporary file).
- * A destination that names one of the run's input files is refused.
+ * A destination that names one of the run's input files is refused. A
+ * destination that is not a regular file (a device such as /dev/null, a
+ * FIFO, a socket) is written in place: it holds no file to lose.
  * A NULL or "-" path means standard output.
  */
 #ifndef HL_OUTPUT_H

@@ -111,4 +111,5 @@ const char hl_report_css[] =
 "h2,h3,caption{break-after:avoid}"
 "tr,.figure,table.facts,.caution,ol.methods li{break-inside:avoid}"
 "thead{display:table-header-group}"
+"table.exchangers{break-before:page}"
 ".footer{display:none}}\n";

@@ -19,6 +19,7 @@ static const hl_report_section *const sections[] = {
 	&hl_report_sec_curves,
 	&hl_report_sec_tradeoff,
 	&hl_report_sec_matches,
+	&hl_report_sec_network,
 	&hl_report_sec_sensitivity,
 	&hl_report_sec_assumptions,
 	&hl_report_sec_methods,

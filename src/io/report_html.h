@@ -26,6 +26,7 @@
 #include "case.h"
 #include "curves.h"
 #include "match_milp.h"
+#include "network.h"
 #include "retrofit.h"
 #include "sensitivity.h"
 #include "status.h"
@@ -64,6 +65,14 @@ typedef struct {
 	const hl_retrofit *retrofit;      /* with audit, NULL: not run */
 	const char *audit_note;
 	const char *network_file;         /* --network, NULL: the case's */
+	const hl_network *net;            /* the designed network, NULL: not
+					     run */
+	const char *net_note;             /* why net is missing */
+	size_t net_npinch;                /* pinches for its grid diagram */
+	const double *net_pinch;          /* shifted °C, hottest first */
+	double net_emat_hint;             /* K, EMAT at which the matches
+					     place at the targets, NaN */
+	size_t net_findings;              /* findings of its check (0) */
 } hl_report_data;
 
 /* Write the whole report to fp. Errors: HL_EIO when memory runs out or a

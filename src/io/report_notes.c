@@ -172,14 +172,15 @@ typedef struct {
 	int needs;             /* the stage it needs: NEED_* */
 } method;
 
-enum { NEED_NONE = 0, NEED_AUDIT = 1, NEED_MATCHES = 2 };
+enum { NEED_NONE = 0, NEED_AUDIT = 1, NEED_MATCHES = 2, NEED_NETWORK = 3 };
 
 static int
 method_shown(const method *m, const hl_report_data *d)
 {
 	return m->needs == NEED_NONE ||
 	       (m->needs == NEED_AUDIT && d->audit != NULL) ||
-	       (m->needs == NEED_MATCHES && d->mr != NULL);
+	       (m->needs == NEED_MATCHES && d->mr != NULL) ||
+	       (m->needs == NEED_NETWORK && d->net != NULL);
 }
 
 static const method methods[] = {
@@ -237,6 +238,18 @@ static const method methods[] = {
 	  "GLPK.",
 	  "Papoulias, S. A. & Grossmann, I. E. (1983), as above.",
 	  NEED_MATCHES },
+	{ "The network: matches in temperature order on each stream, stream "
+	  "splits where series would break the approach, the tick-off and "
+	  "cp rules near the pinch.",
+	  "Linnhoff, B. & Hindmarsh, E. (1983). The pinch design method for "
+	  "heat exchanger networks. Chemical Engineering Science 38(5), "
+	  "745–763; heatloom's placement search is described in "
+	  "doc/methods.md of its source.", NEED_NETWORK },
+	{ "Each exchanger: U from the film coefficients, the logarithmic "
+	  "mean temperature difference, F and shells as above, area "
+	  "Q / (U·F·LMTD).",
+	  "Kern, D. Q. (1950). Process Heat Transfer. McGraw-Hill.",
+	  NEED_NETWORK },
 };
 
 static void

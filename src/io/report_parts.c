@@ -146,6 +146,24 @@ hl_report_facts_end(hl_report *r)
 	hl_html_end(r->h);
 }
 
+const char *
+hl_report_figure_open(hl_report *r, char *id, size_t size)
+{
+	snprintf(id, size, "fig%zu", ++r->charts);
+	hl_html_start(r->h, "div", "figure");
+	hl_html_attr(r->h, "id", id);
+	return id;
+}
+
+void
+hl_report_figure_close(hl_report *r, const char *cap)
+{
+	hl_html_start(r->h, "p", "caption");
+	caption(r, "Figure", ++r->figures, cap);
+	hl_html_end(r->h);
+	hl_html_end(r->h);
+}
+
 void
 hl_report_figure(hl_report *r, hl_svg_chart *chart, const char *subtitle,
 		 const char *cap)
@@ -156,21 +174,16 @@ hl_report_figure(hl_report *r, hl_svg_chart *chart, const char *subtitle,
 		hl_html_fail(r->h);
 		return;
 	}
-	snprintf(id, sizeof id, "fig%zu", ++r->charts);
+	hl_report_figure_open(r, id, sizeof id);
 	hl_svg_chart_set_height(chart, HL_REPORT_CHART_HEIGHT);
 	if (hl_svg_chart_set_id(chart, id) < 0 ||
 	    hl_svg_chart_set_footnote(chart, NULL) < 0 ||
 	    (subtitle != NULL && hl_svg_chart_set_subtitle(chart,
 							   subtitle) < 0))
 		hl_html_fail(r->h);
-	hl_html_start(r->h, "div", "figure");
-	hl_html_attr(r->h, "id", id);
 	if (!hl_html_failed(r->h) &&
 	    hl_svg_chart_write(chart, hl_html_writer(r->h), NULL) != HL_OK)
 		hl_html_fail(r->h);
-	hl_html_start(r->h, "p", "caption");
-	caption(r, "Figure", ++r->figures, cap);
-	hl_html_end(r->h);
-	hl_html_end(r->h);
+	hl_report_figure_close(r, cap);
 	hl_svg_chart_free(chart);
 }

@@ -76,6 +76,12 @@ void hl_report_facts_end(hl_report *r);
 void hl_report_figure(hl_report *r, hl_svg_chart *chart, const char *subtitle,
 		      const char *caption);
 
+/* A numbered figure of another kind (the grid diagram): _open starts its
+ * <div class="figure" id> and returns the id it chose ("figN", in id);
+ * the caller writes the picture; _close adds "Figure N. caption". */
+const char *hl_report_figure_open(hl_report *r, char *id, size_t size);
+void hl_report_figure_close(hl_report *r, const char *caption);
+
 /* The sections (one file each). */
 extern const hl_report_section hl_report_sec_summary;
 extern const hl_report_section hl_report_sec_streams;
@@ -85,6 +91,7 @@ extern const hl_report_section hl_report_sec_audit;
 extern const hl_report_section hl_report_sec_curves;
 extern const hl_report_section hl_report_sec_tradeoff;
 extern const hl_report_section hl_report_sec_matches;
+extern const hl_report_section hl_report_sec_network;
 extern const hl_report_section hl_report_sec_sensitivity;
 extern const hl_report_section hl_report_sec_assumptions;
 extern const hl_report_section hl_report_sec_methods;

@@ -254,6 +254,31 @@ finding_measure(hl_report *r)
 	hl_html_end(r->h);
 }
 
+static void
+finding_network(hl_report *r)
+{
+	const hl_network *n = r->d->net;
+	const char *cur = hl_report_currency(r->d->c);
+	char v[2 * B], a[B], b[B];
+
+	if (n == NULL)
+		return;
+	finding_start(r);
+	hl_html_text(r->h, "A first network: ");
+	snprintf(v, sizeof v, "%zu exchangers, %s", n->nunit,
+		 hl_report_fmt_area(a, B, n->area));
+	figure_span(r, v, "sum-net");
+	hl_html_textf(r->h, ", %s installed, %s in all per year",
+		      hl_report_fmt_money(a, B, n->capital, cur, 0),
+		      hl_report_fmt_money(b, B, n->total_cost, cur, 1));
+	if (n->penalty > 0.0)
+		hl_html_textf(r->h, "; its layout uses %s more utility than "
+			      "the targets", hl_report_fmt_duty(a, B,
+			      n->penalty));
+	hl_html_text(r->h, ".");
+	hl_html_end(r->h);
+}
+
 /* For a site with today's network: where it stands and what a retrofit
  * would pay, in place of the capital targets of a new design. */
 static void
@@ -320,6 +345,7 @@ write_summary(hl_report *r)
 	finding_pinch(r);
 	finding_utilities(r);
 	finding_tradeoff(r);
+	finding_network(r);
 	finding_measure(r);
 	hl_html_end(r->h);
 }

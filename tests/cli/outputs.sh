@@ -29,6 +29,24 @@ check_exit 2 hl targets "$DATA/bad/zero-cp.csv" -o "$WORK/new.txt"
 # An unwritable destination is an I/O error (exit 4).
 check_exit 4 hl targets "$WORK/in.csv" -o "$WORK/no/such/dir/t.txt"
 
+# A destination that is not a regular file is written in place, never
+# renamed over: a FIFO stays a FIFO and its reader gets the result; a
+# character device (a copy of /dev/null, made only where mknod is allowed)
+# stays a device.
+if mkfifo "$WORK/pipe" 2>/dev/null; then
+	cat "$WORK/pipe" >"$WORK/from-pipe" &
+	reader=$!
+	check_exit 0 hl targets "$WORK/in.csv" -o "$WORK/pipe"
+	wait "$reader"
+	[ -p "$WORK/pipe" ] && pass || fail "the FIFO was replaced by a file"
+	check_grep "Minimum hot utility    20.0 kW" "$WORK/from-pipe"
+fi
+if mknod "$WORK/null" c 1 3 2>/dev/null; then
+	check_exit 0 hl targets "$WORK/in.csv" -o "$WORK/null"
+	[ -c "$WORK/null" ] && pass || fail "the device was replaced by a file"
+	[ "$(ls "$WORK" | grep -c tmp)" -eq 0 ] && pass || fail "temporary file left"
+fi
+
 # The XML results follow doc/results.rng.
 if [ -n "${XMLLINT:-}" ]; then
 	check_exit 0 hl targets "$CASES/demo-streams.csv" --format xml -o "$WORK/r.xml"

@@ -32,10 +32,11 @@ else pass; fi
 # --- Sections: those the demo's stages produce, in order. ----------------
 "$HTML_CHECK" "$R" >"$WORK/found"
 grep '^section ' "$WORK/found" | cut -d' ' -f2 | tr '\n' ' ' >"$WORK/sections"
-want="summary data targets utility-choice curves tradeoff matches sensitivity assumptions methods caution "
+want="summary data targets utility-choice curves tradeoff matches network sensitivity assumptions methods caution "
 [ "$(cat "$WORK/sections")" = "$want" ] && pass || fail "demo sections: $(cat "$WORK/sections")"
-# Composite, grand composite, balanced composite, cost and area charts.
-[ "$(grep -c '^figure ' "$WORK/found")" -eq 5 ] && pass || fail "demo figures: $(grep -c '^figure ' "$WORK/found")"
+# Composite, grand composite, balanced composite, cost and area charts, the
+# grid diagram.
+[ "$(grep -c '^figure ' "$WORK/found")" -eq 6 ] && pass || fail "demo figures: $(grep -c '^figure ' "$WORK/found")"
 
 # Without utilities there is no utility choice and no balanced curves; with
 # --no-sweep the trade-off keeps only the supertargets at the chosen ΔTmin.
@@ -43,9 +44,9 @@ check_exit 0 hl report "$CASES/demo-streams.csv" --no-sweep -o "$WORK/s.html"
 check_exit 0 "$HTML_CHECK" "$WORK/s.html"
 "$HTML_CHECK" "$WORK/s.html" >"$WORK/found2"
 got=$(grep '^section ' "$WORK/found2" | cut -d' ' -f2 | tr '\n' ' ')
-[ "$got" = "summary data targets curves tradeoff matches sensitivity assumptions methods caution " ] \
+[ "$got" = "summary data targets curves tradeoff matches network sensitivity assumptions methods caution " ] \
 	&& pass || fail "stream-table sections: $got"
-[ "$(grep -c '^figure ' "$WORK/found2")" -eq 2 ] && pass || fail "stream-table figures"
+[ "$(grep -c '^figure ' "$WORK/found2")" -eq 3 ] && pass || fail "stream-table figures"
 check_grep 'the total annual cost is least at ΔTmin' "$R"
 
 # --- Self-contained: nothing to fetch, no script. -------------------------
@@ -241,6 +242,46 @@ compare matches "$WORK/match.tsv" "$WORK/matches.tsv" '
 	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6 "|" $7
 	if (got != want) print "match " FNR ": " got ", want " want'
 
+# --- The network against `heatloom design --format xml`: the totals, and
+# every exchanger in the same order. ----------------------------------------
+D="$WORK/d.xml"
+check_exit 0 hl design "$CASES/demo.xml" --format xml -o "$D" --quiet
+N=/results/network
+expect n-qh "$(sig "$(x "$N/@hot-utility" "$D")" 3 1) kW (target $(sig "$(x "$N/@hot-target" "$D")" 3 1) kW)"
+expect n-qc "$(sig "$(x "$N/@cold-utility" "$D")" 3 1) kW (target $(sig "$(x "$N/@cold-target" "$D")" 3 1) kW)"
+expect n-units "$(x "$N/@units" "$D")"
+expect n-area "$(fix1 "$(x "$N/@area" "$D")") m²"
+expect n-capital "$(sig "$(x "$N/@capital-cost" "$D")" 3 0) EUR"
+expect n-annual "$(sig "$(x "$N/@annual-capital-cost" "$D")" 3 0) EUR/yr"
+expect n-energy "$(sig "$(x "$N/@energy-cost" "$D")" 3 0) EUR/yr"
+expect n-total "$(sig "$(x "$N/@total-cost" "$D")" 3 0) EUR/yr"
+expect sum-net "$(x "$N/@units" "$D") exchangers, $(fix1 "$(x "$N/@area" "$D")") m²"
+xml_tsv "$D" "$N/exchanger" id hot cold duty hot-in hot-out cold-in cold-out \
+	u lmtd ft shells area cost >"$WORK/exch.tsv"
+html_tsv exchangers >"$WORK/exchangers.tsv"
+compare exchangers "$WORK/exch.tsv" "$WORK/exchangers.tsv" '
+	want = x[1] "|" x[2] "|" x[3] "|" sig(x[4], 3, 1) "|" fix1(x[5]) " → " fix1(x[6]) "|" \
+		fix1(x[7]) " → " fix1(x[8]) "|" sig(x[9], 3, 3) "|" fix1(x[10]) "|" \
+		sprintf("%.3f", x[11]) "|" x[12] "|" fix1(x[13]) "|" sig(x[14], 3, 0)
+	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6 "|" $7 "|" $8 "|" $9 "|" $10 "|" $11 "|" $12
+	if (got != want) print "unit " FNR ": " got ", want " want'
+[ "$(wc -l <"$WORK/exchangers.tsv")" -ge 10 ] && pass || fail "the demo network has few exchangers"
+# The layout of the demo adds utility at EMAT = ΔTmin, and the report names
+# the EMAT at which it does not, as design does; at that EMAT the report's
+# network meets the targets.
+check_grep 'the same matches place at the targets' "$R"
+check_exit 0 hl report "$CASES/demo.xml" --no-sweep --emat 7 -o "$WORK/e.html"
+R="$WORK/e.html"
+expect n-qh "$(sig "$(x '/results/targets/@hot-utility' "$T")" 3 1) kW (target $(sig "$(x '/results/targets/@hot-utility' "$T")" 3 1) kW)"
+# --no-design leaves the matches and the network out.
+check_exit 0 hl report "$CASES/demo.xml" --no-sweep --no-design -o "$WORK/nd.html"
+got=$("$HTML_CHECK" "$WORK/nd.html" | grep '^section ' | cut -d' ' -f2 | tr '\n' ' ')
+[ "$got" = "summary data targets utility-choice curves tradeoff sensitivity assumptions methods caution " ] \
+	&& pass || fail "--no-design sections: $got"
+check_exit 1 hl report "$CASES/demo.xml" --emat 12 -o "$WORK/no.html"
+[ ! -e "$WORK/no.html" ] && pass || fail "a refused --emat left a file"
+R="$WORK/r.html"
+
 # --- The audit of today's network (cases/demo-network.csv): its section
 # between the utility choice and the curves, and its numbers against
 # `heatloom audit --format xml`. ------------------------------------------
@@ -252,7 +293,7 @@ check_exit 0 hl audit "$CASES/demo.xml" --network "$CASES/demo-network.csv" \
 	--format xml -o "$A"
 check_exit 0 "$HTML_CHECK" "$R"
 got=$("$HTML_CHECK" "$R" | grep '^section ' | cut -d' ' -f2 | tr '\n' ' ')
-[ "$got" = "summary data targets utility-choice audit curves tradeoff matches sensitivity assumptions methods caution " ] \
+[ "$got" = "summary data targets utility-choice audit curves tradeoff matches network sensitivity assumptions methods caution " ] \
 	&& pass || fail "audit sections: $got"
 # cell ID N: the text of the N-th cell of the row with that id.
 cell() {
