@@ -268,7 +268,7 @@ finding_network(hl_report *r)
 	snprintf(v, sizeof v, "%zu exchangers, %s", n->nunit,
 		 hl_report_fmt_area(a, B, n->area));
 	figure_span(r, v, "sum-net");
-	hl_html_textf(r->h, ", %s installed, %s in all per year",
+	hl_html_textf(r->h, ", %s installed, a total annual cost of %s",
 		      hl_report_fmt_money(a, B, n->capital, cur, 0),
 		      hl_report_fmt_money(b, B, n->total_cost, cur, 1));
 	if (n->penalty > 0.0)
