@@ -189,7 +189,9 @@ static int
 lp(heur *h, glp_prob *L)
 {
 	h->effort -= 10;
-	return hl_match_simplex(L, GLP_MSG_OFF, 0.0);
+	/* Past the deadline an LP may still finish, but never run on. */
+	return hl_match_simplex(L, GLP_MSG_OFF, fmax(h->deadline -
+						     hl_match_now(), 1.0));
 }
 
 /* The cheap test: can the candidates with on[] set meet every demand of

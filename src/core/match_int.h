@@ -166,8 +166,11 @@ int hl_match_add_col(glp_prob *P, int kind, double lo, double hi,
 int hl_match_add_row(glp_prob *P, int type, double lo, double hi);
 
 /* Primal simplex from the current basis (a fresh one on trouble), with a
- * time limit in s (<= 0: none). 0 optimal, 1 infeasible, 2 failure. */
+ * time limit in s (<= 0: none). 0 optimal, 1 infeasible, 2 failure, 3 the
+ * time limit. */
 int hl_match_simplex(glp_prob *P, int msg_lev, double limit);
+/* Seconds the root LP may take when the time limit is 0 (heuristic only). */
+#define HL_MATCH_ROOT_CAP 60.0
 
 /* LP-based incumbent for the model m: x[1..ncols] on success; it stops
  * early on reaching lower. Returns 0 when found, -1 when not. */

@@ -132,6 +132,8 @@ hl_match_simplex(glp_prob *P, int msg_lev, double limit)
 		glp_adv_basis(P, 0);
 		ret = glp_simplex(P, &parm);
 	}
+	if (ret == GLP_ETMLIM)
+		return 3;
 	if (ret != 0)
 		return 2;
 	st = glp_get_status(P);

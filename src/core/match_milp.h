@@ -41,6 +41,13 @@
 #include "glpk_guard.h"
 #include "status.h"
 
+/* The largest model hl_match_solve takes, in pair-intervals (allowed
+ * hot/cold pairs, plus each stream with a utility, times twice the parties:
+ * an upper bound on the model's heat columns). About 150 streams without
+ * plant areas; GLPK would need minutes for the root LP alone well below it,
+ * where the time limit stops the solve instead. */
+#define HL_MATCH_MAX_SIZE 2.0e6
+
 /* Who takes part: a process stream, a case utility, or an implicit one. */
 typedef enum {
 	HL_PARTY_STREAM = 0,

@@ -602,6 +602,63 @@ prepare(hl_match_problem *p, const double *util_load, hl_glpk_log log,
 	return st;
 }
 
+static int
+cmp_area(const void *a, const void *b)
+{
+	const hl_stream *x = *(const hl_stream *const *)a;
+	const hl_stream *y = *(const hl_stream *const *)b;
+	int k = strcmp(x->area, y->area);
+
+	return k != 0 ? k : (int)x->kind - (int)y->kind;
+}
+
+/* Hot/cold pairs that no plant-area rule forbids: all of them, or, with
+ * cross-area pairs forbidden, those within one area or with an untagged
+ * side (match_rules.c), counted over the streams sorted by area. */
+static double
+allowed_pairs(const hl_case *c, double hot, double cold)
+{
+	const hl_stream **v;
+	double hn = 0.0, cn = 0.0, same = 0.0;
+	size_t i, n = 0, j;
+
+	if (c->set.area_policy != HL_AREAS_FORBID ||
+	    (v = malloc((c->nstream + 1) * sizeof *v)) == NULL)
+		return hot * cold;
+	for (i = 0; i < c->nstream; i++) {
+		if (c->stream[i].area != NULL)
+			v[n++] = &c->stream[i];
+		else
+			*(c->stream[i].kind == HL_HOT ? &hn : &cn) += 1.0;
+	}
+	qsort(v, n, sizeof *v, cmp_area);
+	for (i = 0; i < n; i = j) {
+		double h = 0.0, k = 0.0;
+
+		for (j = i; j < n && strcmp(v[j]->area, v[i]->area) == 0; j++)
+			*(v[j]->kind == HL_HOT ? &h : &k) += 1.0;
+		same += h * k;
+	}
+	free(v);
+	return same + hn * cold + cn * hot - hn * cn;
+}
+
+/* The model's size before it is built: allowed pairs (and each stream with
+ * a utility) times the shifted intervals they could share, every supply and
+ * target a boundary. An upper bound on the pair-interval columns, cheap
+ * enough to refuse a site-wide table before its model fills the memory. */
+static double
+pair_intervals(const hl_case *c)
+{
+	double hot = 0.0, cold = 0.0;
+	size_t i;
+
+	for (i = 0; i < c->nstream; i++)
+		*(c->stream[i].kind == HL_HOT ? &hot : &cold) += 1.0;
+	return (allowed_pairs(c, hot, cold) + hot + cold + 1.0) * 2.0 *
+	    (double)(c->nstream + c->nutil + 1);
+}
+
 hl_status
 hl_match_prepare(const hl_case *c, double dtmin, const double *util_load,
 		 hl_glpk_log log, void *ctx, hl_match_problem **out,
@@ -609,11 +666,21 @@ hl_match_prepare(const hl_case *c, double dtmin, const double *util_load,
 {
 	hl_match_problem *p;
 	hl_status st;
+	double size;
 
 	*out = NULL;
 	if (c->nstream == 0)
 		return hl_error_set(err, HL_EINPUT, c->source, 0,
 			"no process streams to match");
+	size = pair_intervals(c);
+	if (size > HL_MATCH_MAX_SIZE)
+		return hl_error_set(err, HL_ENOSOLUTION, c->source, 0, "%zu "
+		    "streams make a match MILP of up to %.2g pair-intervals, "
+		    "beyond the %.2g it can solve: give each stream a plant "
+		    "area and forbid cross-area matches (<plant-areas "
+		    "policy=\"forbid\"/>) or run one area at a time; targets, "
+		    "curves and sweep have no such limit", c->nstream, size,
+		    HL_MATCH_MAX_SIZE);
 	p = calloc(1, sizeof *p);
 	if (p == NULL)
 		return hl_error_nomem(err);

@@ -25,6 +25,21 @@ check_exit 0 "$HEATLOOM" curves "$WORK/m.csv" -o "$WORK/mcurves"
 [ -s "$WORK/mcurves/grand-composite.svg" ] && pass || fail "no curves for 10^6 streams"
 rm -rf "$WORK/mcurves"
 
+# The match MILP on a site-wide table: refused at once above the size it
+# can solve, with the options that would help; below it, a subnetwork whose
+# LP relaxation cannot finish in the time limit stops there with exit 3 and
+# a sentence, never runs on.
+"$GEN" 400 1 >"$WORK/s400.csv"
+check_exit 3 hl matches "$WORK/s400.csv" -o "$WORK/s400.txt"
+check_grep "400 streams make a match MILP of up to 3.2e+07 pair-intervals" "$WORK/stderr"
+check_grep 'policy="forbid"' "$WORK/stderr"
+[ ! -e "$WORK/s400.txt" ] && pass || fail "a refused MILP left output"
+check_exit 3 hl design "$WORK/s400.csv" -o "$WORK/s400.txt"
+"$GEN" 100 1 >"$WORK/s100.csv"
+check_exit 3 hl matches "$WORK/s100.csv" --time-limit 1
+check_grep "is too large to solve in the time limit" "$WORK/stderr"
+check_grep "raise --time-limit" "$WORK/stderr"
+
 # SIGINT or SIGTERM during a run leaves no partial output and no temporary
 # file. The text cascade of a million streams takes long enough to write that
 # a signal arrives mid-run; try a few delays until one interrupts it.
