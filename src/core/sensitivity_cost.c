@@ -331,7 +331,7 @@ solve_value(glp_prob *P, costlp *m, hl_glpk_guard *g, face *f, hl_error *err)
 		if (m->u[u].col >= 0)
 			glp_set_obj_coef(P, m->u[u].col + 1, m->u[u].price);
 	glp_set_obj_dir(P, GLP_MIN);
-	st = hl_glpk_simplex(P, g, m->tlim, "the utility cost sensitivity LP",
+	st = hl_glpk_simplex_direct(P, g, m->tlim, "the utility cost sensitivity LP",
 			     err);
 	if (st == HL_OK)
 		f->v = glp_get_obj_val(P);
@@ -391,7 +391,7 @@ solve_interior(glp_prob *P, costlp *m, hl_glpk_guard *g, face *f,
 			glp_set_row_bnds(P, r, GLP_UP, 0.0, cap);
 	}
 	glp_set_obj_dir(P, GLP_MAX);
-	st = hl_glpk_simplex(P, g, m->tlim, "the utility cost sensitivity LP",
+	st = hl_glpk_simplex_direct(P, g, m->tlim, "the utility cost sensitivity LP",
 			     err);
 	if (st != HL_OK)
 		return st;
@@ -450,7 +450,7 @@ solve_derivative(glp_prob *P, costlp *m, hl_glpk_guard *g, const face *f,
 				 m->dbeta[e], m->dbeta[e]);
 	}
 	glp_set_obj_dir(P, GLP_MIN);
-	st = hl_glpk_simplex(P, g, m->tlim, "the utility cost sensitivity LP",
+	st = hl_glpk_simplex_direct(P, g, m->tlim, "the utility cost sensitivity LP",
 			     err);
 	if (st == HL_OK)
 		*dv = glp_get_obj_val(P);
