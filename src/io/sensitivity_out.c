@@ -377,7 +377,7 @@ text_urow(FILE *fp, const hl_case *c, const hl_sens_urow *u, size_t nw)
 static void
 text_utilities(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 {
-	size_t i, nw = 6;
+	size_t i, nw = 7; /* "utility" */
 
 	if (sv->nurow == 0)
 		return;
