@@ -107,18 +107,24 @@ map_return(int ret, const char *what, double time_limit, hl_glpk_guard *g,
 	}
 }
 
-hl_status
-hl_glpk_simplex(glp_prob *P, hl_glpk_guard *g, double time_limit,
-		const char *what, hl_error *err)
+/* How a simplex run starts. */
+enum { PRESOLVE, DIRECT, WARM };
+
+static hl_status
+simplex(glp_prob *P, hl_glpk_guard *g, double time_limit, const char *what,
+	int start, hl_error *err)
 {
 	glp_smcp parm;
 	int ret, stat;
 
 	glp_init_smcp(&parm);
 	parm.msg_lev = g->verbose ? GLP_MSG_ON : GLP_MSG_OFF;
-	parm.presolve = GLP_ON;
+	parm.presolve = start == PRESOLVE ? GLP_ON : GLP_OFF;
 	parm.tm_lim = time_limit_ms(time_limit);
-	glp_scale_prob(P, GLP_SF_AUTO);
+	if (start != WARM)
+		glp_scale_prob(P, GLP_SF_AUTO);
+	if (start == DIRECT)
+		glp_adv_basis(P, 0);
 	g->infeasible = 0;
 	ret = glp_simplex(P, &parm);
 	if (ret != 0)
@@ -133,4 +139,25 @@ hl_glpk_simplex(glp_prob *P, hl_glpk_guard *g, double time_limit,
 	return hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
 		"%s ended without a proven optimum (GLPK status %d)", what,
 		stat);
+}
+
+hl_status
+hl_glpk_simplex(glp_prob *P, hl_glpk_guard *g, double time_limit,
+		const char *what, hl_error *err)
+{
+	return simplex(P, g, time_limit, what, PRESOLVE, err);
+}
+
+hl_status
+hl_glpk_simplex_direct(glp_prob *P, hl_glpk_guard *g, double time_limit,
+		       const char *what, hl_error *err)
+{
+	return simplex(P, g, time_limit, what, DIRECT, err);
+}
+
+hl_status
+hl_glpk_simplex_warm(glp_prob *P, hl_glpk_guard *g, double time_limit,
+		     const char *what, hl_error *err)
+{
+	return simplex(P, g, time_limit, what, WARM, err);
 }

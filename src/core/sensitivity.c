@@ -32,43 +32,10 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "sensitivity.h"
+#include "sensitivity_int.h"
 
-/* One segment in the cascade's terms. */
-typedef struct {
-	double sign;    /* +1 hot, -1 cold: its sign in R */
-	double hi, lo;  /* shifted ends, °C, hi > lo */
-	double cp;      /* kW/K */
-} flat;
-
-/* How a segment's shifted ends and cp move per unit step of the data. */
-typedef struct {
-	double dhi, dlo, dcp;
-} vel;
-
-/* A segment end: one of the cascade's boundaries. */
-typedef struct {
-	size_t g;       /* flat segment */
-	int lo;         /* 1: its lower end, 0: its upper end */
-	double t;       /* its shifted temperature */
-	double f;       /* −R(t) = QHmin − lifted flow there, kW */
-} seg_end;
-
-typedef struct {
-	const hl_case *c;
-	double dtmin;
-	size_t n;
-	flat *g;
-	size_t *first;  /* first flat segment of each stream */
-	vel *d;         /* the direction being evaluated */
-	size_t nend;    /* 2n ends, the active ones (zero flow) first */
-	size_t nact;
-	seg_end *end;
-	double qh;
-} work;
-
-static void
-work_free(work *w)
+void
+hl_sens_work_free(hl_sens_work *w)
 {
 	free(w->g);
 	free(w->first);
@@ -77,8 +44,8 @@ work_free(work *w)
 }
 
 /* Flatten c's segments with the same shifted ends as the cascade's. */
-static hl_status
-work_init(work *w, const hl_case *c, double dtmin, hl_error *err)
+hl_status
+hl_sens_work_init(hl_sens_work *w, const hl_case *c, double dtmin, hl_error *err)
 {
 	size_t i, j, n = 0;
 
@@ -92,7 +59,7 @@ work_init(work *w, const hl_case *c, double dtmin, hl_error *err)
 	w->d = calloc(n ? n : 1, sizeof *w->d);
 	w->first = malloc((c->nstream ? c->nstream : 1) * sizeof *w->first);
 	if (w->g == NULL || w->d == NULL || w->first == NULL) {
-		work_free(w);
+		hl_sens_work_free(w);
 		return hl_error_nomem(err);
 	}
 	for (i = 0, n = 0; i < c->nstream; i++) {
@@ -132,7 +99,7 @@ find_boundary(const double *t, size_t n, double v)
 
 /* Every segment end with its −R, the active ones (zero lifted flow) first. */
 static hl_status
-work_ends(work *w, const hl_cascade *cas, hl_error *err)
+work_ends(hl_sens_work *w, const hl_cascade *cas, hl_error *err)
 {
 	size_t i, e, pass, n = 0;
 
@@ -164,8 +131,8 @@ work_ends(work *w, const hl_cascade *cas, hl_error *err)
 	return HL_OK;
 }
 
-static double
-phi(const flat *g, double t)
+double
+hl_sens_phi(const hl_sens_flat *g, double t)
 {
 	if (t >= g->hi)
 		return 0.0;
@@ -174,8 +141,8 @@ phi(const flat *g, double t)
 
 /* One-sided derivative of φ = (hi − max(lo, T))⁺ along (dhi, dlo, dt): the
  * max terms switch branch exactly at T = hi and T = lo. */
-static double
-dphi(const flat *g, double t, double dhi, double dlo, double dt)
+double
+hl_sens_dphi(const hl_sens_flat *g, double t, double dhi, double dlo, double dt)
 {
 	if (t > g->hi)
 		return 0.0;
@@ -189,18 +156,18 @@ dphi(const flat *g, double t, double dhi, double dlo, double dt)
 }
 
 /* R'(t) along s times the work direction, t moving at s·vt. */
-static double
-surplus_dir(const work *w, double t, double vt, double s)
+double
+hl_sens_surplus_dir(const hl_sens_work *w, double t, double vt, double s)
 {
 	double sum = 0.0;
 	size_t i;
 
 	for (i = 0; i < w->n; i++) {
-		const flat *g = &w->g[i];
-		const vel *d = &w->d[i];
+		const hl_sens_flat *g = &w->g[i];
+		const hl_sens_vel *d = &w->d[i];
 
-		sum += g->sign * (s * d->dcp * phi(g, t) + g->cp *
-			dphi(g, t, s * d->dhi, s * d->dlo, s * vt));
+		sum += g->sign * (s * d->dcp * hl_sens_phi(g, t) + g->cp *
+			hl_sens_dphi(g, t, s * d->dhi, s * d->dlo, s * vt));
 	}
 	return sum;
 }
@@ -209,15 +176,15 @@ surplus_dir(const work *w, double t, double vt, double s)
  * active ends (all = 0: QH'(s·d) by the max rule) or over every end
  * (all = 1: the linear model of every boundary, for the bands). */
 static double
-max_model(const work *w, double s, int all)
+max_model(const hl_sens_work *w, double s, int all)
 {
 	double best = -HUGE_VAL;
 	size_t a, n = all ? w->nend : w->nact;
 
 	for (a = 0; a < n; a++) {
-		const seg_end *e = &w->end[a];
+		const hl_sens_end *e = &w->end[a];
 		double vt = e->lo ? w->d[e->g].dlo : w->d[e->g].dhi;
-		double f = -surplus_dir(w, e->t, vt, s);
+		double f = -hl_sens_surplus_dir(w, e->t, vt, s);
 
 		if (all)
 			f += e->f - w->qh;
@@ -228,21 +195,21 @@ max_model(const work *w, double s, int all)
 }
 
 static double
-qh_dir(const work *w, double s)
+qh_dir(const hl_sens_work *w, double s)
 {
 	return max_model(w, s, 0);
 }
 
 /* d(Σ hot duty − Σ cold duty) along the work direction: smooth. */
-static double
-balance_dir(const work *w)
+double
+hl_sens_balance_dir(const hl_sens_work *w)
 {
 	double sum = 0.0;
 	size_t i;
 
 	for (i = 0; i < w->n; i++) {
-		const flat *g = &w->g[i];
-		const vel *d = &w->d[i];
+		const hl_sens_flat *g = &w->g[i];
+		const hl_sens_vel *d = &w->d[i];
 
 		sum += g->sign * (d->dcp * (g->hi - g->lo) +
 				  g->cp * (d->dhi - d->dlo));
@@ -250,8 +217,8 @@ balance_dir(const work *w)
 	return sum;
 }
 
-static void
-dir_clear(work *w)
+void
+hl_sens_dir_clear(hl_sens_work *w)
 {
 	memset(w->d, 0, w->n * sizeof *w->d);
 }
@@ -259,8 +226,8 @@ dir_clear(work *w)
 /* Add k times the unit step of r's datum to the work direction. A segment
  * given by duty keeps its duty while a temperature moves, so its cp moves by
  * −cp/span per kelvin of span. */
-static void
-dir_add(work *w, const hl_sens_row *r, double k)
+void
+hl_sens_dir_add(hl_sens_work *w, const hl_sens_row *r, double k)
 {
 	const hl_stream *s;
 	const hl_segment *seg;
@@ -312,13 +279,13 @@ differ(double a, double b)
 
 /* The four one-sided derivatives of a row, and its moves within ±tol. */
 static void
-row_derivatives(work *w, hl_sens_row *r)
+row_derivatives(hl_sens_work *w, hl_sens_row *r)
 {
 	double bal;
 
-	dir_clear(w);
-	dir_add(w, r, 1.0);
-	bal = balance_dir(w);
+	hl_sens_dir_clear(w);
+	hl_sens_dir_add(w, r, 1.0);
+	bal = hl_sens_balance_dir(w);
 	r->hot_plus = qh_dir(w, 1.0);
 	r->hot_minus = -qh_dir(w, -1.0);
 	r->cold_plus = r->hot_plus + bal;
@@ -338,16 +305,17 @@ const char *
 hl_sensitivity_quantity_name(hl_sens_quantity q)
 {
 	static const char *const names[] = { "supply", "target", "cp", "duty",
-					     "dtmin" };
+					     "dtmin", "level" };
 
-	return (unsigned)q < 5 ? names[q] : "?";
+	return (unsigned)q < 6 ? names[q] : "?";
 }
 
 double
 hl_sensitivity_effect(const hl_sens_row *r)
 {
-	if (!isnan(r->cost_plus))
-		return fmax(fabs(r->cost_plus), fabs(r->cost_minus)) * r->tol;
+	if (!isnan(r->cost_plus) && !isnan(r->cost_minus))
+		return r->tol > 0.0 ? fmax(fabs(r->cost_plus),
+					   fabs(r->cost_minus)) * r->tol : 0.0;
 	return fmax(fmax(r->hot_down, r->hot_up), fmax(r->cold_down, r->cold_up));
 }
 
@@ -605,22 +573,22 @@ corner_target(const hl_case *c, const hl_sensitivity *sv, int cold, double sg,
 
 /* First-order estimate at the corners: the direction Σ sign·tol·step. */
 static void
-linear_band(work *w, const hl_sensitivity *sv, int cold, hl_sens_band *b)
+linear_band(hl_sens_work *w, const hl_sensitivity *sv, int cold, hl_sens_band *b)
 {
 	size_t i;
 	double bal;
 
-	dir_clear(w);
+	hl_sens_dir_clear(w);
 	for (i = 0; i < sv->nrow; i++)
-		dir_add(w, &sv->row[i],
+		hl_sens_dir_add(w, &sv->row[i],
 			corner_sign(w->c, &sv->row[i], cold) * sv->row[i].tol);
-	bal = cold ? balance_dir(w) : 0.0;
+	bal = cold ? hl_sens_balance_dir(w) : 0.0;
 	b->lin_high = b->nominal + max_model(w, 1.0, 1) + bal;
 	b->lin_low = b->nominal + max_model(w, -1.0, 1) - bal;
 }
 
 static hl_status
-bands(work *w, const hl_case *c, hl_sensitivity *sv, hl_error *err)
+bands(hl_sens_work *w, const hl_case *c, hl_sensitivity *sv, hl_error *err)
 {
 	hl_status st;
 	int cold;
@@ -651,7 +619,7 @@ count_active_boundaries(const hl_cascade *cas)
 }
 
 static hl_status
-compute(work *w, const hl_case *c, const hl_cascade *cas, hl_sensitivity *sv,
+compute(hl_sens_work *w, const hl_case *c, const hl_cascade *cas, hl_sensitivity *sv,
 	hl_error *err)
 {
 	hl_status st;
@@ -671,6 +639,11 @@ compute(work *w, const hl_case *c, const hl_cascade *cas, hl_sensitivity *sv,
 	sv->dt.value = cas->dtmin;
 	row_derivatives(w, &sv->dt);
 	cost_derivatives(c, sv);
+	if (c->nutil > 0)
+		st = hl_sens_cost_lp(c, sv, sv->cost == HL_SENS_COST_LEVELS,
+				     err);
+	if (st != HL_OK)
+		return st;
 	sv->hot.nominal = cas->qh;
 	sv->cold.nominal = cas->qc;
 	st = rank_rows(sv, err);
@@ -682,7 +655,7 @@ hl_sensitivity_compute(const hl_case *c, const hl_cascade *cas,
 		       hl_sensitivity **out, hl_error *err)
 {
 	hl_sensitivity *sv;
-	work w;
+	hl_sens_work w;
 	hl_status st;
 
 	*out = NULL;
@@ -690,10 +663,10 @@ hl_sensitivity_compute(const hl_case *c, const hl_cascade *cas,
 	if (sv == NULL)
 		return hl_error_nomem(err);
 	sv->dtmin = cas->dtmin;
-	st = work_init(&w, c, cas->dtmin, err);
+	st = hl_sens_work_init(&w, c, cas->dtmin, err);
 	if (st == HL_OK) {
 		st = compute(&w, c, cas, sv, err);
-		work_free(&w);
+		hl_sens_work_free(&w);
 	}
 	if (st != HL_OK) {
 		hl_sensitivity_free(sv);
@@ -710,6 +683,7 @@ hl_sensitivity_free(hl_sensitivity *s)
 		return;
 	free(s->row);
 	free(s->rank);
+	free(s->urow);
 	free(s);
 }
 
@@ -718,22 +692,22 @@ hl_sensitivity_surplus(const hl_case *c, double dtmin, const hl_sens_row *r,
 		       double t, int tied, double *minus, double *plus,
 		       hl_error *err)
 {
-	work w;
+	hl_sens_work w;
 	double vt = 0.0;
 	size_t i;
-	hl_status st = work_init(&w, c, dtmin, err);
+	hl_status st = hl_sens_work_init(&w, c, dtmin, err);
 
 	if (st != HL_OK)
 		return st;
-	dir_add(&w, r, 1.0);
+	hl_sens_dir_add(&w, r, 1.0);
 	for (i = 0; tied && i < w.n; i++) {
 		if (w.g[i].hi == t && w.d[i].dhi != 0.0)
 			vt = w.d[i].dhi;
 		else if (w.g[i].lo == t && w.d[i].dlo != 0.0)
 			vt = w.d[i].dlo;
 	}
-	*plus = surplus_dir(&w, t, vt, 1.0);
-	*minus = -surplus_dir(&w, t, vt, -1.0);
-	work_free(&w);
+	*plus = hl_sens_surplus_dir(&w, t, vt, 1.0);
+	*minus = -hl_sens_surplus_dir(&w, t, vt, -1.0);
+	hl_sens_work_free(&w);
 	return HL_OK;
 }

@@ -17,6 +17,11 @@
  * the targets' monotonicity in each datum singles out, and as the first-order
  * estimate at the same corners.
  *
+ * With utilities it gives the one-sided derivatives of the utility cost as
+ * well: with one hot and one cold utility from the priced targets, with
+ * several levels from the utility LP (sensitivity_cost.c), and then also
+ * with respect to each utility's own temperatures.
+ *
  * Units: derivatives in kW per K (temperatures, ΔTmin), kW per kW/K (cp),
  * kW per kW (duty); tolerances in the datum's unit; cost derivatives in
  * currency per year per unit of the datum.
@@ -39,7 +44,9 @@ typedef enum {
 	HL_SENS_CP = 2,     /* one segment's cp, kW/K (duty follows) */
 	HL_SENS_DUTY = 3,   /* one segment's duty, kW, for a segment given by
 			       duty (cp = duty / span follows) */
-	HL_SENS_DTMIN = 4   /* ΔTmin, K */
+	HL_SENS_DTMIN = 4,  /* ΔTmin, K */
+	HL_SENS_LEVEL = 5   /* an isothermal utility's temperature, °C
+			       (supply and target move together) */
 } hl_sens_quantity;
 
 /* Whether the rows carry a utility cost derivative. */
@@ -48,8 +55,9 @@ typedef enum {
 	HL_SENS_COST_SINGLE = 1, /* one hot and one cold utility: the cost is
 				    (price_hot·QHmin + price_cold·QCmin)·hours */
 	HL_SENS_COST_LEVELS = 2  /* several levels: the cost is the utility
-				    LP's optimum; cost_* are NaN until its
-				    duals fill them (see hl_sensitivity_surplus) */
+				    LP's optimum, cost_* its one-sided
+				    derivatives (NaN when the LP cannot
+				    serve the process at all) */
 } hl_sens_cost_basis;
 
 typedef struct {
@@ -60,7 +68,10 @@ typedef struct {
 	double tol;         /* ± tolerance in the datum's unit (0 for ΔTmin) */
 	double hot_minus, hot_plus;   /* dQHmin/dx from the left, the right */
 	double cold_minus, cold_plus; /* dQCmin/dx from the left, the right */
-	double cost_minus, cost_plus; /* d(utility cost)/dx, NaN when unknown */
+	double cost_minus, cost_plus; /* d(utility cost)/dx, NaN when unknown;
+					 +inf (plus) or -inf (minus): a step
+					 that way leaves the utilities unable
+					 to serve the process */
 	/* First-order moves of the targets with the datum anywhere within
 	 * ±tol (kW, >= 0): how far each can fall and rise. */
 	double hot_down, hot_up;
@@ -69,6 +80,18 @@ typedef struct {
 			       changes at this datum's value) */
 	size_t rank;        /* 1 for the largest effect, 0 for ΔTmin */
 } hl_sens_row;
+
+/* A utility's temperature as a datum. The problem-table targets do not
+ * depend on it; the utility LP's cost does. */
+typedef struct {
+	size_t util;        /* index into the case's utilities */
+	hl_sens_quantity q; /* HL_SENS_SUPPLY, HL_SENS_TARGET (a utility with
+			       a range) or HL_SENS_LEVEL (an isothermal one) */
+	double value;       /* °C as given */
+	double tol;         /* ± K: the settings' t_tol */
+	double cost_minus, cost_plus; /* d(utility cost)/dx, currency per
+					 year per K; NaN, ±inf as above */
+} hl_sens_urow;
 
 /* A target over the whole tolerance box. */
 typedef struct {
@@ -93,6 +116,9 @@ typedef struct {
 	hl_sens_cost_basis cost;
 	size_t collapsed;   /* segments whose tolerance box would turn them
 			       inside out: shrunk to nothing at a corner */
+	size_t nurow;
+	hl_sens_urow *urow; /* utilities in case order (none without
+			       utilities): supply and target, or level */
 } hl_sensitivity;
 
 /* Derivatives, ranking and bands of c's targets at cas->dtmin; cas must be
@@ -105,25 +131,24 @@ hl_status hl_sensitivity_compute(const hl_case *c, const hl_cascade *cas,
 void hl_sensitivity_free(hl_sensitivity *s);
 
 /* The effect used for ranking: with a known utility cost, how far it moves
- * (first order) over ±tol, currency per year; else the largest of the row's
- * four moves, kW. */
+ * (first order) over ±tol, currency per year (+inf when a step within the
+ * tolerance leaves the utilities unable to serve); else the largest of the
+ * row's four moves, kW. */
 double hl_sensitivity_effect(const hl_sens_row *r);
 
-/* The hook for several utility levels. With its balance rows at shifted
- * temperatures t_b and their duals λ_b, the utility LP's cost derivative at a
- * fixed basis is Σ_b λ_b·dR(t_b)/dx, where R(t) is the process heat surplus
- * above t (kW): Σ hot heat above t − Σ cold heat above t. This gives the
- * one-sided derivatives of R(t) (kW per unit of r's datum; r needs only
- * stream, segment and q). 'tied' nonzero: t is a segment end that r's datum
- * moves, and t moves with it; 0: t is fixed (a utility level). The utility
- * LP, not this module, combines them with its duals into cost_minus and
- * cost_plus. Fails only for want of memory. */
+/* The one-sided derivatives of R(t), the process heat surplus above the
+ * shifted temperature t (kW): Σ hot heat above t − Σ cold heat above t, in
+ * kW per unit of r's datum (r needs only stream, segment and q). 'tied'
+ * nonzero: t is a segment end that r's datum moves, and t moves with it; 0:
+ * t is fixed (a utility level). The cost derivatives with several levels
+ * use the same model end by end (sensitivity_cost.c). Fails only for want of
+ * memory. */
 hl_status hl_sensitivity_surplus(const hl_case *c, double dtmin,
 				 const hl_sens_row *r, double t, int tied,
 				 double *minus, double *plus, hl_error *err);
 
 /* The quantity's name as written in the results: supply, target, cp, duty,
- * dtmin. */
+ * dtmin, level. */
 const char *hl_sensitivity_quantity_name(hl_sens_quantity q);
 
 #endif

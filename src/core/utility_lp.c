@@ -503,7 +503,10 @@ set_bounds(glp_prob *P, const model *m)
 /* Second solve over the optimal face only: every nonbasic column with a
  * nonzero reduced cost is held at its value (complementary slackness: all
  * rows are equalities), then the colder hot and hotter cold levels are
- * preferred. No cost slack is needed, so the cost stays exactly optimal. */
+ * preferred. No cost slack is needed, so the cost stays exactly optimal.
+ * It starts from the optimal basis, which stays primal feasible: GLPK's
+ * presolver, re-deriving feasibility from rounded data, could call it
+ * infeasible. */
 static hl_status
 break_ties(glp_prob *P, const model *m, hl_glpk_guard *g, double tlim,
 	   hl_error *err)
@@ -523,7 +526,30 @@ break_ties(glp_prob *P, const model *m, hl_glpk_guard *g, double tlim,
 	}
 	for (u = 0; u < m->nu; u++)
 		glp_set_obj_coef(P, (int)(m->nb + u) + 1, tie_weight(m, u));
-	return hl_glpk_simplex(P, g, tlim, "the utility LP", err);
+	return hl_glpk_simplex_warm(P, g, tlim, "the utility LP", err);
+}
+
+static void
+read_loads(glp_prob *P, const model *m, double *load)
+{
+	size_t u;
+
+	for (u = 0; u < m->nu; u++)
+		load[u] = glp_get_col_prim(P, (int)(m->nb + u) + 1);
+}
+
+/* The loads of P's proven optimum, tie-broken. Fixing columns at values
+ * that hold rows only to the simplex's tolerance could in principle make
+ * the tie-breaking LP infeasible (it did when GLPK's presolver gave the
+ * first optimum, see hl_glpk_simplex_direct). The tie-break only chooses
+ * among least-cost answers, so when it fails the first optimum stands. */
+static void
+tie_broken_loads(glp_prob *P, const model *m, hl_glpk_guard *g, double tlim,
+		 double *load)
+{
+	read_loads(P, m, load);
+	if (break_ties(P, m, g, tlim, NULL) == HL_OK)
+		read_loads(P, m, load);
 }
 
 static hl_status
@@ -536,7 +562,6 @@ solve_loads(const model *m, const hl_utility_lp_opts *opt, double *load,
 	double tlim = opt && opt->time_limit > 0.0 ? opt->time_limit :
 		      m->c->set.time_limit;
 	hl_status st;
-	size_t u;
 
 	if (!build_matrix(m, &tr)) {
 		triplets_free(&tr);
@@ -555,11 +580,9 @@ solve_loads(const model *m, const hl_utility_lp_opts *opt, double *load,
 	glp_add_cols(P, (int)(m->nb + m->nu));
 	glp_load_matrix(P, tr.ne, tr.ia, tr.ja, tr.ar);
 	set_bounds(P, m);
-	st = hl_glpk_simplex(P, &g, tlim, "the utility LP", err);
+	st = hl_glpk_simplex_direct(P, &g, tlim, "the utility LP", err);
 	if (st == HL_OK)
-		st = break_ties(P, m, &g, tlim, err);
-	for (u = 0; st == HL_OK && u < m->nu; u++)
-		load[u] = glp_get_col_prim(P, (int)(m->nb + u) + 1);
+		tie_broken_loads(P, m, &g, tlim, load);
 	if (st != HL_OK && g.infeasible)
 		st = hl_error_set(err, HL_ENOSOLUTION, utility_file(m->c), 0,
 			"the utility levels cannot meet the process at ΔTmin "

@@ -82,6 +82,81 @@ move_text(char *buf, size_t size, double down, double up)
 		snprintf(buf, size, "%s%s / +%s", HL_MINUS, a, b);
 }
 
+/* The case has a utility cost (its derivatives are known). */
+static int
+has_cost(const hl_sensitivity *sv)
+{
+	return sv->cost != HL_SENS_COST_NONE;
+}
+
+/* How far the utility cost can fall and rise (first order, >= 0, +inf
+ * where a step leaves no utility able to serve) with the datum anywhere
+ * within ±tol; NaN when unknown. */
+static void
+cost_range(double minus, double plus, double tol, double *down, double *up)
+{
+	double at_up, at_down;
+
+	if (isnan(minus) || isnan(plus)) {
+		*down = *up = NAN;
+		return;
+	}
+	if (tol <= 0.0) {
+		*down = *up = 0.0;
+		return;
+	}
+	at_up = plus * tol;
+	at_down = -minus * tol;
+	*down = fmax(0.0, fmax(-at_up, -at_down));
+	*up = fmax(0.0, fmax(at_up, at_down));
+}
+
+/* "±96 000", "−300 / +∞", "none" below a unit, "unknown". */
+static void
+cost_move_text(char *buf, size_t size, double minus, double plus, double tol)
+{
+	char a[B / 2], b[B / 2];
+	double down, up;
+
+	cost_range(minus, plus, tol, &down, &up);
+	if (isnan(down)) {
+		snprintf(buf, size, "unknown");
+		return;
+	}
+	if (down < 0.5 && up < 0.5) {
+		snprintf(buf, size, "none");
+		return;
+	}
+	if (isinf(down))
+		snprintf(a, sizeof a, "∞");
+	else
+		hl_report_fmt_sig(a, sizeof a, down, 3, 0);
+	if (isinf(up))
+		snprintf(b, sizeof b, "∞");
+	else
+		hl_report_fmt_sig(b, sizeof b, up, 3, 0);
+	if (strcmp(a, b) == 0)
+		snprintf(buf, size, "±%s", a);
+	else
+		snprintf(buf, size, "%s%s / +%s", down < 0.5 ? "" : HL_MINUS,
+			 down < 0.5 ? "0" : a, up < 0.5 ? "0" : b);
+}
+
+static int
+any_infinite(const hl_sensitivity *sv)
+{
+	size_t i;
+
+	for (i = 0; i < sv->nrow; i++)
+		if (isinf(sv->row[i].cost_minus) || isinf(sv->row[i].cost_plus))
+			return 1;
+	for (i = 0; i < sv->nurow; i++)
+		if (isinf(sv->urow[i].cost_minus) ||
+		    isinf(sv->urow[i].cost_plus))
+			return 1;
+	return 0;
+}
+
 static void
 rank_row(hl_report *r, const hl_sens_row *row)
 {
@@ -101,6 +176,11 @@ rank_row(hl_report *r, const hl_sens_row *row)
 	hl_report_cell_num(r, v);
 	move_text(v, sizeof v, row->cold_down, row->cold_up);
 	hl_report_cell_num(r, v);
+	if (has_cost(r->d->sv)) {
+		cost_move_text(v, sizeof v, row->cost_minus, row->cost_plus,
+			       row->tol);
+		hl_report_cell_num(r, v);
+	}
 	hl_report_row_end(r);
 }
 
@@ -108,18 +188,67 @@ static void
 rank_table(hl_report *r)
 {
 	static const char *const head[] = { "Rank", "Stream", "Datum",
-		"Value", "Tolerance", "QHmin moves", "QCmin moves" };
-	static const char *const unit[] = { "", "", "", "", "", "kW", "kW" };
-	static const int num[] = { 1, 0, 0, 1, 1, 1, 1 };
+		"Value", "Tolerance", "QHmin moves", "QCmin moves",
+		"Utility cost moves" };
+	const char *unit[] = { "", "", "", "", "", "kW", "kW", "" };
+	static const int num[] = { 1, 0, 0, 1, 1, 1, 1, 1 };
 	const hl_sensitivity *sv = r->d->sv;
 	size_t i, n = sv->nrow < TOP ? sv->nrow : TOP;
-	char cap[256];
+	char cap[256], cur[B];
 
+	snprintf(cur, sizeof cur, "%s/yr", hl_report_currency(r->d->c));
+	unit[7] = cur;
 	snprintf(cap, sizeof cap, "The %zu stream data with the largest effect "
-		 "on the targets within their tolerances, largest first.", n);
-	hl_report_table_start(r, "data ranking", cap, 7, head, unit, num);
+		 "on the %s within their tolerances, largest first.", n,
+		 has_cost(sv) ? "utility cost" : "targets");
+	hl_report_table_start(r, "data ranking", cap, has_cost(sv) ? 8 : 7,
+			      head, unit, num);
 	for (i = 0; i < n; i++)
 		rank_row(r, &sv->row[sv->rank[i]]);
+	hl_report_table_end(r);
+}
+
+static void
+utility_row(hl_report *r, const hl_sens_urow *u)
+{
+	char v[2 * B], a[B];
+
+	hl_report_row_start(r, NULL);
+	hl_report_cell(r, r->d->c->util[u->util].name);
+	hl_report_cell(r, u->q == HL_SENS_LEVEL ? "level" : u->q ==
+		       HL_SENS_SUPPLY ? "supply temperature" :
+		       "target temperature");
+	hl_report_cell_num(r, hl_report_fmt_temp(v, sizeof v, u->value));
+	snprintf(v, sizeof v, "±%s", hl_report_fmt_dt(a, B, u->tol));
+	hl_report_cell_num(r, v);
+	cost_move_text(v, sizeof v, u->cost_minus, u->cost_plus, u->tol);
+	hl_report_cell_num(r, v);
+	hl_report_row_end(r);
+}
+
+/* The utilities' own temperatures: the targets do not depend on them, the
+ * cost of the utility mix may. */
+static void
+utility_table(hl_report *r)
+{
+	static const char *const head[] = { "Utility", "Datum", "Value",
+		"Tolerance", "Utility cost moves" };
+	const char *unit[] = { "", "", "", "", "" };
+	static const int num[] = { 0, 0, 1, 1, 1 };
+	const hl_sensitivity *sv = r->d->sv;
+	char cur[B];
+	size_t i;
+
+	if (sv->nurow == 0 || !has_cost(sv))
+		return;
+	snprintf(cur, sizeof cur, "%s/yr", hl_report_currency(r->d->c));
+	unit[4] = cur;
+	hl_report_table_start(r, "data utility-temperatures", "The utilities' "
+			      "temperatures: the energy targets do not depend "
+			      "on them, the cost of the utility mix may.", 5,
+			      head, unit, num);
+	for (i = 0; i < sv->nurow; i++)
+		utility_row(r, &sv->urow[i]);
 	hl_report_table_end(r);
 }
 
@@ -192,12 +321,16 @@ write_sensitivity(hl_report *r)
 		      "tolerance (the stream's own cp_tol and t_tol where the "
 		      "table gives them, else ±%.3g" HL_NBSP "%% on cp and "
 		      "duty and ±%s on temperatures) and ranked by how far it "
-		      "can move the minimum hot and cold utility. Measure the "
-		      "first rows again before relying on the targets.",
+		      "can move %s. Measure the first rows again before "
+		      "relying on the targets.",
 		      100.0 * d->c->set.cp_tol,
-		      hl_report_fmt_dt(a, B, d->c->set.t_tol));
+		      hl_report_fmt_dt(a, B, d->c->set.t_tol), has_cost(d->sv) ?
+		      "the yearly utility cost (the least-cost mix of the "
+		      "utility levels, re-chosen as the datum moves)" :
+		      "the minimum hot and cold utility");
 	hl_html_end(r->h);
 	rank_table(r);
+	utility_table(r);
 	band_table(r);
 	hl_report_note(r, "Moves are first order (exact derivatives from the "
 		       "active pinch times the tolerance); the bands are "
@@ -205,6 +338,11 @@ write_sensitivity(hl_report *r)
 		       "hold for all data off at once. A marked row is a "
 		       "datum at which the pinch changes: its effect differs "
 		       "up and down.");
+	if (any_infinite(d->sv))
+		hl_report_note(r, "∞: the datum sits at the edge of what the "
+			       "utilities can reach; a step that way, however "
+			       "small, leaves no utility able to serve the "
+			       "process. Check it first.");
 }
 
 const hl_report_section hl_report_sec_sensitivity = {

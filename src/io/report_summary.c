@@ -249,8 +249,9 @@ finding_measure(hl_report *r)
 			      row->q == HL_SENS_TARGET ? "target temperature" :
 			      hl_sensitivity_quantity_name(row->q));
 	}
-	hl_html_text(r->h, ": within their tolerances they move the targets "
-		     "most.");
+	hl_html_textf(r->h, ": within their tolerances they move the %s most.",
+		      sv->cost != HL_SENS_COST_NONE ? "utility cost" :
+		      "targets");
 	hl_html_end(r->h);
 }
 

@@ -85,7 +85,8 @@ hl_format_number(char *buf, size_t size, double v)
 	char *end;
 
 	if (fabs(v) < 1e-28 || !isfinite(v)) {
-		snprintf(buf, size, "%s", isfinite(v) ? "0" : "NaN");
+		snprintf(buf, size, "%s", isnan(v) ? "NaN" : isinf(v) ?
+			 (v > 0.0 ? "inf" : "-inf") : "0");
 		return;
 	}
 	snprintf(buf, size, "%.12g", v);

@@ -26,7 +26,8 @@ int hl_xml_str(xmlTextWriterPtr w, const char *name, const char *v);
 int hl_xml_int(xmlTextWriterPtr w, const char *name, long v);
 
 /* Format a number for XML/CSV: plain decimal, 12 significant digits, no
- * exponent for ordinary magnitudes, "-0" never. */
+ * exponent for ordinary magnitudes, "-0" never; "inf" and "-inf" for the
+ * infinities (the schema says where they may appear), "NaN" for NaN. */
 void hl_format_number(char *buf, size_t size, double v);
 
 #endif

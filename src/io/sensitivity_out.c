@@ -114,6 +114,99 @@ move_text(char *buf, size_t size, double minus, double plus, double tol,
 			 decimals, up, down >= 0.0 ? "+" : "", decimals, down);
 }
 
+/* The case has a utility cost, and r's derivatives of it are known. */
+static int
+has_cost(const hl_sensitivity *sv, double minus, double plus)
+{
+	return sv->cost != HL_SENS_COST_NONE && !isnan(minus) && !isnan(plus);
+}
+
+/* "+12", "-3", "0", "+inf", "-inf": a change in whole currency units. */
+static void
+signed_text(char *buf, size_t size, double v)
+{
+	if (isinf(v))
+		snprintf(buf, size, "%s", v > 0.0 ? "+inf" : "-inf");
+	else if (fabs(v) < 0.5)
+		snprintf(buf, size, "0");
+	else
+		snprintf(buf, size, "%+.0f", v);
+}
+
+/* How far the utility cost moves with the datum off by tol: as move_text,
+ * whole currency units, "+inf"/"-inf" for a side where a step leaves no
+ * utility able to serve the process. */
+static void
+cost_move_text(char *buf, size_t size, double minus, double plus, double tol)
+{
+	char up[32], down[32];
+
+	if (tol <= 0.0 || (!isinf(minus) && !isinf(plus))) {
+		move_text(buf, size, tol > 0.0 ? minus : 0.0, tol > 0.0 ? plus :
+			  0.0, tol, 0);
+		return;
+	}
+	signed_text(up, sizeof up, plus * tol);
+	signed_text(down, sizeof down, -minus * tol);
+	snprintf(buf, size, "%s/%s", up, down);
+}
+
+/* A cost derivative, "left|right" when they differ, "inf" for a side
+ * that no utility can serve. */
+static void
+cost_deriv_text(char *buf, size_t size, double minus, double plus)
+{
+	if (minus == plus || (!isinf(minus) && !isinf(plus) &&
+			      !differ_shown(minus, plus, 0)))
+		snprintf(buf, size, "%.0f", fabs(plus) < 0.5 ? 0.0 : plus);
+	else
+		snprintf(buf, size, "%.0f|%.0f", fabs(minus) < 0.5 ? 0.0 : minus,
+			 fabs(plus) < 0.5 ? 0.0 : plus);
+}
+
+static const char *
+currency(const hl_case *c)
+{
+	return c->set.currency ? c->set.currency : "currency units";
+}
+
+/* "the utility cost by ±Y EUR a year" in words, and which way a step
+ * leaves no utility able to serve; up and down name the steps (+1.0 K). */
+static void
+cost_words(FILE *fp, const hl_case *c, double minus, double plus, double tol,
+	   const char *up, const char *down)
+{
+	char m[64];
+	int inf_up = isinf(plus), inf_down = isinf(minus);
+
+	if (inf_up && inf_down) {
+		fprintf(fp, "a step either way leaves no utility able to serve "
+			"the process");
+		return;
+	}
+	if (!inf_up && !inf_down) {
+		move_text(m, sizeof m, minus, plus, tol, 0);
+		fprintf(fp, "the utility cost by %s %s a year", m, currency(c));
+		return;
+	}
+	fprintf(fp, "the utility cost by %+.0f %s a year at %s; any %s value "
+		"leaves no utility able to serve the process", inf_up ?
+		-minus * tol : plus * tol, currency(c), inf_up ? down : up,
+		inf_up ? "higher" : "lower");
+}
+
+/* "+1.0 K" / "-5 %": one tolerance step up or down, for words. */
+static void
+step_text(char *buf, size_t size, int temperature, double value, double tol,
+	  int sign)
+{
+	if (temperature)
+		snprintf(buf, size, "%c%.1f K", sign > 0 ? '+' : '-', tol);
+	else
+		snprintf(buf, size, "%c%.3g %%", sign > 0 ? '+' : '-',
+			 value > 0.0 ? 100.0 * tol / value : 0.0);
+}
+
 static size_t
 name_width(const hl_case *c)
 {
@@ -169,8 +262,8 @@ text_first(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 	size_t i, n = 0;
 
 	fprintf(fp, "\nCheck these measurements first (largest effect on the "
-		"%s within their tolerances):\n", sv->cost ==
-		HL_SENS_COST_SINGLE ? "utility cost" : "targets");
+		"%s within their tolerances):\n", sv->cost !=
+		HL_SENS_COST_NONE ? "utility cost" : "targets");
 	for (i = 0; i < sv->nrow && n < 3; i++) {
 		const hl_sens_row *r = &sv->row[sv->rank[i]];
 		char v[48], t[32], h[48], k[48];
@@ -187,17 +280,22 @@ text_first(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 			fprintf(fp, " (segment %zu)", r->segment + 1);
 		fprintf(fp, " (%s): a %s error in it moves QHmin by %s kW and "
 			"QCmin by %s kW", v, t, h, k);
-		if (sv->cost == HL_SENS_COST_SINGLE) {
-			move_text(h, sizeof h, r->cost_minus, r->cost_plus,
-				  r->tol, 0);
-			fprintf(fp, ",\n     the utility cost by %s %s a year", h,
-				c->set.currency ? c->set.currency : "");
+		if (has_cost(sv, r->cost_minus, r->cost_plus)) {
+			step_text(h, sizeof h, is_temperature(r->q), r->value,
+				  r->tol, 1);
+			step_text(k, sizeof k, is_temperature(r->q), r->value,
+				  r->tol, -1);
+			fprintf(fp, ",\n     ");
+			cost_words(fp, c, r->cost_minus, r->cost_plus, r->tol,
+				   h, k);
 		}
 		fputc('\n', fp);
 	}
 	if (n == 0)
-		fprintf(fp, "  none: no datum moves the targets by %.2f kW or "
-			"more within its tolerance\n", SHOWN_ZERO);
+		fprintf(fp, "  none: no datum moves the %s within its "
+			"tolerance\n", sv->cost != HL_SENS_COST_NONE ?
+			"utility cost by a unit or the targets by 0.05 kW" :
+			"targets by 0.05 kW or more");
 }
 
 static void
@@ -220,8 +318,12 @@ text_row(FILE *fp, const hl_case *c, const hl_sensitivity *sv, size_t rank,
 	put_padded(fp, d, 7);
 	fprintf(fp, "%11s %7s %13s %13s %10s%s %10s", v, t, mh, mc, dh,
 		r->kink ? "*" : " ", dc);
-	if (sv->cost == HL_SENS_COST_SINGLE) {
-		move_text(co, sizeof co, r->cost_minus, r->cost_plus, r->tol, 0);
+	if (sv->cost != HL_SENS_COST_NONE) {
+		if (has_cost(sv, r->cost_minus, r->cost_plus))
+			cost_move_text(co, sizeof co, r->cost_minus,
+				       r->cost_plus, r->tol);
+		else
+			snprintf(co, sizeof co, "unknown");
 		fprintf(fp, " %14s", co);
 	}
 	fputc('\n', fp);
@@ -235,16 +337,64 @@ text_table(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 	fprintf(fp, "\nEvery datum, largest effect first: how far each target "
 		"moves (kW, first order) with\nthe datum off by its tolerance, "
 		"and the derivatives (kW per K for temperatures,\nper kW/K for "
-		"cp, per kW for duty).\n\n");
+		"cp, per kW for duty).");
+	if (sv->cost != HL_SENS_COST_NONE)
+		fprintf(fp, " The last column: how far the utility cost\nmoves "
+			"(%s a year, first order), at +tol/-tol when the two "
+			"differ.", currency(c));
+	fputs("\n\n", fp);
 	fprintf(fp, "%4s  ", "rank");
 	put_padded(fp, "stream", nw);
 	fprintf(fp, "  %-7s%11s %7s %13s %13s %10s  %10s", "datum", "value",
 		"tol", "QHmin moves", "QCmin moves", "dQHmin/dx", "dQCmin/dx");
-	if (sv->cost == HL_SENS_COST_SINGLE)
+	if (sv->cost != HL_SENS_COST_NONE)
 		fprintf(fp, " %14s", "cost/yr moves");
 	fputc('\n', fp);
 	for (i = 0; i < sv->nrow; i++)
 		text_row(fp, c, sv, i, nw);
+}
+
+static void
+text_urow(FILE *fp, const hl_case *c, const hl_sens_urow *u, size_t nw)
+{
+	char v[48], t[32], mv[64], d[64];
+
+	snprintf(v, sizeof v, "%.1f °C", u->value);
+	snprintf(t, sizeof t, "±%.1f K", u->tol);
+	cost_move_text(mv, sizeof mv, u->cost_minus, u->cost_plus, u->tol);
+	cost_deriv_text(d, sizeof d, u->cost_minus, u->cost_plus);
+	if (isnan(u->cost_minus) || isnan(u->cost_plus))
+		snprintf(mv, sizeof mv, "unknown"), snprintf(d, sizeof d, "-");
+	fprintf(fp, "      ");
+	put_padded(fp, c->util[u->util].name, nw);
+	fprintf(fp, "  ");
+	put_padded(fp, hl_sensitivity_quantity_name(u->q), 7);
+	fprintf(fp, "%11s %7s %14s %14s\n", v, t, mv, d);
+}
+
+/* The utilities' own temperatures: the targets do not depend on them, the
+ * cost of the utility mix may. */
+static void
+text_utilities(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
+{
+	size_t i, nw = 7; /* "utility" */
+
+	if (sv->nurow == 0)
+		return;
+	for (i = 0; i < c->nutil; i++)
+		if (text_width(c->util[i].name) > nw)
+			nw = text_width(c->util[i].name);
+	nw = nw > 40 ? 40 : nw;
+	fprintf(fp, "\nThe utilities' temperatures (the energy targets do not "
+		"depend on them; the\nutility cost does): how far the cost "
+		"moves with each off by ±%.1f K, and\nits derivative (%s a "
+		"year per K).\n\n", c->set.t_tol, currency(c));
+	fprintf(fp, "      ");
+	put_padded(fp, "utility", nw);
+	fprintf(fp, "  %-7s%11s %7s %14s %14s\n", "datum", "value", "tol",
+		"cost/yr moves", "dcost/dx");
+	for (i = 0; i < sv->nurow; i++)
+		text_urow(fp, c, &sv->urow[i], nw);
 }
 
 static void
@@ -264,6 +414,23 @@ band_differs(const hl_sens_band *b)
 
 	return fabs(b->lin_high - b->high) > slack ||
 	       fabs(b->lin_low - b->low) > slack;
+}
+
+/* Data (streams, ΔTmin, utilities) with an infinite cost derivative. */
+static size_t
+count_infinite(const hl_sensitivity *sv)
+{
+	size_t i, n = 0;
+
+	for (i = 0; i <= sv->nrow; i++) {
+		const hl_sens_row *r = i < sv->nrow ? &sv->row[i] : &sv->dt;
+
+		n += isinf(r->cost_minus) || isinf(r->cost_plus);
+	}
+	for (i = 0; i < sv->nurow; i++)
+		n += isinf(sv->urow[i].cost_minus) ||
+		     isinf(sv->urow[i].cost_plus);
+	return n;
 }
 
 static size_t
@@ -329,13 +496,36 @@ text_notes(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 			sv->collapsed == 1 ? "s" : "", sv->collapsed == 1 ?
 			"its" : "their", sv->collapsed == 1 ? "it" : "them");
 	if (sv->cost == HL_SENS_COST_LEVELS)
-		fprintf(fp, "Utility cost: the case has several utility levels, "
-			"whose cost the utility LP sets;\nits cost derivatives "
-			"are not part of this table yet.\n");
+		fprintf(fp, "Utility cost: the utility LP's least-cost mix of the "
+			"%zu levels, %g h per year, in %s;\nits derivatives are "
+			"exact and one-sided, with the loads re-chosen at "
+			"least cost.\n", c->nutil, c->set.hours, currency(c));
 	else if (sv->cost == HL_SENS_COST_SINGLE)
 		fprintf(fp, "Cost: (hot price × QHmin + cold price × QCmin) × %g "
-			"h per year, in %s.\n", c->set.hours,
-			c->set.currency ? c->set.currency : "currency");
+			"h per year, in %s.\n", c->set.hours, currency(c));
+	if (count_infinite(sv) > 0)
+		fprintf(fp, "inf: %zu datum%s at the edge of what the utilities "
+			"can reach: a step that way,\nhowever small, leaves no "
+			"utility able to serve the process.\n",
+			count_infinite(sv), count_infinite(sv) == 1 ? " sits" :
+			"s sit");
+}
+
+/* ", and the utility cost X a year more (Y per kelvin less)". */
+static void
+text_dtmin_cost(FILE *fp, const hl_case *c, const hl_sens_row *dt)
+{
+	if (isinf(dt->cost_plus))
+		fprintf(fp, ";\nany larger ΔTmin leaves no utility able to serve "
+			"the process");
+	else
+		fprintf(fp, ",\nand the utility cost %.0f %s a year more",
+			dt->cost_plus, currency(c));
+	if (isinf(dt->cost_minus))
+		fprintf(fp, "; any smaller ΔTmin leaves no utility able to "
+			"serve the process");
+	else if (differ_shown(dt->cost_minus, dt->cost_plus, 0))
+		fprintf(fp, " (%.0f less per kelvin less)", dt->cost_minus);
 }
 
 void
@@ -350,7 +540,11 @@ hl_sensitivity_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	if (sv->dt.kink)
 		fprintf(fp, " (%.2f and %.2f per kelvin less: a pinch changes "
 			"here)", sv->dt.hot_minus, sv->dt.cold_minus);
-	fprintf(fp, ".\n\nWith every datum off by its tolerance at once, in the "
+	if (has_cost(sv, sv->dt.cost_minus, sv->dt.cost_plus))
+		text_dtmin_cost(fp, c, &sv->dt);
+	fprintf(fp, ".\n");
+	text_utilities(fp, c, sv);
+	fprintf(fp, "\nWith every datum off by its tolerance at once, in the "
 		"worst direction (re-solved at\nthe two corners of the "
 		"tolerance box where each target is largest and smallest):\n");
 	text_band(fp, "QHmin", &sv->hot);
@@ -366,6 +560,38 @@ hl_sensitivity_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
 		"engineers under local codes.\n");
 }
 
+/* cost-minus and cost-plus where known: numbers, "inf" or "-inf". */
+static int
+xml_cost(xmlTextWriterPtr w, const hl_sensitivity *sv, double minus,
+	 double plus)
+{
+	int rc = 0;
+
+	if (sv->cost == HL_SENS_COST_NONE)
+		return 0;
+	if (!isnan(minus))
+		rc |= hl_xml_num(w, "cost-minus", minus);
+	if (!isnan(plus))
+		rc |= hl_xml_num(w, "cost-plus", plus);
+	return rc;
+}
+
+static int
+xml_urow(xmlTextWriterPtr w, const hl_case *c, const hl_sensitivity *sv,
+	 const hl_sens_urow *u)
+{
+	int rc = 0;
+
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "sensitivity-utility");
+	rc |= hl_xml_str(w, "utility", c->util[u->util].name);
+	rc |= hl_xml_str(w, "quantity", hl_sensitivity_quantity_name(u->q));
+	rc |= hl_xml_num(w, "value", u->value);
+	rc |= hl_xml_num(w, "tolerance", u->tol);
+	rc |= xml_cost(w, sv, u->cost_minus, u->cost_plus);
+	rc |= xmlTextWriterEndElement(w);
+	return rc;
+}
+
 /* Attributes shared by <sensitivity> and <sensitivity-dtmin>. */
 static int
 xml_derivs(xmlTextWriterPtr w, const hl_sensitivity *sv, const hl_sens_row *r)
@@ -376,10 +602,7 @@ xml_derivs(xmlTextWriterPtr w, const hl_sensitivity *sv, const hl_sens_row *r)
 	rc |= hl_xml_num(w, "hot-plus", r->hot_plus);
 	rc |= hl_xml_num(w, "cold-minus", r->cold_minus);
 	rc |= hl_xml_num(w, "cold-plus", r->cold_plus);
-	if (sv->cost == HL_SENS_COST_SINGLE) {
-		rc |= hl_xml_num(w, "cost-minus", r->cost_minus);
-		rc |= hl_xml_num(w, "cost-plus", r->cost_plus);
-	}
+	rc |= xml_cost(w, sv, r->cost_minus, r->cost_plus);
 	if (r->kink)
 		rc |= hl_xml_str(w, "pinch-change", "yes");
 	return rc;
@@ -450,6 +673,8 @@ hl_sensitivity_xml(xmlTextWriterPtr w, const hl_case *c,
 	rc |= hl_xml_num(w, "value", sv->dt.value);
 	rc |= xml_derivs(w, sv, &sv->dt);
 	rc |= xmlTextWriterEndElement(w);
+	for (i = 0; i < sv->nurow && rc >= 0; i++)
+		rc |= xml_urow(w, c, sv, &sv->urow[i]);
 	rc |= xml_band(w, "hot", &sv->hot);
 	rc |= xml_band(w, "cold", &sv->cold);
 	return rc < 0 ? -1 : 0;
@@ -508,7 +733,26 @@ csv_row(FILE *fp, const hl_case *c, const hl_sens_row *r)
 	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_up);
 	csv_num(fp, r->cost_minus);
 	csv_num(fp, r->cost_plus);
-	fprintf(fp, ",%d\n", r->kink);
+	fprintf(fp, ",%d,\n", r->kink);
+}
+
+/* A utility's temperature: the targets do not move (zero derivatives and
+ * moves, no pinch change), the cost may; no rank, segment or stream. */
+static void
+csv_urow(FILE *fp, const hl_case *c, const hl_sens_urow *u)
+{
+	int i;
+
+	fprintf(fp, ",,%s,", hl_sensitivity_quantity_name(u->q));
+	csv_num(fp, u->value);
+	csv_num(fp, u->tol);
+	for (i = 0; i < 8; i++)
+		csv_num(fp, 0.0);
+	csv_num(fp, u->cost_minus);
+	csv_num(fp, u->cost_plus);
+	fprintf(fp, ",0,");
+	csv_text(fp, c->util[u->util].name);
+	fputc('\n', fp);
 }
 
 void
@@ -518,8 +762,10 @@ hl_sensitivity_csv(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 
 	fprintf(fp, "rank,stream,quantity,segment,value,tolerance,hot_minus,"
 		"hot_plus,cold_minus,cold_plus,hot_down,hot_up,cold_down,"
-		"cold_up,cost_minus,cost_plus,pinch_change\n");
+		"cold_up,cost_minus,cost_plus,pinch_change,utility\n");
 	for (i = 0; i < sv->nrow; i++)
 		csv_row(fp, c, &sv->row[i]);
 	csv_row(fp, c, &sv->dt);
+	for (i = 0; i < sv->nurow; i++)
+		csv_urow(fp, c, &sv->urow[i]);
 }

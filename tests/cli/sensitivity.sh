@@ -40,11 +40,53 @@ if [ -n "${XMLLINT:-}" ]; then
 		fail "duty case XML does not match the schema"
 	check_near "$(xpath 'count(/results/sensitivity[@quantity="duty"])' "$WORK/d.xml")" 5 0 "duty rows"
 	check_near "$(xpath 'string(/results/sensitivity[@stream="H2" and @segment="2"]/@value)' "$WORK/d.xml")" 105 1e-9 "H2 segment 2 duty"
-	# Several utility levels: the cost derivatives wait for the utility LP.
+	# Several utility levels: every row carries the utility LP's cost
+	# derivatives, and each utility's temperatures have a row of their own.
 	[ "$(xpath 'string(/results/sensitivity-summary/@cost)' "$WORK/d.xml")" = levels ] && pass ||
 		fail "cost basis is not 'levels'"
-	[ "$(xpath 'count(/results/sensitivity[@cost-plus])' "$WORK/d.xml")" = 0 ] && pass ||
-		fail "cost derivatives written for several levels"
+	check_near "$(xpath 'count(/results/sensitivity[@cost-plus and @cost-minus])' "$WORK/d.xml")" \
+		"$(xpath 'count(/results/sensitivity)' "$WORK/d.xml")" 0 "rows with cost derivatives"
+	check_near "$(xpath 'count(/results/sensitivity-utility)' "$WORK/d.xml")" 7 0 "utility rows"
+
+	# The demo plant (several levels). Checks derived by hand from the
+	# demo's data (demo-streams.csv, demo-utilities.csv) and the method:
+	check_exit 0 hl targets "$CASES/demo.xml" --sensitivity --format xml -o "$WORK/demo.xml"
+	if "$XMLLINT" --noout --relaxng "$TOP_SRCDIR/doc/results.rng" "$WORK/demo.xml" 2>"$WORK/lint"; then
+		pass
+	else
+		fail "demo sensitivity XML does not match doc/results.rng"; cat "$WORK/lint" >&2
+	fi
+	# Three steam levels, two water loops with a range: 3 + 2·2 rows.
+	check_near "$(xpath 'count(/results/sensitivity-utility)' "$WORK/demo.xml")" 7 0 "demo utility rows"
+	check_near "$(xpath 'count(/results/sensitivity-utility[@quantity="level"])' "$WORK/demo.xml")" 3 0 "level rows"
+	# The reboiler's top (150 → 152 °C, cp 400 kW/K) lies above LP steam's
+	# reach (160 − ΔTmin = 150 °C): each kelvin more on its target needs
+	# 400 kW more hot utility (dQHmin = 400, above) and only MP or HP steam
+	# can give it; MP is the cheaper: 400 kW × 30 EUR/MWh × 8000 h/yr =
+	# 96 000 EUR a year per K (derived by hand).
+	row='/results/sensitivity[@stream="reboiler" and @quantity="target"]'
+	check_near "$(xpath "string($row/@cost-plus)" "$WORK/demo.xml")" 96000 1e-9 "reboiler target dcost+"
+	check_near "$(xpath "string($row/@cost-minus)" "$WORK/demo.xml")" 96000 1e-9 "reboiler target dcost-"
+	# Chilled water (5 °C, ΔT contribution 1.5 K) cools the vent condenser
+	# (ΔT contribution 1.5 K) to exactly 5 + 1.5 + 1.5 = 8 °C, its target:
+	# no utility can take it lower, nor serve it with chilled water any
+	# warmer. Those sides are infinite ("-inf", "inf"); the other sides are
+	# finite, and the infinite side ranks the vent condenser's target first.
+	row='/results/sensitivity[@stream="vent condenser" and @quantity="target"]'
+	[ "$(xpath "string($row/@cost-minus)" "$WORK/demo.xml")" = "-inf" ] && pass ||
+		fail "vent condenser target cost-minus is not -inf"
+	check_near "$(xpath "string($row/@rank)" "$WORK/demo.xml")" 1 0 "vent condenser target rank"
+	row='/results/sensitivity-utility[@utility="chilled water" and @quantity="supply"]'
+	[ "$(xpath "string($row/@cost-plus)" "$WORK/demo.xml")" = "inf" ] && pass ||
+		fail "chilled water supply cost-plus is not inf"
+	check_near "$(xpath "string($row/@cost-minus)" "$WORK/demo.xml")" 0 0 "chilled water supply dcost-"
+	# HP steam carries no load at the optimum: its level moves nothing.
+	row='/results/sensitivity-utility[@utility="HP steam"]'
+	check_near "$(xpath "string($row/@cost-plus)" "$WORK/demo.xml")" 0 0 "HP steam level dcost+"
+	# The unchanged contract: <sensitivity stream quantity hot-minus
+	# hot-plus cold-minus cold-plus/> on every row, numbers only.
+	[ "$(xpath 'count(/results/sensitivity[@hot-minus="inf" or @hot-plus="inf" or @cold-minus="inf" or @cold-plus="inf"])' "$WORK/demo.xml")" = 0 ] && pass ||
+		fail "an infinite target derivative"
 fi
 
 # CSV: one row per stream and quantity, then ΔTmin.
@@ -53,6 +95,19 @@ check_grep "rank,stream,quantity,segment,value,tolerance,hot_minus,hot_plus,cold
 check_grep ",C2,supply,,80,1,-1.5,-1.5,2.5,2.5,1.5,1.5,2.5,2.5,,,0" "$WORK/s.csv"
 check_grep ",,dtmin,,10,,4.5,4.5,4.5,4.5," "$WORK/s.csv"
 [ "$(wc -l <"$WORK/s.csv")" -eq 14 ] && pass || fail "CSV rows: $(wc -l <"$WORK/s.csv")"
+
+# CSV with utility levels: the utility column, one row per utility datum
+# after ΔTmin, "inf"/"-inf" for the infinite sides (see the XML checks).
+check_exit 0 hl targets "$CASES/demo.xml" --sensitivity --format csv -o "$WORK/demo.csv"
+check_grep "rank,stream,quantity,segment,value,tolerance,hot_minus,hot_plus,cold_minus,cold_plus,hot_down,hot_up,cold_down,cold_up,cost_minus,cost_plus,pinch_change,utility" "$WORK/demo.csv"
+check_grep ",reboiler,target,,152,1,400,400,0,0,400,400,0,0,96000,96000,0," "$WORK/demo.csv"
+check_grep ",vent condenser,target,,8,1,0,0,-2.5,-2.5,0,0,2.5,2.5,-inf,-300,0," "$WORK/demo.csv"
+check_grep ",,supply,,5,1,0,0,0,0,0,0,0,0,0,inf,0,chilled water" "$WORK/demo.csv"
+check_grep ",,level,,250,1,0,0,0,0,0,0,0,0,0,0,0,HP steam" "$WORK/demo.csv"
+# 40 stream data + ΔTmin + 7 utility data + the header; 18 fields each.
+[ "$(wc -l <"$WORK/demo.csv")" -eq 49 ] && pass || fail "demo CSV rows: $(wc -l <"$WORK/demo.csv")"
+awk -F, 'NR > 1 && $1 != "" && NF != 18 { bad = 1 } END { exit bad }' "$WORK/demo.csv" && pass ||
+	fail "demo CSV rows without 18 fields"
 
 # Text: the three to check first, the table, the bands, the caution. H1 cp
 # and C2 cp tie at 12 kW on QHmin (derived by hand) and lead.
@@ -71,6 +126,15 @@ check_grep ",C2,target,,140,0.5,4,4,0,0,2,2,0,0," "$WORK/tol.out"
 # The demo plant: a report that names three data to check first.
 check_exit 0 hl targets "$CASES/demo-streams.csv" --sensitivity
 check_grep "  3. " "$WORK/stdout"
+# With its utilities: the cost beside the kW moves, the infinite side in
+# words, the utility table.
+check_exit 0 hl targets "$CASES/demo.xml" --sensitivity
+check_grep "  1. vent condenser target temperature (8.0 °C): a ±1.0 K error in it moves QHmin by ±0.0 kW and QCmin by ±2.5 kW," "$WORK/stdout"
+check_grep "     the utility cost by -300 EUR a year at +1.0 K; any lower value leaves no utility able to serve the process" "$WORK/stdout"
+check_grep "     the utility cost by ±96000 EUR a year" "$WORK/stdout"
+check_grep "The utilities' temperatures" "$WORK/stdout"
+check_grep "chilled water  supply     5.0 °C ±1.0 K         +inf/0          0|inf" "$WORK/stdout"
+check_grep "and the utility cost " "$WORK/stdout"
 check_exit 0 hl help targets
 check_grep "--sensitivity" "$WORK/stdout"
 finish

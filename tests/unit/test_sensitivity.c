@@ -13,6 +13,7 @@
 #include "cascade.h"
 #include "gen.h"
 #include "sensitivity.h"
+#include "utility_lp.h"
 
 /* Hand-derived values are exact sums of a few products: 1e-9 relative. */
 #define HAND 1e-9
@@ -714,7 +715,238 @@ test_cost(void **state)
 	hl_gen_add_utility(c, "LP steam", HL_HOT, 140, 140, 20, NAN);
 	s = sens(c, 10.0);
 	assert_int_equal(s->cost, HL_SENS_COST_LEVELS);
-	assert_true(isnan(s->row[0].cost_plus) && isnan(s->dt.cost_minus));
+	assert_false(isnan(s->row[0].cost_plus) || isnan(s->dt.cost_minus));
+	hl_sensitivity_free(s);
+	hl_case_free(c);
+}
+
+/* ---- several utility levels: the utility LP's cost ---- */
+
+/* c's utilities appended to d, utility ui's temperature moved by delta
+ * (q: supply, target, or level = both). */
+static void
+copy_utilities(hl_case *d, const hl_case *c, size_t ui, hl_sens_quantity q,
+	       double delta)
+{
+	size_t u;
+
+	for (u = 0; u < c->nutil; u++) {
+		hl_utility x = c->util[u];
+
+		if (u == ui && (q == HL_SENS_SUPPLY || q == HL_SENS_LEVEL))
+			x.supply += delta;
+		if (u == ui && (q == HL_SENS_TARGET || q == HL_SENS_LEVEL))
+			x.target += delta;
+		assert_int_equal(hl_case_add_utility(d, &x, NULL), HL_OK);
+	}
+}
+
+/* The utility LP's yearly cost, re-solved; NAN when it has no answer. */
+static double
+lp_cost(const hl_case *c, double dtmin)
+{
+	hl_utility_lp *lp;
+	double v;
+
+	if (hl_utility_lp_solve(c, dtmin, NULL, &lp, NULL) != HL_OK)
+		return NAN;
+	v = lp->cost;
+	hl_utility_lp_free(lp);
+	return v;
+}
+
+static double
+cost_at(const hl_case *c, const hl_sens_row *r, double dtmin, double delta)
+{
+	hl_case *d = perturbed(c, r, delta);
+	double v;
+
+	copy_utilities(d, c, (size_t)-1, HL_SENS_SUPPLY, 0.0);
+	v = lp_cost(d, r->q == HL_SENS_DTMIN ? dtmin + delta : dtmin);
+	hl_case_free(d);
+	return v;
+}
+
+static double
+cost_at_utility(const hl_case *c, const hl_sens_urow *r, double dtmin,
+		double delta)
+{
+	hl_case *d = perturbed(c, &(hl_sens_row){ .q = HL_SENS_DTMIN }, 0.0);
+	double v;
+
+	copy_utilities(d, c, r->util, r->q, delta);
+	v = lp_cost(d, dtmin);
+	hl_case_free(d);
+	return v;
+}
+
+/* Cost derivatives are compared within FD_REL of their size plus 1e-10 of
+ * the yearly cost per unit: GLPK holds the optimal face to about that, and a
+ * derivative of 1e-10 of the whole bill per kelvin is zero for any use. */
+static int
+near_cost(double got, double want, double c0)
+{
+	return fabs(got - want) <= FD_REL * fmax(1.0, fabs(want)) +
+	       1e-10 * fabs(c0);
+}
+
+/* An infinite one-sided derivative says the LP has no answer a step that
+ * way; otherwise the pair against the finite differences: without a kink
+ * the central difference equals the derivative, with one the forward and
+ * backward differences equal the right and left ones and the central one
+ * lies between. Returns 1 for a kink, 2 for an infinite side. */
+static int
+check_cost_fd(double minus, double plus, double c0, double cp, double cm,
+	      double h, const char *what)
+{
+	double central = (cp - cm) / (2 * h), fwd = (cp - c0) / h;
+	double bwd = (c0 - cm) / h;
+	int k = !near_cost(minus, plus, c0);
+
+	if (isinf(plus) || isinf(minus)) {
+		assert_true(isinf(plus) ? plus > 0 && isnan(cp) : !isnan(cp));
+		assert_true(isinf(minus) ? minus < 0 && isnan(cm) : !isnan(cm));
+		return 2;
+	}
+	if (isnan(cp) || isnan(cm) || isnan(minus) || isnan(plus)) {
+		print_error("%s: minus %.12g plus %.12g, cost at -h %.12g, at "
+			    "+h %.12g\n", what, minus, plus, cm, cp);
+		fail();
+	}
+	if (!k && near_cost(central, plus, c0))
+		return 0;
+	/* One-sided differences err by O(h) where the pieces curve (cp times
+	 * a moving end): 1e-5 for them, 1e-6 for the central one. */
+	if (k && fabs(fwd - plus) <= 10 * FD_REL * fmax(1.0, fabs(plus)) +
+	    1e-10 * fabs(c0) && fabs(bwd - minus) <= 10 * FD_REL *
+	    fmax(1.0, fabs(minus)) + 1e-10 * fabs(c0) &&
+	    central >= fmin(minus, plus) - 1e-10 * fabs(c0) - FD_REL &&
+	    central <= fmax(minus, plus) + 1e-10 * fabs(c0) + FD_REL)
+		return 1;
+	print_error("%s: minus %.12g plus %.12g, fd back %.12g fwd %.12g "
+		    "central %.12g\n", what, minus, plus, bwd, fwd, central);
+	fail();
+	return 0;
+}
+
+/* A generated case with utilities at off-grid temperatures (0.3 K off the
+ * streams' 0.5 K grid): a high-pressure level for anything, a cheaper
+ * middle level with a random cap, a hot oil with a range, cooling water
+ * with a range, a cheap cold level that raises steam, and a refrigerant as
+ * the last resort. */
+static hl_case *
+levels_case(hl_rng *r)
+{
+	hl_case *c = varied_case(r, 3, 3);
+	double mp = floor(hl_rng_uniform(r, 120, 230)) + 0.3;
+	double oil = floor(hl_rng_uniform(r, 200, 290)) + 0.3;
+	double raise = floor(hl_rng_uniform(r, 90, 170)) + 0.3;
+
+	hl_gen_add_utility(c, "HP", HL_HOT, 330.3, 330.3, 40, NAN);
+	hl_gen_add_utility(c, "MP", HL_HOT, mp, mp, 22, floor(
+		hl_rng_uniform(r, 0, 400)) + 0.5);
+	hl_gen_add_utility(c, "oil", HL_HOT, oil, oil - 60, 30, NAN);
+	hl_gen_add_utility(c, "CW", HL_COLD, 20.3, 35.3, 3, NAN);
+	hl_gen_add_utility(c, "raise", HL_COLD, raise, raise, 1, floor(
+		hl_rng_uniform(r, 0, 300)) + 0.5);
+	hl_gen_add_utility(c, "refrigerant", HL_COLD, -10.3, -10.3, 25, NAN);
+	return c;
+}
+
+/* Every analytic cost derivative against a central finite difference of
+ * the re-solved utility LP (issue 11): equal where no basis changes within
+ * the step, the one-sided pair bracketing it where one does. */
+static void
+test_cost_levels_fd(void **state)
+{
+	hl_rng rng;
+	int n, rows = 0, kinks = 0, urows = 0;
+
+	(void)state;
+	hl_rng_seed(&rng, 21);
+	for (n = 0; n < 30; n++) {
+		hl_case *c = levels_case(&rng);
+		double c0 = lp_cost(c, 10.0);
+		hl_sensitivity *s;
+		size_t i;
+
+		/* HP and the refrigerant, both unlimited, always serve: the
+		 * LP has an answer here and a step away (a re-solve that
+		 * failed once was GLPK's presolver, hl_glpk_simplex_direct). */
+		assert_false(isnan(c0));
+		s = sens(c, 10.0);
+		assert_int_equal(s->cost, HL_SENS_COST_LEVELS);
+		for (i = 0; i <= s->nrow; i++) {
+			const hl_sens_row *r = i < s->nrow ? &s->row[i] : &s->dt;
+			double h = step_of(r);
+
+			char what[96];
+
+			snprintf(what, sizeof what, "case %d, cost by %s of "
+				 "stream %zu", n, hl_sensitivity_quantity_name(
+				 r->q), r->stream);
+			kinks += check_cost_fd(r->cost_minus, r->cost_plus, c0,
+				cost_at(c, r, 10.0, h), cost_at(c, r, 10.0, -h),
+				h, what) == 1;
+			rows++;
+		}
+		assert_int_equal(s->nurow, 8);
+		for (i = 0; i < s->nurow; i++) {
+			const hl_sens_urow *u = &s->urow[i];
+
+			kinks += check_cost_fd(u->cost_minus, u->cost_plus, c0,
+				cost_at_utility(c, u, 10.0, 1e-4),
+				cost_at_utility(c, u, 10.0, -1e-4), 1e-4,
+				"utility cost") == 1;
+			urows++;
+		}
+		hl_sensitivity_free(s);
+		hl_case_free(c);
+	}
+	print_message("cost derivatives: %d stream rows, %d utility rows, "
+		      "%d kinks\n", rows, urows, kinks);
+	assert_true(rows > 300 && urows > 100);
+}
+
+/* Common practice, no source: a cold stream entirely above the pinch, with
+ * one hot level carrying all the heat there, costs price × span × hours
+ * per kW/K of cp. The four-stream
+ * problem (Linnhoff et al. 1982; targets confirmed by a hand cascade): C2
+ * 80→140 °C lies above the 85 °C shifted pinch (span 60 K). Steam at 250 °C (40/MWh) carries all 20 kW: the second
+ * level at 100 °C costs more (45/MWh) and stays idle; water at 20 °C
+ * (5/MWh) below the pinch. The same case with LP steam at 10/MWh takes 15
+ * kW from it (the flow through 95 °C shifted), which `heatloom targets`
+ * shows; there C2's cp costs 40·45 + 10·15 per year-hour, not this. */
+static void
+test_cost_levels_above_pinch(void **state)
+{
+	hl_case *c = kemp4();
+	hl_sensitivity *s;
+
+	(void)state;
+	hl_gen_add_utility(c, "HP steam", HL_HOT, 250, 250, 40, NAN);
+	hl_gen_add_utility(c, "LP steam", HL_HOT, 100, 100, 45, NAN);
+	hl_gen_add_utility(c, "water", HL_COLD, 20, 20, 5, NAN);
+	s = sens(c, 10.0);
+	assert_int_equal(s->cost, HL_SENS_COST_LEVELS);
+	assert_near(row_of(c, s, "C2", HL_SENS_CP, 0)->cost_plus,
+		    40 * 60 * 8.0, HAND);
+	assert_near(row_of(c, s, "C2", HL_SENS_CP, 0)->cost_minus,
+		    40 * 60 * 8.0, HAND);
+	/* H1 also has 30 K below the pinch, where its cp is rejected to the
+	 * water: −80 kW per kW/K of steam and +30 of water. */
+	assert_near(row_of(c, s, "H1", HL_SENS_CP, 0)->cost_plus,
+		    (-40 * 80 + 5 * 30) * 8.0, HAND);
+	/* The idle level's temperature costs nothing either way. */
+	assert_near(s->urow[1].cost_plus, 0.0, HAND);
+	assert_near(s->urow[1].cost_minus, 0.0, HAND);
+	/* H2 ends at 30 °C, 25 °C shifted, the water's own level: a lower
+	 * target leaves heat below any cold utility, an infinite cost a step
+	 * that way, and that datum ranks first. Next come the finite cost
+	 * moves, largest first: C2's cp (8·40·60 × its ±0.2 kW/K = 3840). */
+	assert_true(isinf(row_of(c, s, "H2", HL_SENS_TARGET, 0)->cost_minus));
+	assert_int_equal(row_of(c, s, "H2", HL_SENS_TARGET, 0)->rank, 1);
+	assert_near(hl_sensitivity_effect(&s->row[s->rank[1]]), 3840.0, HAND);
 	hl_sensitivity_free(s);
 	hl_case_free(c);
 }
@@ -775,6 +1007,8 @@ main(void)
 		cmocka_unit_test(test_surplus_hook),
 		cmocka_unit_test(test_surplus_hook_tied),
 		cmocka_unit_test(test_cost),
+		cmocka_unit_test(test_cost_levels_fd),
+		cmocka_unit_test(test_cost_levels_above_pinch),
 		cmocka_unit_test(test_bad_tolerance),
 		cmocka_unit_test(test_collapse),
 	};
