@@ -66,21 +66,23 @@ hl_status hl_glpk_guard_crash(hl_glpk_guard *g, const char *what,
  * infeasible (g->infeasible = 1), unbounded, time limit, numerical trouble. */
 hl_status hl_glpk_simplex(glp_prob *P, hl_glpk_guard *g, double time_limit,
 			  const char *what, hl_error *err);
+/* The same, answered by the plain simplex on the original rows. GLPK's
+ * presolver's tolerance-based reductions can return an "optimal" point of
+ * the original LP that leaves heat unserved (seen: 4e-4 kW in a utility LP
+ * a 0.01 kW step from a change of basis, the cost too low by half) or call
+ * a feasible LP infeasible. So the presolved solve only supplies a basis:
+ * the plain simplex restarts from it and keeps every row to its own
+ * tolerance; when the presolved solve fails, the plain simplex starts from
+ * an advanced basis (glp_adv_basis) instead. For LPs whose answers are
+ * compared with each other at nearby data. */
+hl_status hl_glpk_simplex_direct(glp_prob *P, hl_glpk_guard *g,
+				 double time_limit, const char *what,
+				 hl_error *err);
 /* The same from P's current basis, without presolve or rescaling: for a
  * re-solve after a change that keeps an optimal basis primal feasible
  * (an objective, bounds fixed at the values of nonbasic columns). GLPK's
  * presolver would re-derive feasibility from the rounded data and can call
  * such a problem infeasible; the basis already proves it is not. */
-/* The same without GLPK's presolver, from an advanced initial basis
- * (glp_adv_basis), scaled. The presolver's tolerance-based reductions can
- * return an "optimal" point of the original LP that leaves heat unserved
- * (seen: 4e-4 kW in a utility LP a 0.01 kW step from a change of basis,
- * the cost too low by half) or call a feasible LP infeasible; the plain
- * simplex keeps every row to its own tolerance. For LPs whose answers are
- * compared with each other at nearby data. */
-hl_status hl_glpk_simplex_direct(glp_prob *P, hl_glpk_guard *g,
-				 double time_limit, const char *what,
-				 hl_error *err);
 hl_status hl_glpk_simplex_warm(glp_prob *P, hl_glpk_guard *g,
 			       double time_limit, const char *what,
 			       hl_error *err);
