@@ -82,6 +82,19 @@ void hl_report_figure(hl_report *r, hl_svg_chart *chart, const char *subtitle,
 const char *hl_report_figure_open(hl_report *r, char *id, size_t size);
 void hl_report_figure_close(hl_report *r, const char *caption);
 
+/* Shared by the sensitivity section and its chart (report_sensitivity.c):
+ * the datum's name ("target temperature", "cp, segment 1 of 2"), its
+ * tolerance ("±1.0 K", "±5 %"), and how far the utility cost can fall and
+ * rise (first order, >= 0, +inf where a step leaves no utility able to
+ * serve) with the datum anywhere within ±tol, NaN when unknown. */
+void hl_report_sens_datum(char *buf, size_t size, const hl_case *c,
+			  const hl_sens_row *row);
+void hl_report_sens_tol(char *buf, size_t size, const hl_sens_row *row);
+void hl_report_sens_cost_range(double minus, double plus, double tol,
+			       double *down, double *up);
+/* The ranked data as bars (report_sens_chart.c): the first top of them. */
+void hl_report_sens_chart(hl_report *r, size_t top);
+
 /* The sections (one file each). */
 extern const hl_report_section hl_report_sec_summary;
 extern const hl_report_section hl_report_sec_streams;

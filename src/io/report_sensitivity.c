@@ -25,8 +25,9 @@ is_temperature(hl_sens_quantity q)
 	return q == HL_SENS_SUPPLY || q == HL_SENS_TARGET;
 }
 
-static void
-datum_text(char *buf, size_t size, const hl_case *c, const hl_sens_row *row)
+void
+hl_report_sens_datum(char *buf, size_t size, const hl_case *c,
+		     const hl_sens_row *row)
 {
 	const hl_stream *s = &c->stream[row->stream];
 	const char *q = row->q == HL_SENS_SUPPLY ? "supply temperature" :
@@ -51,8 +52,8 @@ value_text(char *buf, size_t size, const hl_sens_row *row)
 		hl_report_fmt_duty(buf, size, row->value);
 }
 
-static void
-tol_text(char *buf, size_t size, const hl_sens_row *row)
+void
+hl_report_sens_tol(char *buf, size_t size, const hl_sens_row *row)
 {
 	char a[B];
 
@@ -89,11 +90,9 @@ has_cost(const hl_sensitivity *sv)
 	return sv->cost != HL_SENS_COST_NONE;
 }
 
-/* How far the utility cost can fall and rise (first order, >= 0, +inf
- * where a step leaves no utility able to serve) with the datum anywhere
- * within ±tol; NaN when unknown. */
-static void
-cost_range(double minus, double plus, double tol, double *down, double *up)
+void
+hl_report_sens_cost_range(double minus, double plus, double tol, double *down,
+			  double *up)
 {
 	double at_up, at_down;
 
@@ -118,7 +117,7 @@ cost_move_text(char *buf, size_t size, double minus, double plus, double tol)
 	char a[B / 2], b[B / 2];
 	double down, up;
 
-	cost_range(minus, plus, tol, &down, &up);
+	hl_report_sens_cost_range(minus, plus, tol, &down, &up);
 	if (isnan(down)) {
 		snprintf(buf, size, "unknown");
 		return;
@@ -166,11 +165,11 @@ rank_row(hl_report *r, const hl_sens_row *row)
 	snprintf(v, sizeof v, "%zu", row->rank);
 	hl_report_cell_num(r, v);
 	hl_report_cell(r, r->d->c->stream[row->stream].name);
-	datum_text(v, sizeof v, r->d->c, row);
+	hl_report_sens_datum(v, sizeof v, r->d->c, row);
 	hl_report_cell(r, v);
 	value_text(v, sizeof v, row);
 	hl_report_cell_num(r, v);
-	tol_text(v, sizeof v, row);
+	hl_report_sens_tol(v, sizeof v, row);
 	hl_report_cell_num(r, v);
 	move_text(v, sizeof v, row->hot_down, row->hot_up);
 	hl_report_cell_num(r, v);
@@ -329,6 +328,7 @@ write_sensitivity(hl_report *r)
 		      "utility levels, re-chosen as the datum moves)" :
 		      "the minimum hot and cold utility");
 	hl_html_end(r->h);
+	hl_report_sens_chart(r, TOP);
 	rank_table(r);
 	utility_table(r);
 	band_table(r);

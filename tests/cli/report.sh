@@ -35,8 +35,8 @@ grep '^section ' "$WORK/found" | cut -d' ' -f2 | tr '\n' ' ' >"$WORK/sections"
 want="summary data targets utility-choice curves tradeoff matches network sensitivity assumptions methods caution "
 [ "$(cat "$WORK/sections")" = "$want" ] && pass || fail "demo sections: $(cat "$WORK/sections")"
 # Composite, grand composite, balanced composite, cost and area charts, the
-# grid diagram.
-[ "$(grep -c '^figure ' "$WORK/found")" -eq 6 ] && pass || fail "demo figures: $(grep -c '^figure ' "$WORK/found")"
+# grid diagram, the sensitivity bars.
+[ "$(grep -c '^figure ' "$WORK/found")" -eq 7 ] && pass || fail "demo figures: $(grep -c '^figure ' "$WORK/found")"
 
 # Without utilities there is no utility choice and no balanced curves; with
 # --no-sweep the trade-off keeps only the supertargets at the chosen ΔTmin.
@@ -46,7 +46,7 @@ check_exit 0 "$HTML_CHECK" "$WORK/s.html"
 got=$(grep '^section ' "$WORK/found2" | cut -d' ' -f2 | tr '\n' ' ')
 [ "$got" = "summary data targets curves tradeoff matches network sensitivity assumptions methods caution " ] \
 	&& pass || fail "stream-table sections: $got"
-[ "$(grep -c '^figure ' "$WORK/found2")" -eq 3 ] && pass || fail "stream-table figures"
+[ "$(grep -c '^figure ' "$WORK/found2")" -eq 4 ] && pass || fail "stream-table figures"
 check_grep 'the total annual cost is least at ΔTmin' "$R"
 
 # --- Self-contained: nothing to fetch, no script. -------------------------
@@ -259,6 +259,12 @@ while [ "$i" -le "$n" ]; do
 done
 check_grep "they move the utility cost most" "$R"
 
+# The sensitivity bars name the data of the ranking, in its order.
+fig=$(grep '^figure ' "$WORK/found" | sed -n 7p | cut -d' ' -f2)
+bars=$(xpath "//*[local-name()='div'][@id='$fig']//*[local-name()='text'][@text-anchor='end'][@fill='#2b2f36']/text()" "$R" |
+	grep -v '^∞$' | tr '\n' '|')
+ranked=$(k=1; while [ "$k" -le 12 ]; do x "/results/sensitivity[@rank='$k']/@stream" "$T"; k=$((k + 1)); done | tr '\n' '|')
+[ -n "$ranked" ] && [ "$bars" = "$ranked" ] && pass || fail "sensitivity bars '$bars', ranking '$ranked'"
 B=/results/sensitivity-band
 for t in hot cold; do
 	row="//*[@id='v-$t']"
