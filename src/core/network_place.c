@@ -106,9 +106,10 @@ hl_net_check_input(const hl_network_input *in, hl_error *err)
 
 	if (!(set->dtmin > 0.0) || (!isnan(set->emat) && !(set->emat > 0.0)))
 		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "a network needs dtmin and emat above 0 K (dtmin %g K, "
-		    "emat %g K): a zero approach needs infinite area",
-		    set->dtmin, set->emat);
+		    "a network needs ΔTmin and EMAT above 0 K (ΔTmin %g K, "
+		    "EMAT %g K%s): a zero approach needs infinite area",
+		    set->dtmin, isnan(set->emat) ? set->dtmin : set->emat,
+		    isnan(set->emat) ? ", as ΔTmin" : "");
 	for (i = 0; i < in->nmatch; i++) {
 		const hl_network_match *m = &in->match[i];
 

@@ -27,7 +27,7 @@ summary(hl_report *r)
 	char a[B], b[B];
 
 	hl_html_start(r->h, "p", NULL);
-	hl_html_textf(r->h, "The matches above laid out on the streams: ");
+	hl_html_text(r->h, "The matches above laid out on the streams: ");
 	hl_html_start(r->h, "strong", NULL);
 	hl_html_textf(r->h, "%zu exchangers", n->nunit);
 	hl_html_end(r->h);
