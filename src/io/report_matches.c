@@ -75,15 +75,6 @@ sub_table(hl_report *r)
 }
 
 static void
-range_text(char *buf, size_t size, double from, double to)
-{
-	char a[B / 2], b[B / 2];
-
-	snprintf(buf, size, "%s → %s", hl_report_fmt_fixed(a, sizeof a, from,
-		 1), hl_report_fmt_fixed(b, sizeof b, to, 1));
-}
-
-static void
 match_table(hl_report *r)
 {
 	static const char *const head[] = { "#", "Hot side", "Cold side",
@@ -108,9 +99,9 @@ match_table(hl_report *r)
 		hl_report_cell(r, m->party[x->cold].name);
 		hl_report_cell_num(r, hl_report_fmt_sig(v, B, x->duty, 3, 1));
 		hl_report_cell(r, m->sub[x->sub].label);
-		range_text(v, B, x->hot_from, x->hot_to);
+		hl_report_range(v, B, x->hot_from, x->hot_to);
 		hl_report_cell_num(r, v);
-		range_text(v, B, x->cold_from, x->cold_to);
+		hl_report_range(v, B, x->cold_from, x->cold_to);
 		hl_report_cell_num(r, v);
 		hl_report_row_end(r);
 	}

@@ -114,15 +114,6 @@ grid(hl_report *r)
 }
 
 static void
-range_text(char *buf, size_t size, double from, double to)
-{
-	char a[B / 2], b[B / 2];
-
-	snprintf(buf, size, "%s → %s", hl_report_fmt_fixed(a, sizeof a, from,
-		 1), hl_report_fmt_fixed(b, sizeof b, to, 1));
-}
-
-static void
 unit_row(hl_report *r, const hl_network_unit *u)
 {
 	const hl_network *n = r->d->net;
@@ -133,9 +124,9 @@ unit_row(hl_report *r, const hl_network_unit *u)
 	hl_report_cell(r, party_name(n, u->hot));
 	hl_report_cell(r, party_name(n, u->cold));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->duty, 3, 1));
-	range_text(v, B, u->hot_in, u->hot_out);
+	hl_report_range(v, B, u->hot_in, u->hot_out);
 	hl_report_cell_num(r, v);
-	range_text(v, B, u->cold_in, u->cold_out);
+	hl_report_range(v, B, u->cold_in, u->cold_out);
 	hl_report_cell_num(r, v);
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->u, 3, 3));
 	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, u->lmtd, 1));

@@ -187,3 +187,13 @@ hl_report_figure(hl_report *r, hl_svg_chart *chart, const char *subtitle,
 	hl_report_figure_close(r, cap);
 	hl_svg_chart_free(chart);
 }
+
+char *
+hl_report_range(char *buf, size_t size, double from, double to)
+{
+	char a[64], b[64];
+
+	snprintf(buf, size, "%s → %s", hl_report_fmt_fixed(a, sizeof a, from,
+		 1), hl_report_fmt_fixed(b, sizeof b, to, 1));
+	return buf;
+}

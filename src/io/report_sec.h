@@ -76,6 +76,10 @@ void hl_report_facts_end(hl_report *r);
 void hl_report_figure(hl_report *r, hl_svg_chart *chart, const char *subtitle,
 		      const char *caption);
 
+/* "245.0 → 158.0": a temperature range at 0.1 K, without its unit (the
+ * column heading gives it). */
+char *hl_report_range(char *buf, size_t size, double from, double to);
+
 /* A numbered figure of another kind (the grid diagram): _open starts its
  * <div class="figure" id> and returns the id it chose ("figN", in id);
  * the caller writes the picture; _close adds "Figure N. caption". */
