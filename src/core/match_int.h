@@ -220,7 +220,7 @@ typedef struct {
 	int optimal;
 } hl_match_outcome;
 
-/* Root LP, heuristic (up to a third of the time), then branch and bound
+/* Root LP, heuristic (up to half of the time), then branch and bound
  * until the deadline; quiet: no progress (a part's solve). out->x must
  * hold the model's columns. */
 hl_status hl_match_search(const hl_match_runner *R, hl_match_model_t *m,
