@@ -77,30 +77,18 @@ assert_row(const hl_sens_row *r, double hm, double hp, double cm, double cp)
 	assert_near(r->cold_plus, cp, HAND);
 }
 
-/* Linnhoff et al., User Guide on Process Integration for the Efficient Use of
- * Energy (IChemE 1982); also Kemp, Pinch Analysis and Process Integration,
- * 2nd ed. (2007), ch. 2 (from memory; targets confirmed by a hand cascade):
- * the four streams of tests/data/good/kemp4.csv, ΔTmin 10 K, QHmin 20 kW,
- * QCmin 60 kW, pinch at 85 °C shifted, which is C2's shifted supply. */
-static hl_case *
-kemp4(void)
-{
-	hl_case *c = hl_case_create();
-
-	hl_gen_add(c, "C1", 20, 135, 2.0);
-	hl_gen_add(c, "H1", 170, 60, 3.0);
-	hl_gen_add(c, "C2", 80, 140, 4.0);
-	hl_gen_add(c, "H2", 150, 30, 1.5);
-	return c;
-}
-
-/* Derived by hand from QHmin = cold heat above 85 °C shifted − hot heat
+/* The four-stream problem (hl_gen_kemp4: Linnhoff et al., User Guide on
+ * Process Integration, IChemE 1982; Kemp, Pinch Analysis and Process
+ * Integration, 2nd ed. 2007, ch. 2; from memory, targets confirmed by a hand
+ * cascade): ΔTmin 10 K, QHmin 20 kW, QCmin 60 kW, pinch at 85 °C shifted,
+ * C2's shifted supply.
+ * Derived by hand from QHmin = cold heat above 85 °C shifted − hot heat
  * above it = (2·55 + 4·60) − (3·80 + 1.5·60), and QCmin = QHmin + Σ hot −
  * Σ cold duty. */
 static void
 test_kemp4_by_hand(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_sensitivity *s = sens(c, 10.0);
 
 	(void)state;
@@ -690,7 +678,7 @@ test_surplus_hook_tied(void **state)
 static void
 test_cost(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_sensitivity *s;
 	size_t i;
 
@@ -920,7 +908,7 @@ test_cost_levels_fd(void **state)
 static void
 test_cost_levels_above_pinch(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_sensitivity *s;
 
 	(void)state;
@@ -955,7 +943,7 @@ test_cost_levels_above_pinch(void **state)
 static void
 test_bad_tolerance(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_cascade *cas;
 	hl_sensitivity *s;
 	hl_error err;
@@ -982,7 +970,7 @@ test_bad_tolerance(void **state)
 static void
 test_collapse(void **state)
 {
-	hl_case *c = kemp4();
+	hl_case *c = hl_gen_kemp4();
 	hl_sensitivity *s;
 
 	(void)state;
