@@ -14,8 +14,8 @@ out="$build/tests/fuzz"
 mkdir -p "$out"
 # The schema source is generated into the build tree (the same folder as
 # the sources in an in-tree build): take it from there, once.
-libsrc="$(ls "$src"/src/core/*.c "$src"/src/io/*.c | grep -v '/case_rng\.c$') $build/src/io/case_rng.c"
-flags="-g -O1 -fsanitize=fuzzer,address,undefined -fno-sanitize-recover=undefined -I$build -I$src/src/core -I$src/src/io $(pkg-config --cflags libxml-2.0)"
+libsrc="$(ls "$src"/src/core/*/*.c "$src"/src/io/*/*.c | grep -v '/case_rng\.c$') $build/src/io/read/case_rng.c"
+flags="-g -O1 -fsanitize=fuzzer,address,undefined -fno-sanitize-recover=undefined -I$build $(for d in "$src"/src/core/*/ "$src"/src/io/*/; do printf -- "-I%s " "$d"; done) $(pkg-config --cflags libxml-2.0)"
 libs="$(pkg-config --libs libxml-2.0) -lglpk -lm"
 status=0
 for h in $harnesses; do
