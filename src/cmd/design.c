@@ -7,10 +7,13 @@
  * verified by netcheck.h): a network that fails it is never written.
  */
 #include <getopt.h>
+#include <stddef.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <time.h>
+#include <unistd.h>
 
 #include "cascade.h"
 #include "cmd.h"
@@ -20,6 +23,9 @@
 #include "netcheck.h"
 #include "network.h"
 #include "network_match.h"
+#include "network_opt.h"
+#include "opt_out.h"
+#include "tables.h"
 #include "network_out.h"
 #include "network_xml.h"
 #include "output.h"
@@ -34,13 +40,15 @@ help(FILE *fp)
 	fprintf(fp,
 "Usage: heatloom design CASE [options]\n"
 "\n"
-"Design a heat exchanger network that meets the energy targets: the least-\n"
-"cost utility levels, the fewest units (match MILP), the placement of every\n"
-"match on its streams in temperature order, stream splits where series\n"
-"would break the minimum approach, the cheapest order and split shares, and\n"
-"each exchanger sized (U from the film coefficients, LMTD, F, shells, area,\n"
-"cost). The network is checked as `heatloom check` would before it is\n"
-"written. CASE is an XML case file or a stream table (CSV).\n"
+"Design a heat exchanger network of least total annual cost: capital by the\n"
+"case's cost law (per shell, annualised) plus energy at the case's prices,\n"
+"over which streams meet, where, the splits, the loads and the energy level.\n"
+"Every unit keeps EMAT; ΔTmin is the reference for the targets. The search\n"
+"starts from the fewest-units network (targets, match MILP, placement) and\n"
+"from other starts, and never returns a network dearer than its start. A\n"
+"case whose utilities carry no prices gets the fewest-units network. The\n"
+"network is checked as `heatloom check` would before it is written. CASE is\n"
+"an XML case file or a stream table (CSV).\n"
 "\n"
 "Options:\n"
 "  --dtmin K          minimum approach temperature for the targets (default:\n"
@@ -51,23 +59,125 @@ help(FILE *fp)
 "  --format FMT       text (default), xml (what `heatloom check` reads), csv\n"
 "  -o, --output FILE  write to FILE instead of standard output\n"
 "  --svg FILE         also draw the grid diagram into FILE (SVG)\n"
-"  --time-limit S     seconds per subnetwork for the match MILP (default:\n"
-"                     the case's, or 10); the best network found is used\n"
-"  --quiet            no warnings on standard error\n"
+"  --time-limit S     seconds for the whole search (default 60); the search\n"
+"                     is sized by evaluations and normally ends before; the\n"
+"                     output says when this cap cut it short\n"
+"  --method M         cost (default): least total annual cost; units: the\n"
+"                     fewest-units network alone (the match MILP's time per\n"
+"                     subnetwork is then --time-limit, or the case's)\n"
+"  --seed N           seed of the search (default 1); the same case, seed\n"
+"                     and options give the same network\n"
+"  --threads N        threads (default 2); the result does not depend on it\n"
+"  --effort X         multiply the search's evaluations by X (default 1)\n"
+"  --no-splits        no stream splits\n"
+"  --no-split NAME    no split of stream NAME (repeat for several)\n"
+"  --max-branches N   at most N branches per split\n"
+"  --min-duty KW      no unit (utility units too) below KW kW\n"
+"  --min-area M2      no unit below M2 m²\n"
+"  --max-shells N     at most N shells in series per unit\n"
+"  --from FILE        start from this network: an XML network as design\n"
+"                     writes it, or a network table (CSV: name, hot, cold,\n"
+"                     duty; temperatures optional)\n"
+"  --keep NAMES       units of --from (comma-separated names) that stay\n"
+"  --quiet            no warnings or progress on standard error\n"
 "  --verbose          the solvers' messages on standard error\n"
 "  -h, --help         show this help\n"
 "\n"
 "%s\n", hl_caution);
 }
 
-enum { OPT_EMAT = 256, OPT_SVG, OPT_TIME };
+enum { OPT_EMAT = 256, OPT_SVG, OPT_TIME, OPT_METHOD, OPT_SEED,
+       OPT_THREADS, OPT_EFFORT, OPT_NOSPLITS, OPT_NOSPLIT, OPT_BRANCHES,
+       OPT_MINDUTY, OPT_MINAREA, OPT_SHELLS, OPT_FROM, OPT_KEEP };
+
+#define MAX_NOSPLIT 64
 
 typedef struct {
 	hl_common c;
 	double emat;        /* NaN unless --emat */
 	double time_limit;  /* NaN unless --time-limit */
 	const char *svg;
+	int units;          /* --method units */
+	double seed, threads, effort, branches, min_duty, min_area, shells;
+	int no_splits;
+	size_t nnosplit;
+	const char *nosplit[MAX_NOSPLIT];
+	const char *from;
+	const char *keep;
 } options;
+
+/* A count or number option; 0 on success. */
+static int
+number_opt(int ch, options *o)
+{
+	static const struct {
+		int ch;
+		const char *name;
+		double lo, hi;
+		size_t off;
+	} t[] = {
+		{ OPT_SEED, "--seed", 0, 4294967295.0, offsetof(options, seed) },
+		{ OPT_THREADS, "--threads", 1, 16, offsetof(options, threads) },
+		{ OPT_EFFORT, "--effort", 0.01, 1000, offsetof(options,
+		    effort) },
+		{ OPT_BRANCHES, "--max-branches", 2, 1000, offsetof(options,
+		    branches) },
+		{ OPT_MINDUTY, "--min-duty", 0, 1e9, offsetof(options,
+		    min_duty) },
+		{ OPT_MINAREA, "--min-area", 0, 1e7, offsetof(options,
+		    min_area) },
+		{ OPT_SHELLS, "--max-shells", 1, HL_EXCHANGER_MAX_SHELLS,
+		    offsetof(options, shells) },
+	};
+	size_t i;
+
+	for (i = 0; i < sizeof t / sizeof t[0]; i++) {
+		double *v = (double *)((char *)o + t[i].off);
+
+		if (t[i].ch != ch)
+			continue;
+		if (hl_cmd_parse_double("design", t[i].name, optarg, t[i].lo,
+		    t[i].hi, v) != 0)
+			return 1;
+		if (ch != OPT_EFFORT && ch != OPT_MINDUTY &&
+		    ch != OPT_MINAREA && *v != floor(*v))
+			return hl_cmd_usage("design", "%s wants a whole "
+			    "number, not '%s'", t[i].name, optarg);
+		return 0;
+	}
+	return 1;
+}
+
+static int
+other_opt(int ch, options *o)
+{
+	switch (ch) {
+	case OPT_METHOD:
+		if (strcmp(optarg, "units") != 0 &&
+		    strcmp(optarg, "cost") != 0)
+			return hl_cmd_usage("design", "--method wants cost or "
+			    "units, not '%s'", optarg);
+		o->units = strcmp(optarg, "units") == 0;
+		return 0;
+	case OPT_NOSPLITS:
+		o->no_splits = 1;
+		return 0;
+	case OPT_NOSPLIT:
+		if (o->nnosplit == MAX_NOSPLIT)
+			return hl_cmd_usage("design", "at most %d --no-split "
+			    "options", MAX_NOSPLIT);
+		o->nosplit[o->nnosplit++] = optarg;
+		return 0;
+	case OPT_FROM:
+		o->from = optarg;
+		return 0;
+	case OPT_KEEP:
+		o->keep = optarg;
+		return 0;
+	default:
+		return number_opt(ch, o);
+	}
+}
 
 static int
 parse(int argc, char **argv, options *o)
@@ -79,6 +189,18 @@ parse(int argc, char **argv, options *o)
 		{ "format", required_argument, NULL, HL_OPT_FORMAT },
 		{ "svg", required_argument, NULL, OPT_SVG },
 		{ "time-limit", required_argument, NULL, OPT_TIME },
+		{ "method", required_argument, NULL, OPT_METHOD },
+		{ "seed", required_argument, NULL, OPT_SEED },
+		{ "threads", required_argument, NULL, OPT_THREADS },
+		{ "effort", required_argument, NULL, OPT_EFFORT },
+		{ "no-splits", no_argument, NULL, OPT_NOSPLITS },
+		{ "no-split", required_argument, NULL, OPT_NOSPLIT },
+		{ "max-branches", required_argument, NULL, OPT_BRANCHES },
+		{ "min-duty", required_argument, NULL, OPT_MINDUTY },
+		{ "min-area", required_argument, NULL, OPT_MINAREA },
+		{ "max-shells", required_argument, NULL, OPT_SHELLS },
+		{ "from", required_argument, NULL, OPT_FROM },
+		{ "keep", required_argument, NULL, OPT_KEEP },
 		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
 		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
 		{ "output", required_argument, NULL, 'o' },
@@ -92,6 +214,9 @@ parse(int argc, char **argv, options *o)
 	memset(o, 0, sizeof *o);
 	hl_common_init(&o->c);
 	o->emat = o->time_limit = NAN;
+	o->seed = 1;
+	o->threads = 2;
+	o->effort = 1;
 	optind = 1;
 	opterr = 0;
 	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
@@ -103,13 +228,18 @@ parse(int argc, char **argv, options *o)
 		}
 		if (ch == OPT_SVG)
 			o->svg = optarg;
-		else if (hl_cmd_parse_double("design", ch == OPT_EMAT ?
+		else if (ch != OPT_EMAT && ch != OPT_TIME) {
+			if (other_opt(ch, o) != 0)
+				return 1;
+		} else if (hl_cmd_parse_double("design", ch == OPT_EMAT ?
 		    "--emat" : "--time-limit", optarg, 0.0, ch == OPT_EMAT ?
 		    500.0 : 86400.0, ch == OPT_EMAT ? &o->emat :
 		    &o->time_limit) != 0)
 			return 1;
 	}
 	rc = hl_cmd_one_input("design", argc, argv, &o->c);
+	if (rc == 0 && o->keep != NULL && o->from == NULL)
+		return hl_cmd_usage("design", "--keep names units of --from");
 	if (rc == 0 && o->svg != NULL && o->c.output != NULL &&
 	    strcmp(o->svg, o->c.output) == 0)
 		return hl_cmd_usage("design", "--svg and -o name the same "
@@ -125,6 +255,13 @@ typedef struct {
 	hl_match_result *mr;
 	hl_network_feed feed;
 	hl_network *net;
+	hl_network *start;  /* the optimiser's start (owned), NULL: none */
+	unsigned char *keep;     /* per unit of start */
+	unsigned char *nosplit;  /* per case stream */
+	hl_opt_options oo;
+	hl_opt_result *opt; /* the least-cost search, NULL: not run */
+	int no_prices;      /* --method cost on a case without prices */
+	int milp_failed;    /* the fewest-units start could not be found */
 	char *xml;          /* the results document, as it will be written */
 	size_t xml_len;
 } run_state;
@@ -133,7 +270,14 @@ static void
 state_free(run_state *s)
 {
 	free(s->xml);
-	hl_network_free(s->net);
+	if (s->opt != NULL)
+		s->opt->net = NULL;
+	if (s->net != s->start)
+		hl_network_free(s->net);
+	hl_network_free(s->start);
+	free(s->keep);
+	free(s->nosplit);
+	hl_opt_result_free(s->opt);
 	hl_network_feed_free(&s->feed);
 	hl_match_result_free(s->mr);
 	hl_utility_lp_free(s->lp);
@@ -164,14 +308,297 @@ load(const options *o, run_state *s, hl_error *err)
 	return HL_OK;
 }
 
-/* Targets, utility loads, matches, placement. */
+/* The fewest-units network: match MILP and placement. time: seconds per
+ * MILP subnetwork, NaN for the case's. */
+static hl_status
+fewest_units(const options *o, run_state *s, const double *util_load,
+	     double time, hl_error *err)
+{
+	hl_match_options mo;
+	hl_status st;
+
+	hl_match_options_default(&mo, s->c);
+	if (!isnan(time))
+		mo.time_limit = time;
+	if (o->c.verbose) {
+		mo.log = hl_cmd_log_stderr;
+		mo.ctx = NULL;
+	}
+	st = hl_match_solve(s->c, s->c->set.dtmin, util_load, &mo, &s->mr,
+	    err);
+	if (st == HL_OK)
+		st = hl_network_from_matches(s->c, s->mr, s->cas->qh,
+		    s->cas->qc, &s->feed, err);
+	if (st == HL_OK)
+		st = hl_network_place(&s->feed.in, &s->net, err);
+	return st;
+}
+
+/* Party of the case named name: stream index, or nstream + utility. */
+static long
+case_party(const hl_case *c, const char *name)
+{
+	long i = hl_case_find_stream(c, name);
+
+	if (i >= 0)
+		return i;
+	i = hl_case_find_utility(c, name);
+	return i < 0 ? -1 : (long)c->nstream + i;
+}
+
+static int
+is_csv(const char *path)
+{
+	size_t n = strlen(path);
+
+	return n > 4 && (strcmp(path + n - 4, ".csv") == 0 ||
+	    strcmp(path + n - 4, ".CSV") == 0);
+}
+
+/* The units of --from on the case's parties. A network file on exactly the
+ * case's parties is taken as it is (sized: the result will not cost more);
+ * otherwise its units only place the start. */
+static hl_status
+read_from(const options *o, run_state *s, hl_error *err)
+{
+	hl_case *tab = NULL;
+	hl_network *file = NULL, *net = NULL;
+	hl_network_party *p = NULL;
+	size_t n = 0, i;
+	hl_status st;
+
+	if (is_csv(o->from)) {
+		tab = hl_case_create();
+		st = tab == NULL ? hl_error_nomem(err) :
+		    hl_network_table_read(tab, o->from, err);
+	} else {
+		st = hl_network_xml_read(o->from, &file, err);
+	}
+	if (st == HL_OK && (net = hl_network_create()) == NULL)
+		st = hl_error_nomem(err);
+	if (st == HL_OK) {
+		net->set = s->c->set;
+		net->set.currency = strdup(s->c->set.currency != NULL ?
+		    s->c->set.currency : "EUR");
+		net->total_cost = NAN;
+		st = net->set.currency == NULL ? hl_error_nomem(err) :
+		    hl_network_parties_from_case(s->c, NULL, &p, &n, err);
+	}
+	for (i = 0; st == HL_OK && i < n; i++)
+		st = hl_network_add_party(net, &p[i], err);
+	for (i = 0; i < n; i++)
+		hl_network_party_free(&p[i]);
+	free(p);
+	n = tab != NULL ? tab->nunit : file != NULL ? file->nunit : 0;
+	for (i = 0; st == HL_OK && i < n; i++) {
+		hl_network_unit u;
+		const char *hn, *cn;
+		long hp, cp, line;
+
+		memset(&u, 0, sizeof u);
+		if (tab != NULL) {
+			const hl_unit *t = &tab->unit[i];
+
+			hn = t->hot;
+			cn = t->cold;
+			line = t->line;
+			snprintf(u.id, sizeof u.id, "%s", t->name);
+			u.duty = t->duty;
+			u.hot_in = t->hot_in;
+			u.hot_out = t->hot_out;
+			u.cold_in = t->cold_in;
+			u.cold_out = t->cold_out;
+		} else {
+			u = file->unit[i];
+			u.note = NULL;
+			hn = file->party[u.hot].name;
+			cn = file->party[u.cold].name;
+			line = u.line;
+		}
+		hp = case_party(s->c, hn);
+		cp = case_party(s->c, cn);
+		if (hp < 0 || cp < 0)
+			st = hl_error_set(err, HL_EINPUT, o->from, line, "unit "
+			    "'%s' joins '%s', which the case does not have",
+			    u.id, hp < 0 ? hn : cn);
+		else {
+			u.hot = (size_t)hp;
+			u.cold = (size_t)cp;
+			st = hl_network_add_unit(net, &u, err);
+		}
+	}
+	if (st == HL_OK && file != NULL && file->nparty == net->nparty) {
+		int same = 1;
+
+		for (i = 0; i < n && same; i++)
+			same = net->unit[i].hot == file->unit[i].hot &&
+			    net->unit[i].cold == file->unit[i].cold;
+		for (i = 0; i < file->nparty && same; i++)
+			same = strcmp(file->party[i].name,
+			    net->party[i].name) == 0;
+		if (same) {
+			hl_network_free(net);
+			net = file;
+			file = NULL;
+		}
+	}
+	hl_case_free(tab);
+	hl_network_free(file);
+	if (st != HL_OK) {
+		hl_network_free(net);
+		return st;
+	}
+	s->start = net;
+	return HL_OK;
+}
+
+/* --keep: the named units of the start stay. */
+static hl_status
+mark_keep(const options *o, run_state *s, hl_error *err)
+{
+	char *list, *tok, *save = NULL;
+	hl_status st = HL_OK;
+
+	if (o->keep == NULL)
+		return HL_OK;
+	s->keep = calloc(s->start->nunit + 1, 1);
+	list = strdup(o->keep);
+	if (s->keep == NULL || list == NULL) {
+		free(list);
+		return hl_error_nomem(err);
+	}
+	for (tok = strtok_r(list, ",", &save); tok != NULL && st == HL_OK;
+	    tok = strtok_r(NULL, ",", &save)) {
+		size_t i;
+
+		for (i = 0; i < s->start->nunit; i++)
+			if (strcmp(s->start->unit[i].id, tok) == 0)
+				break;
+		if (i == s->start->nunit)
+			st = hl_error_set(err, HL_EUSAGE, NULL, 0, "design: "
+			    "--keep names '%s', which %s has no unit of",
+			    tok, o->from);
+		else
+			s->keep[i] = 1;
+	}
+	free(list);
+	return st;
+}
+
+static double
+now(void)
+{
+	struct timespec ts;
+
+	clock_gettime(CLOCK_MONOTONIC, &ts);
+	return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
+}
+
+static void
+progress(void *ctx, double done, double best)
+{
+	const char *cur = ctx;
+
+	fprintf(stderr, "\rdesign: least-cost search %3.0f %%, best %.0f "
+	    "%s/year   ", 100.0 * done, best, cur);
+	fflush(stderr);
+}
+
+static hl_status
+opt_options(const options *o, run_state *s, hl_error *err)
+{
+	hl_opt_options *x = &s->oo;
+	size_t i;
+
+	hl_opt_options_default(x);
+	x->seed = (unsigned long)o->seed;
+	x->threads = (int)o->threads;
+	x->effort = o->effort;
+	x->no_splits = o->no_splits;
+	x->max_branches = (int)o->branches;
+	x->min_duty = o->min_duty;
+	x->min_area = o->min_area;
+	x->max_shells = (int)o->shells;
+	if (!isnan(o->time_limit))
+		x->time_limit = o->time_limit;
+	if (o->nnosplit > 0) {
+		s->nosplit = calloc(s->c->nstream + 1, 1);
+		if (s->nosplit == NULL)
+			return hl_error_nomem(err);
+		for (i = 0; i < o->nnosplit; i++) {
+			long k = hl_case_find_stream(s->c, o->nosplit[i]);
+
+			if (k < 0)
+				return hl_error_set(err, HL_EUSAGE, NULL, 0,
+				    "design: --no-split names '%s', which is "
+				    "no stream of the case", o->nosplit[i]);
+			s->nosplit[k] = 1;
+		}
+		x->no_split = s->nosplit;
+	}
+	if (!o->c.quiet && isatty(STDERR_FILENO)) {
+		x->progress = progress;
+		x->ctx = s->c->set.currency != NULL ? s->c->set.currency : "";
+	}
+	return HL_OK;
+}
+
+/* The least-cost network: a start (--from, or the fewest-units network
+ * when the MILP finds one in its share of the time), then the search. */
+static hl_status
+least_cost(const options *o, run_state *s, const double *util_load,
+	   hl_error *err)
+{
+	double t0 = now(), share;
+	hl_status st = opt_options(o, s, err);
+
+	if (st == HL_OK && o->from != NULL)
+		st = read_from(o, s, err);
+	else if (st == HL_OK) {
+		share = fmin(s->c->set.time_limit, s->oo.time_limit / 6.0);
+		if (s->oo.progress != NULL)
+			fprintf(stderr, "design: fewest-units start…\r");
+		st = fewest_units(o, s, util_load, share, err);
+		if (st == HL_ENOSOLUTION) {
+			s->milp_failed = 1;
+			hl_error_clear(err);
+			st = HL_OK;
+		} else if (st == HL_OK) {
+			s->start = s->net;
+		}
+		s->net = NULL;
+	}
+	if (st == HL_OK)
+		st = mark_keep(o, s, err);
+	if (st != HL_OK)
+		return st;
+	s->oo.start = s->start;
+	s->oo.keep = s->keep;
+	s->oo.time_limit = fmax(s->oo.time_limit - (now() - t0),
+	    s->oo.time_limit / 3.0);
+	st = hl_network_optimise(s->c, &s->oo, &s->opt, err);
+	if (s->oo.progress != NULL)
+		fprintf(stderr, "\r%60s\r", "");
+	if (st == HL_OK) {
+		s->net = s->opt->net;
+		s->opt->net = NULL;
+		if (s->opt->kept_start && s->start != NULL) {
+			hl_network_free(s->net);
+			s->net = s->start;
+		}
+		s->opt->net = s->net;
+	}
+	return st;
+}
+
+/* Targets, utility loads, then the least-cost search or the fewest-units
+ * network. */
 static hl_status
 solve(const options *o, run_state *s, hl_error *err)
 {
 	hl_utility_lp_opts lo = { o->c.verbose, hl_cmd_log_stderr, NULL, NAN };
 	const double *util_load = NULL;
 	double *loads = NULL;
-	hl_match_options mo;
 	hl_status st;
 	size_t i;
 
@@ -186,25 +613,14 @@ solve(const options *o, run_state *s, hl_error *err)
 			loads[i] = s->lp->util[i].load;
 		util_load = loads;
 	}
-	if (st == HL_OK) {
-		hl_match_options_default(&mo, s->c);
-		if (!isnan(o->time_limit))
-			mo.time_limit = o->time_limit;
-		if (o->c.verbose) {
-			mo.log = hl_cmd_log_stderr;
-			mo.ctx = NULL;
-		}
-		st = hl_match_solve(s->c, s->c->set.dtmin, util_load, &mo,
-		    &s->mr, err);
-	}
+	s->no_prices = !o->units && !hl_network_optimise_fits(s->c);
+	if (st == HL_OK && (o->units || s->no_prices))
+		st = fewest_units(o, s, util_load, o->time_limit, err);
+	else if (st == HL_OK)
+		st = least_cost(o, s, util_load, err);
 	free(loads);
-	if (st == HL_OK)
-		st = hl_network_from_matches(s->c, s->mr, s->cas->qh,
-		    s->cas->qc, &s->feed, err);
-	if (st == HL_OK)
-		st = hl_network_place(&s->feed.in, &s->net, err);
-	if (st == HL_OK && (s->net->source = strdup(s->c->source != NULL ?
-	    s->c->source : o->c.input)) == NULL)
+	if (st == HL_OK && s->net->source == NULL && (s->net->source =
+	    strdup(s->c->source != NULL ? s->c->source : o->c.input)) == NULL)
 		st = hl_error_nomem(err);
 	return st;
 }
@@ -227,9 +643,11 @@ build_xml(run_state *s, hl_error *err)
 	if (hl_targets_xml_begin(hl_xml_out_writer(x), s->cas, &th) < 0 ||
 	    (s->lp != NULL && hl_utility_lp_xml(hl_xml_out_writer(x), s->c,
 	    s->lp) < 0) || hl_targets_xml_end(hl_xml_out_writer(x)) < 0 ||
-	    hl_matches_xml(hl_xml_out_writer(x), s->c, s->mr,
-	    s->c->set.dtmin) < 0 ||
-	    hl_network_xml(hl_xml_out_writer(x), s->net) < 0) {
+	    (s->mr != NULL && hl_matches_xml(hl_xml_out_writer(x), s->c,
+	    s->mr, s->c->set.dtmin) < 0) ||
+	    hl_network_xml(hl_xml_out_writer(x), s->net) < 0 ||
+	    (s->opt != NULL && hl_opt_xml(hl_xml_out_writer(x), s->opt,
+	    &s->oo) < 0)) {
 		hl_xml_out_free(x);
 		return hl_error_set(err, HL_EIO, NULL, 0, "cannot build the "
 		    "network document");
@@ -327,6 +745,8 @@ write_main(const options *o, const run_state *s, hl_error *err)
 		hl_network_csv(out.fp, s->net);
 	} else {
 		hl_network_text(out.fp, s->net, hl_caution);
+		if (s->opt != NULL)
+			hl_opt_text(out.fp, s->opt, &s->oo);
 	}
 	if (st == HL_OK)
 		st = hl_output_commit(&out, err);
@@ -340,6 +760,20 @@ warn(const run_state *s)
 {
 	const hl_network *net = s->net;
 
+	if (s->no_prices)
+		fprintf(stderr, "heatloom: the case's utilities carry no "
+		    "prices: the least-cost search needs them; this is the "
+		    "fewest-units network\n");
+	if (s->milp_failed)
+		fprintf(stderr, "heatloom: warning: no fewest-units network "
+		    "within its time: the least-cost search started without "
+		    "it\n");
+	if (s->opt != NULL && s->opt->capped)
+		fprintf(stderr, "heatloom: warning: the time limit cut the "
+		    "search short: give a larger --time-limit for a result "
+		    "that repeats\n");
+	if (s->opt != NULL)
+		return;
 	if (net->penalty > 0.0) {
 		double e = hl_network_emat_hint(&s->feed.in);
 
@@ -354,7 +788,7 @@ warn(const run_state *s)
 	if (net->nunit > net->nmatch)
 		fprintf(stderr, "heatloom: warning: %zu units for %zu matches "
 		    "(see the notes)\n", net->nunit, net->nmatch);
-	if (!s->mr->optimal)
+	if (s->mr != NULL && !s->mr->optimal)
 		fprintf(stderr, "heatloom: warning: the match MILP stopped at "
 		    "its time limit: %zu units found, at least %zu needed "
 		    "(give --time-limit)\n", s->mr->units, s->mr->lower);

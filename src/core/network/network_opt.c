@@ -1,0 +1,514 @@
+/* network_opt.c - the optimiser's driver: starts, walks over threads in a
+ * fixed assignment, the deterministic combination, the network out, and
+ * what the limits cost. */
+#include <math.h>
+#include <pthread.h>
+#include <stdarg.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "network_opt_int.h"
+
+/* Walks per round (fixed: the result must not depend on the threads). */
+#define WALKS 4
+
+void
+hl_opt_options_default(hl_opt_options *o)
+{
+	memset(o, 0, sizeof *o);
+	o->seed = 1;
+	o->threads = 2;
+	o->time_limit = 60.0;
+	o->effort = 1.0;
+}
+
+int
+hl_network_optimise_fits(const hl_case *c)
+{
+	int hot = 0, cold = 0;
+	size_t i;
+
+	for (i = 0; i < c->nutil; i++) {
+		if (isnan(c->util[i].price))
+			return 0;
+		if (c->util[i].kind == HL_HOT)
+			hot = 1;
+		else
+			cold = 1;
+	}
+	return hot && cold;
+}
+
+void
+hl_opt_result_free(hl_opt_result *r)
+{
+	if (r == NULL)
+		return;
+	hl_network_free(r->net);
+	free(r->change);
+	free(r);
+}
+
+typedef struct {
+	const hl_opt_problem *P;
+	hl_opt_state s, best;
+	uint64_t seed;
+	size_t max, spent;
+	double deadline;
+	int capped;
+} walk_job;
+
+typedef struct {
+	walk_job *job;
+	size_t njob, first, step;
+} worker;
+
+static void *
+work(void *arg)
+{
+	worker *w = arg;
+	size_t i;
+
+	for (i = w->first; i < w->njob; i += w->step) {
+		walk_job *j = &w->job[i];
+
+		j->spent = hl_opt_walk(j->P, &j->s, &j->best, j->seed, j->max,
+		    j->deadline, &j->capped);
+	}
+	return NULL;
+}
+
+/* Run the jobs on up to `threads` threads: job i on thread i mod T. */
+static void
+run_jobs(walk_job *job, size_t n, int threads)
+{
+	pthread_t tid[16];
+	worker w[16];
+	size_t t, nt = threads < 1 ? 1 : threads > 16 ? 16 : (size_t)threads;
+	size_t started = 0;
+
+	if (nt > n)
+		nt = n;
+	for (t = 0; t < nt; t++) {
+		w[t].job = job;
+		w[t].njob = n;
+		w[t].first = t;
+		w[t].step = nt;
+	}
+	for (t = 1; t < nt; t++)
+		if (pthread_create(&tid[t], NULL, work, &w[t]) == 0)
+			started = t;
+		else
+			break;
+	/* Whatever could not start runs here, in the same order. */
+	if (started + 1 < nt) {
+		for (t = started + 1; t < nt; t++)
+			w[t].step = nt;
+		for (t = started + 1; t < nt; t++)
+			work(&w[t]);
+	}
+	work(&w[0]);
+	for (t = 1; t <= started; t++)
+		pthread_join(tid[t], NULL);
+}
+
+/* A random structure: each allowed pair one unit with probability ½ at a
+ * random stage, with a random part of what both streams could still give. */
+static void
+random_start(const hl_opt_problem *P, hl_opt_state *s, uint64_t seed)
+{
+	uint64_t x = seed;
+	size_t a, b;
+
+	for (a = 0; a < P->nh; a++)
+		for (b = 0; b < P->nc; b++) {
+			double u, q;
+			size_t k;
+
+			x = x * 6364136223846793005ull + 1442695040888963407ull;
+			u = (double)(x >> 11) / 9007199254740992.0;
+			if (!P->allow[a * P->nc + b] || u < 0.5)
+				continue;
+			k = (size_t)(x >> 33) % P->S;
+			q = fmin(hl_stream_duty(&P->c->stream[P->hot[a]]),
+			    hl_stream_duty(&P->c->stream[P->cold[b]]));
+			s->q[HL_OPT_CELL(P, k, a, b)] = q * (u - 0.5);
+		}
+	hl_opt_eval_all(P, s);
+}
+
+static uint64_t
+mix(uint64_t seed, uint64_t w)
+{
+	uint64_t z = seed * 0x9E3779B97F4A7C15ull + w * 0xD1B54A32D192ED03ull;
+
+	return z ^ (z >> 29);
+}
+
+/* The best of the jobs: fewest limits missed, least cost, lowest index. */
+static size_t
+best_job(const walk_job *job, size_t n)
+{
+	size_t i, b = 0;
+
+	for (i = 1; i < n; i++)
+		if (hl_opt_better(&job[i].best, &job[b].best))
+			b = i;
+	return b;
+}
+
+static void
+free_jobs(walk_job *job, size_t n)
+{
+	size_t i;
+
+	for (i = 0; i < n; i++) {
+		hl_opt_state_free(&job[i].s);
+		hl_opt_state_free(&job[i].best);
+	}
+}
+
+/* Evaluations the whole search may spend: grows with the streams and the
+ * superstructure's cells, whose evaluation dominates. */
+static size_t
+budget(const hl_opt_problem *P, const hl_opt_options *o)
+{
+	double n = (double)(P->nh + P->nc);
+	double e = 60000.0 * n * (1.0 + 2.0 / n) * o->effort;
+
+	return e < 1000.0 ? 1000 : (size_t)e;
+}
+
+/* Two rounds of WALKS walks: the first from the start (when given), the
+ * network of utilities only and random structures; the second from the
+ * best of the first. The best polished once more goes to *out. */
+static hl_status
+search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
+       hl_opt_result *r)
+{
+	walk_job job[WALKS];
+	size_t total = budget(P, o), i, b, round;
+	double t0 = hl_opt_now();
+	double deadline = o->time_limit > 0.0 ? t0 + o->time_limit : 0.0;
+	hl_status st = HL_OK;
+
+	memset(job, 0, sizeof job);
+	for (i = 0; i < WALKS; i++)
+		if (hl_opt_state_init(P, &job[i].s) != HL_OK ||
+		    hl_opt_state_init(P, &job[i].best) != HL_OK) {
+			free_jobs(job, WALKS);
+			return HL_EIO;
+		}
+	for (round = 0; round < 2 && st == HL_OK; round++) {
+		for (i = 0; i < WALKS; i++) {
+			walk_job *j = &job[i];
+
+			j->P = P;
+			j->seed = mix(o->seed, round * WALKS + i + 1);
+			j->max = total * 45 / 100 / WALKS;
+			j->deadline = deadline;
+			if (round == 1) {
+				hl_opt_state_copy(P, &j->s, out);
+				continue;
+			}
+			if (i == 0 && o->start != NULL)
+				st = hl_opt_from_network(P, o->start, o->keep,
+				    &j->s);
+			else if (i >= 2)
+				random_start(P, &j->s, j->seed);
+			else
+				hl_opt_eval_all(P, &j->s);
+			if (o->start != NULL && o->keep != NULL && i != 0)
+				memcpy(j->s.keep, job[0].s.keep,
+				    P->S * P->nh * P->nc);
+			if (o->start_only && i != 0 && st == HL_OK)
+				hl_opt_state_copy(P, &j->s, &job[0].s);
+			if (st == HL_OK)
+				hl_opt_eval_all(P, &j->s);
+		}
+		if (st != HL_OK)
+			break;
+		run_jobs(job, WALKS, o->threads);
+		b = best_job(job, WALKS);
+		hl_opt_state_copy(P, out, &job[b].best);
+		for (i = 0; i < WALKS; i++) {
+			if (getenv("HL_OPT_DEBUG"))
+				fprintf(stderr, "round %zu walk %zu: start v %g tac %g -> v %g tac %g (%zu evals)\n", round, i, job[i].s.v, job[i].s.tac, job[i].best.v, job[i].best.tac, job[i].spent);
+			r->evals += job[i].spent;
+			r->capped |= job[i].capped;
+		}
+		r->walks += WALKS;
+		if (o->progress != NULL)
+			o->progress(o->ctx, round == 0 ? 0.45 : 0.9, out->v >
+			    1e-9 ? NAN : out->tac);
+	}
+	free_jobs(job, WALKS);
+	if (st == HL_OK && !(deadline > 0.0 && hl_opt_now() > deadline))
+		r->evals += hl_opt_polish(P, out, total / 10);
+	return st;
+}
+
+static hl_network *
+clone(const hl_network *src, hl_error *err)
+{
+	hl_network *net = hl_network_create();
+	size_t i;
+
+	if (net == NULL)
+		return NULL;
+	net->set = src->set;
+	net->set.currency = strdup(src->set.currency != NULL ?
+	    src->set.currency : "EUR");
+	if (net->set.currency == NULL)
+		goto fail;
+	for (i = 0; i < src->nparty; i++)
+		if (hl_network_add_party(net, &src->party[i], err) != HL_OK)
+			goto fail;
+	for (i = 0; i < src->nunit; i++)
+		if (hl_network_add_unit(net, &src->unit[i], err) != HL_OK)
+			goto fail;
+	for (i = 0; i < src->nnote; i++)
+		if (hl_network_add_note(net, err, "%s", src->note[i]) != HL_OK)
+			goto fail;
+	if (src->source != NULL && (net->source = strdup(src->source)) == NULL)
+		goto fail;
+	net->nmatch = src->nmatch;
+	net->qh_target = src->qh_target;
+	net->qc_target = src->qc_target;
+	net->restriction = src->restriction;
+	net->penalty = src->penalty;
+	hl_network_totals(net);
+	return net;
+fail:
+	hl_network_free(net);
+	return NULL;
+}
+
+static hl_status add_change(hl_opt_result *r, double de, double dt,
+			    const char *fmt, ...)
+	__attribute__((format(printf, 4, 5)));
+
+static hl_status
+add_change(hl_opt_result *r, double de, double dt, const char *fmt, ...)
+{
+	hl_opt_change *c = realloc(r->change, (r->nchange + 1) * sizeof *c);
+	va_list ap;
+
+	if (c == NULL)
+		return HL_EIO;
+	r->change = c;
+	c = &c[r->nchange++];
+	va_start(ap, fmt);
+	vsnprintf(c->text, sizeof c->text, fmt, ap);
+	va_end(ap);
+	c->d_energy = de;
+	c->d_tac = dt;
+	return HL_OK;
+}
+
+/* Pairs of the start that the result no longer has, each with what adding
+ * it back at its start duty (then polished) would do. */
+static hl_status
+dropped(const hl_opt_problem *P, const hl_opt_state *fin,
+	hl_opt_result *r)
+{
+	const hl_network *st = P->o->start;
+	size_t i, k;
+
+	if (st == NULL)
+		return HL_OK;
+	for (i = 0; i < st->nunit; i++) {
+		const hl_network_unit *u = &st->unit[i];
+		size_t a, b, j;
+		double sum = 0.0;
+
+		if (u->hot >= P->c->nstream || u->cold >= P->c->nstream)
+			continue;
+		for (j = 0; j < i; j++)
+			if (st->unit[j].hot == u->hot &&
+			    st->unit[j].cold == u->cold)
+				break;
+		if (j < i)
+			continue;
+		for (a = 0; P->hot[a] != u->hot; a++)
+			;
+		for (b = 0; P->cold[b] != u->cold; b++)
+			;
+		for (k = 0; k < P->S; k++)
+			sum += fin->q[HL_OPT_CELL(P, k, a, b)];
+		if (sum > HL_OPT_QEPS)
+			continue;
+		if (add_change(r, u->duty, NAN, "%s - %s: the start's unit "
+		    "of %.1f kW dropped", st->party[u->hot].name,
+		    st->party[u->cold].name, u->duty) != HL_OK)
+			return HL_EIO;
+	}
+	return HL_OK;
+}
+
+/* The energy and cost of removing each unit of the result (its heat to
+ * the utilities), for the report: what each unit is worth. */
+static hl_status
+worth(const hl_opt_problem *P, const hl_opt_state *fin, hl_opt_result *r)
+{
+	hl_opt_state t;
+	size_t m = P->S * P->nh * P->nc, i;
+	hl_status st = HL_OK;
+
+	if (hl_opt_state_init(P, &t) != HL_OK)
+		return HL_EIO;
+	for (i = 0; i < m && st == HL_OK; i++) {
+		size_t a = (i / P->nc) % P->nh, b = i % P->nc;
+		double q = fin->q[i];
+
+		if (!(q > HL_OPT_QEPS))
+			continue;
+		hl_opt_state_copy(P, &t, fin);
+		t.q[i] = 0.0;
+		t.keep[i] = 0;
+		hl_opt_eval_all(P, &t);
+		if (t.v > 1e-9)
+			st = add_change(r, q, HUGE_VAL, "%s - %s: the unit of "
+			    "%.1f kW cannot go (its streams could not reach "
+			    "their targets)", P->base->party[P->hot[a]].name,
+			    P->base->party[P->cold[b]].name, q);
+		else
+			st = add_change(r, q, t.tac - fin->tac, "%s - %s: "
+			    "without the unit of %.1f kW (its heat to the "
+			    "utilities)", P->base->party[P->hot[a]].name,
+			    P->base->party[P->cold[b]].name, q);
+	}
+	hl_opt_state_free(&t);
+	return st;
+}
+
+/* Which limits bind: each limit set, relaxed, with a short walk from the
+ * result; what it saves is what the limit costs. */
+static void
+binding(const hl_case *c, const hl_opt_options *o, const hl_opt_problem *P,
+	const hl_opt_state *fin, hl_opt_result *r)
+{
+	static const char *const what[] = { "no splits", "the most branches "
+	    "per split", "the smallest duty", "the smallest area", "the most "
+	    "shells in series" };
+	size_t k, len = 0;
+
+	for (k = 0; k < 5; k++) {
+		hl_opt_options x = *o;
+		hl_opt_problem Q;
+		hl_opt_state s, best;
+		int capped = 0, on;
+
+		on = k == 0 ? (o->no_splits || o->no_split != NULL) : k == 1 ?
+		    o->max_branches > 0 : k == 2 ? o->min_duty > 0.0 : k == 3 ?
+		    o->min_area > 0.0 : o->max_shells > 0;
+		if (!on)
+			continue;
+		x.no_splits = k == 0 ? 0 : o->no_splits;
+		x.no_split = k == 0 ? NULL : o->no_split;
+		x.max_branches = k == 1 ? 0 : o->max_branches;
+		x.min_duty = k == 2 ? 0.0 : o->min_duty;
+		x.min_area = k == 3 ? 0.0 : o->min_area;
+		x.max_shells = k == 4 ? 0 : o->max_shells;
+		if (hl_opt_problem_init(&Q, c, &x, NULL) != HL_OK ||
+		    Q.S != P->S || hl_opt_state_init(&Q, &s) != HL_OK) {
+			hl_opt_problem_free(&Q);
+			continue;
+		}
+		if (hl_opt_state_init(&Q, &best) == HL_OK) {
+			memcpy(s.q, fin->q, P->S * P->nh * P->nc * sizeof *s.q);
+			hl_opt_eval_all(&Q, &s);
+			hl_opt_walk(&Q, &s, &best, o->seed + 17 * k,
+			    budget(P, o) / 40, 0.0, &capped);
+			if (best.v <= 1e-9 && best.tac < fin->tac *
+			    (1.0 - 1e-3))
+				len += (size_t)snprintf(r->binding + len,
+				    len < sizeof r->binding ?
+				    sizeof r->binding - len : 0,
+				    "%s%s binds: without it about %.4g a year "
+				    "(%.1f %%) less", len > 0 ? "; " : "",
+				    what[k], fin->tac - best.tac,
+				    100.0 * (fin->tac - best.tac) / fin->tac);
+			if (len >= sizeof r->binding)
+				len = sizeof r->binding - 1;
+			hl_opt_state_free(&best);
+		}
+		hl_opt_state_free(&s);
+		hl_opt_problem_free(&Q);
+	}
+}
+
+static hl_status
+finish(const hl_case *c, const hl_opt_options *o, const hl_opt_problem *P,
+       const hl_opt_state *fin, hl_opt_result *r, hl_error *err)
+{
+	hl_status st;
+
+	int sized = o->start != NULL && !isnan(o->start->total_cost);
+
+	if (fin->v > 1e-9) {
+		if (!sized)
+			return hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
+			    "no network found that keeps every limit (splits, "
+			    "smallest duty or area, shells, match rules, the "
+			    "utilities each stream may use): relax one");
+		r->kept_start = 1;
+	} else {
+		st = hl_opt_to_network(P, fin, &r->net, err);
+		if (st != HL_OK)
+			return st;
+		if (sized && !(r->net->total_cost <
+		    o->start->total_cost)) {
+			hl_network_free(r->net);
+			r->net = NULL;
+			r->kept_start = 1;
+		}
+	}
+	if (r->kept_start) {
+		r->net = clone(o->start, err);
+		return r->net == NULL ? hl_error_nomem(err) : HL_OK;
+	}
+	if (dropped(P, fin, r) != HL_OK || worth(P, fin, r) != HL_OK)
+		return hl_error_nomem(err);
+	binding(c, o, P, fin, r);
+	return HL_OK;
+}
+
+hl_status
+hl_network_optimise(const hl_case *c, const hl_opt_options *o,
+		    hl_opt_result **out, hl_error *err)
+{
+	hl_opt_problem P;
+	hl_opt_state fin;
+	hl_opt_result *r = calloc(1, sizeof *r);
+	double t0 = hl_opt_now();
+	hl_status st;
+
+	if (r == NULL)
+		return hl_error_nomem(err);
+	r->start_tac = o->start != NULL ? o->start->total_cost : NAN;
+	st = hl_opt_problem_init(&P, c, o, err);
+	if (st == HL_OK && P.nh + P.nc == 0)
+		st = hl_error_set(err, HL_EINPUT, c->source, 0, "the case has "
+		    "no process streams to design a network for");
+	if (st == HL_OK && hl_opt_state_init(&P, &fin) != HL_OK)
+		st = hl_error_nomem(err);
+	if (st == HL_OK) {
+		r->stages = P.S;
+		st = search(&P, o, &fin, r);
+		if (st == HL_EIO)
+			hl_error_nomem(err);
+		if (st == HL_OK)
+			st = finish(c, o, &P, &fin, r, err);
+		hl_opt_state_free(&fin);
+	}
+	hl_opt_problem_free(&P);
+	r->seconds = hl_opt_now() - t0;
+	if (st != HL_OK) {
+		hl_opt_result_free(r);
+		return st;
+	}
+	*out = r;
+	return HL_OK;
+}

@@ -1,0 +1,371 @@
+/* network_opt_eval.c - evaluation of the stage-wise superstructure with
+ * isothermal mixing (Yee & Grossmann 1990): temperatures from the energy
+ * balances along each stream, every unit sized by hl_network_size_unit,
+ * the utilities at the stream ends, the limits missed as a sum. */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "network_opt_int.h"
+
+/* Approach shortfalls count per this many K, other misses per unit. */
+#define VIOL_K 10.0
+
+static double
+tol_of(double x)
+{
+	return 1e-9 * fmax(1.0, fabs(x));
+}
+
+/* Hot stream a: temperatures at the stage boundaries, the cooler's duty,
+ * and the limits the stream's loads miss (overshoot, splits). */
+static void
+hot_stream(const hl_opt_problem *P, hl_opt_state *s, size_t a)
+{
+	const hl_stream *st = &P->c->stream[P->hot[a]];
+	double duty = hl_stream_duty(st), q = 0.0, v = 0.0;
+	double *t = &s->th[a * (P->S + 1)];
+	int mb = P->o->max_branches;
+	size_t k, b;
+
+	t[0] = hl_stream_supply(st);
+	for (k = 0; k < P->S; k++) {
+		const double *row = &s->q[HL_OPT_CELL(P, k, a, 0)];
+		double sum = 0.0;
+		int n = 0;
+
+		for (b = 0; b < P->nc; b++)
+			if (row[b] > HL_OPT_QEPS) {
+				sum += row[b];
+				n++;
+			}
+		q += sum;
+		t[k + 1] = q >= duty ? hl_stream_target(st) :
+		    hl_stream_temp_at(st, q);
+		if (n > 1 && P->nosplit[P->hot[a]])
+			v += n - 1;
+		if (mb > 0 && n > mb)
+			v += n - mb;
+	}
+	s->hend[a] = duty - q;
+	if (s->hend[a] < -tol_of(duty))
+		v += -s->hend[a] / P->qscale + 1.0;
+	if (s->hend[a] < tol_of(duty))
+		s->hend[a] = 0.0;
+	s->hviol[a] = v;
+}
+
+static void
+cold_stream(const hl_opt_problem *P, hl_opt_state *s, size_t b)
+{
+	const hl_stream *st = &P->c->stream[P->cold[b]];
+	double duty = hl_stream_duty(st), q = 0.0, v = 0.0;
+	double *t = &s->tc[b * (P->S + 1)];
+	int mb = P->o->max_branches;
+	size_t k, a;
+
+	t[P->S] = hl_stream_supply(st);
+	for (k = P->S; k-- > 0;) {
+		double sum = 0.0;
+		int n = 0;
+
+		for (a = 0; a < P->nh; a++) {
+			double x = s->q[HL_OPT_CELL(P, k, a, b)];
+
+			if (x > HL_OPT_QEPS) {
+				sum += x;
+				n++;
+			}
+		}
+		q += sum;
+		t[k] = q >= duty ? hl_stream_target(st) :
+		    hl_stream_temp_at(st, q);
+		if (n > 1 && P->nosplit[P->cold[b]])
+			v += n - 1;
+		if (mb > 0 && n > mb)
+			v += n - mb;
+	}
+	s->cend[b] = duty - q;
+	if (s->cend[b] < -tol_of(duty))
+		v += -s->cend[b] / P->qscale + 1.0;
+	if (s->cend[b] < tol_of(duty))
+		s->cend[b] = 0.0;
+	s->cvs[b] = v;
+}
+
+/* Size u through the network's sizing; a shell-and-tube unit beyond the
+ * shell count a shell sensibly has goes counterflow, as the placement
+ * does, unless a shell limit is set. Returns the limits missed. */
+static double
+size_unit(const hl_opt_problem *P, hl_network_unit *u)
+{
+	const hl_opt_options *o = P->o;
+	double d1 = u->hot_in - u->cold_out, d2 = u->hot_out - u->cold_in;
+	double req = hl_network_required(&P->base->set,
+	    &P->base->party[u->hot], &P->base->party[u->cold]), v = 0.0;
+	hl_status st;
+
+	u->type = P->base->set.exchanger;
+	if (d1 < req || d2 < req)
+		return (fmax(0.0, req - d1) + fmax(0.0, req - d2)) / VIOL_K +
+		    1e-3;
+	st = hl_network_size_unit(P->base, u, NULL);
+	if (st == HL_ENOSOLUTION && o->max_shells <= 0 &&
+	    u->type != HL_EXCH_COUNTERFLOW) {
+		u->type = HL_EXCH_COUNTERFLOW;
+		st = hl_network_size_unit(P->base, u, NULL);
+	}
+	if (st != HL_OK)
+		return 1.0;
+	if (u->approach < req)
+		v += (req - u->approach) / VIOL_K + 1e-3;
+	if (o->min_duty > 0.0 && u->duty < o->min_duty)
+		v += 1.0 - u->duty / o->min_duty + 1e-3;
+	if (o->min_area > 0.0 && u->area < o->min_area)
+		v += 1.0 - u->area / o->min_area + 1e-3;
+	if (o->max_shells > 0 && u->shells > o->max_shells)
+		v += u->shells - o->max_shells;
+	return v;
+}
+
+static void
+cell(const hl_opt_problem *P, hl_opt_state *s, size_t k, size_t a, size_t b)
+{
+	size_t i = HL_OPT_CELL(P, k, a, b);
+	const double *th = &s->th[a * (P->S + 1)];
+	const double *tc = &s->tc[b * (P->S + 1)];
+	hl_network_unit u;
+
+	s->ccost[i] = s->cviol[i] = 0.0;
+	if (!(s->q[i] > HL_OPT_QEPS))
+		return;
+	memset(&u, 0, sizeof u);
+	u.hot = P->hot[a];
+	u.cold = P->cold[b];
+	u.duty = s->q[i];
+	u.hot_in = th[k];
+	u.hot_out = th[k + 1];
+	u.cold_in = tc[k + 1];
+	u.cold_out = tc[k];
+	s->cviol[i] = size_unit(P, &u);
+	if (s->cviol[i] == 0.0)
+		s->ccost[i] = P->crf * u.cost;
+}
+
+double
+hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in, double d,
+		hl_network_unit *best, long *which, double *viol)
+{
+	const hl_network *net = P->base;
+	const hl_network_party *sp = &net->party[p];
+	int hot = sp->kind == HL_HOT;
+	double cost = HUGE_VAL, bv = HUGE_VAL;
+	size_t j;
+
+	*which = -1;
+	for (j = 0; j < P->nu; j++) {
+		size_t up = P->c->nstream + j;
+		const hl_network_party *ut = &net->party[up];
+		hl_network_unit u;
+		double req, uout, c, v;
+
+		if (ut->kind == sp->kind || !P->uallow[p * P->nu + j])
+			continue;
+		req = hl_network_required(&net->set, hot ? sp : ut,
+		    hot ? ut : sp);
+		memset(&u, 0, sizeof u);
+		u.duty = d;
+		uout = ut->target;
+		if (hot) {
+			if (sp->target - ut->supply < req)
+				continue;
+			if (t_in - uout < req) {
+				if (ut->supply == ut->target)
+					continue;
+				uout = t_in - req;
+				if (uout <= ut->supply + 1e-6)
+					continue;
+			}
+			u.hot = p;
+			u.cold = up;
+			u.hot_in = t_in;
+			u.hot_out = sp->target;
+			u.cold_in = ut->supply;
+			u.cold_out = uout;
+		} else {
+			if (ut->supply - sp->target < req)
+				continue;
+			if (uout - t_in < req) {
+				if (ut->supply == ut->target)
+					continue;
+				uout = t_in + req;
+				if (uout >= ut->supply - 1e-6)
+					continue;
+			}
+			u.hot = up;
+			u.cold = p;
+			u.hot_in = ut->supply;
+			u.hot_out = uout;
+			u.cold_in = t_in;
+			u.cold_out = sp->target;
+		}
+		v = size_unit(P, &u);
+		c = P->crf * u.cost + (isnan(ut->price) ? 0.0 : ut->price) *
+		    d * net->set.hours / 1000.0;
+		if (v < bv || (v == bv && c < cost)) {
+			bv = v;
+			cost = v == 0.0 ? c : 0.0;
+			*which = (long)j;
+			if (best != NULL)
+				*best = u;
+		}
+	}
+	*viol = *which < 0 ? d / P->qscale + 1.0 : bv;
+	return *which < 0 ? 0.0 : cost;
+}
+
+static void
+hot_end(const hl_opt_problem *P, hl_opt_state *s, size_t a)
+{
+	s->hecost[a] = s->heviol[a] = 0.0;
+	s->hutil[a] = -1;
+	if (s->hend[a] > 0.0)
+		s->hecost[a] = hl_opt_end_unit(P, P->hot[a],
+		    s->th[a * (P->S + 1) + P->S], s->hend[a], NULL,
+		    &s->hutil[a], &s->heviol[a]);
+}
+
+static void
+cold_end(const hl_opt_problem *P, hl_opt_state *s, size_t b)
+{
+	s->cecost[b] = s->ceviol[b] = 0.0;
+	s->cutil[b] = -1;
+	if (s->cend[b] > 0.0)
+		s->cecost[b] = hl_opt_end_unit(P, P->cold[b],
+		    s->tc[b * (P->S + 1)], s->cend[b], NULL, &s->cutil[b],
+		    &s->ceviol[b]);
+}
+
+/* Limits that involve several streams: match rules, utility capacities,
+ * cells that must keep a unit. */
+static double
+global_viol(const hl_opt_problem *P, const hl_opt_state *s)
+{
+	double v = 0.0;
+	size_t a, b, k, j;
+
+	if (P->rules)
+		for (a = 0; a < P->nh; a++)
+			for (b = 0; b < P->nc; b++) {
+				size_t pr = a * P->nc + b;
+				double sum = 0.0;
+
+				if (!P->require[pr] && isinf(P->maxduty[pr]))
+					continue;
+				for (k = 0; k < P->S; k++)
+					sum += s->q[HL_OPT_CELL(P, k, a, b)];
+				if (P->require[pr] && sum <= HL_OPT_QEPS)
+					v += 1.0;
+				if (sum > P->maxduty[pr] * (1 + 1e-12))
+					v += (sum - P->maxduty[pr]) /
+					    P->qscale + 1e-3;
+			}
+	for (j = 0; j < P->nu; j++) {
+		double m = P->base->party[P->c->nstream + j].max_load, load = 0;
+
+		if (isnan(m))
+			continue;
+		for (a = 0; a < P->nh; a++)
+			if (s->hutil[a] == (long)j)
+				load += s->hend[a];
+		for (b = 0; b < P->nc; b++)
+			if (s->cutil[b] == (long)j)
+				load += s->cend[b];
+		if (load > m * (1 + 1e-12))
+			v += (load - m) / P->qscale + 1e-3;
+	}
+	return v;
+}
+
+void
+hl_opt_sum(const hl_opt_problem *P, hl_opt_state *s)
+{
+	size_t i, n = P->S * P->nh * P->nc;
+	double v = 0.0, tac = 0.0;
+
+	for (i = 0; i < n; i++) {
+		tac += s->ccost[i];
+		v += s->cviol[i];
+		if (s->keep[i] && !(s->q[i] > HL_OPT_QEPS))
+			v += 1.0;
+	}
+	for (i = 0; i < P->nh; i++) {
+		tac += s->hecost[i];
+		v += s->hviol[i] + s->heviol[i];
+	}
+	for (i = 0; i < P->nc; i++) {
+		tac += s->cecost[i];
+		v += s->cvs[i] + s->ceviol[i];
+	}
+	s->v = v + global_viol(P, s);
+	s->tac = tac;
+}
+
+void
+hl_opt_eval_set(const hl_opt_problem *P, hl_opt_state *s, const size_t *A,
+		size_t na, const size_t *B, size_t nb)
+{
+	size_t k, x, i;
+
+	for (i = 0; i < na; i++)
+		hot_stream(P, s, A[i]);
+	for (i = 0; i < nb; i++)
+		cold_stream(P, s, B[i]);
+	for (k = 0; k < P->S; k++) {
+		for (i = 0; i < na; i++)
+			for (x = 0; x < P->nc; x++)
+				cell(P, s, k, A[i], x);
+		for (i = 0; i < nb; i++)
+			for (x = 0; x < P->nh; x++)
+				cell(P, s, k, x, B[i]);
+	}
+	for (i = 0; i < na; i++)
+		hot_end(P, s, A[i]);
+	for (i = 0; i < nb; i++)
+		cold_end(P, s, B[i]);
+	hl_opt_sum(P, s);
+}
+
+void
+hl_opt_eval_all(const hl_opt_problem *P, hl_opt_state *s)
+{
+	size_t a, b, k;
+
+	for (a = 0; a < P->nh; a++)
+		hot_stream(P, s, a);
+	for (b = 0; b < P->nc; b++)
+		cold_stream(P, s, b);
+	for (k = 0; k < P->S; k++)
+		for (a = 0; a < P->nh; a++)
+			for (b = 0; b < P->nc; b++)
+				cell(P, s, k, a, b);
+	for (a = 0; a < P->nh; a++)
+		hot_end(P, s, a);
+	for (b = 0; b < P->nc; b++)
+		cold_end(P, s, b);
+	hl_opt_sum(P, s);
+}
+
+int
+hl_opt_better(const hl_opt_state *x, const hl_opt_state *y)
+{
+	double vt = 1e-9;
+
+	if (x->v > vt || y->v > vt) {
+		if (x->v < y->v - vt)
+			return 1;
+		if (x->v > y->v + vt)
+			return 0;
+	}
+	return x->tac < y->tac - 1e-9 * fmax(1.0, fabs(y->tac));
+}

@@ -1,0 +1,101 @@
+/* network_opt_int.h - the optimiser's working state (private to
+ * network_opt*.c): the superstructure of a case, the loads of one walk and
+ * their evaluation, incremental by stream. */
+#ifndef HL_NETWORK_OPT_INT_H
+#define HL_NETWORK_OPT_INT_H
+
+#include <stddef.h>
+#include <stdint.h>
+
+#include "network_opt.h"
+
+/* Loads below this (kW) are no unit. */
+#define HL_OPT_QEPS 1e-7
+
+typedef struct {
+	const hl_case *c;
+	const hl_opt_options *o;
+	hl_network *base;         /* parties and settings only: for sizing */
+	size_t nh, nc, S;         /* hot and cold process streams, stages */
+	size_t *hot, *cold;       /* their party indices */
+	size_t nu;                /* utilities: parties nstream + u */
+	unsigned char *allow;     /* nh·nc: the pair may meet */
+	unsigned char *require;   /* nh·nc: the pair must meet */
+	double *maxduty;          /* nh·nc: kW, HUGE_VAL none */
+	unsigned char *uallow;    /* nstream·nu: the stream may use it */
+	unsigned char *nosplit;   /* nstream */
+	double crf;
+	double qscale;            /* kW: a typical stream duty */
+	int rules;                /* some pair has require or maxduty */
+} hl_opt_problem;
+
+#define HL_OPT_CELL(P, k, a, b) (((k) * (P)->nh + (a)) * (P)->nc + (b))
+
+typedef struct {
+	double *q;        /* S·nh·nc loads, kW */
+	unsigned char *keep;  /* S·nh·nc: the cell must keep a unit */
+	double *ccost;    /* per cell: annual capital, 0 when empty */
+	double *cviol;    /* per cell: limits missed, 0 when met */
+	double *th;       /* nh·(S+1): hot temperatures at the boundaries */
+	double *tc;       /* nc·(S+1) */
+	double *hviol;    /* nh: stream limits missed (overshoot, splits) */
+	double *cvs;      /* nc */
+	double *hend;     /* nh: cooler duty, kW */
+	double *cend;     /* nc: heater duty */
+	double *hecost;   /* nh: the cooler's capital and energy a year */
+	double *cecost;
+	double *heviol, *ceviol;
+	long *hutil, *cutil;  /* utility of each end, -1 none */
+	double v, tac;    /* limits missed; total annual cost */
+} hl_opt_state;
+
+hl_status hl_opt_problem_init(hl_opt_problem *P, const hl_case *c,
+			      const hl_opt_options *o, hl_error *err);
+void hl_opt_problem_free(hl_opt_problem *P);
+
+hl_status hl_opt_state_init(const hl_opt_problem *P, hl_opt_state *s);
+void hl_opt_state_free(hl_opt_state *s);
+void hl_opt_state_copy(const hl_opt_problem *P, hl_opt_state *dst,
+		       const hl_opt_state *src);
+
+/* Evaluate everything. */
+void hl_opt_eval_all(const hl_opt_problem *P, hl_opt_state *s);
+/* Re-evaluate after the loads of hot streams A[0..na) and cold streams
+ * B[0..nb) changed (indices among the hot and the cold streams). */
+void hl_opt_eval_set(const hl_opt_problem *P, hl_opt_state *s,
+		     const size_t *A, size_t na, const size_t *B, size_t nb);
+/* Sum the parts into s->v and s->tac. */
+void hl_opt_sum(const hl_opt_problem *P, hl_opt_state *s);
+
+/* 1 when x is better than y: fewer limits missed, then lower cost. */
+int hl_opt_better(const hl_opt_state *x, const hl_opt_state *y);
+
+/* Walk w (seeded from seed and w) from s for evals evaluations; the best
+ * state found goes to best. deadline: monotonic seconds, 0 none. Returns
+ * the evaluations spent; *capped set when the deadline stopped it. */
+size_t hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s,
+		   hl_opt_state *best, uint64_t seed, size_t evals,
+		   double deadline, int *capped);
+/* Coordinate search on the loads of s's units; returns evaluations. */
+size_t hl_opt_polish(const hl_opt_problem *P, hl_opt_state *s,
+		     size_t evals);
+
+double hl_opt_now(void);
+
+/* The cheapest utility unit for a stream end: process party p from t_in
+ * to its target, duty d, on the utilities p may use. Fills *best (when
+ * non-NULL) and *which (-1: none can) and *viol (limits missed); returns
+ * the annual cost (capital and energy). */
+double hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in,
+		       double d, hl_network_unit *best, long *which,
+		       double *viol);
+
+/* The state as a network (sized by hl_network_size_unit). */
+hl_status hl_opt_to_network(const hl_opt_problem *P, const hl_opt_state *s,
+			    hl_network **out, hl_error *err);
+/* A network of the case's parties as loads of S stages (a layering of its
+ * units in temperature order); keep (per unit or NULL) marks cells. */
+hl_status hl_opt_from_network(const hl_opt_problem *P, const hl_network *net,
+			      const unsigned char *keep, hl_opt_state *s);
+
+#endif

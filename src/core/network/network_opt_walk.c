@@ -1,0 +1,416 @@
+/* network_opt_walk.c - the search over loads and structure: a random walk
+ * with unit creation and removal and compulsive acceptance of slightly
+ * worse states (random walk with compulsive evolution, Xiao, Cui et al.
+ * 2017-2019), and a coordinate search on the loads of one structure
+ * (compass search, Kolda, Lewis & Torczon 2003, SIAM Review 45, 385). */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+#include <stdio.h>
+
+#include "network_opt_int.h"
+
+/* Compulsive acceptance: a worse state within this fraction of the cost is
+ * taken with this probability. */
+#define ACCEPT_WORSE 0.03
+#define ACCEPT_PROB 0.03
+
+double
+hl_opt_now(void)
+{
+	struct timespec ts;
+
+	clock_gettime(CLOCK_MONOTONIC, &ts);
+	return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
+}
+
+typedef struct {
+	uint64_t s;
+} rng;
+
+/* splitmix64 (Steele, Lea & Flood 2014, OOPSLA): a full-period 64-bit
+ * generator; fixed, so walks repeat across platforms. */
+static uint64_t
+next(rng *r)
+{
+	uint64_t z = (r->s += 0x9E3779B97F4A7C15ull);
+
+	z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
+	z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
+	return z ^ (z >> 31);
+}
+
+static double
+unif(rng *r)
+{
+	return (double)(next(r) >> 11) * (1.0 / 9007199254740992.0);
+}
+
+static size_t
+pick(rng *r, size_t n)
+{
+	return n == 0 ? 0 : (size_t)(next(r) % n);
+}
+
+/* What a move touched, kept to undo it: the cells of up to two hot and
+ * two cold streams and their stream data. */
+typedef struct {
+	size_t na, nb, A[2], B[2];
+	double *row;      /* 2 hot rows of S·nc cells × 3 (q, cost, viol) */
+	double *col;      /* 2 cold columns of S·nh × 3 */
+	double *ta, *tb;  /* temperatures */
+	double hs[2][4], cs[2][4];
+	long hu[2], cu[2];
+	double v, tac;
+} snap;
+
+static int
+snap_init(const hl_opt_problem *P, snap *z)
+{
+	memset(z, 0, sizeof *z);
+	z->row = malloc((6 * P->S * P->nc + 1) * sizeof *z->row);
+	z->col = malloc((6 * P->S * P->nh + 1) * sizeof *z->col);
+	z->ta = malloc((2 * (P->S + 1)) * sizeof *z->ta);
+	z->tb = malloc((2 * (P->S + 1)) * sizeof *z->tb);
+	return z->row != NULL && z->col != NULL && z->ta != NULL &&
+	    z->tb != NULL;
+}
+
+static void
+snap_free(snap *z)
+{
+	free(z->row);
+	free(z->col);
+	free(z->ta);
+	free(z->tb);
+}
+
+static void
+add_a(snap *z, size_t a)
+{
+	if (z->na == 0 || (z->A[0] != a && z->na < 2))
+		z->A[z->na++] = a;
+}
+
+static void
+add_b(snap *z, size_t b)
+{
+	if (z->nb == 0 || (z->B[0] != b && z->nb < 2))
+		z->B[z->nb++] = b;
+}
+
+static void
+save(const hl_opt_problem *P, const hl_opt_state *s, snap *z)
+{
+	size_t i, k, x, S = P->S;
+
+	for (i = 0; i < z->na; i++) {
+		size_t a = z->A[i];
+		double *r = &z->row[i * 3 * S * P->nc];
+
+		for (k = 0; k < S; k++) {
+			size_t c0 = HL_OPT_CELL(P, k, a, 0), o = k * P->nc;
+
+			memcpy(r + o, s->q + c0, P->nc * sizeof *r);
+			memcpy(r + S * P->nc + o, s->ccost + c0,
+			    P->nc * sizeof *r);
+			memcpy(r + 2 * S * P->nc + o, s->cviol + c0,
+			    P->nc * sizeof *r);
+		}
+		memcpy(z->ta + i * (S + 1), s->th + a * (S + 1),
+		    (S + 1) * sizeof *z->ta);
+		z->hs[i][0] = s->hviol[a];
+		z->hs[i][1] = s->hend[a];
+		z->hs[i][2] = s->hecost[a];
+		z->hs[i][3] = s->heviol[a];
+		z->hu[i] = s->hutil[a];
+	}
+	for (i = 0; i < z->nb; i++) {
+		size_t b = z->B[i];
+		double *c = &z->col[i * 3 * S * P->nh];
+
+		for (k = 0; k < S; k++)
+			for (x = 0; x < P->nh; x++) {
+				size_t j = HL_OPT_CELL(P, k, x, b);
+				size_t o = k * P->nh + x;
+
+				c[o] = s->q[j];
+				c[S * P->nh + o] = s->ccost[j];
+				c[2 * S * P->nh + o] = s->cviol[j];
+			}
+		memcpy(z->tb + i * (S + 1), s->tc + b * (S + 1),
+		    (S + 1) * sizeof *z->tb);
+		z->cs[i][0] = s->cvs[b];
+		z->cs[i][1] = s->cend[b];
+		z->cs[i][2] = s->cecost[b];
+		z->cs[i][3] = s->ceviol[b];
+		z->cu[i] = s->cutil[b];
+	}
+	z->v = s->v;
+	z->tac = s->tac;
+}
+
+static void
+restore(const hl_opt_problem *P, hl_opt_state *s, const snap *z)
+{
+	size_t i, k, x, S = P->S;
+
+	for (i = 0; i < z->na; i++) {
+		size_t a = z->A[i];
+		const double *r = &z->row[i * 3 * S * P->nc];
+
+		for (k = 0; k < S; k++) {
+			size_t c0 = HL_OPT_CELL(P, k, a, 0), o = k * P->nc;
+
+			memcpy(s->q + c0, r + o, P->nc * sizeof *r);
+			memcpy(s->ccost + c0, r + S * P->nc + o,
+			    P->nc * sizeof *r);
+			memcpy(s->cviol + c0, r + 2 * S * P->nc + o,
+			    P->nc * sizeof *r);
+		}
+		memcpy(s->th + a * (S + 1), z->ta + i * (S + 1),
+		    (S + 1) * sizeof *z->ta);
+		s->hviol[a] = z->hs[i][0];
+		s->hend[a] = z->hs[i][1];
+		s->hecost[a] = z->hs[i][2];
+		s->heviol[a] = z->hs[i][3];
+		s->hutil[a] = z->hu[i];
+	}
+	for (i = 0; i < z->nb; i++) {
+		size_t b = z->B[i];
+		const double *c = &z->col[i * 3 * S * P->nh];
+
+		for (k = 0; k < S; k++)
+			for (x = 0; x < P->nh; x++) {
+				size_t j = HL_OPT_CELL(P, k, x, b);
+				size_t o = k * P->nh + x;
+
+				s->q[j] = c[o];
+				s->ccost[j] = c[S * P->nh + o];
+				s->cviol[j] = c[2 * S * P->nh + o];
+			}
+		memcpy(s->tc + b * (S + 1), z->tb + i * (S + 1),
+		    (S + 1) * sizeof *z->tb);
+		s->cvs[b] = z->cs[i][0];
+		s->cend[b] = z->cs[i][1];
+		s->cecost[b] = z->cs[i][2];
+		s->ceviol[b] = z->cs[i][3];
+		s->cutil[b] = z->cu[i];
+	}
+	s->v = z->v;
+	s->tac = z->tac;
+}
+
+/* Start a move on cell i: the snapshot of its two streams. */
+static void
+begin(const hl_opt_problem *P, const hl_opt_state *s, snap *z, size_t i)
+{
+	size_t b = i % P->nc, a = (i / P->nc) % P->nh;
+
+	z->na = z->nb = 0;
+	add_a(z, a);
+	add_b(z, b);
+	save(P, s, z);
+}
+
+static void
+apply(const hl_opt_problem *P, hl_opt_state *s, const snap *z)
+{
+	hl_opt_eval_set(P, s, z->A, z->na, z->B, z->nb);
+}
+
+static size_t
+count_active(const hl_opt_problem *P, const hl_opt_state *s)
+{
+	size_t i, n = 0, m = P->S * P->nh * P->nc;
+
+	for (i = 0; i < m; i++)
+		n += s->q[i] > HL_OPT_QEPS;
+	return n;
+}
+
+static size_t
+nth_active(const hl_opt_problem *P, const hl_opt_state *s, size_t nth)
+{
+	size_t i, m = P->S * P->nh * P->nc;
+
+	for (i = 0; i < m; i++)
+		if (s->q[i] > HL_OPT_QEPS && nth-- == 0)
+			return i;
+	return 0;
+}
+
+/* Set cell i to q (0 removes the unit, unless it must stay). */
+static void
+set_load(hl_opt_state *s, size_t i, double q)
+{
+	if (!(q > HL_OPT_QEPS))
+		q = s->keep[i] ? s->q[i] : 0.0;
+	s->q[i] = q;
+}
+
+/* The utility left at the two ends of cell i's streams (kW). */
+static void
+ends_of(const hl_opt_problem *P, const hl_opt_state *s, size_t i,
+	double *hend, double *cend)
+{
+	*hend = s->hend[(i / P->nc) % P->nh];
+	*cend = s->cend[i % P->nc];
+}
+
+/* One random move; returns 0 when none applies. */
+static int
+move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
+{
+	size_t n = count_active(P, s), i;
+	double u = unif(r), he, ce;
+
+	if (n == 0 || u < 0.2) {          /* a new unit */
+		size_t a = pick(r, P->nh), b = pick(r, P->nc);
+		size_t k = pick(r, P->S);
+
+		if (!P->allow[a * P->nc + b])
+			return 0;
+		i = HL_OPT_CELL(P, k, a, b);
+		begin(P, s, z, i);
+		ends_of(P, s, i, &he, &ce);
+		he = fmin(he, ce);
+		set_load(s, i, s->q[i] + (he > HL_OPT_QEPS ? he *
+		    sqrt(unif(r)) : 0.1 * P->qscale * unif(r)));
+		return 1;
+	}
+	i = nth_active(P, s, pick(r, n));
+	begin(P, s, z, i);
+	if (u < 0.3) {                    /* remove */
+		set_load(s, i, 0.0);
+	} else if (u < 0.4) {             /* close an end */
+		ends_of(P, s, i, &he, &ce);
+		set_load(s, i, s->q[i] + (unif(r) < 0.5 ? he : ce));
+	} else if (u < 0.5) {             /* to the next stage */
+		size_t k = i / (P->nh * P->nc), j;
+
+		k = unif(r) < 0.5 ? (k == 0 ? 1 : k - 1) :
+		    (k + 1 == P->S ? k - 1 : k + 1);
+		j = HL_OPT_CELL(P, k, (i / P->nc) % P->nh, i % P->nc);
+		if (s->keep[i])
+			return 0;
+		s->q[j] += s->q[i];
+		s->q[i] = 0.0;
+	} else {                          /* perturb the load */
+		double step = 0.5 * P->qscale * pow(10.0, -3.0 * unif(r));
+
+		set_load(s, i, s->q[i] + (2.0 * unif(r) - 1.0) * step);
+	}
+	return 1;
+}
+
+static int
+acceptable(const hl_opt_state *t, const hl_opt_state *cur, rng *r)
+{
+	if (hl_opt_better(t, cur))
+		return 1;
+	if (t->v > 1e-9 || cur->v > 1e-9)
+		return 0;
+	return t->tac < cur->tac * (1.0 + ACCEPT_WORSE) &&
+	    unif(r) < ACCEPT_PROB;
+}
+
+/* Try cell i at load q; keep it when better. */
+static int
+try_load(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t i,
+	 double q, size_t *evals)
+{
+	begin(P, s, z, i);
+	set_load(s, i, q);
+	apply(P, s, z);
+	(*evals)++;
+	if (z->v > 1e-9 ? s->v < z->v - 1e-9 || (s->v <= z->v + 1e-9 &&
+	    s->tac < z->tac - 1e-9 * fabs(z->tac)) : s->v <= 1e-9 &&
+	    s->tac < z->tac - 1e-9 * fmax(1.0, fabs(z->tac)))
+		return 1;
+	restore(P, s, z);
+	return 0;
+}
+
+size_t
+hl_opt_polish(const hl_opt_problem *P, hl_opt_state *s, size_t max)
+{
+	size_t m = P->S * P->nh * P->nc, i, evals = 0;
+	double *h = calloc(m + 1, sizeof *h), hmax;
+	snap z;
+
+	if (h == NULL || !snap_init(P, &z)) {
+		free(h);
+		return 0;
+	}
+	for (i = 0; i < m; i++)
+		h[i] = 0.1 * s->q[i];
+	do {
+		hmax = 0.0;
+		for (i = 0; i < m && evals < max; i++) {
+			double he, ce, q = s->q[i];
+
+			if (!(q > HL_OPT_QEPS))
+				continue;
+			ends_of(P, s, i, &he, &ce);
+			if ((he > 0.0 && try_load(P, s, &z, i, q + he,
+			    &evals)) || (ce > 0.0 && ce != he &&
+			    try_load(P, s, &z, i, q + ce, &evals)))
+				continue;
+			if (h[i] < 1e-9 * P->qscale)
+				continue;
+			if (try_load(P, s, &z, i, q + h[i], &evals) ||
+			    try_load(P, s, &z, i, q - h[i], &evals))
+				h[i] *= 2.0;
+			else
+				h[i] *= 0.5;
+			hmax = fmax(hmax, h[i]);
+		}
+	} while (hmax >= 1e-9 * P->qscale && evals < max);
+	snap_free(&z);
+	free(h);
+	return evals;
+}
+
+size_t
+hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s, hl_opt_state *best,
+	    uint64_t seed, size_t max, double deadline, int *capped)
+{
+	rng r = { seed };
+	size_t evals = 0, stall = 0;
+	size_t restart = 200 + 20 * (P->nh + P->nc);
+	snap z;
+
+	if (!snap_init(P, &z))
+		return 0;
+	hl_opt_state_copy(P, best, s);
+	while (evals < max) {
+		if ((evals & 255) == 0 && deadline > 0.0 &&
+		    hl_opt_now() > deadline) {
+			*capped = 1;
+			break;
+		}
+		if (!move(P, s, &z, &r))
+			continue;
+		apply(P, s, &z);
+		evals++;
+		if (getenv("HL_OPT_TRACE") && evals < 60)
+			fprintf(stderr, "%zu: %g %g -> %g %g\n", evals, z.v, z.tac, s->v, s->tac);
+		if (!acceptable(s, (const hl_opt_state *)&(hl_opt_state){
+		    .v = z.v, .tac = z.tac }, &r)) {
+			restore(P, s, &z);
+		} else if (hl_opt_better(s, best)) {
+			evals += hl_opt_polish(P, s, max / 20 + 1);
+			hl_opt_state_copy(P, best, s);
+			stall = 0;
+			continue;
+		}
+		if (++stall > restart) {
+			hl_opt_state_copy(P, s, best);
+			stall = 0;
+		}
+	}
+	snap_free(&z);
+	return evals;
+}
