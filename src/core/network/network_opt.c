@@ -12,6 +12,7 @@
 
 /* Walks per round (fixed: the result must not depend on the threads). */
 #define WALKS 4
+#define ROUNDS 4
 
 void
 hl_opt_options_default(hl_opt_options *o)
@@ -113,13 +114,15 @@ run_jobs(walk_job *job, size_t n, int threads)
 		pthread_join(tid[t], NULL);
 }
 
-/* A random structure: each allowed pair one unit with probability ½ at a
- * random stage, with a random part of what both streams could still give. */
+/* A random structure: each allowed pair one unit with probability
+ * min(½, 2/max(hot, cold streams)) at a random stage, with a random part of
+ * what both streams hold. */
 static void
 random_start(const hl_opt_problem *P, hl_opt_state *s, uint64_t seed)
 {
 	uint64_t x = seed;
-	size_t a, b;
+	size_t a, b, m = P->nh > P->nc ? P->nh : P->nc;
+	double p = fmin(0.5, 2.0 / (double)(m > 0 ? m : 1));
 
 	for (a = 0; a < P->nh; a++)
 		for (b = 0; b < P->nc; b++) {
@@ -128,12 +131,12 @@ random_start(const hl_opt_problem *P, hl_opt_state *s, uint64_t seed)
 
 			x = x * 6364136223846793005ull + 1442695040888963407ull;
 			u = (double)(x >> 11) / 9007199254740992.0;
-			if (!P->allow[a * P->nc + b] || u < 0.5)
+			if (!P->allow[a * P->nc + b] || u >= p)
 				continue;
 			k = (size_t)(x >> 33) % P->S;
 			q = fmin(hl_stream_duty(&P->c->stream[P->hot[a]]),
 			    hl_stream_duty(&P->c->stream[P->cold[b]]));
-			s->q[HL_OPT_CELL(P, k, a, b)] = q * (u - 0.5);
+			s->q[HL_OPT_CELL(P, k, a, b)] = q * u / p;
 		}
 	hl_opt_eval_all(P, s);
 }
@@ -158,6 +161,19 @@ best_job(const walk_job *job, size_t n)
 	return b;
 }
 
+/* The walk that did worst (highest index among equals): it restarts from
+ * the best, the others go on from their own best. */
+static size_t
+worst_job(const walk_job *job, size_t n)
+{
+	size_t i, w = 0;
+
+	for (i = 1; i < n; i++)
+		if (!hl_opt_better(&job[i].best, &job[w].best))
+			w = i;
+	return w;
+}
+
 static void
 free_jobs(walk_job *job, size_t n)
 {
@@ -180,15 +196,15 @@ budget(const hl_opt_problem *P, const hl_opt_options *o)
 	return e < 1000.0 ? 1000 : (size_t)e;
 }
 
-/* Two rounds of WALKS walks: the first from the start (when given), the
- * network of utilities only and random structures; the second from the
- * best of the first. The best polished once more goes to *out. */
+/* ROUNDS rounds of WALKS walks: the first from the start (when given), the
+ * network of utilities only and random structures; each later one from the
+ * best so far. The best polished once more goes to *out. */
 static hl_status
 search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
        hl_opt_result *r)
 {
 	walk_job job[WALKS];
-	size_t total = budget(P, o), i, b, round;
+	size_t total = budget(P, o), i, b, round, worst = 0;
 	double t0 = hl_opt_now();
 	double deadline = o->time_limit > 0.0 ? t0 + o->time_limit : 0.0;
 	hl_status st = HL_OK;
@@ -200,16 +216,17 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 			free_jobs(job, WALKS);
 			return HL_EIO;
 		}
-	for (round = 0; round < 2 && st == HL_OK; round++) {
+	for (round = 0; round < ROUNDS && st == HL_OK; round++) {
 		for (i = 0; i < WALKS; i++) {
 			walk_job *j = &job[i];
 
 			j->P = P;
 			j->seed = mix(o->seed, round * WALKS + i + 1);
-			j->max = total * 45 / 100 / WALKS;
+			j->max = total * 9 / 10 / ROUNDS / WALKS;
 			j->deadline = deadline;
-			if (round == 1) {
-				hl_opt_state_copy(P, &j->s, out);
+			if (round > 0) {
+				hl_opt_state_copy(P, &j->s, i == worst ? out :
+				    &j->best);
 				continue;
 			}
 			if (i == 0 && o->start != NULL)
@@ -217,8 +234,12 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 				    &j->s);
 			else if (i >= 2)
 				random_start(P, &j->s, j->seed);
-			else
+			else {
 				hl_opt_eval_all(P, &j->s);
+				if (i == 1)
+					r->evals += hl_opt_greedy(P, &j->s,
+					    total / 10);
+			}
 			if (o->start != NULL && o->keep != NULL && i != 0)
 				memcpy(j->s.keep, job[0].s.keep,
 				    P->S * P->nh * P->nc);
@@ -231,16 +252,15 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 			break;
 		run_jobs(job, WALKS, o->threads);
 		b = best_job(job, WALKS);
+		worst = worst_job(job, WALKS);
 		hl_opt_state_copy(P, out, &job[b].best);
 		for (i = 0; i < WALKS; i++) {
-			if (getenv("HL_OPT_DEBUG"))
-				fprintf(stderr, "round %zu walk %zu: start v %g tac %g -> v %g tac %g (%zu evals)\n", round, i, job[i].s.v, job[i].s.tac, job[i].best.v, job[i].best.tac, job[i].spent);
 			r->evals += job[i].spent;
 			r->capped |= job[i].capped;
 		}
 		r->walks += WALKS;
 		if (o->progress != NULL)
-			o->progress(o->ctx, round == 0 ? 0.45 : 0.9, out->v >
+			o->progress(o->ctx, 0.9 * (round + 1) / ROUNDS, out->v >
 			    1e-9 ? NAN : out->tac);
 	}
 	free_jobs(job, WALKS);

@@ -134,11 +134,20 @@ cell(const hl_opt_problem *P, hl_opt_state *s, size_t k, size_t a, size_t b)
 	size_t i = HL_OPT_CELL(P, k, a, b);
 	const double *th = &s->th[a * (P->S + 1)];
 	const double *tc = &s->tc[b * (P->S + 1)];
+	double oc = s->ccost[i], ov = s->cviol[i];
+	int was = s->act[i];
 	hl_network_unit u;
 
 	s->ccost[i] = s->cviol[i] = 0.0;
-	if (!(s->q[i] > HL_OPT_QEPS))
+	if (!(s->q[i] > HL_OPT_QEPS)) {
+		if (s->keep[i])
+			s->cviol[i] = 1.0;
+		s->ccap += -oc;
+		s->cvsum += s->cviol[i] - ov;
+		s->nact -= (size_t)was;
+		s->act[i] = 0;
 		return;
+	}
 	memset(&u, 0, sizeof u);
 	u.hot = P->hot[a];
 	u.cold = P->cold[b];
@@ -150,6 +159,10 @@ cell(const hl_opt_problem *P, hl_opt_state *s, size_t k, size_t a, size_t b)
 	s->cviol[i] = size_unit(P, &u);
 	if (s->cviol[i] == 0.0)
 		s->ccost[i] = P->crf * u.cost;
+	s->act[i] = 1;
+	s->ccap += s->ccost[i] - oc;
+	s->cvsum += s->cviol[i] - ov;
+	s->nact += (size_t)!was;
 }
 
 double
@@ -290,15 +303,9 @@ global_viol(const hl_opt_problem *P, const hl_opt_state *s)
 void
 hl_opt_sum(const hl_opt_problem *P, hl_opt_state *s)
 {
-	size_t i, n = P->S * P->nh * P->nc;
-	double v = 0.0, tac = 0.0;
+	size_t i;
+	double v = s->cvsum, tac = s->ccap;
 
-	for (i = 0; i < n; i++) {
-		tac += s->ccost[i];
-		v += s->cviol[i];
-		if (s->keep[i] && !(s->q[i] > HL_OPT_QEPS))
-			v += 1.0;
-	}
 	for (i = 0; i < P->nh; i++) {
 		tac += s->hecost[i];
 		v += s->hviol[i] + s->heviol[i];
@@ -309,6 +316,13 @@ hl_opt_sum(const hl_opt_problem *P, hl_opt_state *s)
 	}
 	s->v = v + global_viol(P, s);
 	s->tac = tac;
+}
+
+/* A cell whose evaluation may change: it has or had a unit, or must. */
+static int
+busy(const hl_opt_state *s, size_t i)
+{
+	return s->q[i] > HL_OPT_QEPS || s->act[i] || s->keep[i];
 }
 
 void
@@ -324,10 +338,12 @@ hl_opt_eval_set(const hl_opt_problem *P, hl_opt_state *s, const size_t *A,
 	for (k = 0; k < P->S; k++) {
 		for (i = 0; i < na; i++)
 			for (x = 0; x < P->nc; x++)
-				cell(P, s, k, A[i], x);
+				if (busy(s, HL_OPT_CELL(P, k, A[i], x)))
+					cell(P, s, k, A[i], x);
 		for (i = 0; i < nb; i++)
 			for (x = 0; x < P->nh; x++)
-				cell(P, s, k, x, B[i]);
+				if (busy(s, HL_OPT_CELL(P, k, x, B[i])))
+					cell(P, s, k, x, B[i]);
 	}
 	for (i = 0; i < na; i++)
 		hot_end(P, s, A[i]);
@@ -349,6 +365,13 @@ hl_opt_eval_all(const hl_opt_problem *P, hl_opt_state *s)
 		for (a = 0; a < P->nh; a++)
 			for (b = 0; b < P->nc; b++)
 				cell(P, s, k, a, b);
+	s->ccap = s->cvsum = 0.0;
+	s->nact = 0;
+	for (k = 0; k < P->S * P->nh * P->nc; k++) {
+		s->ccap += s->ccost[k];
+		s->cvsum += s->cviol[k];
+		s->nact += s->act[k];
+	}
 	for (a = 0; a < P->nh; a++)
 		hot_end(P, s, a);
 	for (b = 0; b < P->nc; b++)

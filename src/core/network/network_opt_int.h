@@ -34,6 +34,7 @@ typedef struct {
 typedef struct {
 	double *q;        /* S·nh·nc loads, kW */
 	unsigned char *keep;  /* S·nh·nc: the cell must keep a unit */
+	unsigned char *act;   /* S·nh·nc: the cell had a unit when evaluated */
 	double *ccost;    /* per cell: annual capital, 0 when empty */
 	double *cviol;    /* per cell: limits missed, 0 when met */
 	double *th;       /* nh·(S+1): hot temperatures at the boundaries */
@@ -46,6 +47,8 @@ typedef struct {
 	double *cecost;
 	double *heviol, *ceviol;
 	long *hutil, *cutil;  /* utility of each end, -1 none */
+	double ccap, cvsum;  /* Σ ccost, Σ cviol, kept up by each cell */
+	size_t nact;      /* cells with a unit */
 	double v, tac;    /* limits missed; total annual cost */
 } hl_opt_state;
 
@@ -76,6 +79,8 @@ int hl_opt_better(const hl_opt_state *x, const hl_opt_state *y);
 size_t hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s,
 		   hl_opt_state *best, uint64_t seed, size_t evals,
 		   double deadline, int *capped);
+/* Greedy construction from s; returns evaluations. */
+size_t hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max);
 /* Coordinate search on the loads of s's units; returns evaluations. */
 size_t hl_opt_polish(const hl_opt_problem *P, hl_opt_state *s,
 		     size_t evals);

@@ -205,7 +205,7 @@ hl_opt_problem_init(hl_opt_problem *P, const hl_case *c,
 	P->crf = hl_supertarget_crf(c->set.interest, c->set.life);
 	if (!(P->qscale > 0.0))
 		P->qscale = 1.0;
-	P->S = P->nh > P->nc ? P->nh : P->nc;
+	P->S = (P->nh > P->nc ? P->nh : P->nc) + 2;
 	if (P->S < 2)
 		P->S = 2;
 	if (o->start != NULL) {
@@ -242,6 +242,7 @@ hl_opt_state_init(const hl_opt_problem *P, hl_opt_state *s)
 	memset(s, 0, sizeof *s);
 	s->q = calloc(n, sizeof *s->q);
 	s->keep = calloc(n, 1);
+	s->act = calloc(n, 1);
 	s->ccost = calloc(n, sizeof *s->ccost);
 	s->cviol = calloc(n, sizeof *s->cviol);
 	s->th = calloc(P->nh * (P->S + 1) + 1, sizeof *s->th);
@@ -256,7 +257,7 @@ hl_opt_state_init(const hl_opt_problem *P, hl_opt_state *s)
 	s->ceviol = calloc(P->nc + 1, sizeof *s->ceviol);
 	s->hutil = calloc(P->nh + 1, sizeof *s->hutil);
 	s->cutil = calloc(P->nc + 1, sizeof *s->cutil);
-	if (s->q == NULL || s->keep == NULL || s->ccost == NULL ||
+	if (s->q == NULL || s->keep == NULL || s->act == NULL || s->ccost == NULL ||
 	    s->cviol == NULL || s->th == NULL || s->tc == NULL ||
 	    s->hviol == NULL || s->cvs == NULL || s->hend == NULL ||
 	    s->cend == NULL || s->hecost == NULL || s->cecost == NULL ||
@@ -273,6 +274,7 @@ hl_opt_state_free(hl_opt_state *s)
 {
 	free(s->q);
 	free(s->keep);
+	free(s->act);
 	free(s->ccost);
 	free(s->cviol);
 	free(s->th);
@@ -298,6 +300,7 @@ hl_opt_state_copy(const hl_opt_problem *P, hl_opt_state *d,
 
 	memcpy(d->q, s->q, n * sizeof *d->q);
 	memcpy(d->keep, s->keep, n);
+	memcpy(d->act, s->act, n);
 	memcpy(d->ccost, s->ccost, n * sizeof *d->ccost);
 	memcpy(d->cviol, s->cviol, n * sizeof *d->cviol);
 	memcpy(d->th, s->th, P->nh * (P->S + 1) * sizeof *d->th);
@@ -314,6 +317,9 @@ hl_opt_state_copy(const hl_opt_problem *P, hl_opt_state *d,
 	CP(hutil, P->nh);
 	CP(cutil, P->nc);
 #undef CP
+	d->ccap = s->ccap;
+	d->cvsum = s->cvsum;
+	d->nact = s->nact;
 	d->v = s->v;
 	d->tac = s->tac;
 }

@@ -7,14 +7,13 @@
 #include <stdlib.h>
 #include <string.h>
 #include <time.h>
-#include <stdio.h>
 
 #include "network_opt_int.h"
 
 /* Compulsive acceptance: a worse state within this fraction of the cost is
  * taken with this probability. */
-#define ACCEPT_WORSE 0.03
-#define ACCEPT_PROB 0.03
+#define ACCEPT_WORSE 0.3
+#define ACCEPT_PROB 0.05
 
 double
 hl_opt_now(void)
@@ -54,34 +53,40 @@ pick(rng *r, size_t n)
 }
 
 /* What a move touched, kept to undo it: the cells of up to two hot and
- * two cold streams and their stream data. */
+ * two cold streams that have a unit (or will: cells added by hand) and
+ * those streams' data. */
+typedef struct {
+	size_t i;
+	double q, c, v;
+	unsigned char act;
+} cell_save;
+
 typedef struct {
 	size_t na, nb, A[2], B[2];
-	double *row;      /* 2 hot rows of S·nc cells × 3 (q, cost, viol) */
-	double *col;      /* 2 cold columns of S·nh × 3 */
+	cell_save *cs;
+	size_t ncs;
 	double *ta, *tb;  /* temperatures */
-	double hs[2][4], cs[2][4];
+	double hs[2][4], cs2[2][4];
 	long hu[2], cu[2];
-	double v, tac;
+	double v, tac, ccap, cvsum;
+	size_t nact;
+	hl_opt_state *full;  /* the whole state, for a move on every load */
 } snap;
 
 static int
 snap_init(const hl_opt_problem *P, snap *z)
 {
 	memset(z, 0, sizeof *z);
-	z->row = malloc((6 * P->S * P->nc + 1) * sizeof *z->row);
-	z->col = malloc((6 * P->S * P->nh + 1) * sizeof *z->col);
+	z->cs = malloc((2 * P->S * (P->nc + P->nh) + 8) * sizeof *z->cs);
 	z->ta = malloc((2 * (P->S + 1)) * sizeof *z->ta);
 	z->tb = malloc((2 * (P->S + 1)) * sizeof *z->tb);
-	return z->row != NULL && z->col != NULL && z->ta != NULL &&
-	    z->tb != NULL;
+	return z->cs != NULL && z->ta != NULL && z->tb != NULL;
 }
 
 static void
 snap_free(snap *z)
 {
-	free(z->row);
-	free(z->col);
+	free(z->cs);
 	free(z->ta);
 	free(z->tb);
 }
@@ -101,23 +106,33 @@ add_b(snap *z, size_t b)
 }
 
 static void
+keep_cell(snap *z, const hl_opt_state *s, size_t i)
+{
+	cell_save *c = &z->cs[z->ncs++];
+
+	c->i = i;
+	c->q = s->q[i];
+	c->c = s->ccost[i];
+	c->v = s->cviol[i];
+	c->act = s->act[i];
+}
+
+static void
 save(const hl_opt_problem *P, const hl_opt_state *s, snap *z)
 {
 	size_t i, k, x, S = P->S;
 
+	z->ncs = 0;
 	for (i = 0; i < z->na; i++) {
 		size_t a = z->A[i];
-		double *r = &z->row[i * 3 * S * P->nc];
 
-		for (k = 0; k < S; k++) {
-			size_t c0 = HL_OPT_CELL(P, k, a, 0), o = k * P->nc;
+		for (k = 0; k < S; k++)
+			for (x = 0; x < P->nc; x++) {
+				size_t j = HL_OPT_CELL(P, k, a, x);
 
-			memcpy(r + o, s->q + c0, P->nc * sizeof *r);
-			memcpy(r + S * P->nc + o, s->ccost + c0,
-			    P->nc * sizeof *r);
-			memcpy(r + 2 * S * P->nc + o, s->cviol + c0,
-			    P->nc * sizeof *r);
-		}
+				if (s->act[j] || s->q[j] > 0.0 || s->keep[j])
+					keep_cell(z, s, j);
+			}
 		memcpy(z->ta + i * (S + 1), s->th + a * (S + 1),
 		    (S + 1) * sizeof *z->ta);
 		z->hs[i][0] = s->hviol[a];
@@ -128,47 +143,45 @@ save(const hl_opt_problem *P, const hl_opt_state *s, snap *z)
 	}
 	for (i = 0; i < z->nb; i++) {
 		size_t b = z->B[i];
-		double *c = &z->col[i * 3 * S * P->nh];
 
 		for (k = 0; k < S; k++)
 			for (x = 0; x < P->nh; x++) {
 				size_t j = HL_OPT_CELL(P, k, x, b);
-				size_t o = k * P->nh + x;
 
-				c[o] = s->q[j];
-				c[S * P->nh + o] = s->ccost[j];
-				c[2 * S * P->nh + o] = s->cviol[j];
+				if (s->act[j] || s->q[j] > 0.0 || s->keep[j])
+					keep_cell(z, s, j);
 			}
 		memcpy(z->tb + i * (S + 1), s->tc + b * (S + 1),
 		    (S + 1) * sizeof *z->tb);
-		z->cs[i][0] = s->cvs[b];
-		z->cs[i][1] = s->cend[b];
-		z->cs[i][2] = s->cecost[b];
-		z->cs[i][3] = s->ceviol[b];
+		z->cs2[i][0] = s->cvs[b];
+		z->cs2[i][1] = s->cend[b];
+		z->cs2[i][2] = s->cecost[b];
+		z->cs2[i][3] = s->ceviol[b];
 		z->cu[i] = s->cutil[b];
 	}
 	z->v = s->v;
 	z->tac = s->tac;
+	z->ccap = s->ccap;
+	z->cvsum = s->cvsum;
+	z->nact = s->nact;
 }
 
 static void
 restore(const hl_opt_problem *P, hl_opt_state *s, const snap *z)
 {
-	size_t i, k, x, S = P->S;
+	size_t i, S = P->S;
 
+	for (i = z->ncs; i-- > 0;) {
+		const cell_save *c = &z->cs[i];
+
+		s->q[c->i] = c->q;
+		s->ccost[c->i] = c->c;
+		s->cviol[c->i] = c->v;
+		s->act[c->i] = c->act;
+	}
 	for (i = 0; i < z->na; i++) {
 		size_t a = z->A[i];
-		const double *r = &z->row[i * 3 * S * P->nc];
 
-		for (k = 0; k < S; k++) {
-			size_t c0 = HL_OPT_CELL(P, k, a, 0), o = k * P->nc;
-
-			memcpy(s->q + c0, r + o, P->nc * sizeof *r);
-			memcpy(s->ccost + c0, r + S * P->nc + o,
-			    P->nc * sizeof *r);
-			memcpy(s->cviol + c0, r + 2 * S * P->nc + o,
-			    P->nc * sizeof *r);
-		}
 		memcpy(s->th + a * (S + 1), z->ta + i * (S + 1),
 		    (S + 1) * sizeof *z->ta);
 		s->hviol[a] = z->hs[i][0];
@@ -179,27 +192,20 @@ restore(const hl_opt_problem *P, hl_opt_state *s, const snap *z)
 	}
 	for (i = 0; i < z->nb; i++) {
 		size_t b = z->B[i];
-		const double *c = &z->col[i * 3 * S * P->nh];
 
-		for (k = 0; k < S; k++)
-			for (x = 0; x < P->nh; x++) {
-				size_t j = HL_OPT_CELL(P, k, x, b);
-				size_t o = k * P->nh + x;
-
-				s->q[j] = c[o];
-				s->ccost[j] = c[S * P->nh + o];
-				s->cviol[j] = c[2 * S * P->nh + o];
-			}
 		memcpy(s->tc + b * (S + 1), z->tb + i * (S + 1),
 		    (S + 1) * sizeof *z->tb);
-		s->cvs[b] = z->cs[i][0];
-		s->cend[b] = z->cs[i][1];
-		s->cecost[b] = z->cs[i][2];
-		s->ceviol[b] = z->cs[i][3];
+		s->cvs[b] = z->cs2[i][0];
+		s->cend[b] = z->cs2[i][1];
+		s->cecost[b] = z->cs2[i][2];
+		s->ceviol[b] = z->cs2[i][3];
 		s->cutil[b] = z->cu[i];
 	}
 	s->v = z->v;
 	s->tac = z->tac;
+	s->ccap = z->ccap;
+	s->cvsum = z->cvsum;
+	s->nact = z->nact;
 }
 
 /* Start a move on cell i: the snapshot of its two streams. */
@@ -212,6 +218,7 @@ begin(const hl_opt_problem *P, const hl_opt_state *s, snap *z, size_t i)
 	add_a(z, a);
 	add_b(z, b);
 	save(P, s, z);
+	keep_cell(z, s, i);
 }
 
 static void
@@ -223,18 +230,23 @@ apply(const hl_opt_problem *P, hl_opt_state *s, const snap *z)
 static size_t
 count_active(const hl_opt_problem *P, const hl_opt_state *s)
 {
-	size_t i, n = 0, m = P->S * P->nh * P->nc;
-
-	for (i = 0; i < m; i++)
-		n += s->q[i] > HL_OPT_QEPS;
-	return n;
+	(void)P;
+	return s->nact;
 }
 
+/* A cell with a unit, uniformly: by rejection while units are not too
+ * rare, else by a scan. */
 static size_t
-nth_active(const hl_opt_problem *P, const hl_opt_state *s, size_t nth)
+any_active(const hl_opt_problem *P, const hl_opt_state *s, rng *r)
 {
-	size_t i, m = P->S * P->nh * P->nc;
+	size_t i, m = P->S * P->nh * P->nc, t, nth;
 
+	for (t = 0; t < 64 * (m / (s->nact + 1) + 1); t++) {
+		i = pick(r, m);
+		if (s->q[i] > HL_OPT_QEPS)
+			return i;
+	}
+	nth = pick(r, s->nact);
 	for (i = 0; i < m; i++)
 		if (s->q[i] > HL_OPT_QEPS && nth-- == 0)
 			return i;
@@ -266,6 +278,18 @@ move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
 	size_t n = count_active(P, s), i;
 	double u = unif(r), he, ce;
 
+	if (n > 1 && u > 0.95) {          /* every load at once */
+		size_t m = P->S * P->nh * P->nc;
+		double step = 0.05 * P->qscale * pow(10.0, -2.0 * unif(r));
+
+		z->na = z->nb = 0;
+		hl_opt_state_copy(P, z->full, s);
+		for (i = 0; i < m; i++)
+			if (s->q[i] > HL_OPT_QEPS)
+				set_load(s, i, s->q[i] + (2.0 * unif(r) - 1.0) *
+				    step);
+		return 2;
+	}
 	if (n == 0 || u < 0.2) {          /* a new unit */
 		size_t a = pick(r, P->nh), b = pick(r, P->nc);
 		size_t k = pick(r, P->S);
@@ -280,7 +304,7 @@ move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
 		    sqrt(unif(r)) : 0.1 * P->qscale * unif(r)));
 		return 1;
 	}
-	i = nth_active(P, s, pick(r, n));
+	i = any_active(P, s, r);
 	begin(P, s, z, i);
 	if (u < 0.3) {                    /* remove */
 		set_load(s, i, 0.0);
@@ -295,6 +319,7 @@ move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
 		j = HL_OPT_CELL(P, k, (i / P->nc) % P->nh, i % P->nc);
 		if (s->keep[i])
 			return 0;
+		keep_cell(z, s, j);
 		s->q[j] += s->q[i];
 		s->q[i] = 0.0;
 	} else {                          /* perturb the load */
@@ -331,6 +356,58 @@ try_load(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t i,
 		return 1;
 	restore(P, s, z);
 	return 0;
+}
+
+/* Greedy construction: add the one unit (pair, one of three stages, all or
+ * half of what the two streams' ends still take) that lowers the cost
+ * most, until none does. */
+size_t
+hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max)
+{
+	size_t evals = 0, a, b, f, t;
+	size_t ks[3] = { 0, P->S / 2, P->S - 1 };
+	snap z;
+
+	if (!snap_init(P, &z))
+		return 0;
+	while (evals < max) {
+		size_t bi = 0;
+		double bq = 0.0, bt = s->tac, bv = s->v;
+
+		for (a = 0; a < P->nh; a++)
+			for (b = 0; b < P->nc; b++) {
+				double m = fmin(s->hend[a], s->cend[b]);
+
+				if (!P->allow[a * P->nc + b] || m <= HL_OPT_QEPS)
+					continue;
+				for (t = 0; t < 3; t++)
+					for (f = 1; f <= 2; f++) {
+						size_t i = HL_OPT_CELL(P, ks[t], a, b);
+						double q = s->q[i] + m / (double)f;
+
+						begin(P, s, &z, i);
+						set_load(s, i, q);
+						apply(P, s, &z);
+						evals++;
+						if (s->v < bv - 1e-9 || (s->v <= bv +
+						    1e-9 && s->tac < bt - 1e-9 *
+						    fabs(bt))) {
+							bi = i + 1;
+							bq = q;
+							bt = s->tac;
+							bv = s->v;
+						}
+						restore(P, s, &z);
+					}
+			}
+		if (bi == 0)
+			break;
+		begin(P, s, &z, bi - 1);
+		set_load(s, bi - 1, bq);
+		apply(P, s, &z);
+	}
+	snap_free(&z);
+	return evals;
 }
 
 size_t
@@ -380,10 +457,17 @@ hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s, hl_opt_state *best,
 	rng r = { seed };
 	size_t evals = 0, stall = 0;
 	size_t restart = 200 + 20 * (P->nh + P->nc);
+	hl_opt_state full;
 	snap z;
+	int kind;
 
 	if (!snap_init(P, &z))
 		return 0;
+	if (hl_opt_state_init(P, &full) != HL_OK) {
+		snap_free(&z);
+		return 0;
+	}
+	z.full = &full;
 	hl_opt_state_copy(P, best, s);
 	while (evals < max) {
 		if ((evals & 255) == 0 && deadline > 0.0 &&
@@ -391,17 +475,28 @@ hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s, hl_opt_state *best,
 			*capped = 1;
 			break;
 		}
-		if (!move(P, s, &z, &r))
+		kind = move(P, s, &z, &r);
+		if (kind == 0) {
+			evals++;
 			continue;
-		apply(P, s, &z);
+		}
+		if (kind == 2) {
+			hl_opt_eval_all(P, s);
+			z.v = z.full->v;
+			z.tac = z.full->tac;
+		} else {
+			apply(P, s, &z);
+		}
 		evals++;
-		if (getenv("HL_OPT_TRACE") && evals < 60)
-			fprintf(stderr, "%zu: %g %g -> %g %g\n", evals, z.v, z.tac, s->v, s->tac);
 		if (!acceptable(s, (const hl_opt_state *)&(hl_opt_state){
 		    .v = z.v, .tac = z.tac }, &r)) {
-			restore(P, s, &z);
+			if (kind == 2)
+				hl_opt_state_copy(P, s, z.full);
+			else
+				restore(P, s, &z);
 		} else if (hl_opt_better(s, best)) {
-			evals += hl_opt_polish(P, s, max / 20 + 1);
+			evals += hl_opt_polish(P, s, 60 * count_active(P, s) +
+			    100);
 			hl_opt_state_copy(P, best, s);
 			stall = 0;
 			continue;
@@ -412,5 +507,6 @@ hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s, hl_opt_state *best,
 		}
 	}
 	snap_free(&z);
+	hl_opt_state_free(&full);
 	return evals;
 }
