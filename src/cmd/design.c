@@ -564,7 +564,14 @@ least_cost(const options *o, run_state *s, const double *util_load,
 			hl_error_clear(err);
 			st = HL_OK;
 		} else if (st == HL_OK) {
+			size_t k;
+
 			s->start = s->net;
+			/* The document must repeat byte for byte: the start's
+			 * solver times are written as 0. */
+			s->mr->seconds = 0.0;
+			for (k = 0; k < s->mr->nsub; k++)
+				s->mr->sub[k].seconds = 0.0;
 		}
 		s->net = NULL;
 	}

@@ -35,7 +35,7 @@ static const hl_xattr network_attr[] = {
 	{ "hot-utility", HL_XATTR_AMOUNT, 1, "kW", NULL },
 	{ "cold-utility", HL_XATTR_AMOUNT, 1, "kW", NULL },
 	{ "rule-penalty", HL_XATTR_AMOUNT, 1, "kW", NULL },
-	{ "energy-penalty", HL_XATTR_AMOUNT, 1, "kW", NULL },
+	{ "energy-penalty", HL_XATTR_NUMBER, 1, "kW", NULL },
 	{ "matches", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "units", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "splits", HL_XATTR_AMOUNT, 1, NULL, NULL },
