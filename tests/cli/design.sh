@@ -49,7 +49,7 @@ approaches() {
 # from 170 to 90 °C against 80 to 140 °C, H2-C1 90 kW 150 -> 90 against
 # 80 -> 125, H1-C1 90 kW 90 -> 60 against 35 -> 80, H2-C1 30 kW 90 -> 70
 # against 20 -> 35, steam on C1 from 125 °C, cooling water on H2 to 30 °C).
-check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --format xml -o "$X"
+check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --method units --format xml -o "$X"
 valid "$X"
 check_near "$(net hot-utility)" 20 1e-9 "kemp4 hot utility"
 check_near "$(net cold-utility)" 60 1e-9 "kemp4 cold utility"
@@ -70,17 +70,17 @@ check_exit 0 hl check "$X"
 check_grep "sound" "$WORK/stdout"
 
 # The same network in text and CSV.
-check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv"
+check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --method units
 check_grep "Units                       6 for 6 matches, 0 stream splits" "$WORK/stdout"
 check_grep "C1 (cold): 20.0 → E4 → 35.0 → E3 → 80.0 → E2 → 125.0 → E5 → 135.0" "$WORK/stdout"
 check_grep "screening estimates" "$WORK/stdout"
-check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --format csv -o "$WORK/n.csv"
+check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --method units --format csv -o "$WORK/n.csv"
 [ "$(wc -l <"$WORK/n.csv")" -eq 7 ] && pass || fail "CSV: not a header and 6 rows"
 check_grep "id,hot,cold,type,duty,hot_in,hot_out,cold_in,cold_out" "$WORK/n.csv"
 check_grep "E1,H1,C2,shell-and-tube,240,170,90,80,140,1,1,1,1," "$WORK/n.csv"
 
 # The file check reads is what design writes.
-check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --format xml
+check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --method units --format xml
 grep -v 'source=' "$WORK/stdout" | grep '<exchanger' >"$WORK/a"
 grep '<exchanger' "$DATA/good/kemp4-designed.xml" >"$WORK/b"
 cmp -s "$WORK/a" "$WORK/b" && pass || fail "kemp4-designed.xml is not what design writes"
@@ -111,7 +111,7 @@ check_exit 0 hl check "$X"
 
 # A stream that must split (tests/data/good/split3.csv, built by hand): C
 # splits between H1 and H2, both branches enter at 80 °C, shares sum to 1.
-check_exit 0 hl design "$DATA/good/split3.csv" --utilities "$DATA/good/split3-utilities.csv" --format xml -o "$X"
+check_exit 0 hl design "$DATA/good/split3.csv" --utilities "$DATA/good/split3-utilities.csv" --method units --format xml -o "$X"
 valid "$X"
 check_near "$(net splits)" 1 0 "split3 splits"
 check_near "$(net units)" 3 0 "split3 units"
