@@ -459,13 +459,49 @@ binding(const hl_case *c, const hl_opt_options *o, const hl_opt_problem *P,
 	}
 }
 
+/* Whether net keeps the limits of o (splits, branches, duty, area,
+ * shells): only then may it stand in for the search's result. */
+static int
+keeps_limits(const hl_opt_problem *P, const hl_network *net)
+{
+	const hl_opt_options *o = P->o;
+	size_t i, j;
+
+	for (i = 0; i < net->nunit; i++) {
+		const hl_network_unit *u = &net->unit[i];
+		int side;
+
+		if (u->duty < o->min_duty || u->area < o->min_area ||
+		    (o->max_shells > 0 && u->shells > o->max_shells))
+			return 0;
+		for (side = 0; side < 2; side++) {
+			size_t p = side == 0 ? u->hot : u->cold;
+			int stage = side == 0 ? u->hot_stage : u->cold_stage;
+			int n = 0;
+
+			if (net->party[p].utility || p >= P->c->nstream)
+				continue;
+			for (j = 0; j < net->nunit; j++)
+				n += (net->unit[j].hot == p &&
+				    net->unit[j].hot_stage == stage) ||
+				    (net->unit[j].cold == p &&
+				    net->unit[j].cold_stage == stage);
+			if ((n > 1 && P->nosplit[p]) ||
+			    (o->max_branches > 0 && n > o->max_branches))
+				return 0;
+		}
+	}
+	return 1;
+}
+
 static hl_status
 finish(const hl_case *c, const hl_opt_options *o, const hl_opt_problem *P,
        const hl_opt_state *fin, hl_opt_result *r, hl_error *err)
 {
 	hl_status st;
 
-	int sized = o->start != NULL && !isnan(o->start->total_cost);
+	int sized = o->start != NULL && !isnan(o->start->total_cost) &&
+	    keeps_limits(P, o->start);
 
 	if (fin->v > 1e-9) {
 		if (!sized)

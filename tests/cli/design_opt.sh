@@ -1,0 +1,96 @@
+#!/bin/sh
+# design_opt.sh - `heatloom design`'s least-cost search end to end: every
+# network passes `check` and the schema, each limit the engineer sets is
+# kept, a start from a file, units marked to stay, the same seed gives the
+# same document, bad options. The demo plant is invented (cases/); the
+# facts checked are the tool's own contract (doc/case-file.md, design).
+. "$TOP_SRCDIR/tests/cli/lib.sh"
+
+if [ -z "${XMLLINT:-}" ]; then
+	echo "SKIP: xmllint not found (Debian package libxml2-utils)"
+	exit 77
+fi
+
+X="$WORK/n.xml"
+Q="--effort 0.1 --quiet"
+
+valid() {
+	if "$XMLLINT" --noout --relaxng "$TOP_SRCDIR/doc/results.rng" "$1" \
+	    2>"$WORK/lint"; then
+		pass
+	else
+		fail "$1 does not match doc/results.rng"; cat "$WORK/lint" >&2
+	fi
+}
+
+net() {
+	xpath "string(/results/network/@$1)" "$X"
+}
+
+# least VALUE XPATH-OF-A-SET: every value of the set is at least VALUE.
+least() {
+	n=$(xpath "count($2[. < $1])" "$X")
+	[ "$n" = 0 ] && pass || fail "$n values of $2 below $1"
+}
+
+# The demo plant with its default search: sound, in the schema, and no
+# dearer than the fewest-units start it reports.
+check_exit 0 hl design "$CASES/demo.xml" $Q --format xml -o "$X"
+valid "$X"
+check_exit 0 hl check "$X"
+check_grep "sound" "$WORK/stdout"
+awk -v t="$(net total-cost)" -v s="$(xpath 'string(/results/least-cost/@start-cost)' "$X")" \
+	'BEGIN { exit !(t <= s * (1 + 1e-12)) }' && pass || fail "dearer than the start"
+
+# No splits anywhere; none on one stream.
+check_exit 0 hl design "$CASES/demo.xml" $Q --no-splits --format xml -o "$X"
+check_near "$(net splits)" 0 0 "--no-splits"
+check_exit 0 hl check "$X"
+check_exit 0 hl design "$CASES/demo.xml" $Q --no-split "reactor feed" --format xml -o "$X"
+check_near "$(xpath "count(/results/network/exchanger[@cold='reactor feed' and @cold-share < 1])" "$X")" 0 0 "--no-split NAME"
+check_exit 0 hl check "$X"
+
+# Smallest duty and area, most shells in series.
+check_exit 0 hl design "$CASES/demo.xml" $Q --min-duty 10 --min-area 3 --max-shells 3 --format xml -o "$X"
+least 10 "/results/network/exchanger/@duty"
+least 3 "/results/network/exchanger/@area"
+n=$(xpath "count(/results/network/exchanger[@shells > 3])" "$X")
+[ "$n" = 0 ] && pass || fail "$n units above 3 shells"
+check_exit 0 hl check "$X"
+
+# At most two branches per split.
+check_exit 0 hl design "$CASES/demo.xml" $Q --max-branches 2 --format text -o "$WORK/t.txt"
+grep -q "3 branches\|4 branches" "$WORK/t.txt" && fail "a split of more than 2 branches" || pass
+check_grep "Least-cost search" "$WORK/t.txt"
+check_grep "screening estimates" "$WORK/t.txt"
+
+# The same seed, the same document, on one thread or two.
+check_exit 0 hl design "$CASES/demo.xml" $Q --seed 7 --threads 1 --format xml -o "$WORK/a.xml"
+check_exit 0 hl design "$CASES/demo.xml" $Q --seed 7 --threads 2 --format xml -o "$WORK/b.xml"
+cmp -s "$WORK/a.xml" "$WORK/b.xml" && pass || fail "--seed 7: documents differ"
+
+# A start from a network design wrote, one unit marked to stay; and from a
+# network table (pairs and duties only).
+check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --method units --format xml -o "$WORK/start.xml"
+check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" $Q --from "$WORK/start.xml" --keep E1 --format xml -o "$X"
+check_exit 0 hl check "$X"
+h=$(xpath "string(/results/network/exchanger[@id='E1']/@hot)" "$WORK/start.xml")
+c=$(xpath "string(/results/network/exchanger[@id='E1']/@cold)" "$WORK/start.xml")
+check_near "$(xpath "count(/results/network/exchanger[@hot='$h' and @cold='$c'])" "$X")" 1 0 "kept unit $h-$c"
+awk -v t="$(net total-cost)" -v s="$(xpath 'string(/results/network/@total-cost)' "$WORK/start.xml")" \
+	'BEGIN { exit !(t <= s * (1 + 1e-12)) }' && pass || fail "dearer than --from"
+printf 'name,hot,cold,duty\nX1,H1,C2,200\nX2,H2,C1,80\n' >"$WORK/start.csv"
+check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" $Q --from "$WORK/start.csv" --keep X2 --format xml -o "$X"
+check_exit 0 hl check "$X"
+check_near "$(xpath "count(/results/network/exchanger[@hot='H2' and @cold='C1'])" "$X")" 1 0 "kept X2"
+
+# Bad options: usage errors, nothing written.
+check_exit 1 hl design "$CASES/demo.xml" --method fastest
+check_exit 1 hl design "$CASES/demo.xml" --keep E1
+check_exit 1 hl design "$CASES/demo.xml" --no-split nosuch -o "$WORK/none.txt"
+[ -e "$WORK/none.txt" ] && fail "a failed design wrote its output" || pass
+check_exit 1 hl design "$CASES/demo.xml" --max-shells 0
+check_exit 1 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --from "$WORK/start.csv" --keep nosuch
+printf 'name,hot,cold,duty\nX1,H1,nosuch,200\n' >"$WORK/bad.csv"
+check_exit 2 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --from "$WORK/bad.csv"
+finish

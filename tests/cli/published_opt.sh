@@ -1,0 +1,53 @@
+#!/bin/sh
+# published_opt.sh - the least-cost search on four published benchmarks
+# (tests/data/published: the data as tabulated by Roetzel, W., Luo, X. &
+# Chen, D. (2020), Design and Operation of Heat Exchangers and their
+# Networks, Academic Press, ch. 6, which also tabulates the best total annual
+# costs (TAC) later papers reported; each case file names its original
+# paper). The TACs below are those records; the tolerances are what this
+# search reaches at its defaults (doc/performance.md), not the 1 % goal.
+. "$TOP_SRCDIR/tests/cli/lib.sh"
+
+if [ -z "${XMLLINT:-}" ]; then
+	echo "SKIP: xmllint not found (Debian package libxml2-utils)"
+	exit 77
+fi
+
+P="$TOP_SRCDIR/tests/data/published"
+X="$WORK/n.xml"
+
+# ratio CASE BEST MAX: design CASE, check it, its TAC at most MAX × BEST.
+ratio() {
+	check_exit 0 hl design "$P/$1.xml" --quiet --format xml -o "$X"
+	check_exit 0 hl check "$X"
+	t=$(xpath "string(/results/network/@total-cost)" "$X")
+	awk -v t="$t" -v b="$2" -v m="$3" 'BEGIN { exit !(t <= m * b) }' \
+		&& pass || fail "$1: TAC $t above $3 × $2"
+	echo "$1: TAC $t, $(awk -v t="$t" -v b="$2" 'BEGIN { printf "%.4f", t / b }') of the best published"
+}
+
+# Ciric & Floudas (1991), Comput. Chem. Eng. 15, 385: 105 426 $/yr (Huang &
+# Karimi 2012, 2013, as tabulated by Roetzel, Luo & Chen 2020).
+ratio cf7 105426 1.02
+# Linnhoff & Ahmad (1990), Comput. Chem. Eng. 14, 729, aromatics plant:
+# 2 892 924 $/yr, Pettersson (2005) revised (Roetzel, Luo & Chen 2020).
+ratio aromatics9 2892924 1.02
+# Björk & Pettersson (2003), 15 streams: 1 497 252 $/yr, Pavão, Costa &
+# Ravagnani (2017) revised (Roetzel, Luo & Chen 2020).
+ratio bp15 1497252 1.06
+
+# Yee & Grossmann (1990), Comput. Chem. Eng. 14, 1165, 2 hot 2 cold: the
+# source prices heaters at 1200·A^0.6 and other units at 1000·A^0.6; a case
+# has one cost law, so the search runs at 1000·A^0.6 and its network is
+# then repriced here with the heaters at 1200·A^0.6 (their cost × 1.2),
+# which is the source's TAC of that network: against 77 964 $/yr (with
+# splits, Roetzel, Luo & Chen 2020).
+check_exit 0 hl design "$P/yg4.xml" --quiet --format xml -o "$X"
+check_exit 0 hl check "$X"
+t=$(xpath "string(/results/network/@total-cost)" "$X")
+h=$(xpath "sum(/results/network/exchanger[@hot='HU']/@cost)" "$X")
+t12=$(awk -v t="$t" -v h="$h" 'BEGIN { printf "%.10g", t + 0.2 * h }')
+awk -v t="$t12" 'BEGIN { exit !(t <= 1.03 * 77964) }' && pass \
+	|| fail "yg4: TAC $t12 (heaters at 1200·A^0.6) above 1.03 × 77964"
+echo "yg4: TAC $t12 with heaters at 1200·A^0.6, $(awk -v t="$t12" 'BEGIN { printf "%.4f", t / 77964 }') of the best published"
+finish
