@@ -504,37 +504,50 @@ progress(void *ctx, double done, double best)
 	fflush(stderr);
 }
 
+/* The case's <design> limits, each replaced by its option when given. */
 static hl_status
 opt_options(const options *o, run_state *s, hl_error *err)
 {
 	hl_opt_options *x = &s->oo;
+	const hl_settings *set = &s->c->set;
 	size_t i;
 
 	hl_opt_options_default(x);
 	x->seed = (unsigned long)o->seed;
 	x->threads = (int)o->threads;
 	x->effort = o->effort;
-	x->no_splits = o->no_splits;
-	x->max_branches = (int)o->branches;
-	x->min_duty = o->min_duty;
-	x->min_area = o->min_area;
-	x->max_shells = (int)o->shells;
+	x->no_splits = o->no_splits || set->no_splits;
+	x->max_branches = o->branches > 0 ? (int)o->branches :
+	    set->max_branches;
+	x->min_duty = o->min_duty > 0 ? o->min_duty : set->min_duty;
+	x->min_area = o->min_area > 0 ? o->min_area : set->min_area;
+	x->max_shells = o->shells > 0 ? (int)o->shells : set->max_shells;
 	if (!isnan(o->time_limit))
 		x->time_limit = o->time_limit;
-	if (o->nnosplit > 0) {
+	if (o->nnosplit + s->c->nnosplit > 0) {
 		s->nosplit = calloc(s->c->nstream + 1, 1);
 		if (s->nosplit == NULL)
 			return hl_error_nomem(err);
-		for (i = 0; i < o->nnosplit; i++) {
-			long k = hl_case_find_stream(s->c, o->nosplit[i]);
-
-			if (k < 0)
-				return hl_error_set(err, HL_EUSAGE, NULL, 0,
-				    "design: --no-split names '%s', which is "
-				    "no stream of the case", o->nosplit[i]);
-			s->nosplit[k] = 1;
-		}
 		x->no_split = s->nosplit;
+	}
+	for (i = 0; i < s->c->nnosplit; i++) {
+		long k = hl_case_find_stream(s->c, s->c->nosplit[i]);
+
+		if (k < 0)
+			return hl_error_set(err, HL_EINPUT, s->c->source,
+			    s->c->nosplit_line[i], "<no-split> names '%s', "
+			    "which is no stream of the case",
+			    s->c->nosplit[i]);
+		s->nosplit[k] = 1;
+	}
+	for (i = 0; i < o->nnosplit; i++) {
+		long k = hl_case_find_stream(s->c, o->nosplit[i]);
+
+		if (k < 0)
+			return hl_error_set(err, HL_EUSAGE, NULL, 0, "design: "
+			    "--no-split names '%s', which is no stream of the "
+			    "case", o->nosplit[i]);
+		s->nosplit[k] = 1;
 	}
 	if (!o->c.quiet && isatty(STDERR_FILENO)) {
 		x->progress = progress;

@@ -84,6 +84,18 @@ check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-util
 check_exit 0 hl check "$X"
 check_near "$(xpath "count(/results/network/exchanger[@hot='H2' and @cold='C1'])" "$X")" 1 0 "kept X2"
 
+# The same limits as case settings (<settings><design>, doc/case-file.md).
+cp "$CASES"/demo-streams.csv "$CASES"/demo-utilities.csv "$WORK/"
+sed 's|<cost a="10000" b="800" c="0.8"/>|<cost a="10000" b="800" c="0.8"/><design min-duty="10" max-branches="2"><no-split stream="reboiler"/></design>|' \
+	"$CASES/demo.xml" >"$WORK/lim.xml"
+check_exit 0 hl design "$WORK/lim.xml" $Q --format xml -o "$X"
+least 10 "/results/network/exchanger/@duty"
+check_near "$(xpath "count(/results/network/exchanger[@cold='reboiler' and @cold-share < 1])" "$X")" 0 0 "<no-split>"
+check_exit 0 hl check "$X"
+sed 's|stream="reboiler"|stream="nosuch"|' "$WORK/lim.xml" >"$WORK/bad.xml"
+check_exit 2 hl design "$WORK/bad.xml"
+grep -q "bad.xml:[0-9]*: <no-split> names 'nosuch'" "$WORK/stderr" && pass || fail "no file:line for <no-split>"
+
 # Bad options: usage errors, nothing written.
 check_exit 1 hl design "$CASES/demo.xml" --method fastest
 check_exit 1 hl design "$CASES/demo.xml" --keep E1

@@ -98,6 +98,10 @@ hl_case_free(hl_case *c)
 	free(c->util);
 	free(c->rule);
 	free(c->unit);
+	for (i = 0; i < c->nnosplit; i++)
+		free(c->nosplit[i]);
+	free(c->nosplit);
+	free(c->nosplit_line);
 	free(c->source);
 	free(c->set.currency);
 	free(c);

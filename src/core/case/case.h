@@ -122,6 +122,12 @@ typedef struct {
 	hl_exchanger_type exchanger;
 	hl_area_policy area_policy; /* HL_AREAS_ALLOW */
 	double area_penalty; /* units per cross-area match, 1 */
+	/* Limits of the least-cost design (0: none): */
+	int no_splits;       /* 1: no stream splits */
+	int max_branches;    /* most branches per split */
+	int max_shells;      /* most shells in series per unit */
+	double min_duty;     /* kW, smallest unit */
+	double min_area;     /* m², smallest unit */
 	char *currency;      /* label only, "EUR" by default */
 } hl_settings;
 
@@ -135,6 +141,10 @@ typedef struct {
 	hl_match_rule *rule;
 	size_t nunit, unit_cap;
 	hl_unit *unit;           /* existing network, empty when none */
+	size_t nnosplit;
+	char **nosplit;          /* streams the design must not split (names
+				    as given; resolved by their user) */
+	long *nosplit_line;
 	char *source;        /* the file the case came from */
 } hl_case;
 

@@ -243,6 +243,82 @@ read_plant_areas(walk *w, xmlNodePtr n)
 	return HL_OK;
 }
 
+/* The most shells a case may allow (exchanger.h's bound). */
+#define HL_EXCHANGER_MAX_SHELLS_CASE 50
+
+static hl_status
+add_nosplit(walk *w, xmlNodePtr n)
+{
+	static const hl_xattr attrs[] = {
+		{ "stream", HL_XATTR_LABEL, 1, NULL, NULL },
+	};
+	hl_case *c = w->c;
+	char **a;
+	long *l;
+	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
+
+	if (st != HL_OK)
+		return st;
+	a = realloc(c->nosplit, (c->nnosplit + 1) * sizeof *a);
+	if (a == NULL)
+		return hl_error_nomem(w->err);
+	c->nosplit = a;
+	l = realloc(c->nosplit_line, (c->nnosplit + 1) * sizeof *l);
+	if (l == NULL)
+		return hl_error_nomem(w->err);
+	c->nosplit_line = l;
+	if ((a[c->nnosplit] = strdup(hl_xattr_text(n, "stream"))) == NULL)
+		return hl_error_nomem(w->err);
+	l[c->nnosplit++] = hl_xattr_line(n);
+	return HL_OK;
+}
+
+/* <design>: the limits of the least-cost design, <no-split> children. */
+static hl_status
+read_design(walk *w, xmlNodePtr n)
+{
+	static const hl_xattr attrs[] = {
+		{ "no-splits", HL_XATTR_CHOICE, 0, NULL, "yes|no" },
+		{ "max-branches", HL_XATTR_COUNT, 0, NULL, NULL },
+		{ "max-shells", HL_XATTR_COUNT, 0, NULL, NULL },
+		{ "min-duty", HL_XATTR_AMOUNT, 0, "kW", NULL },
+		{ "min-area", HL_XATTR_AMOUNT, 0, "m²", NULL },
+	};
+	hl_settings *s = &w->c->set;
+	const char *ns;
+	xmlNodePtr ch;
+	hl_status st = check(w, n, attrs, NELEM(attrs));
+
+	if (st == HL_OK)
+		st = check_text(w, n);
+	if (st != HL_OK)
+		return st;
+	ns = hl_xattr_text(n, "no-splits");
+	s->no_splits = ns != NULL && strcmp(ns, "yes") == 0;
+	if (!isnan(num(n, "max-branches")))
+		s->max_branches = (int)num(n, "max-branches");
+	if (!isnan(num(n, "max-shells")))
+		s->max_shells = (int)num(n, "max-shells");
+	if (!isnan(num(n, "min-duty")))
+		s->min_duty = num(n, "min-duty");
+	if (!isnan(num(n, "min-area")))
+		s->min_area = num(n, "min-area");
+	if (s->max_branches == 1)
+		return fail(w, n, HL_EINPUT, "max-branches must be at least 2 "
+			"(for no splits give no-splits=\"yes\")");
+	if (s->max_shells > HL_EXCHANGER_MAX_SHELLS_CASE)
+		return fail(w, n, HL_EINPUT, "max-shells must be at most %d",
+			HL_EXCHANGER_MAX_SHELLS_CASE);
+	for (ch = n->children; st == HL_OK && ch != NULL; ch = ch->next) {
+		if (ch->type != XML_ELEMENT_NODE)
+			continue;
+		if (!is_elem(ch, "no-split"))
+			return unknown_child(w, n, ch, "<no-split stream=...>");
+		st = add_nosplit(w, ch);
+	}
+	return st;
+}
+
 static hl_status
 settings_values(walk *w, xmlNodePtr n)
 {
@@ -281,7 +357,7 @@ static hl_status
 read_settings(walk *w, xmlNodePtr n)
 {
 	xmlNodePtr ch;
-	int seen_cost = 0, seen_areas = 0;
+	int seen_cost = 0, seen_areas = 0, seen_design = 0;
 	hl_status st = check(w, n, settings_attrs, NELEM(settings_attrs));
 
 	if (st == HL_OK)
@@ -297,15 +373,18 @@ read_settings(walk *w, xmlNodePtr n)
 			seen = &seen_cost;
 		else if (is_elem(ch, "plant-areas"))
 			seen = &seen_areas;
+		else if (is_elem(ch, "design"))
+			seen = &seen_design;
 		else
-			return unknown_child(w, n, ch,
-				"<cost> and <plant-areas>, besides attributes");
+			return unknown_child(w, n, ch, "<cost>, <plant-areas> "
+				"and <design>, besides attributes");
 		if (*seen)
 			return fail(w, ch, HL_EINPUT, "a second <%s> in "
 				"<settings>; give it once", name_of(ch));
 		*seen = 1;
 		st = seen == &seen_cost ? read_cost(w, ch) :
-					  read_plant_areas(w, ch);
+		    seen == &seen_design ? read_design(w, ch) :
+		    read_plant_areas(w, ch);
 	}
 	return st;
 }
