@@ -238,7 +238,7 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 				hl_opt_eval_all(P, &j->s);
 				if (i == 1)
 					r->evals += hl_opt_greedy(P, &j->s,
-					    total / 10);
+					    total / 5);
 			}
 			if (o->start != NULL && o->keep != NULL && i != 0)
 				memcpy(j->s.keep, job[0].s.keep,

@@ -27,6 +27,8 @@ typedef struct {
 	double crf;
 	double qscale;            /* kW: a typical stream duty */
 	int rules;                /* some pair has require or maxduty */
+	double t_top, t_bot;      /* °C: hottest hot supply, coldest cold
+				     supply (stages spread between them) */
 } hl_opt_problem;
 
 #define HL_OPT_CELL(P, k, a, b) (((k) * (P)->nh + (a)) * (P)->nc + (b))

@@ -151,6 +151,13 @@ tables(hl_opt_problem *P, hl_error *err)
 		P->qscale += hl_stream_duty(&c->stream[i]) / (double)np;
 	}
 	P->nu = c->nutil;
+	P->t_top = -HUGE_VAL;
+	P->t_bot = HUGE_VAL;
+	for (i = 0; i < np; i++)
+		if (c->stream[i].kind == HL_HOT)
+			P->t_top = fmax(P->t_top, hl_stream_supply(&c->stream[i]));
+		else
+			P->t_bot = fmin(P->t_bot, hl_stream_supply(&c->stream[i]));
 	P->allow = calloc(P->nh * P->nc + 1, 1);
 	P->require = calloc(P->nh * P->nc + 1, 1);
 	P->maxduty = calloc(P->nh * P->nc + 1, sizeof *P->maxduty);

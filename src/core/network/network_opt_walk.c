@@ -253,6 +253,120 @@ any_active(const hl_opt_problem *P, const hl_opt_state *s, rng *r)
 	return 0;
 }
 
+/* The last stage with a unit on hot stream a (-1: none) and the first on
+ * cold stream b (S: none): a unit between them takes heat from a's cold end
+ * to b's hot end, where the two streams' utilities work. */
+static long
+last_hot(const hl_opt_problem *P, const hl_opt_state *s, size_t a)
+{
+	size_t k, b;
+
+	for (k = P->S; k-- > 0;)
+		for (b = 0; b < P->nc; b++)
+			if (s->q[HL_OPT_CELL(P, k, a, b)] > HL_OPT_QEPS)
+				return (long)k;
+	return -1;
+}
+
+static long
+first_cold(const hl_opt_problem *P, const hl_opt_state *s, size_t b)
+{
+	size_t k, a;
+
+	for (k = 0; k < P->S; k++)
+		for (a = 0; a < P->nh; a++)
+			if (s->q[HL_OPT_CELL(P, k, a, b)] > HL_OPT_QEPS)
+				return (long)k;
+	return (long)P->S;
+}
+
+/* The most a unit between hot stream a's cold end and cold stream b's hot
+ * end (after all their units) can exchange at the required approach, at
+ * most what their utilities still carry. */
+static double
+end_load(const hl_opt_problem *P, const hl_opt_state *s, size_t a, size_t b)
+{
+	const hl_stream *hs = &P->c->stream[P->hot[a]];
+	const hl_stream *cs = &P->c->stream[P->cold[b]];
+	double th = s->th[a * (P->S + 1) + P->S], tc = s->tc[b * (P->S + 1)];
+	double e = hl_network_required(&P->base->set,
+	    &P->base->party[P->hot[a]], &P->base->party[P->cold[b]]);
+	double qh, qc;
+
+	if (s->hend[a] <= 0.0 || s->cend[b] <= 0.0 || th - tc <= e)
+		return 0.0;
+	qh = hl_stream_heat_at(hs, fmax(tc + e, hl_stream_target(hs))) -
+	    hl_stream_heat_at(hs, th);
+	qc = hl_stream_heat_at(cs, fmin(th - e, hl_stream_target(cs))) -
+	    hl_stream_heat_at(cs, tc);
+	return fmax(0.0, fmin(fmin(qh, qc), fmin(s->hend[a], s->cend[b])));
+}
+
+/* The stage whose place in the temperature span matches t: stages spread
+ * evenly from the hottest supply to the coldest, so that units placed by
+ * their temperatures fall into one order on every stream. */
+static long
+temp_stage(const hl_opt_problem *P, double t)
+{
+	double x = (P->t_top - t) / fmax(P->t_top - P->t_bot, 1e-9);
+	long k = (long)floor(x * (double)P->S);
+
+	return k < 0 ? 0 : k >= (long)P->S ? (long)P->S - 1 : k;
+}
+
+/* The first stage with a unit on hot stream a (S: none). */
+static long
+first_hot(const hl_opt_problem *P, const hl_opt_state *s, size_t a)
+{
+	size_t k, b;
+
+	for (k = 0; k < P->S; k++)
+		for (b = 0; b < P->nc; b++)
+			if (s->q[HL_OPT_CELL(P, k, a, b)] > HL_OPT_QEPS)
+				return (long)k;
+	return (long)P->S;
+}
+
+/* The most a unit at hot stream a's hot end (before all its units) and cold
+ * stream b's hot end can exchange at the required approach, at most what
+ * both streams' utilities carry (a's other units then work lower). */
+static double
+top_load(const hl_opt_problem *P, const hl_opt_state *s, size_t a, size_t b)
+{
+	const hl_stream *hs = &P->c->stream[P->hot[a]];
+	const hl_stream *cs = &P->c->stream[P->cold[b]];
+	double th = hl_stream_supply(hs), tc = s->tc[b * (P->S + 1)];
+	double e = hl_network_required(&P->base->set,
+	    &P->base->party[P->hot[a]], &P->base->party[P->cold[b]]);
+	double qh, qc;
+
+	if (s->hend[a] <= 0.0 || s->cend[b] <= 0.0 || th - tc <= e)
+		return 0.0;
+	qh = hl_stream_heat_at(hs, fmax(tc + e, hl_stream_target(hs)));
+	qc = hl_stream_heat_at(cs, fmin(th - e, hl_stream_target(cs))) -
+	    hl_stream_heat_at(cs, tc);
+	return fmax(0.0, fmin(fmin(qh, qc), fmin(s->hend[a], s->cend[b])));
+}
+
+/* A stage for a new unit of (a, b): by the temperature where a's cold end
+ * is, kept between a's last and b's first unit when there is room;
+ * sometimes anywhere in that room, or at random. */
+static size_t
+new_stage(const hl_opt_problem *P, const hl_opt_state *s, size_t a, size_t b,
+	  double u)
+{
+	long lo = last_hot(P, s, a) + 1, hi = first_cold(P, s, b) - 1;
+	long k = temp_stage(P, s->th[a * (P->S + 1) + P->S]);
+
+	if (u < 0.2 || lo > hi)
+		return u < 0.1 ? (size_t)(10.0 * u * (double)P->S) % P->S :
+		    (size_t)k;
+	if (u < 0.6)
+		return (size_t)(k < lo ? lo : k > hi ? hi : k);
+	return (size_t)lo + (size_t)(u * (double)(hi - lo + 1)) %
+	    (size_t)(hi - lo + 1);
+}
+
 /* Set cell i to q (0 removes the unit, unless it must stay). */
 static void
 set_load(hl_opt_state *s, size_t i, double q)
@@ -291,15 +405,14 @@ move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
 		return 2;
 	}
 	if (n == 0 || u < 0.2) {          /* a new unit */
-		size_t a = pick(r, P->nh), b = pick(r, P->nc);
-		size_t k = pick(r, P->S);
+		size_t a = pick(r, P->nh), b = pick(r, P->nc), k;
 
 		if (!P->allow[a * P->nc + b])
 			return 0;
+		k = new_stage(P, s, a, b, unif(r));
 		i = HL_OPT_CELL(P, k, a, b);
+		he = end_load(P, s, a, b);
 		begin(P, s, z, i);
-		ends_of(P, s, i, &he, &ce);
-		he = fmin(he, ce);
 		set_load(s, i, s->q[i] + (he > HL_OPT_QEPS ? he *
 		    sqrt(unif(r)) : 0.1 * P->qscale * unif(r)));
 		return 1;
@@ -358,14 +471,15 @@ try_load(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t i,
 	return 0;
 }
 
-/* Greedy construction: add the one unit (pair, one of three stages, all or
- * half of what the two streams' ends still take) that lowers the cost
- * most, until none does. */
+/* Greedy construction: add the one unit (pair; the stage of the hot
+ * stream's cold-end temperature, or that stage moved between the hot
+ * stream's last and the cold stream's first unit; all that the two ends can
+ * exchange) that lowers the cost most, until none does. */
 size_t
 hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max)
 {
 	size_t evals = 0, a, b, f, t;
-	size_t ks[3] = { 0, P->S / 2, P->S - 1 };
+	size_t ks[3];
 	snap z;
 
 	if (!snap_init(P, &z))
@@ -376,15 +490,36 @@ hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max)
 
 		for (a = 0; a < P->nh; a++)
 			for (b = 0; b < P->nc; b++) {
-				double m = fmin(s->hend[a], s->cend[b]);
+				double m = end_load(P, s, a, b);
+				double mt = top_load(P, s, a, b);
+				long lo, hi, ft;
 
-				if (!P->allow[a * P->nc + b] || m <= HL_OPT_QEPS)
+				if (!P->allow[a * P->nc + b] || (m <= HL_OPT_QEPS &&
+				    mt <= HL_OPT_QEPS))
 					continue;
+				ft = first_hot(P, s, a);
+				if (first_cold(P, s, b) < ft)
+					ft = first_cold(P, s, b);
+				ks[2] = (size_t)(ft > 0 ? ft - 1 : 0);
+				lo = last_hot(P, s, a) + 1;
+				hi = first_cold(P, s, b) - 1;
+				ks[0] = (size_t)temp_stage(P,
+				    s->th[a * (P->S + 1) + P->S]);
+				if (lo > hi)
+					lo = hi = (long)ks[0];
+				ks[1] = (size_t)(ks[0] < (size_t)lo ? lo :
+				    ks[0] > (size_t)hi ? hi : (long)ks[0]);
 				for (t = 0; t < 3; t++)
-					for (f = 1; f <= 2; f++) {
-						size_t i = HL_OPT_CELL(P, ks[t], a, b);
-						double q = s->q[i] + m / (double)f;
+					for (f = 0; f < 2; f++) {
+						size_t i = HL_OPT_CELL(P, ks[t], a,
+						    b);
+						double w = t == 2 ? mt : m;
+						double q = s->q[i] + (f == 0 ? w :
+						    0.5 * w);
 
+						if ((t == 1 && ks[1] == ks[0]) ||
+						    w <= HL_OPT_QEPS)
+							continue;
 						begin(P, s, &z, i);
 						set_load(s, i, q);
 						apply(P, s, &z);
