@@ -236,6 +236,7 @@ matches_tables() {
 			"$3" "$4" "$5" "$6" "$7" "$9" "$8" "${10}" "${11}"
 	done
 	echo
+	sh "$src/tests/bench/opt.sh" "$build" "$src"
 	echo "Whole run: $(($(date +%s) - started)) s. Reproduce with \`make bench\` (tests/bench/run.sh);"
 	echo "figures vary with the machine and its load."
 } | tee "$out"
