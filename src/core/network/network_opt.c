@@ -232,13 +232,12 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 			if (i == 0 && o->start != NULL)
 				st = hl_opt_from_network(P, o->start, o->keep,
 				    &j->s);
-			else if (i >= 2)
+			else if (i == 3)
 				random_start(P, &j->s, j->seed);
 			else {
 				hl_opt_eval_all(P, &j->s);
-				if (i == 1)
-					r->evals += hl_opt_greedy(P, &j->s,
-					    total / 5);
+				r->evals += hl_opt_greedy(P, &j->s, total / 8,
+				    i == 1 ? 2.0 : 1.0);
 			}
 			if (o->start != NULL && o->keep != NULL && i != 0)
 				memcpy(j->s.keep, job[0].s.keep,

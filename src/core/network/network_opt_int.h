@@ -81,8 +81,10 @@ int hl_opt_better(const hl_opt_state *x, const hl_opt_state *y);
 size_t hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s,
 		   hl_opt_state *best, uint64_t seed, size_t evals,
 		   double deadline, int *capped);
-/* Greedy construction from s; returns evaluations. */
-size_t hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max);
+/* Greedy construction from s, candidates scored by the cost they save over
+ * their mean approach to the power `power`; returns evaluations. */
+size_t hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max,
+		     double power);
 /* Coordinate search on the loads of s's units; returns evaluations. */
 size_t hl_opt_polish(const hl_opt_problem *P, hl_opt_state *s,
 		     size_t evals);

@@ -471,12 +471,29 @@ try_load(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t i,
 	return 0;
 }
 
-/* Greedy construction: add the one unit (pair; the stage of the hot
- * stream's cold-end temperature, or that stage moved between the hot
- * stream's last and the cold stream's first unit; all that the two ends can
- * exchange) that lowers the cost most, until none does. */
+/* What a candidate of the greedy construction is worth: the cost it saves
+ * per kelvin of mean approach to the power `power`, so that heat goes where it is needed at the
+ * temperature it has (a tight match leaves the hotter heat for hotter
+ * needs). */
+static double
+score(const hl_opt_problem *P, const hl_opt_state *s, size_t i, double before,
+      double power)
+{
+	size_t k = i / (P->nh * P->nc), a = (i / P->nc) % P->nh, b = i % P->nc;
+	const double *th = &s->th[a * (P->S + 1)], *tc = &s->tc[b * (P->S + 1)];
+	double dm = 0.5 * ((th[k] - tc[k]) + (th[k + 1] - tc[k + 1]));
+
+	return (before - s->tac) / pow(fmax(dm, 1e-3), power);
+}
+
+/* Greedy construction: of the units that lower the cost (pair; the stage
+ * of the hot stream's cold-end temperature, or that stage moved between the
+ * hot stream's last and the cold stream's first unit, or before both
+ * streams' units; all or half of what the two ends can exchange), add the
+ * one of best score, until none lowers the cost. */
 size_t
-hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max)
+hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max,
+	      double power)
 {
 	size_t evals = 0, a, b, f, t;
 	size_t ks[3];
@@ -486,7 +503,7 @@ hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max)
 		return 0;
 	while (evals < max) {
 		size_t bi = 0;
-		double bq = 0.0, bt = s->tac, bv = s->v;
+		double bq = 0.0, bs = 0.0, bv = s->v, sc;
 
 		for (a = 0; a < P->nh; a++)
 			for (b = 0; b < P->nc; b++) {
@@ -524,12 +541,13 @@ hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max)
 						set_load(s, i, q);
 						apply(P, s, &z);
 						evals++;
+						sc = score(P, s, i, z.tac, power);
 						if (s->v < bv - 1e-9 || (s->v <= bv +
-						    1e-9 && s->tac < bt - 1e-9 *
-						    fabs(bt))) {
+						    1e-9 && s->tac < z.tac - 1e-9 *
+						    fabs(z.tac) && sc > bs)) {
 							bi = i + 1;
 							bq = q;
-							bt = s->tac;
+							bs = sc;
 							bv = s->v;
 						}
 						restore(P, s, &z);
