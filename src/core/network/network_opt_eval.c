@@ -237,14 +237,138 @@ hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in, double d,
 	return *which < 0 ? 0.0 : cost;
 }
 
+/* Utilities of the other kind that party p may use, cheapest first (ties
+ * in case order); returns their count. */
+static size_t
+by_price(const hl_opt_problem *P, size_t p, size_t *ord)
+{
+	const hl_network *net = P->base;
+	size_t j, k, n = 0;
+
+	for (j = 0; j < P->nu; j++) {
+		const hl_network_party *ut = &net->party[P->c->nstream + j];
+		double pj = isnan(ut->price) ? 0.0 : ut->price;
+
+		if (ut->kind == net->party[p].kind || !P->uallow[p * P->nu + j])
+			continue;
+		for (k = n; k > 0; k--) {
+			const hl_network_party *w =
+			    &net->party[P->c->nstream + ord[k - 1]];
+
+			if ((isnan(w->price) ? 0.0 : w->price) <= pj)
+				break;
+			ord[k] = ord[k - 1];
+		}
+		ord[k] = j;
+		n++;
+	}
+	return n;
+}
+
+/* A stream end served by several utility levels in series, cheapest first,
+ * each taking the stream as far as its temperature allows at the required
+ * approach (the cheaper level where it can, the dearer only where it
+ * must). Fills out[0..*n) when out is non-NULL; returns the annual cost. */
+static double
+cascade(const hl_opt_problem *P, size_t p, double t_in, double d,
+	hl_network_unit *out, size_t *n, double *viol)
+{
+	const hl_network *net = P->base;
+	const hl_network_party *sp = &net->party[p];
+	const hl_stream *st = &P->c->stream[p];
+	int hot = sp->kind == HL_HOT;
+	size_t ord[64], m, i, cnt = 0;
+	double t = t_in, left = d, cost = 0.0, v = 0.0;
+
+	m = P->nu <= 64 ? by_price(P, p, ord) : 0;
+	for (i = 0; i < m && left > 1e-9 * fmax(1.0, d); i++) {
+		size_t up = P->c->nstream + ord[i];
+		const hl_network_party *ut = &net->party[up];
+		double req = hl_network_required(&net->set, hot ? sp : ut,
+		    hot ? ut : sp);
+		double tend, uout = ut->target, q;
+		hl_network_unit u;
+
+		tend = hot ? fmax(sp->target, ut->supply + req) :
+		    fmin(sp->target, ut->supply - req);
+		if (hot ? tend >= t - 1e-9 : tend <= t + 1e-9)
+			continue;
+		if (hot ? t - uout < req : uout - t < req) {
+			if (ut->supply == ut->target)
+				continue;
+			uout = hot ? t - req : t + req;
+			if (hot ? uout <= ut->supply + 1e-6 :
+			    uout >= ut->supply - 1e-6)
+				continue;
+		}
+		q = hl_stream_heat_at(st, tend) - hl_stream_heat_at(st, t);
+		if (q >= left - 1e-9 * fmax(1.0, d)) {
+			q = left;
+			tend = sp->target;
+		}
+		memset(&u, 0, sizeof u);
+		u.duty = q;
+		u.hot = hot ? p : up;
+		u.cold = hot ? up : p;
+		u.hot_in = hot ? t : ut->supply;
+		u.hot_out = hot ? tend : uout;
+		u.cold_in = hot ? ut->supply : t;
+		u.cold_out = hot ? uout : tend;
+		v += size_unit(P, &u);
+		cost += P->crf * u.cost + (isnan(ut->price) ? 0.0 :
+		    ut->price) * q * net->set.hours / 1000.0;
+		if (out != NULL)
+			out[cnt] = u;
+		cnt++;
+		t = tend;
+		left -= q;
+	}
+	if (left > 1e-9 * fmax(1.0, d))
+		v += left / P->qscale + 1.0;
+	*n = cnt;
+	*viol = v;
+	return cost;
+}
+
+double
+hl_opt_end(const hl_opt_problem *P, size_t p, double t_in, double d,
+	   hl_network_unit *out, size_t *n, long *which, double *viol)
+{
+	hl_network_unit one;
+	double c1, c2, v2;
+	size_t n2 = 0;
+
+	c1 = hl_opt_end_unit(P, p, t_in, d, out != NULL ? &one : NULL, which,
+	    viol);
+	*n = *which >= 0;
+	if (P->has_max_load)
+		goto single;
+	c2 = cascade(P, p, t_in, d, NULL, &n2, &v2);
+	if (n2 < 2 || v2 > *viol || (v2 == *viol && c2 >= c1))
+		goto single;
+	*which = -2;
+	*viol = v2;
+	if (out != NULL)
+		cascade(P, p, t_in, d, out, n, &v2);
+	else
+		*n = n2;
+	return c2;
+single:
+	if (out != NULL && *n > 0)
+		out[0] = one;
+	return c1;
+}
+
 static void
 hot_end(const hl_opt_problem *P, hl_opt_state *s, size_t a)
 {
 	s->hecost[a] = s->heviol[a] = 0.0;
 	s->hutil[a] = -1;
+	size_t n;
+
 	if (s->hend[a] > 0.0)
-		s->hecost[a] = hl_opt_end_unit(P, P->hot[a],
-		    s->th[a * (P->S + 1) + P->S], s->hend[a], NULL,
+		s->hecost[a] = hl_opt_end(P, P->hot[a],
+		    s->th[a * (P->S + 1) + P->S], s->hend[a], NULL, &n,
 		    &s->hutil[a], &s->heviol[a]);
 }
 
@@ -253,10 +377,12 @@ cold_end(const hl_opt_problem *P, hl_opt_state *s, size_t b)
 {
 	s->cecost[b] = s->ceviol[b] = 0.0;
 	s->cutil[b] = -1;
+	size_t n;
+
 	if (s->cend[b] > 0.0)
-		s->cecost[b] = hl_opt_end_unit(P, P->cold[b],
-		    s->tc[b * (P->S + 1)], s->cend[b], NULL, &s->cutil[b],
-		    &s->ceviol[b]);
+		s->cecost[b] = hl_opt_end(P, P->cold[b],
+		    s->tc[b * (P->S + 1)], s->cend[b], NULL, &n,
+		    &s->cutil[b], &s->ceviol[b]);
 }
 
 /* Limits that involve several streams: match rules, utility capacities,

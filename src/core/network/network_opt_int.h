@@ -27,6 +27,8 @@ typedef struct {
 	double crf;
 	double qscale;            /* kW: a typical stream duty */
 	int rules;                /* some pair has require or maxduty */
+	int has_max_load;         /* some utility has a capacity: one
+				     utility per stream end */
 	double t_top, t_bot;      /* °C: hottest hot supply, coldest cold
 				     supply (stages spread between them) */
 } hl_opt_problem;
@@ -95,6 +97,12 @@ double hl_opt_now(void);
  * to its target, duty d, on the utilities p may use. Fills *best (when
  * non-NULL) and *which (-1: none can) and *viol (limits missed); returns
  * the annual cost (capital and energy). */
+/* A stream end at least cost: one utility unit (hl_opt_end_unit) or
+ * several levels in series, cheapest first; *which -2 for the latter.
+ * out (NULL, or room for one unit per utility) gets the units, *n their
+ * count. */
+double hl_opt_end(const hl_opt_problem *P, size_t p, double t_in, double d,
+		  hl_network_unit *out, size_t *n, long *which, double *viol);
 double hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in,
 		       double d, hl_network_unit *best, long *which,
 		       double *viol);

@@ -151,6 +151,9 @@ tables(hl_opt_problem *P, hl_error *err)
 		P->qscale += hl_stream_duty(&c->stream[i]) / (double)np;
 	}
 	P->nu = c->nutil;
+	for (j = 0; j < P->nu; j++)
+		if (!isnan(c->util[j].max_load))
+			P->has_max_load = 1;
 	P->t_top = -HUGE_VAL;
 	P->t_bot = HUGE_VAL;
 	for (i = 0; i < np; i++)

@@ -168,6 +168,36 @@ process_units(const hl_opt_problem *P, const hl_opt_state *s,
 	return st;
 }
 
+/* The utility units of one stream end, in series after its last stage
+ * (stage numbers from `stage`). */
+static hl_status
+end_units(const hl_opt_problem *P, hl_network *net, size_t p, double t_in,
+	  double d, int stage, char kind, unsigned *n, hl_error *err)
+{
+	hl_network_unit *u = calloc(P->nu + 1, sizeof *u);
+	size_t k, m = 0;
+	long which;
+	double v;
+	hl_status st = HL_OK;
+
+	if (u == NULL)
+		return hl_error_nomem(err);
+	hl_opt_end(P, p, t_in, d, u, &m, &which, &v);
+	if (m == 0)
+		st = hl_error_set(err, HL_ENOSOLUTION, NULL, 0, "no utility "
+		    "may take stream '%s' to its target", net->party[p].name);
+	for (k = 0; k < m && st == HL_OK; k++) {
+		u[k].hot_share = u[k].cold_share = 1.0;
+		if (kind == 'H')
+			u[k].cold_stage = stage + (int)k;
+		else
+			u[k].hot_stage = stage + (int)k;
+		st = add(net, &u[k], kind, n, err);
+	}
+	free(u);
+	return st;
+}
+
 static hl_status
 utility_units(const hl_opt_problem *P, const hl_opt_state *s,
 	      hl_network *net, hl_error *err)
@@ -176,42 +206,16 @@ utility_units(const hl_opt_problem *P, const hl_opt_state *s,
 	size_t a, b;
 	hl_status st = HL_OK;
 
-	for (b = 0; b < P->nc && st == HL_OK; b++) {
-		hl_network_unit u;
-		long which;
-		double v;
-
-		if (!(s->cend[b] > 0.0))
-			continue;
-		memset(&u, 0, sizeof u);
-		hl_opt_end_unit(P, P->cold[b], s->tc[b * (P->S + 1)],
-		    s->cend[b], &u, &which, &v);
-		if (which < 0)
-			return hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
-			    "no utility may heat stream '%s' to its target",
-			    net->party[P->cold[b]].name);
-		u.hot_share = u.cold_share = 1.0;
-		u.cold_stage = cold_stages(P, s, b, 0, P->S) + 1;
-		st = add(net, &u, 'H', &nh, err);
-	}
-	for (a = 0; a < P->nh && st == HL_OK; a++) {
-		hl_network_unit u;
-		long which;
-		double v;
-
-		if (!(s->hend[a] > 0.0))
-			continue;
-		memset(&u, 0, sizeof u);
-		hl_opt_end_unit(P, P->hot[a], s->th[a * (P->S + 1) + P->S],
-		    s->hend[a], &u, &which, &v);
-		if (which < 0)
-			return hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
-			    "no utility may cool stream '%s' to its target",
-			    net->party[P->hot[a]].name);
-		u.hot_share = u.cold_share = 1.0;
-		u.hot_stage = hot_stages(P, s, a, 0, P->S) + 1;
-		st = add(net, &u, 'C', &nc, err);
-	}
+	for (b = 0; b < P->nc && st == HL_OK; b++)
+		if (s->cend[b] > 0.0)
+			st = end_units(P, net, P->cold[b],
+			    s->tc[b * (P->S + 1)], s->cend[b],
+			    cold_stages(P, s, b, 0, P->S) + 1, 'H', &nh, err);
+	for (a = 0; a < P->nh && st == HL_OK; a++)
+		if (s->hend[a] > 0.0)
+			st = end_units(P, net, P->hot[a],
+			    s->th[a * (P->S + 1) + P->S], s->hend[a],
+			    hot_stages(P, s, a, 0, P->S) + 1, 'C', &nc, err);
 	return st;
 }
 
