@@ -634,6 +634,15 @@ solve(const options *o, run_state *s, hl_error *err)
 		util_load = loads;
 	}
 	s->no_prices = !o->units && !hl_network_optimise_fits(s->c);
+	if (st == HL_OK && (s->no_prices || o->units) && (o->no_splits ||
+	    o->nnosplit > 0 || o->branches > 0 || o->min_duty > 0 ||
+	    o->min_area > 0 || o->shells > 0 || o->from != NULL))
+		st = hl_error_set(err, o->units ? HL_EUSAGE : HL_EINPUT,
+		    o->units ? NULL : s->c->source, 0, "%s: the limits and "
+		    "--from belong to the least-cost search, which needs "
+		    "utilities with prices%s", o->units ? "design --method "
+		    "units" : "design", o->units ? "; drop --method units" :
+		    " (give a utility table with a price column)");
 	if (st == HL_OK && (o->units || s->no_prices))
 		st = fewest_units(o, s, util_load, o->time_limit, err);
 	else if (st == HL_OK)
@@ -848,6 +857,9 @@ run(int argc, char **argv)
 const hl_command hl_cmd_design = {
 	"design", "CASE [--dtmin K] [--emat K] [--utilities FILE] "
 	"[--format text|xml|csv] [-o FILE] [--svg FILE] [--time-limit S] "
+	"[--method cost|units] [--seed N] [--threads N] [--effort X] "
+	"[--no-splits] [--no-split STREAM] [--max-branches N] [--min-duty KW] "
+	"[--min-area M2] [--max-shells N] [--from FILE [--keep NAMES]] "
 	"[--quiet]",
 	"a sized heat exchanger network that meets the targets, checked",
 	run, help

@@ -105,4 +105,7 @@ check_exit 1 hl design "$CASES/demo.xml" --max-shells 0
 check_exit 1 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --from "$WORK/start.csv" --keep nosuch
 printf 'name,hot,cold,duty\nX1,H1,nosuch,200\n' >"$WORK/bad.csv"
 check_exit 2 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --from "$WORK/bad.csv"
+# The limits need priced utilities (the search trades energy for capital).
+check_exit 2 hl design "$DATA/good/kemp4.csv" --no-splits
+check_exit 1 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" --method units --min-duty 5
 finish
