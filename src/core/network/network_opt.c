@@ -304,12 +304,13 @@ fail:
 	return NULL;
 }
 
-static hl_status add_change(hl_opt_result *r, double de, double dt,
-			    const char *fmt, ...)
-	__attribute__((format(printf, 4, 5)));
+static hl_status add_change(hl_opt_result *r, hl_opt_change_kind kind,
+			    double de, double dt, const char *fmt, ...)
+	__attribute__((format(printf, 5, 6)));
 
 static hl_status
-add_change(hl_opt_result *r, double de, double dt, const char *fmt, ...)
+add_change(hl_opt_result *r, hl_opt_change_kind kind, double de, double dt,
+	   const char *fmt, ...)
 {
 	hl_opt_change *c = realloc(r->change, (r->nchange + 1) * sizeof *c);
 	va_list ap;
@@ -318,6 +319,7 @@ add_change(hl_opt_result *r, double de, double dt, const char *fmt, ...)
 		return HL_EIO;
 	r->change = c;
 	c = &c[r->nchange++];
+	c->kind = kind;
 	va_start(ap, fmt);
 	vsnprintf(c->text, sizeof c->text, fmt, ap);
 	va_end(ap);
@@ -358,7 +360,8 @@ dropped(const hl_opt_problem *P, const hl_opt_state *fin,
 			sum += fin->q[HL_OPT_CELL(P, k, a, b)];
 		if (sum > HL_OPT_QEPS)
 			continue;
-		if (add_change(r, u->duty, NAN, "%s - %s: the start's unit "
+		if (add_change(r, HL_OPT_DROPPED, u->duty, NAN, "%s - %s: the "
+		    "start's unit "
 		    "of %.1f kW dropped", st->party[u->hot].name,
 		    st->party[u->cold].name, u->duty) != HL_OK)
 			return HL_EIO;
@@ -388,15 +391,110 @@ worth(const hl_opt_problem *P, const hl_opt_state *fin, hl_opt_result *r)
 		t.keep[i] = 0;
 		hl_opt_eval_all(P, &t);
 		if (t.v > 1e-9)
-			st = add_change(r, q, HUGE_VAL, "%s - %s: the unit of "
+			st = add_change(r, HL_OPT_WORTH, q, HUGE_VAL, "%s - %s: "
+			    "the unit of "
 			    "%.1f kW cannot go (its streams could not reach "
 			    "their targets)", P->base->party[P->hot[a]].name,
 			    P->base->party[P->cold[b]].name, q);
 		else
-			st = add_change(r, q, t.tac - fin->tac, "%s - %s: "
+			st = add_change(r, HL_OPT_WORTH, q, t.tac - fin->tac,
+			    "%s - %s: "
 			    "without the unit of %.1f kW (its heat to the "
 			    "utilities)", P->base->party[P->hot[a]].name,
 			    P->base->party[P->cold[b]].name, q);
+	}
+	hl_opt_state_free(&t);
+	return st;
+}
+
+/* A cell's stream has no unit in stage k (hot row a or cold column b). */
+static int
+free_stage(const hl_opt_problem *P, const hl_opt_state *s, size_t k,
+	   size_t a, size_t b)
+{
+	size_t x;
+
+	for (x = 0; x < P->nc; x++)
+		if (s->q[HL_OPT_CELL(P, k, a, x)] > HL_OPT_QEPS)
+			return 0;
+	for (x = 0; x < P->nh; x++)
+		if (s->q[HL_OPT_CELL(P, k, x, b)] > HL_OPT_QEPS)
+			return 0;
+	return 1;
+}
+
+/* Each split of the result against series: every branch but the largest
+ * moved to the nearest stage free on both its streams, the loads polished;
+ * what that costs (or that it misses a limit) is why the split is there. */
+static hl_status
+splits_why(const hl_opt_problem *P, const hl_opt_state *fin,
+	   hl_opt_result *r)
+{
+	hl_opt_state t;
+	size_t k, p, x, nb, big, S = P->S;
+	hl_status st = HL_OK;
+
+	if (hl_opt_state_init(P, &t) != HL_OK)
+		return HL_EIO;
+	for (p = 0; p < P->nh + P->nc && st == HL_OK; p++) {
+		int hot = p < P->nh;
+		size_t n = hot ? P->nc : P->nh, sp = hot ? p : p - P->nh;
+
+		for (k = 0; k < S && st == HL_OK; k++) {
+			double qh0, qh1;
+
+			nb = 0;
+			big = 0;
+			for (x = 0; x < n; x++) {
+				size_t i = hot ? HL_OPT_CELL(P, k, sp, x) :
+				    HL_OPT_CELL(P, k, x, sp);
+
+				if (!(fin->q[i] > HL_OPT_QEPS))
+					continue;
+				if (nb++ == 0 || fin->q[i] > fin->q[big])
+					big = i;
+			}
+			if (nb < 2)
+				continue;
+			hl_opt_state_copy(P, &t, fin);
+			for (x = 0; x < n; x++) {
+				size_t i = hot ? HL_OPT_CELL(P, k, sp, x) :
+				    HL_OPT_CELL(P, k, x, sp);
+				size_t a = (i / P->nc) % P->nh, b = i % P->nc, d;
+
+				if (i == big || !(t.q[i] > HL_OPT_QEPS))
+					continue;
+				for (d = 1; d < S; d++) {
+					size_t kk = k + d < S ? k + d : S;
+
+					if (kk < S && free_stage(P, &t, kk, a, b))
+						break;
+					if (d <= k && free_stage(P, &t, k - d, a,
+					    b)) {
+						kk = k - d;
+						break;
+					}
+				}
+				if (d < S) {
+					size_t kk = k + d < S && free_stage(P, &t,
+					    k + d, a, b) ? k + d : k - d;
+
+					t.q[HL_OPT_CELL(P, kk, a, b)] = t.q[i];
+					t.q[i] = 0.0;
+				}
+			}
+			hl_opt_eval_all(P, &t);
+			hl_opt_polish(P, &t, 2000);
+			qh0 = qh1 = 0.0;
+			for (x = 0; x < P->nc; x++) {
+				qh0 += fin->cend[x];
+				qh1 += t.cend[x];
+			}
+			st = add_change(r, HL_OPT_SPLIT, qh1 - qh0, t.v > 1e-9 ?
+			    HUGE_VAL : t.tac - fin->tac, "%s, %zu branches",
+			    P->base->party[hot ? P->hot[sp] :
+			    P->cold[sp]].name, nb);
+		}
 	}
 	hl_opt_state_free(&t);
 	return st;
@@ -524,7 +622,8 @@ finish(const hl_case *c, const hl_opt_options *o, const hl_opt_problem *P,
 		r->net = clone(o->start, err);
 		return r->net == NULL ? hl_error_nomem(err) : HL_OK;
 	}
-	if (dropped(P, fin, r) != HL_OK || worth(P, fin, r) != HL_OK)
+	if (dropped(P, fin, r) != HL_OK || worth(P, fin, r) != HL_OK ||
+	    splits_why(P, fin, r) != HL_OK)
 		return hl_error_nomem(err);
 	binding(c, o, P, fin, r);
 	return HL_OK;

@@ -62,12 +62,21 @@ typedef struct {
 
 void hl_opt_options_default(hl_opt_options *o);
 
-/* What the search changed in the end, one line each (a unit dropped or a
- * split merged, with what it did to energy and cost). */
+/* What the search changed and why, one line each. */
+typedef enum {
+	HL_OPT_DROPPED = 0,       /* a pair of the start the result lacks */
+	HL_OPT_WORTH = 1,         /* a unit of the result and its worth */
+	HL_OPT_SPLIT = 2          /* a split of the result against series */
+} hl_opt_change_kind;
+
 typedef struct {
+	hl_opt_change_kind kind;
 	char text[200];
-	double d_energy;          /* kW of hot utility it added */
-	double d_tac;             /* currency/year it changed the total */
+	double d_energy;          /* kW: the unit's duty (dropped, worth) or
+				     the hot utility series adds (split) */
+	double d_tac;             /* currency/year: the total without the
+				     unit, or with the split in series;
+				     HUGE_VAL: not possible; NaN: unknown */
 } hl_opt_change;
 
 typedef struct {

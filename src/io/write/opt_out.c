@@ -62,9 +62,7 @@ text_split(FILE *fp, const hl_network *net, size_t p, int stage)
 			fprintf(fp, "%s %.0f %%%s", v->id, 100.0 * (v->hot == p ?
 			    v->hot_share : v->cold_share), --n > 0 ? ", " : "");
 	}
-	fprintf(fp, "): each branch serves its own match and all leave at one "
-	    "temperature; the search kept it because in series the same "
-	    "heat costs more (area or energy)\n");
+	fprintf(fp, ")\n");
 }
 
 static void
@@ -114,8 +112,16 @@ hl_opt_text(FILE *fp, const hl_opt_result *r, const hl_opt_options *o)
 	for (i = 0; i < r->nchange; i++) {
 		const hl_opt_change *c = &r->change[i];
 
-		if (isnan(c->d_tac))
+		if (c->kind == HL_OPT_DROPPED)
 			fprintf(fp, "  dropped: %s\n", c->text);
+		else if (c->kind == HL_OPT_SPLIT && isinf(c->d_tac))
+			fprintf(fp, "  split of %s: in series the loads miss "
+			    "EMAT or a limit\n", c->text);
+		else if (c->kind == HL_OPT_SPLIT)
+			fprintf(fp, "  split of %s: in series (the smaller "
+			    "branches moved to free stages, loads polished) "
+			    "%+.0f %s/year, %+.1f kW of hot utility\n",
+			    c->text, c->d_tac, cur, c->d_energy);
 		else if (isinf(c->d_tac))
 			fprintf(fp, "  unit: %s\n", c->text);
 		else
@@ -148,11 +154,20 @@ hl_opt_xml(xmlTextWriterPtr w, const hl_opt_result *r,
 	for (i = 0; i < r->nchange && rc >= 0; i++) {
 		const hl_opt_change *c = &r->change[i];
 
-		rc |= xmlTextWriterStartElement(w, BAD_CAST (isnan(c->d_tac) ?
-		    "dropped" : "unit-worth"));
-		rc |= hl_xml_num(w, "duty", c->d_energy);
-		if (isfinite(c->d_tac))
-			rc |= hl_xml_num(w, "cost-without", c->d_tac);
+		rc |= xmlTextWriterStartElement(w, BAD_CAST (c->kind ==
+		    HL_OPT_DROPPED ? "dropped" : c->kind == HL_OPT_WORTH ?
+		    "unit-worth" : "split-why"));
+		if (c->kind == HL_OPT_SPLIT) {
+			if (isfinite(c->d_tac)) {
+				rc |= hl_xml_num(w, "series-cost", c->d_tac);
+				rc |= hl_xml_num(w, "series-energy",
+				    c->d_energy);
+			}
+		} else {
+			rc |= hl_xml_num(w, "duty", c->d_energy);
+			if (isfinite(c->d_tac))
+				rc |= hl_xml_num(w, "cost-without", c->d_tac);
+		}
 		rc |= xmlTextWriterWriteString(w, BAD_CAST c->text);
 		rc |= xmlTextWriterEndElement(w);
 	}
