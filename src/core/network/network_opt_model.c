@@ -83,19 +83,39 @@ cmp_key(const void *x, const void *y)
 	return a->i < b->i ? -1 : 1;
 }
 
+/* 1 when u comes before v along a stream they share, in the start's own
+ * stage numbers: along a hot stream hotter first, along a cold stream
+ * hotter first too (the superstructure's stage 1 is the hot end). */
+static int
+before(const hl_network_unit *u, const hl_network_unit *v)
+{
+	return (u->hot == v->hot && u->hot_stage > 0 && v->hot_stage > 0 &&
+	    u->hot_stage < v->hot_stage) || (u->cold == v->cold &&
+	    u->cold_stage > 0 && v->cold_stage > 0 &&
+	    u->cold_stage > v->cold_stage);
+}
+
+/* Stages for net's process units: the longest chain of units before each
+ * (in the start's stage order on both its streams; Kahn's topological
+ * order, ties by the hot-end temperatures), so that every stream meets its
+ * units in the order the start has them; a unit caught in a cycle (or a
+ * start without stage numbers) goes one stage after the last of its two
+ * streams in temperature order. */
 static size_t *
 layering(const hl_opt_problem *P, const hl_network *net, size_t *nstage)
 {
-	size_t ns = P->c->nstream, i, n = net->nunit;
+	size_t ns = P->c->nstream, i, j, t, n = net->nunit;
 	keyed *order = malloc((n + 1) * sizeof *order);
 	size_t *stage = calloc(n + 1, sizeof *stage);
 	size_t *last = calloc(ns + 1, sizeof *last);
+	unsigned char *done = calloc(n + 1, 1);
 
 	*nstage = 0;
-	if (order == NULL || stage == NULL || last == NULL) {
+	if (order == NULL || stage == NULL || last == NULL || done == NULL) {
 		free(order);
 		free(last);
 		free(stage);
+		free(done);
 		return NULL;
 	}
 	for (i = 0; i < n; i++) {
@@ -108,23 +128,57 @@ layering(const hl_opt_problem *P, const hl_network *net, size_t *nstage)
 			    net->party[u->hot].supply : u->hot_in) +
 			    (isnan(u->cold_out) ? net->party[u->cold].target :
 			    u->cold_out);
+		if (u->hot >= ns || u->cold >= ns)
+			done[i] = 1;
 	}
 	qsort(order, n, sizeof *order, cmp_key);
-	for (i = 0; i < n; i++) {
-		const hl_network_unit *u = &net->unit[order[i].i];
-		size_t k;
+	for (t = 0; t < n; t++) {
+		size_t pick = n, k = 0;
+		int cycle;
 
-		if (u->hot >= ns || u->cold >= ns)
-			continue;
-		k = (last[u->hot] > last[u->cold] ? last[u->hot] :
-		    last[u->cold]) + 1;
-		stage[order[i].i] = k;
-		last[u->hot] = last[u->cold] = k;
+		/* the first unit in key order with all its predecessors set */
+		for (i = 0; i < n && pick == n; i++) {
+			size_t v = order[i].i;
+
+			if (done[v])
+				continue;
+			for (j = 0; j < n; j++)
+				if (!done[j] && j != v &&
+				    net->unit[j].hot < ns &&
+				    net->unit[j].cold < ns &&
+				    before(&net->unit[j], &net->unit[v]))
+					break;
+			if (j == n)
+				pick = v;
+		}
+		cycle = pick == n;
+		if (cycle)      /* the first left in key order */
+			for (i = 0; i < n && pick == n; i++)
+				if (!done[order[i].i])
+					pick = order[i].i;
+		if (pick == n)
+			break;
+		if (cycle) {
+			k = (last[net->unit[pick].hot] >
+			    last[net->unit[pick].cold] ?
+			    last[net->unit[pick].hot] :
+			    last[net->unit[pick].cold]) + 1;
+		} else {
+			for (j = 0; j < n; j++)
+				if (stage[j] > k && before(&net->unit[j],
+				    &net->unit[pick]))
+					k = stage[j];
+			k++;
+		}
+		stage[pick] = k;
+		last[net->unit[pick].hot] = last[net->unit[pick].cold] = k;
+		done[pick] = 1;
 		if (k > *nstage)
 			*nstage = k;
 	}
 	free(order);
 	free(last);
+	free(done);
 	return stage;
 }
 
