@@ -1,5 +1,4 @@
 /* common.c - option helpers, case loading and error printing. */
-#include <getopt.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdio.h>
@@ -108,55 +107,13 @@ hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err)
 }
 
 int
-hl_cmd_common_opt(const char *cmd, int ch, char **argv, unsigned formats,
-		  void (*help)(FILE *), hl_common *o, int *rc)
+hl_cmd_check_grid(const char *cmd, double from, double to, double step)
 {
-	*rc = 0;
-	switch (ch) {
-	case HL_OPT_DTMIN:
-		if (hl_cmd_parse_double(cmd, "--dtmin", optarg, 0.0, 500.0,
-					&o->dtmin) != 0)
-			*rc = 1;
-		return 1;
-	case HL_OPT_UTIL:
-		o->utilities = optarg;
-		return 1;
-	case HL_OPT_FORMAT:
-		if (hl_cmd_parse_format(cmd, optarg, formats, &o->format) != 0)
-			*rc = 1;
-		return 1;
-	case HL_OPT_VERBOSE:
-		o->verbose = 1;
-		return 1;
-	case HL_OPT_QUIET:
-		o->quiet = 1;
-		return 1;
-	case 'o':
-		o->output = optarg;
-		return 1;
-	case 'h':
-		help(stdout);
-		*rc = -1;
-		return 1;
-	case ':':
-		*rc = hl_cmd_usage(cmd, "option '%s' needs a value",
-				   argv[optind - 1]);
-		return 1;
-	case '?':
-		*rc = hl_cmd_usage(cmd, "unknown option '%s'",
-				   argv[optind - 1]);
-		return 1;
-	default:
-		return 0;
-	}
-}
-
-int
-hl_cmd_one_input(const char *cmd, int argc, char **argv, hl_common *o)
-{
-	if (optind != argc - 1)
-		return hl_cmd_usage(cmd, optind >= argc ? "give one CASE file" :
-				    "give one CASE file, not several");
-	o->input = argv[optind];
+	if (to < from)
+		return hl_cmd_usage(cmd, "--to %g is below --from %g", to,
+				    from);
+	if ((to - from) / step > 10000.0)
+		return hl_cmd_usage(cmd, "more than 10001 grid points; use a "
+				    "larger --step");
 	return 0;
 }

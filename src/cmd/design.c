@@ -6,7 +6,6 @@
  * independent check of the network as written (the XML is read back and
  * verified by netcheck.h): a network that fails it is never written.
  */
-#include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -28,40 +27,6 @@
 #include "utility_lp.h"
 #include "utility_out.h"
 
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom design CASE [options]\n"
-"\n"
-"Design a heat exchanger network that meets the energy targets: the least-\n"
-"cost utility levels, the fewest units (match MILP), the placement of every\n"
-"match on its streams in temperature order, stream splits where series\n"
-"would break the minimum approach, the cheapest order and split shares, and\n"
-"each exchanger sized (U from the film coefficients, LMTD, F, shells, area,\n"
-"cost). The network is checked as `heatloom check` would before it is\n"
-"written. CASE is an XML case file or a stream table (CSV).\n"
-"\n"
-"Options:\n"
-"  --dtmin K          minimum approach temperature for the targets (default:\n"
-"                     the case's, or 10)\n"
-"  --emat K           exchanger minimum approach, at most ΔTmin (default:\n"
-"                     the case's, or ΔTmin)\n"
-"  --utilities FILE   utility table (CSV) to add to the case\n"
-"  --format FMT       text (default), xml (what `heatloom check` reads), csv\n"
-"  -o, --output FILE  write to FILE instead of standard output\n"
-"  --svg FILE         also draw the grid diagram into FILE (SVG)\n"
-"  --time-limit S     seconds per subnetwork for the match MILP (default:\n"
-"                     the case's, or 10); the best network found is used\n"
-"  --quiet            no warnings on standard error\n"
-"  --verbose          the solvers' messages on standard error\n"
-"  -h, --help         show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
-
-enum { OPT_EMAT = 256, OPT_SVG, OPT_TIME };
-
 typedef struct {
 	hl_common c;
 	double emat;        /* NaN unless --emat */
@@ -69,52 +34,44 @@ typedef struct {
 	const char *svg;
 } options;
 
-static int
-parse(int argc, char **argv, options *o)
-{
-	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
-		{ "emat", required_argument, NULL, OPT_EMAT },
-		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
-		{ "format", required_argument, NULL, HL_OPT_FORMAT },
-		{ "svg", required_argument, NULL, OPT_SVG },
-		{ "time-limit", required_argument, NULL, OPT_TIME },
-		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
-		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
-		{ "output", required_argument, NULL, 'o' },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
-				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
-	int ch, rc;
+static const hl_option option_rows[] = {
+	HL_ROW_DTMIN("minimum approach temperature for the targets (default:\n"
+		     "the case's, or 10)"),
+	{ "emat", 0, "K", "exchanger minimum approach, at most ΔTmin (default:"
+	  "\nthe case's, or ΔTmin)", HL_ARG_NUMBER, offsetof(options, emat),
+	  0.0, 500.0, NULL },
+	HL_ROW_UTILITIES,
+	HL_ROW_FORMAT("text (default), xml (what `heatloom check` reads), csv"),
+	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
+	{ "svg", 0, "FILE", "also draw the grid diagram into FILE (SVG)",
+	  HL_ARG_TEXT, offsetof(options, svg), 0, 0, NULL },
+	{ "time-limit", 0, "S", "seconds per subnetwork for the match MILP "
+	  "(default:\nthe case's, or 10); the best network found is used",
+	  HL_ARG_NUMBER, offsetof(options, time_limit), 0.0, 86400.0, NULL },
+	HL_ROW_QUIET("no warnings on standard error"),
+	HL_ROW_VERBOSE("the solvers' messages on standard error"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
 
-	memset(o, 0, sizeof *o);
-	hl_common_init(&o->c);
+static void
+init(void *opts)
+{
+	options *o = opts;
+
 	o->emat = o->time_limit = NAN;
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (hl_cmd_common_opt("design", ch, argv, formats, help, &o->c,
-				      &rc)) {
-			if (rc != 0)
-				return rc;
-			continue;
-		}
-		if (ch == OPT_SVG)
-			o->svg = optarg;
-		else if (hl_cmd_parse_double("design", ch == OPT_EMAT ?
-		    "--emat" : "--time-limit", optarg, 0.0, ch == OPT_EMAT ?
-		    500.0 : 86400.0, ch == OPT_EMAT ? &o->emat :
-		    &o->time_limit) != 0)
-			return 1;
-	}
-	rc = hl_cmd_one_input("design", argc, argv, &o->c);
-	if (rc == 0 && o->svg != NULL && o->c.output != NULL &&
+}
+
+static int
+check(void *opts)
+{
+	const options *o = opts;
+
+	if (o->svg != NULL && o->c.output != NULL &&
 	    strcmp(o->svg, o->c.output) == 0)
 		return hl_cmd_usage("design", "--svg and -o name the same "
 		    "file '%s'", o->svg);
-	return rc;
+	return 0;
 }
 
 /* What the stages give, freed together. */
@@ -360,41 +317,42 @@ warn(const run_state *s)
 		    "(give --time-limit)\n", s->mr->units, s->mr->lower);
 }
 
-static int
-run(int argc, char **argv)
+static hl_status
+run_design(void *opts, hl_error *err)
 {
+	const options *o = opts;
 	run_state s;
-	options o;
-	hl_error err;
 	hl_status st;
-	int rc = parse(argc, argv, &o);
 
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
 	memset(&s, 0, sizeof s);
-	hl_error_clear(&err);
-	st = load(&o, &s, &err);
+	st = load(o, &s, err);
 	if (st == HL_OK)
-		st = solve(&o, &s, &err);
+		st = solve(o, &s, err);
 	if (st == HL_OK)
-		st = build_xml(&s, &err);
+		st = build_xml(&s, err);
 	if (st == HL_OK)
-		st = self_check(&s, &err);
-	if (st == HL_OK && o.svg != NULL)
-		st = write_svg(&o, &s, &err);
+		st = self_check(&s, err);
+	if (st == HL_OK && o->svg != NULL)
+		st = write_svg(o, &s, err);
 	if (st == HL_OK)
-		st = write_main(&o, &s, &err);
-	if (st == HL_OK && !o.c.quiet)
+		st = write_main(o, &s, err);
+	if (st == HL_OK && !o->c.quiet)
 		warn(&s);
-	rc = st == HL_OK ? 0 : hl_cmd_fail(&err);
 	state_free(&s);
-	return rc;
+	return st;
 }
 
 const hl_command hl_cmd_design = {
-	"design", "CASE [--dtmin K] [--emat K] [--utilities FILE] "
-	"[--format text|xml|csv] [-o FILE] [--svg FILE] [--time-limit S] "
-	"[--quiet]",
+	"design", "CASE [options]",
 	"a sized heat exchanger network that meets the targets, checked",
-	run, help
+	"Design a heat exchanger network that meets the energy targets: the least-\n"
+	"cost utility levels, the fewest units (match MILP), the placement of every\n"
+	"match on its streams in temperature order, stream splits where series\n"
+	"would break the minimum approach, the cheapest order and split shares, and\n"
+	"each exchanger sized (U from the film coefficients, LMTD, F, shells, area,\n"
+	"cost). The network is checked as `heatloom check` would before it is\n"
+	"written. CASE is an XML case file or a stream table (CSV).\n",
+	NULL, option_rows, sizeof(options),
+	"give one CASE file", "give one CASE file, not several",
+	init, check, run_design
 };

@@ -1,7 +1,6 @@
 /* report.c - `heatloom report`: the whole study as one HTML file. */
 #include "config.h"
 
-#include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -28,56 +27,8 @@
  * two agree number for number. */
 #define RETROFIT_POINTS 11
 
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom report CASE -o FILE.html [options]\n"
-"\n"
-"The study as one self-contained HTML file for a client: the case and its\n"
-"stream and utility data, the energy targets and pinch with the heat\n"
-"cascade, the utility levels chosen at least cost, the composite, grand\n"
-"composite and balanced curves, the supertargets at the chosen ΔTmin and\n"
-"the trade-off over a range of ΔTmin, the fewest-units matches and the\n"
-"network laid out and sized from them (grid diagram, every exchanger), the\n"
-"stream data ranked by their effect on the targets, the settings (defaults\n"
-"named as such), the methods with references, and the caution. For a site\n"
-"with an existing network (the case's <network> or --network) also the\n"
-"audit: energy today against the targets and the saving, the culprits, the\n"
-"units as read, the area efficiency and a retrofit at constant α with its\n"
-"payback. Charts and styles are inline: the file needs no network, script\n"
-"or other file, and prints on A4 and Letter. Every number is the rounding\n"
-"of the one in the XML results of the same command (targets, sweep,\n"
-"matches, design, audit).\n"
-"\n"
-"Options:\n"
-"  --dtmin K          ΔTmin of the study (default: the case's, or 10)\n"
-"  --utilities FILE   utility table (CSV) to add to the case\n"
-"  --network FILE     today's network (CSV), instead of the case's own\n"
-"  --from K           first ΔTmin of the trade-off (default 2)\n"
-"  --to K             last ΔTmin of the trade-off (default 40)\n"
-"  --step K           its grid step (default 1)\n"
-"  --no-sweep         leave the trade-off over ΔTmin out\n"
-"  --emat K           exchanger minimum approach of the network, at most\n"
-"                     ΔTmin (default: the case's, or ΔTmin)\n"
-"  --time-limit S     seconds per subnetwork for the match MILP (default:\n"
-"                     the case's, or 10)\n"
-"  --no-design        leave the matches and the network out\n"
-"  --title TEXT       title of the report (default: from the case file name)\n"
-"  --author TEXT      name shown as \"prepared by\"\n"
-"  --date TEXT        date shown (default: today, or SOURCE_DATE_EPOCH)\n"
-"  -o, --output FILE  write to FILE instead of standard output\n"
-"  --verbose          show the LP solver's messages on standard error\n"
-"  -h, --help         show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
-
-enum { OPT_FROM = 256, OPT_TO, OPT_STEP, OPT_EMAT, OPT_TIME, OPT_NOSWEEP,
-       OPT_NODESIGN, OPT_TITLE, OPT_AUTHOR, OPT_DATE, OPT_NETWORK };
-
 typedef struct {
-	hl_common o;
+	hl_common c;
 	double from, to, step;
 	double emat, time_limit;   /* NaN unless given */
 	int sweep, design;
@@ -85,95 +36,59 @@ typedef struct {
 	const char *network;
 } report_opts;
 
-/* The report's own options; 0, or 1 after a usage error. */
-static int
-own_option(int ch, const char *arg, report_opts *s)
+#define NUMBER(name, arg, member, lo, hi, text) { name, 0, arg, text, \
+	HL_ARG_NUMBER, offsetof(report_opts, member), lo, hi, NULL }
+#define TEXT(name, arg, member, text) { name, 0, arg, text, HL_ARG_TEXT, \
+	offsetof(report_opts, member), 0, 0, NULL }
+#define OFF(name, member, text) { name, 0, NULL, text, HL_ARG_FLAG, \
+	offsetof(report_opts, member), 0, 0, NULL }
+
+static const hl_option option_rows[] = {
+	HL_ROW_DTMIN("ΔTmin of the study (default: the case's, or 10)"),
+	HL_ROW_UTILITIES,
+	TEXT("network", "FILE", network, "today's network (CSV), instead of "
+	     "the case's own"),
+	NUMBER("from", "K", from, 0.0, 500.0, "first ΔTmin of the trade-off "
+	       "(default 2)"),
+	NUMBER("to", "K", to, 0.0, 500.0, "last ΔTmin of the trade-off "
+	       "(default 40)"),
+	NUMBER("step", "K", step, 1e-3, 500.0, "its grid step (default 1)"),
+	OFF("no-sweep", sweep, "leave the trade-off over ΔTmin out"),
+	NUMBER("emat", "K", emat, 0.0, 500.0, "exchanger minimum approach of "
+	       "the network, at most\nΔTmin (default: the case's, or ΔTmin)"),
+	NUMBER("time-limit", "S", time_limit, 0.0, 86400.0, "seconds per "
+	       "subnetwork for the match MILP (default:\nthe case's, or 10)"),
+	OFF("no-design", design, "leave the matches and the network out"),
+	TEXT("title", "TEXT", title, "title of the report (default: from the "
+	     "case file name)"),
+	TEXT("author", "TEXT", author, "name shown as \"prepared by\""),
+	TEXT("date", "TEXT", date, "date shown (default: today, or "
+	     "SOURCE_DATE_EPOCH)"),
+	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
+	HL_ROW_VERBOSE("show the LP solver's messages on standard error"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
+
+static void
+init(void *opts)
 {
-	static const char *const names[] = { "--from", "--to", "--step",
-		"--emat", "--time-limit" };
-	static const double lo[] = { 0.0, 0.0, 1e-3, 0.0, 0.0 };
-	static const double hi[] = { 500.0, 500.0, 500.0, 500.0, 86400.0 };
-	double *dst[] = { &s->from, &s->to, &s->step, &s->emat,
-			  &s->time_limit };
-	int k = ch - OPT_FROM;
+	report_opts *s = opts;
 
-	switch (ch) {
-	case OPT_NOSWEEP:
-		s->sweep = 0;
-		return 0;
-	case OPT_NODESIGN:
-		s->design = 0;
-		return 0;
-	case OPT_TITLE:
-		s->title = arg;
-		return 0;
-	case OPT_AUTHOR:
-		s->author = arg;
-		return 0;
-	case OPT_DATE:
-		s->date = arg;
-		return 0;
-	case OPT_NETWORK:
-		s->network = arg;
-		return 0;
-	default:
-		return hl_cmd_parse_double("report", names[k], arg, lo[k],
-					   hi[k], dst[k]) != 0;
-	}
-}
-
-static int
-parse(int argc, char **argv, report_opts *s)
-{
-	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
-		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
-		{ "from", required_argument, NULL, OPT_FROM },
-		{ "to", required_argument, NULL, OPT_TO },
-		{ "step", required_argument, NULL, OPT_STEP },
-		{ "no-sweep", no_argument, NULL, OPT_NOSWEEP },
-		{ "emat", required_argument, NULL, OPT_EMAT },
-		{ "time-limit", required_argument, NULL, OPT_TIME },
-		{ "no-design", no_argument, NULL, OPT_NODESIGN },
-		{ "title", required_argument, NULL, OPT_TITLE },
-		{ "author", required_argument, NULL, OPT_AUTHOR },
-		{ "date", required_argument, NULL, OPT_DATE },
-		{ "network", required_argument, NULL, OPT_NETWORK },
-		{ "output", required_argument, NULL, 'o' },
-		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	int ch, rc;
-
-	memset(s, 0, sizeof *s);
-	hl_common_init(&s->o);
 	s->from = 2.0;
 	s->to = 40.0;
 	s->step = 1.0;
 	s->sweep = 1;
 	s->design = 1;
 	s->emat = s->time_limit = NAN;
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (hl_cmd_common_opt("report", ch, argv, 0, help, &s->o,
-				      &rc)) {
-			if (rc != 0)
-				return rc;
-		} else if (own_option(ch, optarg, s) != 0) {
-			return 1;
-		}
-	}
-	if ((rc = hl_cmd_one_input("report", argc, argv, &s->o)) != 0)
-		return rc;
-	if (s->to < s->from)
-		return hl_cmd_usage("report", "--to %g is below --from %g",
-				    s->to, s->from);
-	if ((s->to - s->from) / s->step > 10000.0)
-		return hl_cmd_usage("report", "more than 10001 grid points; "
-				    "use a larger --step");
-	return 0;
+}
+
+static int
+check(void *opts)
+{
+	const report_opts *s = opts;
+
+	return hl_cmd_check_grid("report", s->from, s->to, s->step);
 }
 
 /* Everything the report shows, computed before the file is opened. */
@@ -371,7 +286,7 @@ load(const report_opts *o, study *s, hl_error *err)
 	hl_status st;
 
 	hl_output_protect(o->network);
-	st = hl_cmd_load_case(&o->o, &s->c, err);
+	st = hl_cmd_load_case(&o->c, &s->c, err);
 	if (st == HL_OK && o->network != NULL) {
 		hl_case_clear_units(s->c);
 		st = hl_network_table_read(s->c, o->network, err);
@@ -389,7 +304,7 @@ load(const report_opts *o, study *s, hl_error *err)
 static hl_status
 compute(const report_opts *o, study *s, hl_error *err)
 {
-	hl_utility_lp_opts lo = { o->o.verbose, hl_cmd_log_stderr, NULL,
+	hl_utility_lp_opts lo = { o->c.verbose, hl_cmd_log_stderr, NULL,
 				  NAN };
 	hl_status st;
 
@@ -443,7 +358,7 @@ dtmin_from(const report_opts *o, const hl_case *c)
 {
 	hl_settings def;
 
-	if (!isnan(o->o.dtmin))
+	if (!isnan(o->c.dtmin))
 		return "the command line, --dtmin";
 	hl_settings_default(&def);
 	return c->set.dtmin == def.dtmin ? "built-in default" :
@@ -488,8 +403,9 @@ fill(const report_opts *o, study *s, hl_report_data *d)
 }
 
 static hl_status
-run_report(const report_opts *o, hl_error *err)
+run_report(void *opts, hl_error *err)
 {
+	const report_opts *o = opts;
 	study s;
 	hl_report_data d;
 	hl_output out;
@@ -497,7 +413,7 @@ run_report(const report_opts *o, hl_error *err)
 
 	if (st == HL_OK) {
 		fill(o, &s, &d);
-		st = hl_output_open(&out, o->o.output, err);
+		st = hl_output_open(&out, o->c.output, err);
 	}
 	if (st == HL_OK) {
 		st = hl_report_html_write(out.fp, &d, err);
@@ -509,26 +425,25 @@ run_report(const report_opts *o, hl_error *err)
 	return st;
 }
 
-static int
-run(int argc, char **argv)
-{
-	report_opts o;
-	hl_error err;
-	int rc = parse(argc, argv, &o);
-
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
-	hl_error_clear(&err);
-	if (run_report(&o, &err) != HL_OK)
-		return hl_cmd_fail(&err);
-	return 0;
-}
-
 const hl_command hl_cmd_report = {
-	"report", "CASE -o FILE.html [--dtmin K] [--utilities FILE] [--network FILE] "
-	"[--from K --to K --step K] [--no-sweep] [--emat K] [--time-limit S] "
-	"[--no-design] [--title TEXT] "
-	"[--author TEXT] [--date TEXT] [--verbose]",
+	"report", "CASE -o FILE.html [options]",
 	"the whole study as one self-contained HTML report for a client",
-	run, help
+	"The study as one self-contained HTML file for a client: the case and its\n"
+	"stream and utility data, the energy targets and pinch with the heat\n"
+	"cascade, the utility levels chosen at least cost, the composite, grand\n"
+	"composite and balanced curves, the supertargets at the chosen ΔTmin and\n"
+	"the trade-off over a range of ΔTmin, the fewest-units matches and the\n"
+	"network laid out and sized from them (grid diagram, every exchanger), the\n"
+	"stream data ranked by their effect on the targets, the settings (defaults\n"
+	"named as such), the methods with references, and the caution. For a site\n"
+	"with an existing network (the case's <network> or --network) also the\n"
+	"audit: energy today against the targets and the saving, the culprits, the\n"
+	"units as read, the area efficiency and a retrofit at constant α with its\n"
+	"payback. Charts and styles are inline: the file needs no network, script\n"
+	"or other file, and prints on A4 and Letter. Every number is the rounding\n"
+	"of the one in the XML results of the same command (targets, sweep,\n"
+	"matches, design, audit).\n",
+	NULL, option_rows, sizeof(report_opts),
+	"give one CASE file", "give one CASE file, not several",
+	init, check, run_report
 };
