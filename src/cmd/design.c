@@ -23,6 +23,7 @@
 #include "network_xml.h"
 #include "output.h"
 #include "result_xml.h"
+#include "study.h"
 #include "targets_out.h"
 #include "utility_lp.h"
 #include "utility_out.h"
@@ -121,45 +122,27 @@ load(const options *o, run_state *s, hl_error *err)
 	return HL_OK;
 }
 
-/* Targets, utility loads, matches, placement. */
+/* Targets, utility loads, matches, placement (study.h). */
 static hl_status
 solve(const options *o, run_state *s, hl_error *err)
 {
-	hl_utility_lp_opts lo = { o->c.verbose, hl_cmd_log_stderr, NULL, NAN };
-	const double *util_load = NULL;
-	double *loads = NULL;
-	hl_match_options mo;
+	hl_study_opts so = { o->c.verbose, hl_cmd_log_stderr, 1,
+			     o->time_limit };
+	hl_study y;
 	hl_status st;
-	size_t i;
 
-	st = hl_cascade_compute(s->c, s->c->set.dtmin, &s->cas, err);
-	if (st == HL_OK && s->c->nutil > 0) {
-		st = hl_utility_lp_solve(s->c, s->c->set.dtmin, &lo, &s->lp,
-		    err);
-		if (st == HL_OK && (loads = calloc(s->c->nutil,
-		    sizeof *loads)) == NULL)
-			st = hl_error_nomem(err);
-		for (i = 0; st == HL_OK && i < s->c->nutil; i++)
-			loads[i] = s->lp->util[i].load;
-		util_load = loads;
-	}
-	if (st == HL_OK) {
-		hl_match_options_default(&mo, s->c);
-		if (!isnan(o->time_limit))
-			mo.time_limit = o->time_limit;
-		if (o->c.verbose) {
-			mo.log = hl_cmd_log_stderr;
-			mo.ctx = NULL;
-		}
-		st = hl_match_solve(s->c, s->c->set.dtmin, util_load, &mo,
-		    &s->mr, err);
-	}
-	free(loads);
+	memset(&y, 0, sizeof y);
+	st = hl_study_targets(s->c, &so, &y, err);
 	if (st == HL_OK)
-		st = hl_network_from_matches(s->c, s->mr, s->cas->qh,
-		    s->cas->qc, &s->feed, err);
+		st = hl_study_matches(s->c, &so, &y, err);
 	if (st == HL_OK)
-		st = hl_network_place(&s->feed.in, &s->net, err);
+		st = hl_study_network(s->c, &y, err);
+	/* run_state owns what the stages gave from here (state_free). */
+	s->cas = y.cas;
+	s->lp = y.lp;
+	s->mr = y.mr;
+	s->feed = y.feed;
+	s->net = y.net;
 	if (st == HL_OK && (s->net->source = strdup(s->c->source != NULL ?
 	    s->c->source : o->c.input)) == NULL)
 		st = hl_error_nomem(err);

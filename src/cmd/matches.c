@@ -138,16 +138,13 @@ utility_loads(const hl_case *c, const options *o, double **out,
 	hl_utility_lp_opts uo = { o->c.verbose, hl_cmd_log_stderr, NULL, NAN };
 	hl_utility_lp *u = NULL;
 	hl_status st;
-	size_t i;
 
 	*out = NULL;
 	if (c->nutil == 0)
 		return HL_OK;
 	st = hl_utility_lp_solve(c, c->set.dtmin, &uo, &u, err);
-	if (st == HL_OK && (*out = malloc(c->nutil * sizeof **out)) == NULL)
-		st = hl_error_nomem(err);
-	for (i = 0; st == HL_OK && i < c->nutil; i++)
-		(*out)[i] = u->util[i].load;
+	if (st == HL_OK)
+		st = hl_utility_lp_loads(u, out, err);
 	hl_utility_lp_free(u);
 	return st;
 }

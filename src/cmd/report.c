@@ -18,6 +18,7 @@
 #include "report_html.h"
 #include "retrofit.h"
 #include "sensitivity.h"
+#include "study.h"
 #include "sweep.h"
 #include "tables.h"
 #include "targets_out.h"
@@ -94,17 +95,13 @@ check(void *opts)
 /* Everything the report shows, computed before the file is opened. */
 typedef struct {
 	hl_case *c;
-	hl_cascade *cas;
+	hl_study y;         /* problem table, utility LP, matches, network */
 	hl_threshold th;
-	hl_utility_lp *lp;
 	hl_curves *cv;
 	hl_supertargets st;
 	int have_st;
 	hl_sweep *sw;
 	hl_sensitivity *sv;
-	hl_match_result *mr;
-	hl_network_feed feed;
-	hl_network *net;
 	double pinch[64];
 	size_t npinch;
 	double emat_hint;
@@ -122,14 +119,10 @@ study_free(study *s)
 {
 	hl_retrofit_free(s->retrofit);
 	hl_audit_free(s->audit);
-	hl_network_free(s->net);
-	hl_network_feed_free(&s->feed);
-	hl_match_result_free(s->mr);
 	hl_sensitivity_free(s->sv);
 	hl_sweep_free(s->sw);
 	hl_curves_free(s->cv);
-	hl_utility_lp_free(s->lp);
-	hl_cascade_free(s->cas);
+	hl_study_free(&s->y);
 	hl_case_free(s->c);
 }
 
@@ -151,7 +144,7 @@ compute_optional(const report_opts *o, study *s, hl_error *err)
 	hl_status st;
 
 	hl_error_clear(&e);
-	st = hl_sweep_point_from(s->c, s->cas, s->lp, &s->st, &e);
+	st = hl_sweep_point_from(s->c, s->y.cas, s->y.lp, &s->st, &e);
 	s->have_st = st == HL_OK;
 	st = optional(st, &e, s->st_note, sizeof s->st_note);
 	if (st == HL_OK && o->sweep) {
@@ -169,23 +162,12 @@ compute_optional(const report_opts *o, study *s, hl_error *err)
 static hl_status
 compute_matches(const report_opts *o, study *s, hl_error *err)
 {
-	hl_match_options mo;
-	double *loads = NULL;
+	hl_study_opts so = { 0, NULL, 0, o->time_limit };
 	hl_error e;
-	hl_status st = HL_OK;
-	size_t i;
+	hl_status st;
 
-	if (s->lp != NULL &&
-	    (loads = malloc(s->c->nutil * sizeof *loads)) == NULL)
-		return hl_error_nomem(err);
-	for (i = 0; loads != NULL && i < s->c->nutil; i++)
-		loads[i] = s->lp->util[i].load;
-	hl_match_options_default(&mo, s->c);
-	if (!isnan(o->time_limit))
-		mo.time_limit = o->time_limit;
 	hl_error_clear(&e);
-	st = hl_match_solve(s->c, s->c->set.dtmin, loads, &mo, &s->mr, &e);
-	free(loads);
+	st = hl_study_matches(s->c, &so, &s->y, &e);
 	if (st == HL_ENOSOLUTION) {
 		snprintf(s->mr_note, sizeof s->mr_note, "%s", e.text);
 		return HL_OK;
@@ -205,19 +187,16 @@ compute_network(study *s, hl_error *err)
 	hl_status st;
 
 	s->emat_hint = NAN;
-	if (s->mr == NULL)
+	if (s->y.mr == NULL)
 		return HL_OK;
 	hl_error_clear(&e);
-	st = hl_network_from_matches(s->c, s->mr, s->cas->qh, s->cas->qc,
-				     &s->feed, &e);
+	st = hl_study_network(s->c, &s->y, &e);
 	if (st == HL_OK)
-		st = hl_network_place(&s->feed.in, &s->net, &e);
-	if (st == HL_OK)
-		st = hl_netcheck_run(s->net, &chk, &e);
+		st = hl_netcheck_run(s->y.net, &chk, &e);
 	if (st == HL_ENOSOLUTION || st == HL_EINPUT) {
 		snprintf(s->net_note, sizeof s->net_note, "%s", e.text);
-		hl_network_free(s->net);
-		s->net = NULL;
+		hl_network_free(s->y.net);
+		s->y.net = NULL;
 		return HL_OK;
 	}
 	if (st != HL_OK) {
@@ -226,9 +205,9 @@ compute_network(study *s, hl_error *err)
 	}
 	s->findings = chk->n;
 	hl_netcheck_free(chk);
-	s->npinch = hl_network_pinches(s->cas, s->lp, s->pinch, 64);
-	if (s->net->penalty > 0.0)
-		s->emat_hint = hl_network_emat_hint(&s->feed.in);
+	s->npinch = hl_network_pinches(s->y.cas, s->y.lp, s->pinch, 64);
+	if (s->y.net->penalty > 0.0)
+		s->emat_hint = hl_network_emat_hint(&s->y.feed.in);
 	return HL_OK;
 }
 
@@ -304,26 +283,23 @@ load(const report_opts *o, study *s, hl_error *err)
 static hl_status
 compute(const report_opts *o, study *s, hl_error *err)
 {
-	hl_utility_lp_opts lo = { o->c.verbose, hl_cmd_log_stderr, NULL,
-				  NAN };
+	hl_study_opts so = { o->c.verbose, hl_cmd_log_stderr, 0,
+			     o->time_limit };
 	hl_status st;
 
 	memset(s, 0, sizeof *s);
 	st = load(o, s, err);
 	if (st == HL_OK)
-		st = hl_cascade_compute(s->c, s->c->set.dtmin, &s->cas, err);
+		st = hl_study_targets(s->c, &so, &s->y, err);
 	if (st == HL_OK) {
-		s->th.kind = hl_cascade_threshold_kind(s->cas);
-		st = hl_cascade_threshold_dtmin(s->c, s->cas, &s->th.dtmin,
+		s->th.kind = hl_cascade_threshold_kind(s->y.cas);
+		st = hl_cascade_threshold_dtmin(s->c, s->y.cas, &s->th.dtmin,
 						err);
 	}
-	if (st == HL_OK && s->c->nutil > 0)
-		st = hl_utility_lp_solve(s->c, s->c->set.dtmin, &lo, &s->lp,
-					 err);
 	if (st == HL_OK)
-		st = hl_curves_compute(s->c, s->cas, s->lp, &s->cv, err);
+		st = hl_curves_compute(s->c, s->y.cas, s->y.lp, &s->cv, err);
 	if (st == HL_OK)
-		st = hl_sensitivity_compute(s->c, s->cas, &s->sv, err);
+		st = hl_sensitivity_compute(s->c, s->y.cas, &s->sv, err);
 	if (st == HL_OK)
 		st = compute_optional(o, s, err);
 	if (st == HL_OK && o->design)
@@ -376,9 +352,9 @@ fill(const report_opts *o, study *s, hl_report_data *d)
 	d->meta.dtmin_from = dtmin_from(o, s->c);
 	d->meta.caution = hl_caution;
 	d->c = s->c;
-	d->cas = s->cas;
+	d->cas = s->y.cas;
 	d->th = &s->th;
-	d->lp = s->lp;
+	d->lp = s->y.lp;
 	d->cv = s->cv;
 	d->st = s->have_st ? &s->st : NULL;
 	d->st_note = s->st_note[0] ? s->st_note : NULL;
@@ -388,13 +364,13 @@ fill(const report_opts *o, study *s, hl_report_data *d)
 	d->sw_to = o->to;
 	d->sw_step = o->step;
 	d->sv = s->sv;
-	d->mr = s->mr;
+	d->mr = s->y.mr;
 	d->mr_note = s->mr_note[0] ? s->mr_note : NULL;
 	d->audit = s->audit;
 	d->retrofit = s->retrofit;
 	d->audit_note = s->audit_note[0] ? s->audit_note : NULL;
 	d->network_file = o->network;
-	d->net = s->net;
+	d->net = s->y.net;
 	d->net_note = s->net_note[0] ? s->net_note : NULL;
 	d->net_npinch = s->npinch;
 	d->net_pinch = s->pinch;
