@@ -142,13 +142,6 @@ simplex(glp_prob *P, hl_glpk_guard *g, double time_limit, const char *what,
 }
 
 hl_status
-hl_glpk_simplex(glp_prob *P, hl_glpk_guard *g, double time_limit,
-		const char *what, hl_error *err)
-{
-	return simplex(P, g, time_limit, what, PRESOLVE, err);
-}
-
-hl_status
 hl_glpk_simplex_direct(glp_prob *P, hl_glpk_guard *g, double time_limit,
 		       const char *what, hl_error *err)
 {

@@ -19,7 +19,6 @@ struct hl_csv {
 	char *text;
 	size_t text_len, text_cap;
 	size_t *off;
-	unsigned char *quoted;
 	size_t nfield, field_cap;
 };
 
@@ -217,7 +216,6 @@ hl_csv_free(hl_csv *r)
 	free(r->buf);
 	free(r->text);
 	free(r->off);
-	free(r->quoted);
 	free(r);
 }
 
@@ -243,19 +241,13 @@ start_field(hl_csv *r)
 	if (r->nfield == r->field_cap) {
 		size_t ncap = r->field_cap ? r->field_cap * 2 : 16;
 		size_t *o = realloc(r->off, ncap * sizeof *o);
-		unsigned char *q;
 
 		if (o == NULL)
 			return 0;
 		r->off = o;
-		q = realloc(r->quoted, ncap);
-		if (q == NULL)
-			return 0;
-		r->quoted = q;
 		r->field_cap = ncap;
 	}
 	r->off[r->nfield] = r->text_len;
-	r->quoted[r->nfield] = 0;
 	r->nfield++;
 	return 1;
 }
@@ -452,7 +444,6 @@ hl_csv_next(hl_csv *r, hl_error *err)
 		}
 		if (r->pos < r->len && r->buf[r->pos] == '"') {
 			r->pos++;
-			r->quoted[r->nfield - 1] = 1;
 			if (read_quoted(r, err) < 0)
 				return -1;
 		} else if (read_unquoted(r, err) < 0) {
@@ -476,12 +467,6 @@ const char *
 hl_csv_field(const hl_csv *r, size_t i)
 {
 	return i < r->nfield ? r->text + r->off[i] : "";
-}
-
-int
-hl_csv_quoted(const hl_csv *r, size_t i)
-{
-	return i < r->nfield ? r->quoted[i] : 0;
 }
 
 long

@@ -11,7 +11,6 @@
 struct hl_xml_out {
 	xmlBufferPtr buf;
 	xmlTextWriterPtr w;
-	int failed;
 };
 
 static const char caution[] =
