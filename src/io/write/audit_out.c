@@ -39,8 +39,7 @@ audit_attrs(xmlTextWriterPtr w, const hl_case *c, const hl_audit *a)
 	rc |= hl_xml_num(w, "pinch-hot", a->pinch_hot);
 	rc |= hl_xml_num(w, "pinch-cold", a->pinch_cold);
 	rc |= num_opt(w, "dtmin-now", a->dtmin_now);
-	rc |= hl_xml_str(w, "basis", c->set.exchanger == HL_EXCH_SHELL_TUBE ?
-			 "shell-and-tube" : "counterflow");
+	rc |= hl_xml_str(w, "basis", hl_exchanger_type_name(c->set.exchanger));
 	rc |= hl_xml_num(w, "area-existing", a->area_existing);
 	if (a->have_now)
 		rc |= hl_xml_num(w, "area-target-now", a->area_target_now);

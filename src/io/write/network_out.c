@@ -5,25 +5,10 @@
 #include <string.h>
 
 #include "network_out.h"
+#include "text_out.h"
+#include "utf8.h"
 #include "profile.h"
 #include "result_xml.h"
-
-const char *
-hl_network_type_name(hl_exchanger_type t)
-{
-	return t == HL_EXCH_COUNTERFLOW ? "counterflow" : "shell-and-tube";
-}
-
-/* Characters (not bytes) of a UTF-8 string. */
-static size_t
-width(const char *s)
-{
-	size_t n = 0;
-
-	for (; *s != '\0'; s++)
-		n += ((unsigned char)*s & 0xC0) != 0x80;
-	return n;
-}
 
 /* s broken at spaces into lines of at most `cols` characters, the first
  * led by `first`, the others by `next`. */
@@ -42,20 +27,20 @@ wrapped(FILE *fp, const char *s, const char *first, const char *next,
 			break;
 		n = strcspn(s, " \n");
 		snprintf(word, sizeof word, "%.*s", (int)n, s);
-		if (col > 0 && col + 1 + width(word) > cols) {
+		if (col > 0 && col + 1 + hl_utf8_chars(word) > cols) {
 			fputc('\n', fp);
 			col = 0;
 			lead = next;
 		}
 		if (col == 0) {
 			fputs(lead, fp);
-			col = width(lead);
+			col = hl_utf8_chars(lead);
 		} else {
 			fputc(' ', fp);
 			col++;
 		}
 		fputs(word, fp);
-		col += width(word);
+		col += hl_utf8_chars(word);
 		s += n;
 	}
 	fputc('\n', fp);
@@ -103,7 +88,7 @@ row(FILE *fp, char c[NCOL][CELL], const size_t *w)
 	size_t i, n = 0, end;
 
 	for (i = 0; i < NCOL; i++) {
-		size_t pad = w[i] - width(c[i]), k;
+		size_t pad = w[i] - hl_utf8_chars(c[i]), k;
 		int left = i < 3;
 
 		if (i > 0)
@@ -128,13 +113,13 @@ text_table(FILE *fp, const hl_network *net)
 	size_t w[NCOL], i, k;
 
 	for (k = 0; k < NCOL; k++)
-		w[k] = width(head[0][k]) > width(head[1][k]) ?
-		    width(head[0][k]) : width(head[1][k]);
+		w[k] = hl_utf8_chars(head[0][k]) > hl_utf8_chars(head[1][k]) ?
+		    hl_utf8_chars(head[0][k]) : hl_utf8_chars(head[1][k]);
 	for (i = 0; i < net->nunit; i++) {
 		cells(net, &net->unit[i], c);
 		for (k = 0; k < NCOL; k++)
-			if (width(c[k]) > w[k])
-				w[k] = width(c[k]);
+			if (hl_utf8_chars(c[k]) > w[k])
+				w[k] = hl_utf8_chars(c[k]);
 	}
 	for (k = 0; k < 2; k++) {
 		char h[NCOL][CELL];
@@ -398,7 +383,7 @@ xml_unit(xmlTextWriterPtr w, const hl_network *net, const hl_network_unit *u)
 	rc |= hl_xml_str(w, "id", u->id);
 	rc |= hl_xml_str(w, "hot", net->party[u->hot].name);
 	rc |= hl_xml_str(w, "cold", net->party[u->cold].name);
-	rc |= hl_xml_str(w, "type", hl_network_type_name(u->type));
+	rc |= hl_xml_str(w, "type", hl_exchanger_type_name(u->type));
 	rc |= hl_xml_num(w, "duty", u->duty);
 	rc |= hl_xml_num(w, "hot-in", u->hot_in);
 	rc |= hl_xml_num(w, "hot-out", u->hot_out);
@@ -441,7 +426,7 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 	rc |= xmlTextWriterStartElement(w, BAD_CAST "network");
 	rc |= hl_xml_num(w, "dtmin", set->dtmin);
 	rc |= hl_xml_num(w, "emat", isnan(set->emat) ? set->dtmin : set->emat);
-	rc |= hl_xml_str(w, "exchanger", hl_network_type_name(set->exchanger));
+	rc |= hl_xml_str(w, "exchanger", hl_exchanger_type_name(set->exchanger));
 	rc |= hl_xml_num(w, "fmin", set->fmin);
 	rc |= hl_xml_num(w, "xp", set->xp);
 	rc |= hl_xml_num(w, "h-default", set->h_default);
@@ -483,39 +468,6 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 	return rc < 0 ? -1 : 0;
 }
 
-/* A CSV field, quoted when RFC 4180 needs it. */
-static void
-csv_text(FILE *fp, const char *s, int first)
-{
-	const char *p;
-
-	if (!first)
-		fputc(',', fp);
-	if (strpbrk(s, ",\"\r\n") == NULL && s[0] != ' ' && s[0] != '#') {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (p = s; *p != '\0'; p++) {
-		if (*p == '"')
-			fputc('"', fp);
-		fputc(*p, fp);
-	}
-	fputc('"', fp);
-}
-
-static void
-csv_num(FILE *fp, double v)
-{
-	char b[64];
-
-	fputc(',', fp);
-	if (!isfinite(v))
-		return;
-	hl_format_number(b, sizeof b, v);
-	fputs(b, fp);
-}
-
 void
 hl_network_csv(FILE *fp, const hl_network *net)
 {
@@ -527,32 +479,37 @@ hl_network_csv(FILE *fp, const hl_network *net)
 	for (i = 0; i < net->nunit; i++) {
 		const hl_network_unit *u = &net->unit[i];
 
-		csv_text(fp, u->id, 1);
-		csv_text(fp, net->party[u->hot].name, 0);
-		csv_text(fp, net->party[u->cold].name, 0);
-		csv_text(fp, hl_network_type_name(u->type), 0);
-		csv_num(fp, u->duty);
-		csv_num(fp, u->hot_in);
-		csv_num(fp, u->hot_out);
-		csv_num(fp, u->cold_in);
-		csv_num(fp, u->cold_out);
-		csv_num(fp, u->hot_share);
-		csv_num(fp, u->cold_share);
-		csv_num(fp, u->hot_stage > 0 ? u->hot_stage : NAN);
-		csv_num(fp, u->cold_stage > 0 ? u->cold_stage : NAN);
-		csv_num(fp, u->u);
-		csv_num(fp, u->lmtd);
-		csv_num(fp, u->ft);
-		csv_num(fp, u->shells);
-		csv_num(fp, u->area);
-		csv_num(fp, u->area_shell);
-		csv_num(fp, u->cost);
-		csv_num(fp, u->approach);
-		csv_num(fp, u->required);
-		csv_text(fp, u->assumed == 0 ? "" : u->assumed ==
+		hl_csv_text(fp, u->id);
+		fputc(',', fp);
+		hl_csv_text(fp, net->party[u->hot].name);
+		fputc(',', fp);
+		hl_csv_text(fp, net->party[u->cold].name);
+		fputc(',', fp);
+		hl_csv_text(fp, hl_exchanger_type_name(u->type));
+		hl_csv_num(fp, u->duty);
+		hl_csv_num(fp, u->hot_in);
+		hl_csv_num(fp, u->hot_out);
+		hl_csv_num(fp, u->cold_in);
+		hl_csv_num(fp, u->cold_out);
+		hl_csv_num(fp, u->hot_share);
+		hl_csv_num(fp, u->cold_share);
+		hl_csv_num(fp, u->hot_stage > 0 ? u->hot_stage : NAN);
+		hl_csv_num(fp, u->cold_stage > 0 ? u->cold_stage : NAN);
+		hl_csv_num(fp, u->u);
+		hl_csv_num(fp, u->lmtd);
+		hl_csv_num(fp, u->ft);
+		hl_csv_num(fp, u->shells);
+		hl_csv_num(fp, u->area);
+		hl_csv_num(fp, u->area_shell);
+		hl_csv_num(fp, u->cost);
+		hl_csv_num(fp, u->approach);
+		hl_csv_num(fp, u->required);
+		fputc(',', fp);
+		hl_csv_text(fp, u->assumed == 0 ? "" : u->assumed ==
 		    (HL_NETWORK_H_HOT | HL_NETWORK_H_COLD) ? "h-hot h-cold" :
-		    u->assumed == HL_NETWORK_H_HOT ? "h-hot" : "h-cold", 0);
-		csv_text(fp, u->note != NULL ? u->note : "", 0);
+		    u->assumed == HL_NETWORK_H_HOT ? "h-hot" : "h-cold");
+		fputc(',', fp);
+		hl_csv_text(fp, u->note != NULL ? u->note : "");
 		fputc('\n', fp);
 	}
 }

@@ -14,8 +14,6 @@
 
 #include "network.h"
 
-/* Name of an exchanger type as in files ("shell-and-tube", "counterflow"). */
-const char *hl_network_type_name(hl_exchanger_type t);
 
 /* A report for an engineer: summary, table, stream chains, notes, the
  * assumptions and the caution (may be NULL). */

@@ -11,36 +11,14 @@
 #include <string.h>
 
 #include "size_out.h"
+#include "text_out.h"
+#include "utf8.h"
 
-const char *
-hl_size_type_name(hl_exchanger_type type)
-{
-	return type == HL_EXCH_COUNTERFLOW ? "counterflow" : "shell-and-tube";
-}
-
-int
-hl_size_row_cross(const hl_size_row *row)
+/* Whether the unit's cold outlet is above its hot outlet. */
+static int
+row_cross(const hl_size_row *row)
 {
 	return row->spec.cold_out > row->spec.hot_out;
-}
-
-/* Display width of a UTF-8 string: one per character. */
-/* Display width of the first len bytes of a UTF-8 string: one per
- * character. */
-static size_t
-width_n(const char *s, size_t len)
-{
-	size_t i, n = 0;
-
-	for (i = 0; i < len && s[i] != '\0'; i++)
-		n += ((unsigned char)s[i] & 0xC0) != 0x80;
-	return n;
-}
-
-static size_t
-text_width(const char *s)
-{
-	return width_n(s, strlen(s));
 }
 
 /* A line that holds back its spaces until something follows them, so that
@@ -91,7 +69,7 @@ wrapped(FILE *fp, const char *s, const char *first, const char *next,
 		if (*s == '\0')
 			break;
 		n = strcspn(s, " ");
-		w = width_n(s, n);
+		w = hl_utf8_chars_n(s, n);
 		if (col > 0 && col + 1 + w > width) {
 			fputc('\n', fp);
 			col = 0;
@@ -99,7 +77,7 @@ wrapped(FILE *fp, const char *s, const char *first, const char *next,
 		}
 		if (col == 0) {
 			fputs(lead, fp);
-			col = text_width(lead);
+			col = hl_utf8_chars(lead);
 		} else {
 			fputc(' ', fp);
 			col++;
@@ -173,7 +151,7 @@ sized_cells(const hl_size_row *row, cells *c)
 	if (row->assumed & HL_ASSUMED_COST)
 		c->mark[K_COST] = '*';
 	snprintf(c->text[K_NOTE], CELL, "%s",
-	    hl_size_row_cross(row) ? "cross" : "");
+	    row_cross(row) ? "cross" : "");
 }
 
 static void
@@ -214,7 +192,7 @@ typedef struct {
 static size_t
 wider(size_t w, const char *s)
 {
-	size_t n = text_width(s);
+	size_t n = hl_utf8_chars(s);
 
 	return n > w ? n : w;
 }
@@ -225,9 +203,9 @@ measure(const hl_size_result *r, widths *w)
 	cells c;
 	size_t i, k;
 
-	w->name = text_width("unit");
+	w->name = hl_utf8_chars("unit");
 	for (k = 0; k < K_COUNT; k++)
-		w->col[k] = wider(text_width(column[k].head), column[k].unit);
+		w->col[k] = wider(hl_utf8_chars(column[k].head), column[k].unit);
 	for (i = 0; i < r->n; i++) {
 		w->name = wider(w->name, r->row[i].unit->name);
 		row_cells(&r->row[i], &c);
@@ -240,7 +218,7 @@ measure(const hl_size_result *r, widths *w)
 static void
 put_cell(line *l, size_t k, size_t w, const char *s, char mark)
 {
-	size_t n = text_width(s);
+	size_t n = hl_utf8_chars(s);
 	char m[2] = { mark, '\0' };
 
 	pad(l, 1);
@@ -256,7 +234,7 @@ static void
 put_name(line *l, const char *s, size_t w)
 {
 	put(l, s);
-	pad(l, w - text_width(s));
+	pad(l, w - hl_utf8_chars(s));
 }
 
 static void
@@ -332,7 +310,7 @@ note_cross(FILE *fp, const hl_size_row *row)
 	const hl_exchanger_spec *s = &row->spec;
 	char tail[64] = "";
 
-	if (!hl_size_row_cross(row))
+	if (!row_cross(row))
 		return;
 	if (s->type == HL_EXCH_COUNTERFLOW)
 		snprintf(tail, sizeof tail, "; a counterflow unit can do it");
@@ -385,7 +363,7 @@ note_h(FILE *fp, const hl_size_row *row, const hl_settings *d)
 static int
 has_note(const hl_size_row *row)
 {
-	return row->status != HL_OK || hl_size_row_cross(row) ||
+	return row->status != HL_OK || row_cross(row) ||
 	    (row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)) ||
 	    balance_differs(row);
 }
@@ -563,7 +541,7 @@ xml_row(xmlTextWriterPtr w, const hl_size_row *row)
 	rc |= xmlTextWriterStartElement(w, BAD_CAST "exchanger");
 	rc |= hl_xml_str(w, "id", row->unit->name);
 	rc |= hl_xml_int(w, "line", row->unit->line);
-	rc |= hl_xml_str(w, "type", hl_size_type_name(row->spec.type));
+	rc |= hl_xml_str(w, "type", hl_exchanger_type_name(row->spec.type));
 	rc |= xml_terminals(w, row);
 	rc |= xml_sizing(w, row);
 	rc |= hl_xml_str(w, "status", row->status == HL_OK ? "sized" :
@@ -595,39 +573,6 @@ hl_size_xml(xmlTextWriterPtr w, const hl_size_result *r)
 	return rc < 0 ? -1 : 0;
 }
 
-/* A CSV field, quoted when RFC 4180 needs it. */
-static void
-csv_text(FILE *fp, const char *s)
-{
-	const char *p;
-
-	if (strpbrk(s, ",\"\r\n") == NULL && s[0] != ' ' && s[0] != '#' &&
-	    (s[0] == '\0' || s[strlen(s) - 1] != ' ')) {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (p = s; *p != '\0'; p++) {
-		if (*p == '"')
-			fputc('"', fp);
-		fputc(*p, fp);
-	}
-	fputc('"', fp);
-}
-
-/* A number, or an empty field for NaN and infinity. */
-static void
-csv_num(FILE *fp, double v)
-{
-	char b[64];
-
-	fputc(',', fp);
-	if (!isfinite(v))
-		return;
-	hl_format_number(b, sizeof b, v);
-	fputs(b, fp);
-}
-
 static void
 csv_row(FILE *fp, const hl_size_row *row)
 {
@@ -636,29 +581,29 @@ csv_row(FILE *fp, const hl_size_row *row)
 	int ok = row->status == HL_OK;
 	char assumed[64];
 
-	csv_text(fp, row->unit->name);
-	fprintf(fp, ",%ld,%s", row->unit->line, hl_size_type_name(s->type));
-	csv_num(fp, s->duty);
-	csv_num(fp, s->hot_in);
-	csv_num(fp, s->hot_out);
-	csv_num(fp, s->cold_in);
-	csv_num(fp, s->cold_out);
-	csv_num(fp, s->u);
-	csv_num(fp, z->lmtd);
-	csv_num(fp, z->p);
-	csv_num(fp, z->r);
-	csv_num(fp, ok ? z->f : NAN);
-	csv_num(fp, ok ? z->shells : NAN);
-	csv_num(fp, ok ? z->area : NAN);
-	csv_num(fp, ok ? z->area_shell : NAN);
-	csv_num(fp, ok ? z->cost : NAN);
+	hl_csv_text(fp, row->unit->name);
+	fprintf(fp, ",%ld,%s", row->unit->line, hl_exchanger_type_name(s->type));
+	hl_csv_num(fp, s->duty);
+	hl_csv_num(fp, s->hot_in);
+	hl_csv_num(fp, s->hot_out);
+	hl_csv_num(fp, s->cold_in);
+	hl_csv_num(fp, s->cold_out);
+	hl_csv_num(fp, s->u);
+	hl_csv_num(fp, z->lmtd);
+	hl_csv_num(fp, z->p);
+	hl_csv_num(fp, z->r);
+	hl_csv_num(fp, ok ? z->f : NAN);
+	hl_csv_num(fp, ok ? z->shells : NAN);
+	hl_csv_num(fp, ok ? z->area : NAN);
+	hl_csv_num(fp, ok ? z->area_shell : NAN);
+	hl_csv_num(fp, ok ? z->cost : NAN);
 	fprintf(fp, ",%s,%d,", ok ? "sized" : "too-many-shells",
-	    hl_size_row_cross(row));
+	    row_cross(row));
 	assumed_list(row->assumed, s->type == HL_EXCH_SHELL_TUBE, assumed,
 	    sizeof assumed);
 	fputs(assumed, fp);
 	fputc(',', fp);
-	csv_text(fp, ok ? "" : row->note);
+	hl_csv_text(fp, ok ? "" : row->note);
 	fputc('\n', fp);
 }
 

@@ -106,8 +106,7 @@ hl_sweep_text(FILE *fp, const hl_case *c, const hl_sweep *sw)
 			i == sw->best ? "  <- least on the grid" : "");
 	}
 	fprintf(fp, "\nArea is %s area; costs in %s per year (capital "
-		"annualised).\n", c->set.exchanger == HL_EXCH_SHELL_TUBE ?
-		"shell-and-tube" : "counterflow", cur);
+		"annualised).\n", hl_exchanger_type_name(c->set.exchanger), cur);
 	fprintf(fp, "Optimum ΔTmin %.2f K: total annual cost %.0f %s/yr "
 		"(energy %.0f, capital %.0f), %d units, %d shells, %.1f m²\n",
 		sw->optimum.dtmin, sw->optimum.total_cost, cur,
