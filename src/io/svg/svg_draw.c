@@ -11,6 +11,7 @@
 #include <string.h>
 
 #include "svg_private.h"
+#include "utf8.h"
 
 #define INK "#2b2f36"
 #define INK_SOFT "#5b616b"
@@ -34,22 +35,11 @@ typedef struct {
 	int legend_rows;
 } layout;
 
-/* Number of characters of a UTF-8 string. */
-static size_t
-text_chars(const char *s)
-{
-	size_t n = 0;
-
-	for (; *s; s++)
-		n += ((unsigned char)*s & 0xc0) != 0x80;
-	return n;
-}
-
 /* Width of a text in chart units: a fair average for sans-serif fonts. */
 static double
 text_width(const char *s, double size)
 {
-	return s ? 0.58 * size * (double)text_chars(s) : 0.0;
+	return s ? 0.58 * size * (double)hl_utf8_chars(s) : 0.0;
 }
 
 /* Heckbert (1990), "Nice numbers for graph labels": the nice number
@@ -232,7 +222,7 @@ foot_lines(const hl_svg_chart *ch, size_t *starts, size_t *lens)
 		double wd = 0.0;
 
 		while (end < len) {
-			if (((unsigned char)s[end] & 0xc0) != 0x80)
+			if (!HL_UTF8_CONT(s[end]))
 				wd += 0.58 * FS_FOOT;
 			if (wd > room && brk > pos)
 				break;
