@@ -5,7 +5,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "audit_private.h"
+#include "audit_int.h"
 #include "cascade.h"
 #include "utility_lp.h"
 

@@ -9,7 +9,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "existing_private.h"
+#include "existing_int.h"
 
 /* One unit's side on the stream being walked. */
 typedef struct {

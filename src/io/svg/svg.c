@@ -3,7 +3,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "svg_private.h"
+#include "svg_int.h"
 
 /* Okabe & Ito (2008), "Color universal design", J*FLY; grey added. */
 static const char *const palette[HL_SVG_NCOLOURS] = {

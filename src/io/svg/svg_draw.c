@@ -1,4 +1,4 @@
-/* svg_draw.c - layout and drawing of a chart (model in svg_private.h).
+/* svg_draw.c - layout and drawing of a chart (model in svg_int.h).
  *
  * The look: white page, a slate accent bar beside a left-aligned title,
  * the legend as a row of line samples under the title, hairline grid, axes
@@ -10,7 +10,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "svg_private.h"
+#include "svg_int.h"
 #include "utf8.h"
 
 #define INK "#2b2f36"
