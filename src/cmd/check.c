@@ -11,7 +11,7 @@
 
 #include "cmd.h"
 #include "netcheck.h"
-#include "network_xml.h"
+#include "network_read.h"
 #include "output.h"
 
 static const hl_option option_rows[] = {

@@ -13,8 +13,8 @@
 #include "netcheck.h"
 #include "netfix.h"
 #include "network.h"
-#include "network_out.h"
-#include "network_xml.h"
+#include "network_write.h"
+#include "network_read.h"
 #include "profile.h"
 #include "result_xml.h"
 

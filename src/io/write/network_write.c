@@ -1,10 +1,10 @@
-/* network_out.c - writers of a designed network (network_out.h). */
+/* network_write.c - writers of a designed network (network_write.h). */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
-#include "network_out.h"
+#include "network_write.h"
 #include "text_out.h"
 #include "utf8.h"
 #include "profile.h"
