@@ -7,7 +7,7 @@
 
 #include "case_load.h"
 #include "cmd.h"
-#include "csv.h"
+#include "number.h"
 #include "output.h"
 
 const char hl_caution[] =

@@ -9,6 +9,7 @@
 #include <cmocka.h>
 
 #include "csv.h"
+#include "number.h"
 #include "tables.h"
 
 static hl_csv *

@@ -3,6 +3,7 @@
 #include <string.h>
 #include <strings.h>
 
+#include "number.h"
 #include "table.h"
 
 static hl_status
