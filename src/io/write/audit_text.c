@@ -200,11 +200,9 @@ units(FILE *fp, const hl_case *c, const hl_audit *a)
 		"cold", "duty kW", "hot °C", "cold °C", "area m²", "sh", "α_u");
 	for (i = 0; i < a->net->nunit; i++)
 		unit_row(fp, c, a, i, w);
-	for (i = a->net->nrow; i < a->net->nunit; i++) {
+	if (a->net->nrow < a->net->nunit)
 		fprintf(fp, "  (gaps: stretches no row covers, counted as "
 			"utility; see the warnings)\n");
-		break;
-	}
 }
 
 static void

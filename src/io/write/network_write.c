@@ -185,12 +185,13 @@ text_chain(FILE *fp, const hl_network *net, size_t p)
 			out = hot ? u->hot_out : u->cold_out;
 			count++;
 		}
-		if (count > 1)
-			n += (size_t)snprintf(buf + n, sizeof buf - n, "]");
 		/* After a split the branches mix: show the mixed outlet. */
 		if (count > 1) {
 			double q = 0.0;
 
+			if (n < sizeof buf)
+				n += (size_t)snprintf(buf + n, sizeof buf - n,
+				    "]");
 			for (i = 0; i < net->nunit; i++) {
 				const hl_network_unit *u = &net->unit[i];
 
