@@ -11,20 +11,10 @@
 
 #include "cascade.h"
 #include "gen.h"
+#include "near.h"
 
 /* Relative agreement demanded of published targets (issue: 1e-9). */
 #define REL 1e-9
-
-static void
-assert_rel(double got, double want, double rel)
-{
-	double scale = fabs(want) > 1.0 ? fabs(want) : 1.0;
-
-	if (fabs(got - want) > rel * scale) {
-		print_error("got %.15g, want %.15g\n", got, want);
-		fail();
-	}
-}
 
 /* Linnhoff et al., User Guide on Process Integration for the Efficient Use of
  * Energy (IChemE 1982); also Kemp, Pinch Analysis and Process Integration,

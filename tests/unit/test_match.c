@@ -9,6 +9,7 @@
 #include <string.h>
 #include <unistd.h>
 #include <cmocka.h>
+
 #include <libxml/parser.h>
 #include <libxml/relaxng.h>
 
@@ -17,6 +18,7 @@
 #include "match_check.h"
 #include "match_milp.h"
 #include "matches_out.h"
+#include "near.h"
 #include "result_xml.h"
 
 /* Heat balances hold to this share of the largest party heat (LP
@@ -24,17 +26,6 @@
 #define BAL 1e-6
 /* Published and hand-derived duties, kW: GLPK solutions to 1e-6 relative. */
 #define REL 1e-6
-
-static void
-assert_rel(double got, double want, double rel)
-{
-	double scale = fabs(want) > 1.0 ? fabs(want) : 1.0;
-
-	if (fabs(got - want) > rel * scale) {
-		print_error("got %.15g, want %.15g\n", got, want);
-		fail();
-	}
-}
 
 /* Linnhoff et al., User Guide on Process Integration for the Efficient Use
  * of Energy (IChemE 1982); also Kemp, Pinch Analysis and Process

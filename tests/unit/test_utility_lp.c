@@ -16,22 +16,12 @@
 #include "cascade.h"
 #include "gen.h"
 #include "glpk_guard.h"
+#include "near.h"
 #include "utility_lp.h"
 
 /* Agreement demanded between the LP and the problem table: both are exact
  * up to rounding. */
 #define REL 1e-9
-
-static void
-assert_rel(double got, double want, double rel)
-{
-	double scale = fabs(want) > 1.0 ? fabs(want) : 1.0;
-
-	if (fabs(got - want) > rel * scale) {
-		print_error("got %.15g, want %.15g\n", got, want);
-		fail();
-	}
-}
 
 /* The four-stream problems and their sources: tests/unit/gen.c. */
 static hl_utility_lp *
