@@ -109,10 +109,6 @@ int hl_cmd_fail(const hl_error *err);
 int hl_cmd_usage(const char *cmd, const char *fmt, ...)
 	__attribute__((format(printf, 2, 3)));
 
-/* Parse the options of argv (argv[0] the command's name) into opts by the
- * table, and the one operand into opts' hl_common input. 0, -1 after
- * --help (exit 0), or the exit code of a usage error (printed). */
-int hl_cmd_parse(const hl_command *cmd, int argc, char **argv, void *opts);
 /* The help of `heatloom help CMD` and `heatloom CMD --help`. */
 void hl_cmd_help(const hl_command *cmd, FILE *fp);
 /* Parse, check, run and turn the result into the exit code. */

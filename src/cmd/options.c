@@ -93,8 +93,11 @@ apply(const hl_command *cmd, size_t i, const char *arg, void *opts)
 	}
 }
 
-int
-hl_cmd_parse(const hl_command *cmd, int argc, char **argv, void *opts)
+/* Parse the options of argv (argv[0] the command's name) into opts by the
+ * table, and the one operand into opts' hl_common input. 0, -1 after
+ * --help (exit 0), or the exit code of a usage error (printed). */
+static int
+parse(const hl_command *cmd, int argc, char **argv, void *opts)
 {
 	struct option lo[MAX_ROWS + 1];
 	char so[2 * MAX_ROWS + 2];
@@ -226,7 +229,7 @@ hl_cmd_main(const hl_command *cmd, int argc, char **argv)
 	hl_common_init(opts);
 	if (cmd->init != NULL)
 		cmd->init(opts);
-	rc = hl_cmd_parse(cmd, argc, argv, opts);
+	rc = parse(cmd, argc, argv, opts);
 	if (rc == 0 && cmd->check != NULL)
 		rc = cmd->check(opts);
 	if (rc != 0) {

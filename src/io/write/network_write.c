@@ -10,42 +10,6 @@
 #include "profile.h"
 #include "result_xml.h"
 
-/* s broken at spaces into lines of at most `cols` characters, the first
- * led by `first`, the others by `next`. */
-static void
-wrapped(FILE *fp, const char *s, const char *first, const char *next,
-	size_t cols)
-{
-	const char *lead = first;
-	size_t col = 0, n;
-	char word[512];
-
-	/* Line breaks in the text are blanks like any other. */
-	for (;;) {
-		s += strspn(s, " \n");
-		if (*s == '\0')
-			break;
-		n = strcspn(s, " \n");
-		snprintf(word, sizeof word, "%.*s", (int)n, s);
-		if (col > 0 && col + 1 + hl_utf8_chars(word) > cols) {
-			fputc('\n', fp);
-			col = 0;
-			lead = next;
-		}
-		if (col == 0) {
-			fputs(lead, fp);
-			col = hl_utf8_chars(lead);
-		} else {
-			fputc(' ', fp);
-			col++;
-		}
-		fputs(word, fp);
-		col += hl_utf8_chars(word);
-		s += n;
-	}
-	fputc('\n', fp);
-}
-
 #define NCOL 16
 #define CELL 96
 
@@ -208,7 +172,7 @@ text_chain(FILE *fp, const hl_network *net, size_t p)
 	}
 	fprintf(fp, "  %s (%s): ", s->name, s->kind == HL_HOT ? "hot" :
 	    "cold");
-	wrapped(fp, buf, "", "      ", 72);
+	hl_text_wrap(fp, buf, "", "      ", 72);
 }
 
 static void
@@ -263,12 +227,12 @@ text_notes(FILE *fp, const hl_network *net)
 		return;
 	fprintf(fp, "\nNotes\n");
 	for (i = 0; i < net->nnote; i++)
-		wrapped(fp, net->note[i], "  ", "      ", 78);
+		hl_text_wrap(fp, net->note[i], "  ", "      ", 78);
 	for (i = 0; i < net->nunit; i++)
 		if (net->unit[i].note != NULL) {
 			snprintf(buf, sizeof buf, "%s: %s", net->unit[i].id,
 			    net->unit[i].note);
-			wrapped(fp, buf, "  ", "      ", 78);
+			hl_text_wrap(fp, buf, "  ", "      ", 78);
 		}
 }
 
@@ -301,7 +265,7 @@ text_assumed(FILE *fp, const hl_network *net)
 		    "(the setting h_default) for: %s. Give each stream its "
 		    "h (film coefficient with fouling) for a better "
 		    "estimate.", net->set.h_default, buf);
-		wrapped(fp, line, "", "  ", 78);
+		hl_text_wrap(fp, line, "", "  ", 78);
 	}
 	snprintf(buf, sizeof buf, "Cost per shell %.6g + %.6g·A^%.3g (A in "
 	    "m², the setting cost a, b, c; the built-in law is illustrative, "
@@ -311,7 +275,7 @@ text_assumed(FILE *fp, const hl_network *net)
 	    "fraction of a stream's flow through the unit (1 unless the "
 	    "stream is split).", net->set.cost_a, net->set.cost_b,
 	    net->set.cost_c);
-	wrapped(fp, buf, "", "", 78);
+	hl_text_wrap(fp, buf, "", "", 78);
 }
 
 void
@@ -329,7 +293,7 @@ hl_network_text(FILE *fp, const hl_network *net, const char *caution)
 	text_assumed(fp, net);
 	if (caution != NULL) {
 		fputc('\n', fp);
-		wrapped(fp, caution, "", "", 78);
+		hl_text_wrap(fp, caution, "", "", 78);
 	}
 }
 

@@ -55,40 +55,6 @@ end_line(line *l)
 	fputc('\n', l->fp);
 }
 
-/* s broken at spaces into lines of at most width characters, the first
- * led by `first`, the others by `next`. */
-static void
-wrapped(FILE *fp, const char *s, const char *first, const char *next,
-	size_t width)
-{
-	const char *lead = first;
-	size_t col = 0, n, w;
-
-	for (;;) {
-		s += strspn(s, " ");
-		if (*s == '\0')
-			break;
-		n = strcspn(s, " ");
-		w = hl_utf8_chars_n(s, n);
-		if (col > 0 && col + 1 + w > width) {
-			fputc('\n', fp);
-			col = 0;
-			lead = next;
-		}
-		if (col == 0) {
-			fputs(lead, fp);
-			col = hl_utf8_chars(lead);
-		} else {
-			fputc(' ', fp);
-			col++;
-		}
-		fwrite(s, 1, n, fp);
-		col += w;
-		s += n;
-	}
-	fputc('\n', fp);
-}
-
 /* The columns after the unit's name. */
 enum { K_TYPE, K_DUTY, K_HIN, K_HOUT, K_CIN, K_COUT, K_U, K_LMTD, K_P, K_R,
        K_F, K_SHELLS, K_AREA, K_ASHELL, K_COST, K_NOTE, K_COUNT };
@@ -301,7 +267,7 @@ note(FILE *fp, const hl_size_row *row, const char *fmt, ...)
 	va_end(ap);
 	snprintf(buf, sizeof buf, "%.200s (line %ld): %s", row->unit->name,
 	    row->unit->line, text);
-	wrapped(fp, buf, "  ", "      ", NOTE_WIDTH);
+	hl_text_wrap(fp, buf, "  ", "      ", NOTE_WIDTH);
 }
 
 static void
@@ -413,26 +379,26 @@ text_assumed(FILE *fp, const hl_size_result *r)
 	fprintf(fp, "\n* assumed: built-in defaults (set them per row or on "
 	    "the command line)\n");
 	if (a & HL_ASSUMED_TYPE)
-		wrapped(fp, "type shell-and-tube (column type, --type)", "  ",
+		hl_text_wrap(fp, "type shell-and-tube (column type, --type)", "  ",
 		    "    ", NOTE_WIDTH);
 	if (a & (HL_ASSUMED_FMIN | HL_ASSUMED_XP)) {
 		snprintf(buf, sizeof buf, "shells: F floor %.2f, each shell's "
 		    "P at most %g of its maximum (columns fmin, xp; --fmin, "
 		    "--xp)", d->fmin, d->xp);
-		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+		hl_text_wrap(fp, buf, "  ", "    ", NOTE_WIDTH);
 	}
 	if (a & HL_ASSUMED_COST) {
 		snprintf(buf, sizeof buf, "cost per shell %g + %g·A^%g, A in "
 		    "m²: an illustrative law, not a price; give your own "
 		    "(columns cost_a, cost_b, cost_c; --cost-a, --cost-b, "
 		    "--cost-c)", d->cost_a, d->cost_b, d->cost_c);
-		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+		hl_text_wrap(fp, buf, "  ", "    ", NOTE_WIDTH);
 	}
 	if (a & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)) {
 		snprintf(buf, sizeof buf, "U from one given film coefficient "
 		    "and %g kW/(m²·K) for the other (see the notes)",
 		    d->h_default);
-		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+		hl_text_wrap(fp, buf, "  ", "    ", NOTE_WIDTH);
 	}
 }
 

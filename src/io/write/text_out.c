@@ -20,6 +20,38 @@ hl_text_pad(FILE *fp, const char *s, int w)
 }
 
 void
+hl_text_wrap(FILE *fp, const char *s, const char *first, const char *next,
+	     size_t width)
+{
+	const char *lead = first;
+	size_t col = 0, n, w;
+
+	for (;;) {
+		s += strspn(s, " \n");
+		if (*s == '\0')
+			break;
+		n = strcspn(s, " \n");
+		w = hl_utf8_chars_n(s, n);
+		if (col > 0 && col + 1 + w > width) {
+			fputc('\n', fp);
+			col = 0;
+			lead = next;
+		}
+		if (col == 0) {
+			fputs(lead, fp);
+			col = hl_utf8_chars(lead);
+		} else {
+			fputc(' ', fp);
+			col++;
+		}
+		fwrite(s, 1, n, fp);
+		col += w;
+		s += n;
+	}
+	fputc('\n', fp);
+}
+
+void
 hl_csv_text(FILE *fp, const char *s)
 {
 	const char *p;

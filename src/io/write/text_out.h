@@ -5,10 +5,17 @@
 #ifndef HL_TEXT_OUT_H
 #define HL_TEXT_OUT_H
 
+#include <stddef.h>
 #include <stdio.h>
 
 /* s padded with spaces to w characters; a longer s is cut to w. */
 void hl_text_pad(FILE *fp, const char *s, int w);
+
+/* s broken at blanks (spaces and line breaks) into lines of at most width
+ * characters, the first led by first, the others by next; a word longer
+ * than a line stands alone on its line. Ends with a line break. */
+void hl_text_wrap(FILE *fp, const char *s, const char *first,
+		  const char *next, size_t width);
 
 /* A CSV text field (no comma before it), quoted when it holds a comma, a
  * quote or a line break, or starts with '#' or a blank or ends with one. */
