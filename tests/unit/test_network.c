@@ -247,7 +247,7 @@ test_kemp4_sized(void **state)
 	for (i = 0; i < net->nunit; i++)
 		capital += net->unit[i].cost;
 	/* Capital recovery factor at 10 % over 10 years: 0.16275 (the
-	 * annuity formula, references.md [derived]). */
+	 * annuity formula, doc/references.md [derived]). */
 	assert_rel(net->capital, capital, TOL);
 	assert_rel(net->crf, 0.1627453949, 1e-9);
 	assert_rel(net->energy_cost, (31.5 * 20 + 1.2 * 60) * 8000 / 1000,

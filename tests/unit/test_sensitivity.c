@@ -97,7 +97,7 @@ test_kemp4_by_hand(void **state)
 	 * QCmin gains the 4 kW/K C2 no longer takes: −1.5 + 4 = 2.5. */
 	assert_row(row_of(c, s, "C2", HL_SENS_SUPPLY, 0), -1.5, -1.5, 2.5, 2.5);
 	/* ΔTmin: every hot cp crossing the pinch, 3 + 1.5 = 4.5 kW/K. The
-	 * targets at 20 K, 65 / 105 kW (references.md, derived by hand
+	 * targets at 20 K, 65 / 105 kW (doc/references.md, derived by hand
 	 * cascade), agree: (65 − 20)/10 = (105 − 60)/10 = 4.5. */
 	assert_row(&s->dt, 4.5, 4.5, 4.5, 4.5);
 	assert_false(s->dt.kink);

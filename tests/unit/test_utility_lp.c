@@ -287,7 +287,7 @@ test_random_one_each(void **state)
 /* --- Several levels, answers known by hand -------------------------------
  * Smith's problem with a second, cheaper hot utility condensing at 200 °C
  * (195 °C shifted): the cascade carries 3.0 MW past 195 °C, so the level can
- * take at most 3000 kW of the 7500 kW (references.md, derived by hand). */
+ * take at most 3000 kW of the 7500 kW (doc/references.md, derived by hand). */
 static void
 test_smith_second_level(void **state)
 {

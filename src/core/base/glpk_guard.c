@@ -1,4 +1,5 @@
-/* glpk_guard.c - GLPK hooks and status mapping (design.md, "GLPK rules"). */
+/* glpk_guard.c - GLPK hooks and status mapping (doc/design.md,
+ * "Conventions"). */
 #include <limits.h>
 #include <math.h>
 #include <string.h>

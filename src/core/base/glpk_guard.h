@@ -1,9 +1,9 @@
 /* glpk_guard.h - running GLPK without letting it print, abort or hang.
  *
  * GLPK reports a misuse of its API (a bad index, inconsistent bounds) by
- * printing a message and calling abort(). design.md forbids both in the core:
- * a guard installs glp_error_hook with a jump back into the caller, sends
- * GLPK's terminal output to a log callback (or nowhere), and maps the
+ * printing a message and calling abort(). doc/design.md forbids both in the
+ * core: a guard installs glp_error_hook with a jump back into the caller,
+ * sends GLPK's terminal output to a log callback (or nowhere), and maps the
  * outcome of a solver call to an hl_status with a sentence a user
  * understands.
  *
