@@ -22,16 +22,15 @@ typedef struct {
 } audit_opts;
 
 static const hl_option option_rows[] = {
-	{ "network", 0, "FILE", "the existing network (CSV), instead of the "
-	  "case's own", HL_ARG_TEXT, offsetof(audit_opts, network), 0, 0,
-	  NULL },
+	HL_ROW_TEXT("network", "FILE", audit_opts, network,
+	    "the existing network (CSV), instead of the case's own"),
 	HL_ROW_DTMIN("ΔTmin of the targets (default: the case's, or 10)"),
 	HL_ROW_UTILITIES,
 	HL_ROW_FORMAT("text (default), xml, or csv (the retrofit curve)"),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
-	{ "svg", 0, "FILE", "chart of area against energy: the targets, "
-	  "today's\npoint and the retrofit curve", HL_ARG_TEXT,
-	  offsetof(audit_opts, svg), 0, 0, NULL },
+	HL_ROW_TEXT("svg", "FILE", audit_opts, svg,
+	    "chart of area against energy: the targets, today's\n"
+	    "point and the retrofit curve"),
 	HL_ROW_HELP,
 	HL_ROW_END
 };

@@ -71,7 +71,7 @@ run_check(void *opts, hl_error *err)
 }
 
 const hl_command hl_cmd_check = {
-	"check", "NETWORK.xml [options]",
+	"check", "NETWORK.xml [--quiet]",
 	"verify a network file: balances, EMAT, utilities, sizing",
 	"Verify a heat exchanger network on its own, whoever made it: the heat\n"
 	"balance of every exchanger and stream, the order and splits along each\n"

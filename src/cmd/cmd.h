@@ -38,21 +38,27 @@ typedef struct {
 	int (*call)(void *opts, const char *arg);  /* CALL: 0 or exit code */
 } hl_option;
 
+/* Rows of a command's own options: type is its options struct, member the
+ * field the value goes to. */
+#define HL_ROW_NUMBER(name, arg, type, member, lo, hi, text) { name, 0, \
+	arg, text, HL_ARG_NUMBER, offsetof(type, member), lo, hi, NULL }
+#define HL_ROW_TEXT(name, arg, type, member, text) { name, 0, arg, text, \
+	HL_ARG_TEXT, offsetof(type, member), 0, 0, NULL }
+#define HL_ROW_FLAG(name, type, member, value, text) { name, 0, NULL, text, \
+	HL_ARG_FLAG, offsetof(type, member), value, 0, NULL }
+
 /* The options shared by many commands; they live in hl_common, which is the
  * first member of every command's options. */
-#define HL_ROW_DTMIN(text) { "dtmin", 0, "K", text, HL_ARG_NUMBER, \
-	offsetof(hl_common, dtmin), 0.0, 500.0, NULL }
-#define HL_ROW_UTILITIES { "utilities", 0, "FILE", \
-	"utility table (CSV) to add to the case", HL_ARG_TEXT, \
-	offsetof(hl_common, utilities), 0, 0, NULL }
+#define HL_ROW_DTMIN(text) \
+	HL_ROW_NUMBER("dtmin", "K", hl_common, dtmin, 0.0, 500.0, text)
+#define HL_ROW_UTILITIES HL_ROW_TEXT("utilities", "FILE", hl_common, \
+	utilities, "utility table (CSV) to add to the case")
 #define HL_ROW_FORMAT(text) { "format", 0, "FMT", text, HL_ARG_FORMAT, \
 	offsetof(hl_common, format), 0, 0, NULL }
 #define HL_ROW_OUTPUT(arg, text) { "output", 'o', arg, text, HL_ARG_TEXT, \
 	offsetof(hl_common, output), 0, 0, NULL }
-#define HL_ROW_VERBOSE(text) { "verbose", 0, NULL, text, HL_ARG_FLAG, \
-	offsetof(hl_common, verbose), 1, 0, NULL }
-#define HL_ROW_QUIET(text) { "quiet", 0, NULL, text, HL_ARG_FLAG, \
-	offsetof(hl_common, quiet), 1, 0, NULL }
+#define HL_ROW_VERBOSE(text) HL_ROW_FLAG("verbose", hl_common, verbose, 1, text)
+#define HL_ROW_QUIET(text) HL_ROW_FLAG("quiet", hl_common, quiet, 1, text)
 #define HL_ROW_HELP { "help", 'h', NULL, "show this help", HL_ARG_HELP, \
 	0, 0, 0, NULL }
 #define HL_ROW_END { NULL, 0, NULL, NULL, HL_ARG_FLAG, 0, 0, 0, NULL }

@@ -38,17 +38,17 @@ typedef struct {
 static const hl_option option_rows[] = {
 	HL_ROW_DTMIN("minimum approach temperature for the targets (default:\n"
 		     "the case's, or 10)"),
-	{ "emat", 0, "K", "exchanger minimum approach, at most ΔTmin (default:"
-	  "\nthe case's, or ΔTmin)", HL_ARG_NUMBER, offsetof(options, emat),
-	  0.0, 500.0, NULL },
+	HL_ROW_NUMBER("emat", "K", options, emat, 0.0, 500.0,
+	    "exchanger minimum approach, at most ΔTmin (default:\n"
+	    "the case's, or ΔTmin)"),
 	HL_ROW_UTILITIES,
 	HL_ROW_FORMAT("text (default), xml (what `heatloom check` reads), csv"),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
-	{ "svg", 0, "FILE", "also draw the grid diagram into FILE (SVG)",
-	  HL_ARG_TEXT, offsetof(options, svg), 0, 0, NULL },
-	{ "time-limit", 0, "S", "seconds per subnetwork for the match MILP "
-	  "(default:\nthe case's, or 10); the best network found is used",
-	  HL_ARG_NUMBER, offsetof(options, time_limit), 0.0, 86400.0, NULL },
+	HL_ROW_TEXT("svg", "FILE", options, svg,
+	    "also draw the grid diagram into FILE (SVG)"),
+	HL_ROW_NUMBER("time-limit", "S", options, time_limit, 0.0, 86400.0,
+	    "seconds per subnetwork for the match MILP (default:\n"
+	    "the case's, or 10); the best network found is used"),
 	HL_ROW_QUIET("no warnings on standard error"),
 	HL_ROW_VERBOSE("the solvers' messages on standard error"),
 	HL_ROW_HELP,

@@ -26,13 +26,13 @@ static const hl_option option_rows[] = {
 	HL_ROW_UTILITIES,
 	HL_ROW_FORMAT("text (default), xml, or csv (the match table)"),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
-	{ "time-limit", 0, "S", "solver time per subnetwork in s (default: the "
-	  "case's,\nor 10); at the limit the best network found is given\n"
-	  "with its gap to the proven bound; 0: heuristic only",
-	  HL_ARG_NUMBER, offsetof(options, time_limit), 0.0, 1e6, NULL },
-	{ "export-model", 0, "FILE", "also write the MILP (CPLEX LP, or free "
-	  "MPS when FILE\nends in .mps) to solve it with another solver",
-	  HL_ARG_TEXT, offsetof(options, export_model), 0, 0, NULL },
+	HL_ROW_NUMBER("time-limit", "S", options, time_limit, 0.0, 1e6,
+	    "solver time per subnetwork in s (default: the case's,\n"
+	    "or 10); at the limit the best network found is given\n"
+	    "with its gap to the proven bound; 0: heuristic only"),
+	HL_ROW_TEXT("export-model", "FILE", options, export_model,
+	    "also write the MILP (CPLEX LP, or free MPS when FILE\n"
+	    "ends in .mps) to solve it with another solver"),
 	HL_ROW_QUIET("no progress on the terminal"),
 	HL_ROW_VERBOSE("show the solver's own messages on standard error"),
 	HL_ROW_HELP,

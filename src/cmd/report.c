@@ -37,12 +37,11 @@ typedef struct {
 	const char *network;
 } report_opts;
 
-#define NUMBER(name, arg, member, lo, hi, text) { name, 0, arg, text, \
-	HL_ARG_NUMBER, offsetof(report_opts, member), lo, hi, NULL }
-#define TEXT(name, arg, member, text) { name, 0, arg, text, HL_ARG_TEXT, \
-	offsetof(report_opts, member), 0, 0, NULL }
-#define OFF(name, member, text) { name, 0, NULL, text, HL_ARG_FLAG, \
-	offsetof(report_opts, member), 0, 0, NULL }
+#define NUMBER(name, arg, member, lo, hi, text) \
+	HL_ROW_NUMBER(name, arg, report_opts, member, lo, hi, text)
+#define TEXT(name, arg, member, text) \
+	HL_ROW_TEXT(name, arg, report_opts, member, text)
+#define OFF(name, member, text) HL_ROW_FLAG(name, report_opts, member, 0, text)
 
 static const hl_option option_rows[] = {
 	HL_ROW_DTMIN("ΔTmin of the study (default: the case's, or 10)"),

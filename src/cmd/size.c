@@ -49,23 +49,22 @@ parse_type(void *opts, const char *arg)
 }
 
 static const hl_option option_rows[] = {
-	{ "type", 0, "T", "shell-and-tube (default: 1 shell pass, 2, 4, … "
-	  "tube\npasses per shell) or counterflow (F = 1)", HL_ARG_CALL, 0,
-	  0, 0, parse_type },
-	{ "fmin", 0, "F", "F floor for the shell count (default 0.80)",
-	  HL_ARG_NUMBER, offsetof(options, set.fmin), 0.0, 0.999, NULL },
-	{ "xp", 0, "X", "largest share of the maximum P per shell (default "
-	  "0.9)", HL_ARG_NUMBER, offsetof(options, set.xp), 0.01, 1.0, NULL },
-	{ "cost-a", 0, "A", NULL, HL_ARG_NUMBER, offsetof(options, set.cost_a),
-	  0.0, 1e12, NULL },
-	{ "cost-b", 0, "B", NULL, HL_ARG_NUMBER, offsetof(options, set.cost_b),
-	  0.0, 1e12, NULL },
-	{ "cost-c", 0, "C", "cost per shell A + B·area^C, area in m² (default "
-	  "an\nillustrative 10000 + 800·area^0.8); all three together",
-	  HL_ARG_NUMBER, offsetof(options, set.cost_c), 0.01, 10.0, NULL },
-	{ "strict", 0, NULL, "a unit that cannot be built is an error (exit "
-	  "3)\ninstead of a unit reported as not sized", HL_ARG_FLAG,
-	  offsetof(options, strict), 1, 0, NULL },
+	{ "type", 0, "T", "shell-and-tube (default: 1 shell pass, 2, 4, … tube\n"
+	  "passes per shell) or counterflow (F = 1)", HL_ARG_CALL, 0, 0, 0,
+	  parse_type },
+	HL_ROW_NUMBER("fmin", "F", options, set.fmin, 0.0, 0.999,
+	    "F floor for the shell count (default 0.80)"),
+	HL_ROW_NUMBER("xp", "X", options, set.xp, 0.01, 1.0,
+	    "largest share of the maximum P per shell (default 0.9)"),
+	/* The three cost options share one help line. */
+	HL_ROW_NUMBER("cost-a", "A", options, set.cost_a, 0.0, 1e12, NULL),
+	HL_ROW_NUMBER("cost-b", "B", options, set.cost_b, 0.0, 1e12, NULL),
+	HL_ROW_NUMBER("cost-c", "C", options, set.cost_c, 0.01, 10.0,
+	    "cost per shell A + B·area^C, area in m² (default an\n"
+	    "illustrative 10000 + 800·area^0.8); all three together"),
+	HL_ROW_FLAG("strict", options, strict, 1,
+	    "a unit that cannot be built is an error (exit 3)\n"
+	    "instead of a unit reported as not sized"),
 	HL_ROW_FORMAT("text (default), xml, or csv"),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
 	HL_ROW_HELP,

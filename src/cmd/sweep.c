@@ -16,19 +16,19 @@ typedef struct {
 } sweep_opts;
 
 static const hl_option option_rows[] = {
-	{ "from", 0, "K", "first ΔTmin (default 2)", HL_ARG_NUMBER,
-	  offsetof(sweep_opts, from), 0.0, 500.0, NULL },
-	{ "to", 0, "K", "last ΔTmin (default 40)", HL_ARG_NUMBER,
-	  offsetof(sweep_opts, to), 0.0, 500.0, NULL },
-	{ "step", 0, "K", "grid step (default 1)", HL_ARG_NUMBER,
-	  offsetof(sweep_opts, step), 1e-3, 500.0, NULL },
+	HL_ROW_NUMBER("from", "K", sweep_opts, from, 0.0, 500.0,
+	    "first ΔTmin (default 2)"),
+	HL_ROW_NUMBER("to", "K", sweep_opts, to, 0.0, 500.0,
+	    "last ΔTmin (default 40)"),
+	HL_ROW_NUMBER("step", "K", sweep_opts, step, 1e-3, 500.0,
+	    "grid step (default 1)"),
 	HL_ROW_UTILITIES,
 	HL_ROW_FORMAT("text (default), xml, or csv"),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
-	{ "cost-svg", 0, "FILE", "chart of annual cost against ΔTmin",
-	  HL_ARG_TEXT, offsetof(sweep_opts, cost_svg), 0, 0, NULL },
-	{ "area-svg", 0, "FILE", "chart of area against hot utility",
-	  HL_ARG_TEXT, offsetof(sweep_opts, area_svg), 0, 0, NULL },
+	HL_ROW_TEXT("cost-svg", "FILE", sweep_opts, cost_svg,
+	    "chart of annual cost against ΔTmin"),
+	HL_ROW_TEXT("area-svg", "FILE", sweep_opts, area_svg,
+	    "chart of area against hot utility"),
 	HL_ROW_HELP,
 	HL_ROW_END
 };

@@ -25,13 +25,13 @@ static const hl_option option_rows[] = {
 	HL_ROW_DTMIN("minimum approach temperature (default: the case's, or 10)"),
 	HL_ROW_UTILITIES,
 	HL_ROW_FORMAT("text (default), xml, or csv (the cascade)"),
-	{ "sensitivity", 0, NULL, "how far each stream datum and ΔTmin move "
-	  "the targets,\nranked, with the band from the cp_tol and t_tol\n"
-	  "tolerances (csv: one row per datum)", HL_ARG_FLAG,
-	  offsetof(options, sensitivity), 1, 0, NULL },
-	{ "supertargets", 0, NULL, "also the area, units, shells and cost "
-	  "targets at this\nΔTmin (text and xml)", HL_ARG_FLAG,
-	  offsetof(options, super), 1, 0, NULL },
+	HL_ROW_FLAG("sensitivity", options, sensitivity, 1,
+	    "how far each stream datum and ΔTmin move the targets,\n"
+	    "ranked, with the band from the cp_tol and t_tol\n"
+	    "tolerances (csv: one row per datum)"),
+	HL_ROW_FLAG("supertargets", options, super, 1,
+	    "also the area, units, shells and cost targets at this\n"
+	    "ΔTmin (text and xml)"),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
 	HL_ROW_VERBOSE("show the LP solver's messages on standard error"),
 	HL_ROW_HELP,
