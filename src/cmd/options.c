@@ -10,7 +10,9 @@
 
 /* getopt_long's code for row i; letters keep their own code. */
 #define ROW_CODE(i) (256 + (int)(i))
-#define MAX_ROWS 40
+/* Rows of one table at most: hl_common.given has a bit per row. A longer
+ * table stops the command at once (and so fails tests/cli/options.sh). */
+#define MAX_ROWS 63
 
 static size_t
 count_rows(const hl_command *cmd)
@@ -225,6 +227,12 @@ hl_cmd_main(const hl_command *cmd, int argc, char **argv)
 	if (opts == NULL) {
 		fprintf(stderr, "heatloom: %s: out of memory\n", cmd->name);
 		return HL_EIO;
+	}
+	if (count_rows(cmd) > MAX_ROWS) {
+		fprintf(stderr, "heatloom: %s: more than %d options in its "
+			"table\n", cmd->name, MAX_ROWS);
+		free(opts);
+		return HL_EUSAGE;
 	}
 	hl_common_init(opts);
 	if (cmd->init != NULL)
