@@ -11,6 +11,10 @@ static const char *const palette[HL_SVG_NCOLOURS] = {
 	"#d55e00", "#cc79a7", "#6b7280"
 };
 
+const char hl_svg_caution[] =
+	"heatloom \xc2\xb7 screening estimate: detailed design and the safety "
+	"review of each match belong to qualified engineers under local codes";
+
 const char *
 hl_svg_colour_hex(hl_svg_colour c)
 {

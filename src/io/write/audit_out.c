@@ -266,9 +266,7 @@ chart_create(const hl_case *c, const hl_audit *a)
 			 "· α = %.2f", slash ? slash + 1 : src, a->dtmin,
 			 a->saving, a->alpha);
 	if (hl_svg_chart_set_subtitle(ch, sub) < 0 ||
-	    hl_svg_chart_set_footnote(ch, "heatloom · screening estimate: "
-		"detailed design and the safety review of each match belong "
-		"to qualified engineers under local codes") < 0) {
+	    hl_svg_chart_set_footnote(ch, hl_svg_caution) < 0) {
 		hl_svg_chart_free(ch);
 		return NULL;
 	}

@@ -208,9 +208,7 @@ chart(const char *title, const char *xl, const char *yl, const hl_case *c,
 		 slash ? slash + 1 : src, sw->optimum.dtmin,
 		 sw->optimum.total_cost, currency(c));
 	if (hl_svg_chart_set_subtitle(ch, sub) < 0 ||
-	    hl_svg_chart_set_footnote(ch, "heatloom · screening estimate: "
-		"detailed design and the safety review of each match belong "
-		"to qualified engineers under local codes") < 0) {
+	    hl_svg_chart_set_footnote(ch, hl_svg_caution) < 0) {
 		hl_svg_chart_free(ch);
 		return NULL;
 	}
