@@ -35,24 +35,6 @@ static const hl_option option_rows[] = {
 	HL_ROW_END
 };
 
-/* "heatloom: FILE:LINE: warning: text" for each warning. */
-static void
-print_warnings(const hl_existing *net)
-{
-	size_t i;
-
-	for (i = 0; net != NULL && i < net->nwarn; i++) {
-		const hl_error *w = &net->warn[i];
-
-		fprintf(stderr, "heatloom: ");
-		if (w->file[0] != '\0' && w->line > 0)
-			fprintf(stderr, "%s:%ld: ", w->file, w->line);
-		else if (w->file[0] != '\0')
-			fprintf(stderr, "%s: ", w->file);
-		fprintf(stderr, "warning: %s\n", w->text);
-	}
-}
-
 static hl_status
 load(const audit_opts *s, hl_case **c, hl_error *err)
 {
@@ -101,26 +83,6 @@ write_main(const audit_opts *s, const hl_case *c, const hl_audit *a,
 }
 
 static hl_status
-write_chart(const char *path, const hl_case *c, const hl_audit *a,
-	    const hl_retrofit *r, hl_error *err)
-{
-	hl_svg_chart *ch = hl_audit_chart(c, a, r);
-	hl_output out;
-	hl_status st;
-
-	if (ch == NULL)
-		return hl_error_nomem(err);
-	st = hl_output_open(&out, path, err);
-	if (st == HL_OK)
-		st = hl_svg_chart_write_file(ch, out.fp, err);
-	if (st == HL_OK)
-		st = hl_output_commit(&out, err);
-	hl_output_abort(&out);
-	hl_svg_chart_free(ch);
-	return st;
-}
-
-static hl_status
 run_audit(void *opts, hl_error *err)
 {
 	const audit_opts *s = opts;
@@ -132,13 +94,17 @@ run_audit(void *opts, hl_error *err)
 	st = load(s, &c, err);
 	if (st == HL_OK) {
 		st = hl_audit_run(c, &a, err);
-		print_warnings(a ? a->net : NULL);
+		hl_cmd_print_warnings(a ? a->net : NULL);
 	}
 	if (st == HL_OK)
 		st = hl_retrofit_screen(c, a, RETROFIT_POINTS, &r, err);
 	/* Everything is computed before any file is written. */
-	if (st == HL_OK && s->svg != NULL)
-		st = write_chart(s->svg, c, a, r, err);
+	if (st == HL_OK && s->svg != NULL) {
+		hl_svg_chart *ch = hl_audit_chart(c, a, r);
+
+		st = hl_cmd_write_chart(s->svg, ch, err);
+		hl_svg_chart_free(ch);
+	}
 	if (st == HL_OK)
 		st = write_main(s, c, a, r, err);
 	hl_retrofit_free(r);

@@ -12,6 +12,8 @@
 #include <stdio.h>
 
 #include "case.h"
+#include "existing.h"
+#include "svg.h"
 #include "status.h"
 
 /* How an option's value is taken and where it goes. */
@@ -136,6 +138,14 @@ int hl_cmd_parse_format(const char *cmd, const char *arg, unsigned allowed,
  * stream table), add the utility table when given, apply --dtmin, and
  * validate. Protects the inputs from being overwritten by outputs. */
 hl_status hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err);
+
+/* "heatloom: FILE:LINE: warning: text" on stderr for each warning of the
+ * reading of today's network (net may be NULL). */
+void hl_cmd_print_warnings(const hl_existing *net);
+
+/* Write chart ch (NULL: out of memory) to path, whole or not at all. */
+hl_status hl_cmd_write_chart(const char *path, const hl_svg_chart *ch,
+			     hl_error *err);
 
 /* Solver messages (--verbose) to standard error; ctx unused. */
 void hl_cmd_log_stderr(void *ctx, const char *text);

@@ -117,3 +117,37 @@ hl_cmd_check_grid(const char *cmd, double from, double to, double step)
 				    "larger --step");
 	return 0;
 }
+
+void
+hl_cmd_print_warnings(const hl_existing *net)
+{
+	size_t i;
+
+	for (i = 0; net != NULL && i < net->nwarn; i++) {
+		const hl_error *w = &net->warn[i];
+
+		fprintf(stderr, "heatloom: ");
+		if (w->file[0] != '\0' && w->line > 0)
+			fprintf(stderr, "%s:%ld: ", w->file, w->line);
+		else if (w->file[0] != '\0')
+			fprintf(stderr, "%s: ", w->file);
+		fprintf(stderr, "warning: %s\n", w->text);
+	}
+}
+
+hl_status
+hl_cmd_write_chart(const char *path, const hl_svg_chart *ch, hl_error *err)
+{
+	hl_output out;
+	hl_status st;
+
+	if (ch == NULL)
+		return hl_error_nomem(err);
+	st = hl_output_open(&out, path, err);
+	if (st == HL_OK)
+		st = hl_svg_chart_write_file(ch, out.fp, err);
+	if (st == HL_OK)
+		st = hl_output_commit(&out, err);
+	hl_output_abort(&out);
+	return st;
+}

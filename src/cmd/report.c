@@ -210,25 +210,6 @@ compute_network(study *s, hl_error *err)
 	return HL_OK;
 }
 
-/* "heatloom: FILE:LINE: warning: text" for each warning of the reading of
- * today's network, as `heatloom audit` prints them. */
-static void
-print_warnings(const hl_existing *net)
-{
-	size_t i;
-
-	for (i = 0; net != NULL && i < net->nwarn; i++) {
-		const hl_error *w = &net->warn[i];
-
-		fprintf(stderr, "heatloom: ");
-		if (w->file[0] != '\0' && w->line > 0)
-			fprintf(stderr, "%s:%ld: ", w->file, w->line);
-		else if (w->file[0] != '\0')
-			fprintf(stderr, "%s: ", w->file);
-		fprintf(stderr, "warning: %s\n", w->text);
-	}
-}
-
 /* The audit, when the case has today's network: bad network rows fail the
  * report as they fail `heatloom audit`; no answer leaves a note. */
 static hl_status
@@ -241,7 +222,7 @@ compute_audit(study *s, hl_error *err)
 		return HL_OK;
 	hl_error_clear(&e);
 	st = hl_audit_run(s->c, &s->audit, &e);
-	print_warnings(s->audit ? s->audit->net : NULL);
+	hl_cmd_print_warnings(s->audit ? s->audit->net : NULL);
 	if (st == HL_OK)
 		st = hl_retrofit_screen(s->c, s->audit, RETROFIT_POINTS,
 					&s->retrofit, &e);

@@ -84,23 +84,6 @@ write_main(const sweep_opts *s, const hl_case *c, const hl_sweep *sw,
 }
 
 static hl_status
-write_chart(const char *path, hl_svg_chart *ch, hl_error *err)
-{
-	hl_output out;
-	hl_status st;
-
-	if (ch == NULL)
-		return hl_error_nomem(err);
-	st = hl_output_open(&out, path, err);
-	if (st == HL_OK)
-		st = hl_svg_chart_write_file(ch, out.fp, err);
-	if (st == HL_OK)
-		st = hl_output_commit(&out, err);
-	hl_output_abort(&out);
-	return st;
-}
-
-static hl_status
 run_sweep(void *opts, hl_error *err)
 {
 	const sweep_opts *s = opts;
@@ -124,9 +107,9 @@ run_sweep(void *opts, hl_error *err)
 	    (area = hl_sweep_chart_area(c, sw)) == NULL)
 		st = hl_error_nomem(err);
 	if (st == HL_OK && cost != NULL)
-		st = write_chart(s->cost_svg, cost, err);
+		st = hl_cmd_write_chart(s->cost_svg, cost, err);
 	if (st == HL_OK && area != NULL)
-		st = write_chart(s->area_svg, area, err);
+		st = hl_cmd_write_chart(s->area_svg, area, err);
 	if (st == HL_OK)
 		st = write_main(s, c, sw, err);
 	hl_svg_chart_free(cost);
