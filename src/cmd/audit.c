@@ -20,6 +20,7 @@ typedef struct {
 	const char *network;
 	const char *svg;
 } audit_opts;
+HL_COMMON_FIRST(audit_opts);
 
 static const hl_option option_rows[] = {
 	HL_ROW_TEXT("network", "FILE", audit_opts, network,

@@ -50,7 +50,9 @@ typedef struct {
 	HL_ARG_FLAG, offsetof(type, member), value, 0, NULL }
 
 /* The options shared by many commands; they live in hl_common, which is the
- * first member of every command's options. */
+ * first member of every command's options (HL_COMMON_FIRST checks it). */
+#define HL_COMMON_FIRST(type) _Static_assert(offsetof(type, c) == 0, \
+	#type " must begin with its hl_common c")
 #define HL_ROW_DTMIN(text) \
 	HL_ROW_NUMBER("dtmin", "K", hl_common, dtmin, 0.0, 500.0, text)
 #define HL_ROW_UTILITIES HL_ROW_TEXT("utilities", "FILE", hl_common, \

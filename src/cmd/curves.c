@@ -19,6 +19,7 @@ typedef struct {
 	hl_common c;
 	const char *dir;  /* -o names the folder here */
 } options;
+HL_COMMON_FIRST(options);
 
 static const hl_option option_rows[] = {
 	HL_ROW_DTMIN("minimum approach temperature (default: the case's, or 10)"),

@@ -34,6 +34,7 @@ typedef struct {
 	double time_limit;  /* NaN unless --time-limit */
 	const char *svg;
 } options;
+HL_COMMON_FIRST(options);
 
 static const hl_option option_rows[] = {
 	HL_ROW_DTMIN("minimum approach temperature for the targets (default:\n"

@@ -20,6 +20,7 @@ typedef struct {
 	double time_limit;  /* NaN unless --time-limit */
 	const char *export_model;
 } options;
+HL_COMMON_FIRST(options);
 
 static const hl_option option_rows[] = {
 	HL_ROW_DTMIN("minimum approach temperature (default: the case's, or 10)"),

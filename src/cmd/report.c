@@ -36,6 +36,7 @@ typedef struct {
 	const char *title, *author, *date;
 	const char *network;
 } report_opts;
+HL_COMMON_FIRST(report_opts);
 
 #define NUMBER(name, arg, member, lo, hi, text) \
 	HL_ROW_NUMBER(name, arg, report_opts, member, lo, hi, text)

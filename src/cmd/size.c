@@ -32,6 +32,7 @@ typedef struct {
 	unsigned given;
 	int strict;
 } options;
+HL_COMMON_FIRST(options);
 
 static int
 parse_type(void *opts, const char *arg)

@@ -14,6 +14,7 @@ typedef struct {
 	double from, to, step;
 	const char *cost_svg, *area_svg;
 } sweep_opts;
+HL_COMMON_FIRST(sweep_opts);
 
 static const hl_option option_rows[] = {
 	HL_ROW_NUMBER("from", "K", sweep_opts, from, 0.0, 500.0,

@@ -20,6 +20,7 @@ typedef struct {
 	int sensitivity;  /* replaces the text and CSV outputs, adds to XML */
 	int super;        /* adds to the text and the XML */
 } options;
+HL_COMMON_FIRST(options);
 
 static const hl_option option_rows[] = {
 	HL_ROW_DTMIN("minimum approach temperature (default: the case's, or 10)"),
