@@ -1,0 +1,259 @@
+/* rating.c - duty and outlets of a unit of known area and shells (rating.h):
+ * the closed ε-NTU forms where each side keeps one cp and one h, else the
+ * duty at which the piecewise area sizing needs exactly the area given. */
+#include <math.h>
+
+#include "profile.h"
+#include "rating.h"
+
+/* Bisection steps: the interval halves each time, 200 reach the last bit. */
+#define BISECT_MAX 200
+
+/* ε by table 11.3 of Incropera & DeWitt (counterflow; 1-2 shell, n shells
+ * in series) through exchanger.h, which holds the cancellation-free forms. */
+hl_status
+hl_rating_eps(hl_exchanger_type type, int shells, double ntu, double cr,
+	      double *eps, hl_error *err)
+{
+	if (type == HL_EXCH_COUNTERFLOW)
+		return hl_exchanger_eps_counterflow(ntu, cr, eps, err);
+	if (type == HL_EXCH_SHELL_TUBE)
+		return hl_exchanger_eps_shells(ntu, cr, shells, eps, err);
+	return hl_error_set(err, HL_EINPUT, NULL, 0,
+	    "unknown exchanger type %d", (int)type);
+}
+
+/* Heat (kW, whole flow) the side's stream has exchanged at t. */
+static double
+heat_at(const hl_rating_side *s, double t)
+{
+	return hl_profile_heat(s->seg, s->nseg, s->kind, t);
+}
+
+/* Outlet temperature after the side exchanges duty kW. */
+static double
+outlet(const hl_rating_side *s, double duty)
+{
+	return hl_profile_temp(s->seg, s->nseg, s->kind,
+	    heat_at(s, s->t_in) + duty / s->share);
+}
+
+/* Index of the segment holding heat q (the end segments continue). */
+static size_t
+segment_at(const hl_rating_side *s, double q)
+{
+	double qb = 0.0;
+	size_t i;
+
+	for (i = 0; i + 1 < s->nseg; i++) {
+		qb += s->seg[i].cp * fabs(s->seg[i].target - s->seg[i].supply);
+		if (q < qb)
+			return i;
+	}
+	return s->nseg - 1;
+}
+
+static double
+seg_h(const hl_rating_side *s, size_t i)
+{
+	return isnan(s->seg[i].h) ? s->h_default : s->seg[i].h;
+}
+
+double
+hl_rating_duty_max(const hl_rating_spec *spec)
+{
+	const hl_rating_side *h = &spec->hot, *c = &spec->cold;
+	double qh = h->share * (heat_at(h, c->t_in) - heat_at(h, h->t_in));
+	double qc = c->share * (heat_at(c, h->t_in) - heat_at(c, c->t_in));
+
+	return fmax(0.0, fmin(qh, qc));
+}
+
+/* Q = U·A·F·LMTD per piece (Kern 1950, ch. 7; pieces as profile.h) at the
+ * spec's shell count, F of Bowman, Mueller & Nagle (1940) per shell. */
+double
+hl_rating_area_needed(const hl_rating_spec *spec, double duty, double *u,
+		      double *lmtd, double *ft)
+{
+	hl_profile_side hs, cs;
+	hl_profile_unit pu;
+	double uu, lm, f = 1.0, p, r;
+
+	if (!(duty > 0.0))
+		return 0.0;
+	hs.seg = spec->hot.seg;
+	hs.nseg = spec->hot.nseg;
+	hs.kind = HL_HOT;
+	hs.t_in = spec->hot.t_in;
+	hs.t_out = outlet(&spec->hot, duty);
+	hs.h = spec->hot.h_default;
+	cs.seg = spec->cold.seg;
+	cs.nseg = spec->cold.nseg;
+	cs.kind = HL_COLD;
+	cs.t_in = spec->cold.t_in;
+	cs.t_out = outlet(&spec->cold, duty);
+	cs.h = spec->cold.h_default;
+	hl_profile_unit_eval(&hs, &cs, duty, &pu);
+	if (!(pu.approach > 0.0))
+		return HUGE_VAL;
+	if (pu.pieces > 1) {
+		uu = pu.u;
+		lm = pu.lmtd;
+	} else if (hl_exchanger_u(pu.h_hot, pu.h_cold, &uu, NULL) != HL_OK ||
+		   hl_exchanger_lmtd(pu.dt_hot, pu.dt_cold, &lm, NULL) !=
+		   HL_OK) {
+		return HUGE_VAL;
+	}
+	if (spec->type == HL_EXCH_SHELL_TUBE &&
+	    (hl_exchanger_pr(hs.t_in, hs.t_out, cs.t_in, cs.t_out, &p, &r,
+			     NULL) != HL_OK ||
+	     hl_exchanger_f_shells(p, r, spec->shells, &f, NULL) != HL_OK ||
+	     !(f > 0.0)))
+		return HUGE_VAL;
+	if (!(uu > 0.0 && lm > 0.0))
+		return HUGE_VAL;
+	if (u != NULL)
+		*u = uu;
+	if (lmtd != NULL)
+		*lmtd = lm;
+	if (ft != NULL)
+		*ft = f;
+	return duty / (uu * f * lm);
+}
+
+static hl_status
+check_side(const hl_rating_side *s, const char *which, hl_error *err)
+{
+	size_t i;
+
+	if (s->seg == NULL || s->nseg < 1 || !(s->share > 0.0 &&
+	    s->share <= 1.0) || !isfinite(s->t_in) ||
+	    !(s->h_default > 0.0 && isfinite(s->h_default)))
+		return hl_error_set(err, HL_EINPUT, NULL, 0,
+		    "the %s side needs a stream, a share in (0, 1], a finite "
+		    "inlet and a positive default h", which);
+	for (i = 0; i < s->nseg; i++)
+		if (!(s->seg[i].cp > 0.0 && isfinite(s->seg[i].cp)))
+			return hl_error_set(err, HL_EINPUT, NULL, 0,
+			    "the %s side has a segment of cp %.6g kW/K: "
+			    "cp must be positive", which, s->seg[i].cp);
+	return HL_OK;
+}
+
+static hl_status
+check_spec(const hl_rating_spec *s, hl_error *err)
+{
+	hl_status st = check_side(&s->hot, "hot", err);
+
+	if (st == HL_OK)
+		st = check_side(&s->cold, "cold", err);
+	if (st != HL_OK)
+		return st;
+	if (!(s->hot.t_in >= s->cold.t_in))
+		return hl_error_set(err, HL_EINPUT, NULL, 0,
+		    "hot inlet %.6g °C is below the cold inlet %.6g °C",
+		    s->hot.t_in, s->cold.t_in);
+	if (!(s->area >= 0.0 && isfinite(s->area)))
+		return hl_error_set(err, HL_EINPUT, NULL, 0,
+		    "area %.6g m² must be a number not below 0", s->area);
+	if (s->type == HL_EXCH_SHELL_TUBE &&
+	    (s->shells < 1 || s->shells > HL_EXCHANGER_MAX_SHELLS))
+		return hl_error_set(err, HL_EINPUT, NULL, 0,
+		    "%d shells in series: give 1 to %d", s->shells,
+		    HL_EXCHANGER_MAX_SHELLS);
+	if (s->type != HL_EXCH_SHELL_TUBE && s->type != HL_EXCH_COUNTERFLOW)
+		return hl_error_set(err, HL_EINPUT, NULL, 0,
+		    "unknown exchanger type %d", (int)s->type);
+	return HL_OK;
+}
+
+/* Both sides stay in one segment between inlet and outlet. */
+static int
+one_piece(const hl_rating_spec *s, double duty)
+{
+	const hl_rating_side *sd[2] = { &s->hot, &s->cold };
+	int k;
+
+	for (k = 0; k < 2; k++) {
+		double q0 = heat_at(sd[k], sd[k]->t_in);
+		double q1 = q0 + duty / sd[k]->share;
+		double tol = 1e-12 * (1.0 + fabs(q1));
+
+		if (segment_at(sd[k], q0 + tol) != segment_at(sd[k], q1 - tol))
+			return 0;
+	}
+	return 1;
+}
+
+/* Closed ε-NTU form with the inlet segments' cp and h (rating.h). */
+static hl_status
+closed_form(const hl_rating_spec *s, hl_rating_result *z, hl_error *err)
+{
+	size_t ih = segment_at(&s->hot, heat_at(&s->hot, s->hot.t_in) + 1e-12);
+	size_t ic = segment_at(&s->cold,
+	    heat_at(&s->cold, s->cold.t_in) + 1e-12);
+	double ch = s->hot.share * s->hot.seg[ih].cp;
+	double cc = s->cold.share * s->cold.seg[ic].cp;
+	double cmin = fmin(ch, cc), cmax = fmax(ch, cc), u, eps;
+	hl_status st;
+
+	st = hl_exchanger_u(seg_h(&s->hot, ih), seg_h(&s->cold, ic), &u, err);
+	if (st == HL_OK)
+		st = hl_rating_eps(s->type, s->shells, u * s->area / cmin,
+		    cmin / cmax, &eps, err);
+	if (st != HL_OK)
+		return st;
+	z->duty = eps * cmin * (s->hot.t_in - s->cold.t_in);
+	z->u = u;
+	z->closed_form = 1;
+	return HL_OK;
+}
+
+/* Duty with area_needed(duty) = area, by bisection on [0, duty_max]. */
+static void
+bisect(const hl_rating_spec *s, hl_rating_result *z)
+{
+	double lo = 0.0, hi = hl_rating_duty_max(s);
+	int i;
+
+	for (i = 0; i < BISECT_MAX && hi - lo > 1e-15 * hi; i++) {
+		double mid = 0.5 * (lo + hi);
+
+		if (hl_rating_area_needed(s, mid, NULL, NULL, NULL) < s->area)
+			lo = mid;
+		else
+			hi = mid;
+	}
+	z->duty = 0.5 * (lo + hi);
+	z->closed_form = 0;
+}
+
+hl_status
+hl_rating_run(const hl_rating_spec *spec, hl_rating_result *out,
+	      hl_error *err)
+{
+	hl_rating_result z = { 0 };
+	hl_status st = check_spec(spec, err);
+
+	if (st != HL_OK)
+		return st;
+	if (spec->area == 0.0 || spec->hot.t_in == spec->cold.t_in) {
+		z.duty = 0.0;
+		z.closed_form = 1;
+	} else {
+		st = closed_form(spec, &z, err);
+		if (st != HL_OK)
+			return st;
+		if (!one_piece(spec, z.duty))
+			bisect(spec, &z);
+	}
+	z.hot_out = outlet(&spec->hot, z.duty);
+	z.cold_out = outlet(&spec->cold, z.duty);
+	z.ft = 1.0;
+	z.lmtd = NAN;
+	if (z.duty > 0.0)
+		(void)hl_rating_area_needed(spec, z.duty, &z.u, &z.lmtd,
+		    &z.ft);
+	*out = z;
+	return HL_OK;
+}
