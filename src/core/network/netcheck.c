@@ -153,6 +153,12 @@ check_unit(hl_netcheck *r, const hl_network *net, const hl_network_unit *u)
 		    z.required) != HL_OK)
 			return HL_EIO;
 	}
+	if (u->held && z.area > (u->area_today + u->area_added) *
+	    (1.0 + REL))
+		return add(r, u->id, u->line, "needs %.10g m² but has %.10g "
+		    "m² today and %.10g m² added: add %.10g m² more",
+		    z.area, u->area_today, u->area_added,
+		    z.area - u->area_today - u->area_added);
 	if (differ(z.u, u->u) || differ(z.lmtd, u->lmtd) ||
 	    differ(z.ft, u->ft) || z.shells != u->shells ||
 	    differ(z.area, u->area) || differ(z.cost, u->cost))

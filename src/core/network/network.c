@@ -200,6 +200,10 @@ hl_network_size_unit(const hl_network *net, hl_network_unit *u,
 		z.cost = z.shells * (spec.cost_a +
 		    spec.cost_b * pow(z.area_shell, spec.cost_c));
 	}
+	if (u->held) {
+		u->lmtd = z.lmtd;
+		return hl_network_size_held(net, u, z.p, z.r, z.lmtd, err);
+	}
 	u->lmtd = z.lmtd;
 	u->ft = z.f;
 	u->shells = z.shells;

@@ -121,6 +121,15 @@ typedef struct {
 	double cost;        /* currency, shells·(a + b·area_shell^c) */
 	char *note;         /* NULL or one sentence for the report */
 	long line;          /* line in the network file, 0 when built */
+	/* Retrofit (network_held.c): a held unit is hardware, today's or
+	 * bought: its shells in series are fixed, the area its duty needs
+	 * must fit in area_today + area_added, and its cost is that of the
+	 * shells bought only. */
+	int held;           /* 1: a retrofit unit, 0: a design unit */
+	char reuses[96];    /* today's tag it reuses, "" for a new unit */
+	double area_today;  /* m², the area it has today (0 for a new unit) */
+	double area_added;  /* m², area bought */
+	int shells_added;   /* shells bought (in series or in parallel) */
 } hl_network_unit;
 
 typedef struct {
@@ -172,6 +181,17 @@ double hl_network_shift(const hl_settings *set, const hl_network_party *p);
  * HL_EINPUT (naming the unit) when its temperatures cannot exchange heat. */
 hl_status hl_network_size_unit(const hl_network *net, hl_network_unit *u,
 			       hl_error *err);
+
+/* Size a held unit (held = 1) at its own shell count from the P, R and
+ * mean temperature difference of its duty: F at those shells, the area it
+ * needs, the cost of the shells bought, shells_added·(a + b·(area_added /
+ * shells_added)^c). HL_ENOSOLUTION when its shells cannot reach its P. */
+hl_status hl_network_size_held(const hl_network *net, hl_network_unit *u,
+			       double p, double r, double lmtd,
+			       hl_error *err);
+
+/* A deep copy of net (NULL when memory runs out). */
+hl_network *hl_network_copy(const hl_network *net);
 
 /* Fill the totals: utility use, splits, area, capital, CRF, annual costs. */
 void hl_network_totals(hl_network *net);
