@@ -131,9 +131,11 @@ build(sim *s, hl_error *err)
 	for (i = 0; i < net->nunit; i++) {
 		const hl_network_unit *u = &net->unit[i];
 
+		double a = u->held ? u->area_today + u->area_added : u->area;
+
 		s->weight[i] = u->duty;
-		if (is_recovery(net, u) && !(u->area >= 0.0 &&
-		    isfinite(u->area) && u->shells >= 1))
+		if (is_recovery(net, u) && !(a >= 0.0 && isfinite(a) &&
+		    u->shells >= 1))
 			return hl_error_set(err, HL_EINPUT, NULL, 0, "unit %s "
 			    "has no area or shells to simulate", u->id);
 	}
@@ -187,7 +189,7 @@ rate(const hl_network *net, const hl_network_unit *u)
 	rs.cold.h_default = net->set.h_default;
 	rs.type = u->type;
 	rs.shells = u->shells;
-	rs.area = u->area;
+	rs.area = u->held ? u->area_today + u->area_added : u->area;
 	if (hl_rating_run(&rs, &g, NULL) != HL_OK)
 		return 0.0;
 	/* A branch may pass the target before it mixes (profile.h); the

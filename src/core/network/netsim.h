@@ -1,7 +1,8 @@
 /* netsim.h - a network of fixed areas simulated: the plant as it would run.
  *
  * Given a network's structure (units on their stages, split shares) and
- * every recovery unit's area, shells and type, the simulation finds every
+ * every recovery unit's area (a held unit's: area_today + area_added),
+ * shells and type, the simulation finds every
  * temperature and duty for the streams' supply temperatures and flows:
  *
  *  - a recovery unit (process stream to process stream) does what its area
