@@ -15,6 +15,7 @@ static const hl_command *const commands[] = {
 	&hl_cmd_curves,
 	&hl_cmd_sweep,
 	&hl_cmd_audit,
+	&hl_cmd_retrofit,
 	&hl_cmd_matches,
 	&hl_cmd_design,
 	&hl_cmd_check,

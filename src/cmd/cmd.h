@@ -95,6 +95,7 @@ extern const hl_command hl_cmd_matches;
 extern const hl_command hl_cmd_design;
 extern const hl_command hl_cmd_check;
 extern const hl_command hl_cmd_report;
+extern const hl_command hl_cmd_retrofit;
 
 /* Output formats a command may accept. */
 typedef enum { HL_FMT_TEXT, HL_FMT_XML, HL_FMT_CSV } hl_format;

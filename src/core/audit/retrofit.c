@@ -146,3 +146,27 @@ hl_retrofit_screen(const hl_case *c, const hl_audit *a, size_t npoints,
 	*out = r;
 	return HL_OK;
 }
+
+/* Linear interpolation along the curve's (investment, saving) points. */
+double
+hl_retrofit_saving_at(const hl_retrofit *r, double investment)
+{
+	size_t i;
+
+	if (r == NULL || r->n == 0)
+		return NAN;
+	if (investment <= r->pt[0].investment)
+		return r->pt[0].saving;
+	for (i = 1; i < r->n; i++) {
+		const hl_retrofit_point *a = &r->pt[i - 1], *b = &r->pt[i];
+
+		if (investment <= b->investment) {
+			double f = b->investment > a->investment ?
+			    (investment - a->investment) /
+			    (b->investment - a->investment) : 1.0;
+
+			return a->saving + f * (b->saving - a->saving);
+		}
+	}
+	return r->pt[r->n - 1].saving;
+}

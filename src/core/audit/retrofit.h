@@ -76,4 +76,9 @@ hl_status hl_retrofit_screen(const hl_case *c, const hl_audit *a,
 			     hl_error *err);
 void hl_retrofit_free(hl_retrofit *r);
 
+/* The saving per year the curve promises at an investment (currency):
+ * linear between the two points whose investments bracket it, the
+ * targets' saving beyond the last point; NaN without a curve. */
+double hl_retrofit_saving_at(const hl_retrofit *r, double investment);
+
 #endif

@@ -18,6 +18,8 @@ hl_settings_default(hl_settings *set)
 	set->cost_a = 10000.0;
 	set->cost_b = 800.0;
 	set->cost_c = 0.8;
+	set->repipe_cost = NAN;
+	set->unit_cost = NAN;
 	set->interest = 0.10;
 	set->life = 10.0;
 	set->cp_tol = 0.05;

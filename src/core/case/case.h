@@ -118,6 +118,10 @@ typedef struct {
 	double cost_a;       /* exchanger cost per shell: a + b·A^c (currency, m²) */
 	double cost_b;
 	double cost_c;
+	double repipe_cost;  /* retrofit: fixed cost of a re-pipe, NaN = the
+				illustrative default (rfit.h) */
+	double unit_cost;    /* retrofit: fixed cost of a new unit on top of
+				its shells, NaN = the illustrative default */
 	double interest;     /* per year, 0.10 */
 	double life;         /* years, 10 */
 	double cp_tol;       /* default relative cp uncertainty, 0.05 */

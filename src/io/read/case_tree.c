@@ -198,6 +198,8 @@ read_cost(walk *w, xmlNodePtr n)
 		{ "a", HL_XATTR_AMOUNT, 0, "currency", NULL },
 		{ "b", HL_XATTR_AMOUNT, 0, NULL, NULL },
 		{ "c", HL_XATTR_AMOUNT, 0, NULL, NULL },
+		{ "repipe", HL_XATTR_AMOUNT, 0, "currency", NULL },
+		{ "new-unit", HL_XATTR_AMOUNT, 0, "currency", NULL },
 	};
 	hl_settings *s = &w->c->set;
 	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
@@ -210,6 +212,8 @@ read_cost(walk *w, xmlNodePtr n)
 		s->cost_b = num(n, "b");
 	if (!isnan(num(n, "c")))
 		s->cost_c = num(n, "c");
+	s->repipe_cost = num(n, "repipe");
+	s->unit_cost = num(n, "new-unit");
 	if (!(s->cost_c > 0.0))
 		return fail(w, n, HL_EINPUT, "cost exponent c must be > 0 "
 			"(cost per shell = a + b·A^c, A in m²)");

@@ -103,6 +103,10 @@ static const hl_xattr unit_attr[] = {
 	{ "match", HL_XATTR_COUNT, 0, NULL, NULL },
 	{ "assumed", HL_XATTR_TEXT, 0, NULL, NULL },
 	{ "note", HL_XATTR_TEXT, 0, NULL, NULL },
+	{ "reuses", HL_XATTR_TEXT, 0, NULL, NULL },
+	{ "area-today", HL_XATTR_AMOUNT, 0, "m²", NULL },
+	{ "area-added", HL_XATTR_AMOUNT, 0, "m²", NULL },
+	{ "shells-added", HL_XATTR_AMOUNT, 0, NULL, NULL },
 };
 
 static int
@@ -306,6 +310,38 @@ find_party(const hl_network *net, const char *name)
 	return -1;
 }
 
+/* A retrofit unit (rfit.h): held hardware with today's and added area. */
+static hl_status
+read_held(hl_network_unit *u, xmlNodePtr n, const char *file, hl_error *err)
+{
+	const char *tag = hl_xattr_text(n, "reuses");
+	double today = num(n, "area-today"), added = num(n, "area-added");
+	double sa = num(n, "shells-added");
+
+	if (tag == NULL && isnan(today) && isnan(added) && isnan(sa))
+		return HL_OK;
+	if (isnan(added) || (tag != NULL && isnan(today)) ||
+	    (tag == NULL && !isnan(today)))
+		return hl_error_set(err, HL_EINPUT, file, hl_xattr_line(n),
+		    "exchanger %s: a retrofit unit gives area-added, and "
+		    "reuses with area-today (or neither for a new unit)",
+		    u->id);
+	if (tag != NULL && strlen(tag) >= sizeof u->reuses)
+		return hl_error_set(err, HL_EINPUT, file, hl_xattr_line(n),
+		    "exchanger %s: reuses '%.40s…' is longer than %zu bytes",
+		    u->id, tag, sizeof u->reuses - 1);
+	if (!isnan(sa) && sa != floor(sa))
+		return hl_error_set(err, HL_EINPUT, file, hl_xattr_line(n),
+		    "exchanger %s: shells-added %.6g must be a whole number",
+		    u->id, sa);
+	u->held = 1;
+	snprintf(u->reuses, sizeof u->reuses, "%s", tag != NULL ? tag : "");
+	u->area_today = isnan(today) ? 0.0 : today;
+	u->area_added = added;
+	u->shells_added = isnan(sa) ? 0 : (int)sa;
+	return HL_OK;
+}
+
 static hl_status
 read_unit(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 {
@@ -360,6 +396,9 @@ read_unit(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 		u.assumed |= strstr(as, "h-hot") ? HL_NETWORK_H_HOT : 0;
 		u.assumed |= strstr(as, "h-cold") ? HL_NETWORK_H_COLD : 0;
 	}
+	st = read_held(&u, n, file, err);
+	if (st != HL_OK)
+		return st;
 	note = hl_xattr_text(n, "note");
 	u.note = (char *)note;
 	u.line = hl_xattr_line(n);

@@ -377,6 +377,14 @@ xml_unit(xmlTextWriterPtr w, const hl_network *net, const hl_network_unit *u)
 		    u->assumed == HL_NETWORK_H_HOT ? "h-hot" : "h-cold");
 	if (u->note != NULL)
 		rc |= hl_xml_str(w, "note", u->note);
+	if (u->held) {
+		if (u->reuses[0] != '\0') {
+			rc |= hl_xml_str(w, "reuses", u->reuses);
+			rc |= hl_xml_num(w, "area-today", u->area_today);
+		}
+		rc |= hl_xml_num(w, "area-added", u->area_added);
+		rc |= hl_xml_int(w, "shells-added", u->shells_added);
+	}
 	rc |= xmlTextWriterEndElement(w);
 	return rc;
 }
