@@ -390,6 +390,7 @@ rf_eval(rf_ctx *x, rf_cand *cd)
 	x->evaluated++;
 	cd->ok = 0;
 	cd->why[0] = '\0';
+	rf_strip_trims(cd->net);
 	st = simulate(cd);
 	if (st != HL_OK || !cd->ok)
 		return st;

@@ -67,6 +67,8 @@ int rf_move_repipe(hl_network *net, size_t i, size_t hot, size_t cold,
 /* Temperature of party p where its stage pos begins (its target past the
  * last). */
 double rf_temp_at(const hl_network *net, size_t p, int pos);
+/* Take out the trims (new heaters and coolers). */
+void rf_strip_trims(hl_network *net);
 /* Number of stages on party p. */
 int rf_stages(const hl_network *net, size_t p);
 /* "stage k of NAME" style description of a unit's place. */

@@ -165,3 +165,27 @@ rf_temp_at(const hl_network *net, size_t p, int pos)
 	}
 	return net->party[p].target;
 }
+
+/* Take out every trim (a new heater or cooler): each evaluation adds the
+ * ones the plant then needs, sized afresh. */
+void
+rf_strip_trims(hl_network *net)
+{
+	size_t i = net->nunit;
+
+	while (i-- > 0) {
+		hl_network_unit *u = &net->unit[i];
+		size_t p;
+		int k;
+
+		if (u->reuses[0] != '\0' || rf_recovery(net, u))
+			continue;
+		p = net->party[u->hot].utility ? u->cold : u->hot;
+		k = p == u->hot ? u->hot_stage : u->cold_stage;
+		if (others_at(net, p, k, i) == 0)
+			shift(net, p, k + 1, -1, i);
+		free(u->note);
+		memmove(u, u + 1, (net->nunit - i - 1) * sizeof *u);
+		net->nunit--;
+	}
+}

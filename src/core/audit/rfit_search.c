@@ -207,6 +207,12 @@ tune(rf_ctx *x, const rf_cand *base, const rf_move *mv, double ref,
 			rf_cand_clear(out);
 			return st;
 		}
+		/* The smallest area first: a move that does not help (or
+		 * breaks an approach) there only gets worse with more. */
+		if (g == 0 && area && !(c.ok && c.saving > 0.0)) {
+			rf_cand_clear(&c);
+			break;
+		}
 		if (better(x, &c, mv->ord, out->net ? out : NULL, mv->ord)) {
 			rf_cand_clear(out);
 			*out = c;

@@ -209,20 +209,65 @@ closed_form(const hl_rating_spec *s, hl_rating_result *z, hl_error *err)
 	return HL_OK;
 }
 
-/* Duty with area_needed(duty) = area, by bisection on [0, duty_max]. */
+/* φ(Q) = Q − A·Q/area_needed(Q): finite on [0, duty_max] (Q/area is
+ * U·F·ΔT_mean, 0 where no unit can do Q), negative at 0, positive at the
+ * top, nil at the rated duty. */
+static double
+phi(const hl_rating_spec *s, double q)
+{
+	double a;
+
+	if (q <= 0.0) {
+		double lm = s->hot.t_in - s->cold.t_in, u;
+		size_t ih = segment_at(&s->hot, heat_at(&s->hot, s->hot.t_in) +
+		    1e-12);
+		size_t ic = segment_at(&s->cold, heat_at(&s->cold,
+		    s->cold.t_in) + 1e-12);
+
+		if (hl_exchanger_u(seg_h(&s->hot, ih), seg_h(&s->cold, ic), &u,
+		    NULL) != HL_OK)
+			return -1.0;
+		return -s->area * u * lm;
+	}
+	a = hl_rating_area_needed(s, q, NULL, NULL, NULL);
+	return isfinite(a) ? q - s->area * q / a : q;
+}
+
+/* Duty with area_needed(duty) = area: regula falsi with the Illinois
+ * change (Dowell & Jarratt 1971) on φ, which keeps a bracket and converges
+ * superlinearly; bisection steps where it stalls. */
 static void
 bisect(const hl_rating_spec *s, hl_rating_result *z)
 {
-	double lo = 0.0, hi = hl_rating_duty_max(s);
-	int i;
+	double lo = 0.0, hi = hl_rating_duty_max(s), flo = phi(s, lo);
+	double fhi = phi(s, hi), q = 0.5 * (lo + hi), top = hi;
+	int i, side = 0;
 
-	for (i = 0; i < BISECT_MAX && hi - lo > 1e-15 * hi; i++) {
-		double mid = 0.5 * (lo + hi);
+	for (i = 0; i < BISECT_MAX && hi - lo > 1e-14 * hi; i++) {
+		double f;
 
-		if (hl_rating_area_needed(s, mid, NULL, NULL, NULL) < s->area)
-			lo = mid;
-		else
-			hi = mid;
+		q = fhi - flo != 0.0 ? (lo * fhi - hi * flo) / (fhi - flo) :
+		    0.5 * (lo + hi);
+		if (!(q > lo && q < hi) || i % 8 == 7)
+			q = 0.5 * (lo + hi);
+		f = phi(s, q);
+		if (fabs(f) <= 1e-15 * top) {
+			lo = hi = q;
+			break;
+		}
+		if (f < 0.0) {
+			lo = q;
+			flo = f;
+			if (side == -1)
+				fhi *= 0.5;
+			side = -1;
+		} else {
+			hi = q;
+			fhi = f;
+			if (side == 1)
+				flo *= 0.5;
+			side = 1;
+		}
 	}
 	z->duty = 0.5 * (lo + hi);
 	z->closed_form = 0;

@@ -25,9 +25,9 @@
  * Where a side changes cp (a segmented stream) or film coefficient inside
  * the unit, the duty is the one at which the area sizing needs, piece by
  * piece (profile.h) with the F of the terminal temperatures at the given
- * shell count, equals the area given; found by bisection on the duty (the
- * area needed rises with the duty). The closed form is this same equation
- * for one piece.
+ * shell count, equals the area given; found by regula falsi with the
+ * Illinois change on a bracket of the duty (the area needed rises with the
+ * duty). The closed form is this same equation for one piece.
  *
  * Shells in parallel: identical parallel trains of the same series count
  * each take an equal part of both flows and of the area, so they rate as
@@ -80,7 +80,7 @@ typedef struct {
 	double u;             /* kW/(m²·K) (the pieces' effective U) */
 	double lmtd;          /* K, counterflow mean (pieces) */
 	double ft;            /* F at the given shells, 1 for counterflow */
-	int closed_form;      /* 1: ε-NTU closed form, 0: bisection */
+	int closed_form;      /* 1: ε-NTU closed form, 0: found by search */
 } hl_rating_result;
 
 /* Area (m²) a unit of spec's sides, type and shells needs to transfer duty
