@@ -191,7 +191,7 @@ test_size_then_rate(void **state)
 }
 
 /* A hot stream that changes cp inside the unit (a condensing then cooling
- * overhead, two segments): the bisection finds the duty whose piecewise
+ * overhead, two segments): the search finds the duty whose piecewise
  * area is the area given, and the area at the rated duty is that area. */
 static void
 test_segmented(void **state)

@@ -135,4 +135,26 @@ hl_status hl_rfit_run(const hl_case *c, const hl_network *today,
 		      const hl_rfit_opts *o, hl_rfit **out, hl_error *err);
 void hl_rfit_free(hl_rfit *r);
 
+/* One given modification of today, for checks and for callers with their
+ * own search: kind (a search move, not utility-area or add-trim); unit,
+ * an index into today->unit (more area, re-pipe, resequence, remove);
+ * hot, cold, hot_pos, cold_pos, the pair and places (re-pipe,
+ * resequence, new unit; places counted once the unit is lifted off);
+ * area (m², more area and new unit). */
+typedef struct {
+	hl_rfit_kind kind;
+	size_t unit;
+	size_t hot, cold;
+	int hot_pos, cold_pos;
+	double area;
+} hl_rfit_move;
+
+/* Simulate and price mv on today. *out receives a proposal (its net NULL
+ * and *valid 0 when the plant would not run: a stream past its target, an
+ * approach below the EMAT, a place that does not exist); the limits of o
+ * are not applied. Free out->mod and out->net. HL_EIO memory. */
+hl_status hl_rfit_try(const hl_case *c, const hl_network *today,
+		      const hl_rfit_opts *o, const hl_rfit_move *mv,
+		      hl_rfit_proposal *out, int *valid, hl_error *err);
+
 #endif

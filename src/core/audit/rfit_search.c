@@ -593,6 +593,37 @@ hl_rfit_free(hl_rfit *r)
 	free(r);
 }
 
+/* The context of a search from today: today simulated and priced. */
+static hl_status
+ctx_init(const hl_case *c, const hl_network *today, const hl_rfit_opts *o,
+	 rf_ctx *x, rf_cand *t, hl_error *err)
+{
+	hl_status st;
+
+	memset(t, 0, sizeof *t);
+	memset(x, 0, sizeof *x);
+	if ((t->net = hl_network_copy(today)) == NULL)
+		return hl_error_nomem(err);
+	x->c = c;
+	x->o = o;
+	x->t_end = rf_now() + o->time_limit;
+	x->qh_target = today->qh_target;
+	x->qc_target = today->qc_target;
+	x->cost_today = today->energy_cost;
+	st = rf_eval(x, t);
+	if (st == HL_EIO)
+		return hl_error_nomem(err);
+	if (!t->ok)
+		return hl_error_set(err, HL_ENOSOLUTION, NULL, 0, "today's "
+		    "plant does not simulate to itself: %s", t->why);
+	x->cost_today = t->cost;
+	x->qh_today = t->qh;
+	x->qc_today = t->qc;
+	x->area_ref = mean_recovery_area(t->net);
+	t->saving = 0.0;
+	return HL_OK;
+}
+
 hl_status
 hl_rfit_run(const hl_case *c, const hl_network *today, const hl_rfit_opts *o,
 	    hl_rfit **out, hl_error *err)
@@ -603,27 +634,10 @@ hl_rfit_run(const hl_case *c, const hl_network *today, const hl_rfit_opts *o,
 	hl_status st;
 
 	*out = NULL;
-	memset(&t, 0, sizeof t);
-	memset(&x, 0, sizeof x);
-	if (r == NULL || (t.net = hl_network_copy(today)) == NULL) {
-		free(r);
+	if (r == NULL)
 		return hl_error_nomem(err);
-	}
-	x.c = c;
-	x.o = o;
-	x.t_end = rf_now() + o->time_limit;
-	x.qh_target = today->qh_target;
-	x.qc_target = today->qc_target;
-	x.cost_today = today->energy_cost;
-	st = rf_eval(&x, &t);
-	if (st == HL_OK && !t.ok)
-		st = hl_error_set(err, HL_ENOSOLUTION, NULL, 0, "today's plant "
-		    "does not simulate to itself: %s", t.why);
-	x.cost_today = t.ok ? t.cost : today->energy_cost;
-	x.qh_today = t.qh;
-	x.qc_today = t.qc;
-	x.area_ref = mean_recovery_area(t.net);
-	r->emat = t.net->set.emat;
+	st = ctx_init(c, today, o, &x, &t, err);
+	r->emat = today->set.emat;
 	r->emat_case = isnan(c->set.emat) ? c->set.dtmin : c->set.emat;
 	if (st == HL_OK)
 		st = search(&x, &t, r);
@@ -638,4 +652,31 @@ hl_rfit_run(const hl_case *c, const hl_network *today, const hl_rfit_opts *o,
 	}
 	*out = r;
 	return HL_OK;
+}
+
+hl_status
+hl_rfit_try(const hl_case *c, const hl_network *today, const hl_rfit_opts *o,
+	    const hl_rfit_move *mv, hl_rfit_proposal *out, int *valid,
+	    hl_error *err)
+{
+	rf_move m = { mv->kind, mv->unit, mv->hot, mv->cold, mv->hot_pos,
+		      mv->cold_pos, 0 };
+	rf_ctx x;
+	rf_cand t, cd;
+	hl_status st = ctx_init(c, today, o, &x, &t, err);
+
+	memset(out, 0, sizeof *out);
+	*valid = 0;
+	if (st == HL_OK && apply(&t, &m, mv->area, &cd) == 0) {
+		st = rf_eval(&x, &cd);
+		if (st == HL_OK && cd.ok) {
+			*valid = 1;
+			st = to_proposal(&x, &cd, out);
+		}
+		rf_cand_clear(&cd);
+		if (st == HL_EIO)
+			st = hl_error_nomem(err);
+	}
+	rf_cand_clear(&t);
+	return st;
 }

@@ -16,7 +16,9 @@ hl_network_size_held(const hl_network *net, hl_network_unit *u, double p,
 	double f = 1.0;
 	hl_status st;
 
-	if (u->type == HL_EXCH_SHELL_TUBE) {
+	/* An isothermal side (P or R nil, R infinite) needs no F. */
+	if (u->type == HL_EXCH_SHELL_TUBE && p > 0.0 && r > 0.0 &&
+	    isfinite(r)) {
 		st = hl_exchanger_f_shells(p, r, u->shells, &f, err);
 		if (st != HL_OK)
 			return hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
