@@ -477,6 +477,19 @@ has_doctype(const char *data, size_t len)
 }
 
 static xmlNodePtr
+child(xmlNodePtr r, const char *name)
+{
+	xmlNodePtr c;
+
+	for (c = r != NULL ? r->children : NULL; c != NULL; c = c->next)
+		if (is(c, name))
+			return c;
+	return NULL;
+}
+
+/* <network>, <results><network>, or the best proposal's network of
+ * <results><retrofit><proposal>. */
+static xmlNodePtr
 network_node(xmlDocPtr doc)
 {
 	xmlNodePtr r = xmlDocGetRootElement(doc), c;
@@ -487,10 +500,9 @@ network_node(xmlDocPtr doc)
 		return r;
 	if (!is(r, "results"))
 		return NULL;
-	for (c = r->children; c != NULL; c = c->next)
-		if (is(c, "network"))
-			return c;
-	return NULL;
+	if ((c = child(r, "network")) != NULL)
+		return c;
+	return child(child(child(r, "retrofit"), "proposal"), "network");
 }
 
 hl_status
