@@ -59,13 +59,28 @@ target_curve(const hl_case *c, const hl_audit *a, hl_retrofit *r,
 	return HL_OK;
 }
 
-/* Investment in new area bought as shells of today's mean size. */
-static double
-investment(const hl_retrofit *r, double new_area)
+/* The shell new area is bought in at a point: the shell target's mean
+ * shell (Ahmad & Smith 1989), today's mean where that is nil; its price by
+ * the case's cost law per shell. */
+static void
+shell_at(const hl_case *c, const hl_retrofit *r, const hl_supertargets *st,
+	 double area_target, hl_retrofit_point *p)
 {
-	if (!(new_area > 0.0) || !(r->shell_area > 0.0))
+	const hl_settings *set = &c->set;
+
+	p->shell_area = st->shells > 0 && area_target > 0.0 ?
+	    area_target / st->shells : r->shell_area;
+	p->shell_cost = p->shell_area > 0.0 ? set->cost_a + set->cost_b *
+	    pow(p->shell_area, set->cost_c) : NAN;
+}
+
+/* Investment in new area bought as shells of the point's size. */
+static double
+investment(const hl_retrofit_point *p, double new_area)
+{
+	if (!(new_area > 0.0) || !(p->shell_area > 0.0))
 		return 0.0;
-	return new_area / r->shell_area * r->shell_cost;
+	return new_area / p->shell_area * p->shell_cost;
 }
 
 static hl_status
@@ -84,7 +99,8 @@ point(const hl_case *c, const hl_audit *a, hl_retrofit *r, double e,
 	p->area_target = hl_audit_area_basis(c, &st);
 	p->area_retrofit = p->area_target / r->alpha;
 	p->new_area = fmax(0.0, p->area_retrofit - a->area_existing);
-	p->investment = investment(r, p->new_area);
+	shell_at(c, r, &st, p->area_target, p);
+	p->investment = investment(p, p->new_area);
 	p->saving = saved * (a->price_hot + a->price_cold) * c->set.hours /
 		    1000.0;
 	p->payback = p->saving > 0.0 ? p->investment / p->saving : NAN;

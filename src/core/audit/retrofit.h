@@ -8,10 +8,13 @@
  * the curve runs to the targets at the case's ΔTmin.
  *
  * Each point: new area = A_target(E)/α − A_existing (>= 0); investment =
- * the new area bought in shells the size of today's mean shell
- * (A_existing / today's shells), each at the case's cost law a + b·A^c,
- * a fraction of a shell pro rata (a smooth screening figure, not a
- * count of units); annual saving = (E_now − E) kW of hot utility at
+ * the new area bought in shells the size of the mean shell of the shell
+ * target at that energy (A_target(E) / shell target, Ahmad & Smith 1989),
+ * each at the case's cost law a + b·A^c per shell, a fraction of a shell
+ * pro rata (a smooth screening figure, not a count of units); where the
+ * shell target is nil, today's mean shell (A_existing / today's shells).
+ * Today's mean shell is not used otherwise: on a real site it mixes
+ * furnaces, air coolers and exchangers of every size. Annual saving = (E_now − E) kW of hot utility at
  * today's mean hot price plus the same of cold utility at today's mean
  * cold price (audit.h), times the operating hours; simple payback =
  * investment / saving.
@@ -44,6 +47,8 @@ typedef struct {
 	double area_target;    /* m², A_target(E), exchanger-setting basis */
 	double area_retrofit;  /* m², A_target(E)/α */
 	double new_area;       /* m², >= 0 */
+	double shell_area;     /* m², the size new area is bought in */
+	double shell_cost;     /* currency, a + b·shell_area^c */
 	double investment;     /* currency */
 	double saving;         /* currency per year */
 	double payback;        /* years; NaN where nothing is saved */
@@ -57,7 +62,8 @@ typedef struct {
 
 typedef struct {
 	double alpha;
-	double shell_area;     /* m², today's mean shell */
+	double shell_area;     /* m², today's mean shell (for comparison; the
+				  points price new area by their own) */
 	double shell_cost;     /* currency, a + b·shell_area^c */
 	size_t n;
 	hl_retrofit_point *pt; /* today's point first, the targets last; empty

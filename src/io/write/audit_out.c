@@ -136,6 +136,8 @@ retrofit(xmlTextWriterPtr w, const hl_retrofit *r)
 		rc |= hl_xml_num(w, "area-target", p->area_target);
 		rc |= hl_xml_num(w, "area-retrofit", p->area_retrofit);
 		rc |= hl_xml_num(w, "new-area", p->new_area);
+		rc |= num_opt(w, "shell-area", p->shell_area);
+		rc |= num_opt(w, "shell-cost", p->shell_cost);
 		rc |= hl_xml_num(w, "investment", p->investment);
 		rc |= hl_xml_num(w, "saving", p->saving);
 		rc |= num_opt(w, "payback", p->payback);

@@ -285,10 +285,13 @@ retrofit(FILE *fp, const hl_case *c, const hl_audit *a,
 		else
 			fprintf(fp, "%6.1f y\n", p->payback);
 	}
-	fprintf(fp, "  Needed area = area target / α; new area priced as "
-		"shells of today's mean size\n  (%.1f m², %s %s each by the "
-		"cost law); saving at today's prices.\n", r->shell_area,
-		money(m1, sizeof m1, r->shell_cost), cur(c));
+	fprintf(fp, "  Needed area = area target / α; new area priced by the "
+		"case's cost law per shell, in\n  shells the size of the shell "
+		"target's mean shell at each energy (%.1f m², %s %s\n  each at "
+		"the targets; today's mean shell is %.1f m²); saving at "
+		"today's prices.\n", r->n > 0 ? r->pt[r->n - 1].shell_area :
+		NAN, money(m1, sizeof m1, r->n > 0 ? r->pt[r->n - 1].shell_cost :
+		NAN), cur(c), r->shell_area);
 	best_payback(fp, c, r);
 	fprintf(fp, "The curve assumes the retrofit keeps today's area "
 		"efficiency. Which units to re-pipe,\nwhere new shells go, "
