@@ -340,8 +340,7 @@ write_svg(const options *o, const run_state *s, hl_error *err)
 	    s->c->source : o->c.input);
 	if (s->r->nproposal > 0)
 		snprintf(sub, sizeof sub, "Proposal 1: saves %.0f a year for "
-		    "%.0f (payback %.2f years); new and changed units are "
-		    "marked with a ring", s->r->p[0].saving,
+		    "%.0f (payback %.2f years)", s->r->p[0].saving,
 		    s->r->p[0].investment, s->r->p[0].payback);
 	else
 		snprintf(sub, sizeof sub, "Today's plant: no modification "

@@ -156,6 +156,7 @@ apply(const rf_cand *base, const rf_move *mv, double a, rf_cand *out)
 		} else {
 			rc = rf_move_repipe(net, mv->unit, mv->hot, mv->cold,
 			    mv->hot_pos, mv->cold_pos);
+			u->moved = 1;
 		}
 		if (rc == 0 && mv->kind != HL_RFIT_REMOVE)
 			rf_place_text(net, u, m->to, sizeof m->to);

@@ -130,6 +130,7 @@ typedef struct {
 	double area_today;  /* m², the area it has today (0 for a new unit) */
 	double area_added;  /* m², area bought */
 	int shells_added;   /* shells bought (in series or in parallel) */
+	int moved;          /* re-piped or resequenced (not in files) */
 } hl_network_unit;
 
 typedef struct {

@@ -388,8 +388,33 @@ square(W w, double x, double y, const char *fill)
 	return rc | end(w);
 }
 
+/* A retrofit change: new, with area added, or re-piped. */
+static int
+changed(const hl_network_unit *u)
+{
+	return u->held && (u->reuses[0] == '\0' || u->area_added > 0.0 ||
+	    u->moved);
+}
+
+/* The ring around a changed unit's mark (drawn under it). */
+static int
+ring(W w, double x, double y)
+{
+	int rc = start(w, "circle");
+
+	rc |= num(w, "cx", x);
+	rc |= num(w, "cy", y);
+	rc |= num(w, "r", MARK_R + 4.5);
+	rc |= attr(w, "fill", "none");
+	rc |= attr(w, "stroke", INK);
+	rc |= attr(w, "stroke-width", "1.2");
+	rc |= attr(w, "stroke-dasharray", "3 2");
+	return rc | end(w);
+}
+
 /* A unit: linked round marks with the id above and the duty (kW) below;
- * a heater or cooler a square on its one process stream. */
+ * a heater or cooler a square on its one process stream; a retrofit
+ * change ringed. */
 static int
 draw_unit(W w, const hl_network *net, const hl_grid_layout *L, size_t i)
 {
@@ -397,6 +422,12 @@ draw_unit(W w, const hl_network *net, const hl_grid_layout *L, size_t i)
 	double x = L->x[i], yh = L->yh[i], yc = L->yc[i], y;
 	int rc = 0;
 
+	if (changed(u)) {
+		if (!isnan(yh))
+			rc |= ring(w, x, yh);
+		if (!isnan(yc))
+			rc |= ring(w, x, yc);
+	}
 	if (!isnan(yh) && !isnan(yc)) {
 		rc |= line(w, x, yh, x, yc, INK, 1.3, NULL);
 		rc |= circle(w, x, yh, "#ffffff");
@@ -440,6 +471,14 @@ draw_key(W w, const hl_network *net, const hl_grid_layout *L,
 	x += 13 + hl_grid_text_width("cooler", FS_T) + 30;
 	rc |= line(w, x, y - 8, x, y + 8, hex(HL_SVG_GREY), 1.4, "6 4");
 	rc |= text(w, x + 8, y + 4, FS_T, "start", 0, 0, INK, "pinch");
+	for (i = 0; i < net->nunit && !changed(&net->unit[i]); i++)
+		;
+	if (i < net->nunit) {
+		x += 8 + hl_grid_text_width("pinch", FS_T) + 30;
+		rc |= ring(w, x, y);
+		rc |= text(w, x + 16, y + 4, FS_T, "start", 0, 0, INK,
+		    "new or changed");
+	}
 	y += KEY_ROW;
 	rc |= text(w, 24, y + 4, FS_T, "start", 0, 0, INK_SOFT, "Hot streams "
 	    "run left to right, cold streams right to left (°C between "
