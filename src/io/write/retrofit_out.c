@@ -70,6 +70,20 @@ proposal_text(FILE *fp, const hl_case *c, const hl_rfit *r, size_t i,
 		    "year at this investment (this proposal: %+.0f %%)\n",
 		    w->screen[i], cur(c), w->screen[i] > 0.0 ?
 		    100.0 * (p->saving / w->screen[i] - 1.0) : 0.0);
+	if (w->screen != NULL && p->saving < w->screen[i]) {
+		double fixed = 0.0;
+
+		for (k = 0; k < p->nmod; k++)
+			fixed += p->mod[k].kind == HL_RFIT_REPIPE ||
+			    p->mod[k].kind == HL_RFIT_RESEQUENCE ?
+			    w->o->repipe_cost : p->mod[k].kind ==
+			    HL_RFIT_NEW_UNIT || p->mod[k].kind == HL_RFIT_TRIM ?
+			    w->o->unit_cost : 0.0;
+		fprintf(fp, "  (short of it: the screening knows no fixed "
+		    "costs, %.0f %s here, no trims, and no limit on\n  "
+		    "structure; this search adds no splits and keeps the "
+		    "EMAT at every unit)\n", fixed, cur(c));
+	}
 	for (k = 0; k < p->nmod; k++)
 		mod_text(fp, c, &p->mod[k]);
 }
