@@ -1,8 +1,8 @@
 /* retrofit.c - `heatloom retrofit`: concrete modifications to today's
  * plant, each simulated, priced, checked and ranked by saving within the
  * payback or budget. */
-#include <getopt.h>
 #include <math.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -21,48 +21,6 @@
 /* Points of the constant-α curve the proposals are compared with. */
 #define SCREEN_POINTS 41
 
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom retrofit CASE [options]\n"
-"\n"
-"Retrofit proposals for an existing heat-recovery network: sets of\n"
-"concrete modifications (more area on a unit as a shell in series or in\n"
-"parallel, a unit re-piped to another place or pair, units resequenced on\n"
-"a stream, a new unit, a unit taken out), each simulated with the rating\n"
-"model (ε-NTU at the units' areas and shells; heaters and coolers make up\n"
-"the rest), priced (bought shells by the case's cost law, each re-pipe and\n"
-"new unit a fixed cost) and ranked by the saving on utilities within the\n"
-"payback or budget. Each proposal's network passes `heatloom check`.\n"
-"\n"
-"Today's network comes from the case file's <network> or from --network\n"
-"(the same rows as `heatloom audit`).\n"
-"\n"
-"Options:\n"
-"  --network FILE     the existing network (CSV), instead of the case's own\n"
-"  --utilities FILE   utility table (CSV) to add to the case\n"
-"  --payback YEARS    longest simple payback (default 3 unless --budget)\n"
-"  --budget MONEY     largest investment (default: none)\n"
-"  --max-changes N    modifications per proposal, 1 to 12 (default 4)\n"
-"  --format FMT       text (default), xml, or csv\n"
-"  -o, --output FILE  write to FILE instead of standard output\n"
-"  --svg FILE         grid diagram of the best proposal, changes marked\n"
-"  --time-limit S     stop the search after S seconds (default 60)\n"
-"  --seed N           breaks ties between equal proposals (default 1)\n"
-"  --quiet            no warnings on standard error\n"
-"  -h, --help         show this help\n"
-"\n"
-"Fixed costs of a re-pipe and of a new unit come from the case's <cost\n"
-"repipe new-unit>; without them illustrative defaults (20 000 and 30 000)\n"
-"are used and the output says so.\n"
-"\n"
-"%s\n", hl_caution);
-}
-
-enum { OPT_NETWORK = 256, OPT_SVG, OPT_PAYBACK, OPT_BUDGET, OPT_CHANGES,
-       OPT_TIME, OPT_SEED };
-
 typedef struct {
 	hl_common c;
 	const char *network;
@@ -70,93 +28,53 @@ typedef struct {
 	double payback, budget, changes, time_limit, seed;
 } options;
 
-static int
-own_opt(int ch, options *o)
+static const hl_option option_rows[] = {
+	HL_ROW_TEXT("network", "FILE", options, network,
+	    "the existing network (CSV), instead of the case's own"),
+	HL_ROW_UTILITIES,
+	HL_ROW_NUMBER("payback", "YEARS", options, payback, 0.01, 100.0,
+	    "longest simple payback (default 3 unless --budget)"),
+	HL_ROW_NUMBER("budget", "MONEY", options, budget, 1.0, 1e12,
+	    "largest investment (default: none)"),
+	HL_ROW_NUMBER("max-changes", "N", options, changes, 1.0, 12.0,
+	    "modifications per proposal, 1 to 12 (default 4)"),
+	HL_ROW_FORMAT("text (default), xml, or csv"),
+	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
+	HL_ROW_TEXT("svg", "FILE", options, svg,
+	    "grid diagram of the best proposal, changes ringed"),
+	HL_ROW_NUMBER("time-limit", "S", options, time_limit, 0.1, 86400.0,
+	    "stop the search after S seconds (default 60)"),
+	HL_ROW_NUMBER("seed", "N", options, seed, 0.0, 4294967295.0,
+	    "breaks ties between equal candidates (default 1)"),
+	HL_ROW_QUIET("no warnings on standard error"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
+
+static void
+init(void *opts)
 {
-	static const struct {
-		int ch;
-		const char *name;
-		double lo, hi;
-		size_t off;
-	} num[] = {
-		{ OPT_PAYBACK, "--payback", 0.01, 100.0,
-		  offsetof(options, payback) },
-		{ OPT_BUDGET, "--budget", 1.0, 1e12, offsetof(options, budget) },
-		{ OPT_CHANGES, "--max-changes", 1.0, 12.0,
-		  offsetof(options, changes) },
-		{ OPT_TIME, "--time-limit", 0.1, 86400.0,
-		  offsetof(options, time_limit) },
-		{ OPT_SEED, "--seed", 0.0, 4294967295.0,
-		  offsetof(options, seed) },
-	};
-	size_t i;
+	options *o = opts;
 
-	if (ch == OPT_NETWORK) {
-		o->network = optarg;
-		return 0;
-	}
-	if (ch == OPT_SVG) {
-		o->svg = optarg;
-		return 0;
-	}
-	for (i = 0; i < sizeof num / sizeof num[0]; i++) {
-		double *v = (double *)((char *)o + num[i].off);
-
-		if (num[i].ch != ch)
-			continue;
-		if (hl_cmd_parse_double("retrofit", num[i].name, optarg,
-		    num[i].lo, num[i].hi, v) != 0)
-			return 1;
-		if ((ch == OPT_CHANGES || ch == OPT_SEED) && *v != floor(*v))
-			return hl_cmd_usage("retrofit", "%s wants a whole "
-			    "number, not '%s'", num[i].name, optarg);
-		return 0;
-	}
-	return 1;
+	o->payback = o->budget = o->changes = o->time_limit = o->seed = NAN;
 }
 
 static int
-parse(int argc, char **argv, options *o)
+check(void *opts)
 {
-	static const struct option opts[] = {
-		{ "network", required_argument, NULL, OPT_NETWORK },
-		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
-		{ "payback", required_argument, NULL, OPT_PAYBACK },
-		{ "budget", required_argument, NULL, OPT_BUDGET },
-		{ "max-changes", required_argument, NULL, OPT_CHANGES },
-		{ "format", required_argument, NULL, HL_OPT_FORMAT },
-		{ "svg", required_argument, NULL, OPT_SVG },
-		{ "time-limit", required_argument, NULL, OPT_TIME },
-		{ "seed", required_argument, NULL, OPT_SEED },
-		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
-		{ "output", required_argument, NULL, 'o' },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
-				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
-	int ch, rc;
+	const options *o = opts;
 
-	memset(o, 0, sizeof *o);
-	hl_common_init(&o->c);
-	o->payback = o->budget = o->changes = o->time_limit = o->seed = NAN;
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (hl_cmd_common_opt("retrofit", ch, argv, formats, help,
-				      &o->c, &rc)) {
-			if (rc != 0)
-				return rc;
-		} else if (own_opt(ch, o) != 0) {
-			return 1;
-		}
-	}
-	rc = hl_cmd_one_input("retrofit", argc, argv, &o->c);
-	if (rc == 0 && o->svg != NULL && o->c.output != NULL &&
+	if (!isnan(o->changes) && o->changes != floor(o->changes))
+		return hl_cmd_usage("retrofit", "--max-changes wants a whole "
+		    "number, not %g", o->changes);
+	if (!isnan(o->seed) && o->seed != floor(o->seed))
+		return hl_cmd_usage("retrofit", "--seed wants a whole number, "
+		    "not %g", o->seed);
+	if (o->svg != NULL && o->c.output != NULL &&
 	    strcmp(o->svg, o->c.output) == 0)
 		return hl_cmd_usage("retrofit", "--svg and -o name the same "
 		    "file '%s'", o->svg);
-	return rc;
+	return 0;
 }
 
 static void
@@ -357,42 +275,52 @@ write_svg(const options *o, const run_state *s, hl_error *err)
 	return st;
 }
 
-static int
-run(int argc, char **argv)
+static hl_status
+run_retrofit(void *opts, hl_error *err)
 {
-	options o;
+	const options *o = opts;
 	run_state s;
 	hl_rfit_opts ro;
 	hl_rfit_out w;
-	hl_error err;
 	hl_status st;
-	int rc = parse(argc, argv, &o);
 
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
-	hl_error_clear(&err);
 	memset(&s, 0, sizeof s);
 	memset(&w, 0, sizeof w);
-	st = load(&o, &s, &err);
+	st = load(o, &s, err);
 	if (st == HL_OK) {
-		set_opts(&o, s.c, &ro, &w);
-		st = compute(&ro, &s, &err);
+		set_opts(o, s.c, &ro, &w);
+		st = compute(&ro, &s, err);
 	}
 	w.screen = s.promise;
 	/* Everything is computed and checked before any file is written. */
-	if (st == HL_OK && o.svg != NULL)
-		st = write_svg(&o, &s, &err);
+	if (st == HL_OK && o->svg != NULL)
+		st = write_svg(o, &s, err);
 	if (st == HL_OK)
-		st = write_main(&o, &s, &w, &err);
+		st = write_main(o, &s, &w, err);
 	state_free(&s);
-	return st == HL_OK ? 0 : hl_cmd_fail(&err);
+	return st;
 }
 
 const hl_command hl_cmd_retrofit = {
-	"retrofit", "CASE [--network FILE] [--payback YEARS] [--budget MONEY] "
-	"[--max-changes N] [--format text|xml|csv] [-o FILE] [--svg FILE] "
-	"[--time-limit S] [--seed N] [--quiet]",
+	"retrofit", "CASE [options]",
 	"modifications to today's plant, simulated, priced and ranked by "
 	"payback",
-	run, help
+	"Retrofit proposals for an existing heat-recovery network: sets of\n"
+	"concrete modifications (more area on a unit as a shell in series or in\n"
+	"parallel, a unit re-piped to another place or pair, units resequenced on\n"
+	"a stream, a new unit, a unit taken out), each simulated with the rating\n"
+	"model (ε-NTU at the units' areas and shells; heaters and coolers make up\n"
+	"the rest), priced (bought shells by the case's cost law, each re-pipe and\n"
+	"new unit a fixed cost) and ranked by the saving on utilities within the\n"
+	"payback or budget. Each proposal's network passes `heatloom check`.\n"
+	"\n"
+	"Today's network comes from the case file's <network> or from --network\n"
+	"(the same rows as `heatloom audit`).\n",
+	"Fixed costs of a re-pipe and of a new unit come from the case's <cost\n"
+	"repipe new-unit>; without them illustrative defaults (20 000 and 30 000)\n"
+	"are used and the output says so. The proposals are screening estimates\n"
+	"for a first discussion, not a retrofit design.\n",
+	option_rows, sizeof(options),
+	"give one CASE file", "give one CASE file, not several",
+	init, check, run_retrofit
 };

@@ -7,7 +7,7 @@
 . "$TOP_SRCDIR/tests/cli/lib.sh"
 
 MAN="$TOP_SRCDIR/doc/heatloom.1"
-COMMANDS="targets size curves sweep audit matches design check report"
+COMMANDS="targets size curves sweep audit retrofit matches design check report"
 
 # The long options of one command, one a line, from `heatloom help CMD`.
 help_options() {

@@ -19,6 +19,7 @@
 #include <string.h>
 
 #include "gen.h"
+#include "near.h"
 #include "netcheck.h"
 #include "netfix.h"
 #include "netsim.h"
@@ -28,10 +29,11 @@
 #define TOL_TRIP 1e-8   /* sized then simulated, relative to the duty */
 #define TOL_BAL 1e-6    /* a balance after the sweeps settle, kW relative */
 
+/* near.h's test, with the quantity named. */
 static void
 near(double got, double want, double tol, const char *what)
 {
-	if (!(fabs(got - want) <= tol * fmax(1.0, fabs(want))))
+	if (!hl_near(got, want, tol))
 		fail_msg("%s: got %.12g, want %.12g", what, got, want);
 }
 

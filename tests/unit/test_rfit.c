@@ -29,6 +29,7 @@
 
 #include "audit.h"
 #include "gen.h"
+#include "near.h"
 #include "netcheck.h"
 #include "netfix.h"
 #include "network.h"
@@ -38,10 +39,11 @@
 #define WIDE 30.0         /* K, the approach today's plant was built at */
 #define TOL_MONEY 1e-6    /* relative, sums of the same numbers */
 
+/* near.h's test, with the quantity named. */
 static void
 near(double got, double want, double tol, const char *what)
 {
-	if (!(fabs(got - want) <= tol * fmax(1.0, fabs(want))))
+	if (!hl_near(got, want, tol))
 		fail_msg("%s: got %.12g, want %.12g", what, got, want);
 }
 

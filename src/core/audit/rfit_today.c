@@ -173,21 +173,50 @@ set_emat(hl_network *net)
 	net->set.emat = emat * (1.0 - 1e-9);
 }
 
+/* The case's process streams in case order, then its utilities with
+ * today's loads: party i is stream i, party nstream + k utility k. */
 static hl_status
 add_parties(const hl_case *c, const hl_existing *ex, hl_network *net,
 	    hl_error *err)
 {
-	hl_network_party *p = NULL;
-	size_t n = 0, i;
-	hl_status st = hl_network_parties_from_case(c, ex->util_load, &p, &n,
-	    err);
+	size_t i;
+	hl_status st = HL_OK;
 
-	for (i = 0; i < n; i++) {
-		if (st == HL_OK)
-			st = hl_network_add_party(net, &p[i], err);
-		hl_network_party_free(&p[i]);
+	for (i = 0; i < c->nstream && st == HL_OK; i++) {
+		const hl_stream *s = &c->stream[i];
+		hl_network_party q;
+
+		memset(&q, 0, sizeof q);
+		q.name = s->name;
+		q.kind = s->kind;
+		q.supply = hl_stream_supply(s);
+		q.target = hl_stream_target(s);
+		q.nseg = s->nseg;
+		q.seg = s->seg;
+		q.h = NAN;
+		q.dt_contrib = s->dt_contrib;
+		q.load = hl_stream_duty(s);
+		q.price = NAN;
+		q.max_load = NAN;
+		st = hl_network_add_party(net, &q, err);
 	}
-	free(p);
+	for (i = 0; i < c->nutil && st == HL_OK; i++) {
+		const hl_utility *u = &c->util[i];
+		hl_network_party q;
+
+		memset(&q, 0, sizeof q);
+		q.name = u->name;
+		q.kind = u->kind;
+		q.utility = 1;
+		q.supply = u->supply;
+		q.target = u->target;
+		q.h = u->h;
+		q.dt_contrib = u->dt_contrib;
+		q.load = ex->util_load[i];
+		q.price = u->price;
+		q.max_load = u->max_load;
+		st = hl_network_add_party(net, &q, err);
+	}
 	return st;
 }
 

@@ -4,9 +4,10 @@
 #include <stdio.h>
 #include <string.h>
 
-#include "network_out.h"
+#include "network_write.h"
 #include "result_xml.h"
 #include "retrofit_out.h"
+#include "text_out.h"
 
 static const char *
 cur(const hl_case *c)
@@ -100,9 +101,10 @@ changed_units(FILE *fp, const hl_rfit_proposal *p)
 
 		if (!(u->area_added > 0.0))
 			continue;
-		fprintf(fp, "    %-6s %-26s %8.1f kW  %7.1f + %7.1f m²; needs "
-		    "%7.1f m², %d shell%s\n", u->id, u->reuses[0] ?
-		    u->reuses : "(new)", u->duty, u->area_today,
+		fprintf(fp, "    %-6s ", u->id);
+		hl_text_pad(fp, u->reuses[0] ? u->reuses : "(new)", 26);
+		fprintf(fp, " %8.1f kW  %7.1f + %7.1f m²; needs "
+		    "%7.1f m², %d shell%s\n", u->duty, u->area_today,
 		    u->area_added, u->area, u->shells,
 		    u->shells == 1 ? "" : "s");
 	}
@@ -247,32 +249,6 @@ hl_rfit_xml(xmlTextWriterPtr x, const hl_rfit *r, const hl_rfit_out *w)
 	return rc;
 }
 
-/* A CSV field, quoted when it holds a comma, quote or line break. */
-static void
-field(FILE *fp, const char *s)
-{
-	if (strpbrk(s, ",\"\n\r") == NULL) {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (; *s; s++) {
-		if (*s == '"')
-			fputc('"', fp);
-		fputc(*s, fp);
-	}
-	fputc('"', fp);
-}
-
-static void
-number(FILE *fp, double v)
-{
-	char buf[64];
-
-	hl_format_number(buf, sizeof buf, v);
-	fprintf(fp, ",%s", buf);
-}
-
 void
 hl_rfit_csv(FILE *fp, const hl_rfit *r, const hl_rfit_out *w)
 {
@@ -288,21 +264,21 @@ hl_rfit_csv(FILE *fp, const hl_rfit *r, const hl_rfit_out *w)
 			const hl_rfit_mod *m = &p->mod[k];
 
 			fprintf(fp, "%zu", i + 1);
-			number(fp, p->investment);
-			number(fp, p->saving);
-			number(fp, p->payback);
-			number(fp, p->hot_after);
-			number(fp, p->cold_after);
-			number(fp, w->screen != NULL ? w->screen[i] : NAN);
+			hl_csv_num(fp, p->investment);
+			hl_csv_num(fp, p->saving);
+			hl_csv_num(fp, p->payback);
+			hl_csv_num(fp, p->hot_after);
+			hl_csv_num(fp, p->cold_after);
+			hl_csv_num(fp, w->screen != NULL ? w->screen[i] : NAN);
 			fprintf(fp, ",%s,", hl_rfit_kind_name(m->kind));
-			field(fp, m->unit);
+			hl_csv_text(fp, m->unit);
 			fputc(',', fp);
-			field(fp, m->from);
+			hl_csv_text(fp, m->from);
 			fputc(',', fp);
-			field(fp, m->to);
-			number(fp, m->area_added);
+			hl_csv_text(fp, m->to);
+			hl_csv_num(fp, m->area_added);
 			fprintf(fp, ",%d", m->shells_added);
-			number(fp, m->cost);
+			hl_csv_num(fp, m->cost);
 			fputc('\n', fp);
 		}
 	}
