@@ -91,6 +91,10 @@ if [ -n "${XMLLINT:-}" ]; then
 		check_exit 2 hl check "$WORK/t2.xml"
 		check_grep "m² added: add" "$WORK/stderr"
 	fi
+	# A reused unit without its area today is refused with its line.
+	sed 's/ area-today="[0-9.]*"//' "$WORK/t.xml" >"$WORK/t3.xml"
+	check_exit 2 hl check "$WORK/t3.xml"
+	check_grep "reuses with area-today" "$WORK/stderr"
 fi
 
 # Same input and seed: the same bytes.
