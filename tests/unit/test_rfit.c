@@ -11,7 +11,8 @@
  *    saving, and no proposal breaks the limits;
  *  - on small plants, the best one-change proposal agrees with an
  *    exhaustive search over single modifications (every unit, pair and
- *    place, 40 areas on a geometric grid), within the grid's step.
+ *    place, 40 areas on a geometric grid, 38 shares of a new split),
+ *    within the grids' steps.
  * The best proposal within a 3-year payback is printed beside what the
  * audit's constant-α curve (Tjoe & Linnhoff 1986) promises at the same
  * investment.
@@ -187,7 +188,9 @@ check_proposal(const run *z, const hl_rfit_opts *o, const hl_rfit_proposal *p)
 		const hl_rfit_mod *m = &p->mod[i];
 
 		inv += m->cost;
-		if (m->kind == HL_RFIT_REPIPE || m->kind == HL_RFIT_RESEQUENCE)
+		if (m->kind == HL_RFIT_REPIPE || m->kind == HL_RFIT_RESEQUENCE ||
+		    m->kind == HL_RFIT_ADD_SPLIT ||
+		    m->kind == HL_RFIT_DROP_SPLIT)
 			fixed += o->repipe_cost;
 		if (m->kind == HL_RFIT_NEW_UNIT || m->kind == HL_RFIT_TRIM)
 			fixed += o->unit_cost;
@@ -332,6 +335,29 @@ exhaustive(const hl_case *c, const hl_network *t, const hl_rfit_opts *o)
 					free(p.mod);
 					hl_network_free(p.net);
 				}
+	/* Splits added (first share on a fine grid) and dropped. */
+	for (h = 0; h < t->nparty; h++)
+		for (g = 0; g < 8 * 40; g++) {
+			hl_rfit_move mv;
+			hl_rfit_proposal p;
+			int valid = 0;
+
+			if (t->party[h].utility)
+				continue;
+			memset(&mv, 0, sizeof mv);
+			mv.hot = mv.cold = h;
+			mv.hot_pos = g / 40 + 1;
+			mv.kind = g % 40 < 38 ? HL_RFIT_ADD_SPLIT :
+			    HL_RFIT_DROP_SPLIT;
+			mv.area = 0.05 + 0.9 * (g % 40) / 37.0;
+			mv.cold_pos = g % 40 == 39;
+			assert_int_equal(hl_rfit_try(c, t, o, &mv, &p, &valid,
+			    NULL), HL_OK);
+			if (valid && p.saving > best && p.payback <= o->payback)
+				best = p.saving;
+			free(p.mod);
+			hl_network_free(p.net);
+		}
 	return best;
 }
 

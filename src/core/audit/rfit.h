@@ -19,10 +19,15 @@
  *  - a new unit between a hot and a cold stream at any place on each; its
  *    area tuned, its shells by the Xp rule at the conditions it meets;
  *  - a unit taken out;
+ *  - a split added: two recovery units that follow each other on a
+ *    process stream become the two branches of a split there, the share
+ *    tuned; or dropped: the two branches of a split put in series, in
+ *    either order (each a re-pipe's fixed cost);
  *  - more area on a heater or cooler whose new duty needs it, and a trim
  *    heater or cooler where a stream would end short of its target: these
  *    follow from the others and are priced with them.
- * Splits are neither added nor dropped (today's splits stay as they are).
+ * Splits of more than two branches, and splits of a heater or cooler, stay
+ * as they are.
  *
  * Each candidate is simulated (netsim.h): recovery units do what their area
  * allows, heaters and coolers make up the rest to their set points. It is
@@ -64,11 +69,15 @@ typedef enum {
 	HL_RFIT_NEW_UNIT,          /* a new exchanger */
 	HL_RFIT_REMOVE,            /* taken out */
 	HL_RFIT_UTILITY_AREA,      /* a heater or cooler needs more area */
-	HL_RFIT_TRIM               /* a new heater or cooler at a stream end */
+	HL_RFIT_TRIM,              /* a new heater or cooler at a stream end */
+	HL_RFIT_ADD_SPLIT,         /* two units in series on a stream made
+				      parallel branches */
+	HL_RFIT_DROP_SPLIT         /* two branches of a split put in series */
 } hl_rfit_kind;
 
 /* "add-shell-series", "add-shell-parallel", "re-pipe", "resequence",
- * "add-unit", "remove-unit", "utility-area", "add-trim". */
+ * "add-unit", "remove-unit", "utility-area", "add-trim", "add-split",
+ * "drop-split". */
 const char *hl_rfit_kind_name(hl_rfit_kind k);
 
 typedef struct {
@@ -140,7 +149,10 @@ void hl_rfit_free(hl_rfit *r);
  * an index into today->unit (more area, re-pipe, resequence, remove);
  * hot, cold, hot_pos, cold_pos, the pair and places (re-pipe,
  * resequence, new unit; places counted once the unit is lifted off);
- * area (m², more area and new unit). */
+ * area (m², more area and new unit). A split: hot is the process stream,
+ * hot_pos the stage (add-split: the first of the two units in series,
+ * area the first one's share in (0, 1); drop-split: the split's stage,
+ * cold_pos 0 or 1, which branch goes first). */
 typedef struct {
 	hl_rfit_kind kind;
 	size_t unit;

@@ -365,7 +365,9 @@ derive(const rf_ctx *x, rf_cand *cd)
 		hl_rfit_mod *m = &cd->mod[k];
 		const hl_network_unit *u = unit_named(net, m->unit);
 		int area = m->kind != HL_RFIT_REPIPE &&
-		    m->kind != HL_RFIT_RESEQUENCE && m->kind != HL_RFIT_REMOVE;
+		    m->kind != HL_RFIT_RESEQUENCE && m->kind != HL_RFIT_REMOVE &&
+		    m->kind != HL_RFIT_ADD_SPLIT &&
+		    m->kind != HL_RFIT_DROP_SPLIT;
 
 		m->cost = 0.0;
 		if (area && u != NULL) {
@@ -373,7 +375,9 @@ derive(const rf_ctx *x, rf_cand *cd)
 			m->shells_added = u->shells_added;
 			m->cost = u->cost;
 		}
-		if (m->kind == HL_RFIT_REPIPE || m->kind == HL_RFIT_RESEQUENCE)
+		if (m->kind == HL_RFIT_REPIPE || m->kind == HL_RFIT_RESEQUENCE ||
+		    m->kind == HL_RFIT_ADD_SPLIT ||
+		    m->kind == HL_RFIT_DROP_SPLIT)
 			m->cost += x->o->repipe_cost;
 		if (m->kind == HL_RFIT_NEW_UNIT || m->kind == HL_RFIT_TRIM)
 			m->cost += x->o->unit_cost;

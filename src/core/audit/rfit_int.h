@@ -67,6 +67,14 @@ int rf_move_repipe(hl_network *net, size_t i, size_t hot, size_t cold,
 /* Temperature of party p where its stage pos begins (its target past the
  * last). */
 double rf_temp_at(const hl_network *net, size_t p, int pos);
+/* The units at stages k and k + 1 of party p (one each, recovery units)
+ * become branches of stage k with shares s and 1 − s; the two branches of
+ * stage k put in series (swap: the second first). 0 or -1; *a, *b the
+ * units (may be NULL). */
+int rf_move_split(hl_network *net, size_t p, int k, double s, size_t *a,
+		  size_t *b);
+int rf_move_unsplit(hl_network *net, size_t p, int k, int swap, size_t *a,
+		    size_t *b);
 /* Take out the trims (new heaters and coolers). */
 void rf_strip_trims(hl_network *net);
 /* Number of stages on party p. */

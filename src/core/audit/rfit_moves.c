@@ -189,3 +189,91 @@ rf_strip_trims(hl_network *net)
 		net->nunit--;
 	}
 }
+
+/* The one unit at stage k of party p, or SIZE_MAX (none or several). */
+static size_t
+alone_at(const hl_network *net, size_t p, int k)
+{
+	size_t i, found = (size_t)-1;
+
+	for (i = 0; i < net->nunit; i++) {
+		const hl_network_unit *u = &net->unit[i];
+
+		if ((u->hot == p && u->hot_stage == k) ||
+		    (u->cold == p && u->cold_stage == k)) {
+			if (found != (size_t)-1)
+				return (size_t)-1;
+			found = i;
+		}
+	}
+	return found;
+}
+
+static void
+set_place(hl_network_unit *u, size_t p, int k, double share)
+{
+	if (u->hot == p) {
+		u->hot_stage = k;
+		u->hot_share = share;
+	} else {
+		u->cold_stage = k;
+		u->cold_share = share;
+	}
+}
+
+int
+rf_move_split(hl_network *net, size_t p, int k, double s, size_t *a,
+	      size_t *b)
+{
+	size_t x = alone_at(net, p, k), y = alone_at(net, p, k + 1);
+
+	if (net->party[p].utility || x == (size_t)-1 || y == (size_t)-1 ||
+	    !rf_recovery(net, &net->unit[x]) ||
+	    !rf_recovery(net, &net->unit[y]) || !(s > 0.0 && s < 1.0))
+		return -1;
+	set_place(&net->unit[x], p, k, s);
+	set_place(&net->unit[y], p, k, 1.0 - s);
+	shift(net, p, k + 2, -1, (size_t)-1);
+	if (a != NULL)
+		*a = x;
+	if (b != NULL)
+		*b = y;
+	return 0;
+}
+
+int
+rf_move_unsplit(hl_network *net, size_t p, int k, int swap, size_t *a,
+		size_t *b)
+{
+	size_t i, n = 0, u2[2] = { 0, 0 };
+
+	if (net->party[p].utility)
+		return -1;
+	for (i = 0; i < net->nunit; i++) {
+		const hl_network_unit *u = &net->unit[i];
+
+		if ((u->hot == p && u->hot_stage == k) ||
+		    (u->cold == p && u->cold_stage == k)) {
+			if (n == 2)
+				return -1;
+			u2[n++] = i;
+		}
+	}
+	if (n != 2 || !rf_recovery(net, &net->unit[u2[0]]) ||
+	    !rf_recovery(net, &net->unit[u2[1]]))
+		return -1;
+	if (swap) {
+		size_t t = u2[0];
+
+		u2[0] = u2[1];
+		u2[1] = t;
+	}
+	shift(net, p, k + 1, 1, (size_t)-1);
+	set_place(&net->unit[u2[0]], p, k, 1.0);
+	set_place(&net->unit[u2[1]], p, k + 1, 1.0);
+	if (a != NULL)
+		*a = u2[0];
+	if (b != NULL)
+		*b = u2[1];
+	return 0;
+}

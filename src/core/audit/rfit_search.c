@@ -13,6 +13,9 @@
 /* Area factors tried on a modification's reference area, then refined. */
 static const double GRID[] = { 0.125, 0.25, 0.5, 1.0, 2.0, 4.0 };
 #define NGRID (sizeof GRID / sizeof GRID[0])
+/* Shares of the first branch tried for a new split. */
+static const double SHARES[] = { 0.2, 0.35, 0.5, 0.65, 0.8 };
+#define NSHARES (sizeof SHARES / sizeof SHARES[0])
 #define REFINE 3
 /* Chains start from this many of the best single modifications. */
 #define CHAINS 3
@@ -31,7 +34,7 @@ hl_rfit_kind_name(hl_rfit_kind k)
 	static const char *const name[] = {
 		"add-shell-series", "add-shell-parallel", "re-pipe",
 		"resequence", "add-unit", "remove-unit", "utility-area",
-		"add-trim"
+		"add-trim", "add-split", "drop-split"
 	};
 
 	return (size_t)k < sizeof name / sizeof name[0] ? name[k] : "?";
@@ -119,6 +122,41 @@ add_new(hl_network *net, const rf_move *mv, double a)
 	return rf_move_place(net, net->nunit - 1, mv->hot_pos, mv->cold_pos);
 }
 
+static const char *
+tag(const hl_network_unit *u)
+{
+	return u->reuses[0] != '\0' ? u->reuses : u->id;
+}
+
+/* A split added (share s of the first branch) or dropped on a copy. */
+static int
+apply_split(hl_network *net, const rf_move *mv, double s, hl_rfit_mod *m)
+{
+	const char *name = net->party[mv->hot].name;
+	size_t a, b;
+	int k = mv->hot_pos;
+
+	memset(m, 0, sizeof *m);
+	m->kind = mv->kind;
+	if (mv->kind == HL_RFIT_ADD_SPLIT) {
+		if (rf_move_split(net, mv->hot, k, s, &a, &b) != 0)
+			return -1;
+		snprintf(m->from, sizeof m->from, "%s #%d, #%d", name, k,
+		    k + 1);
+		snprintf(m->to, sizeof m->to, "%s #%d split %.3g : %.3g",
+		    name, k, s, 1.0 - s);
+	} else {
+		if (rf_move_unsplit(net, mv->hot, k, mv->cold_pos, &a, &b))
+			return -1;
+		snprintf(m->from, sizeof m->from, "%s #%d split", name, k);
+		snprintf(m->to, sizeof m->to, "%s #%d, #%d", name, k, k + 1);
+	}
+	snprintf(m->unit, sizeof m->unit, "%.40s + %.40s", tag(&net->unit[a]),
+	    tag(&net->unit[b]));
+	net->unit[a].moved = net->unit[b].moved = 1;
+	return 0;
+}
+
 /* Apply mv with area a to a copy of base (out); -1 when it cannot be. */
 static int
 apply(const rf_cand *base, const rf_move *mv, double a, rf_cand *out)
@@ -133,7 +171,9 @@ apply(const rf_cand *base, const rf_move *mv, double a, rf_cand *out)
 	net = out->net;
 	out->nmod = out->nmove;
 	m = &out->mod[out->nmove];
-	if (mv->kind == HL_RFIT_NEW_UNIT) {
+	if (mv->kind == HL_RFIT_ADD_SPLIT || mv->kind == HL_RFIT_DROP_SPLIT) {
+		rc = apply_split(net, mv, a, m);
+	} else if (mv->kind == HL_RFIT_NEW_UNIT) {
 		rc = add_new(net, mv, a);
 		if (rc == 0) {
 			u = &net->unit[net->nunit - 1];
@@ -176,8 +216,9 @@ tune(rf_ctx *x, const rf_cand *base, const rf_move *mv, double ref,
 {
 	int area = mv->kind == HL_RFIT_SHELL_SERIES ||
 	    mv->kind == HL_RFIT_SHELL_PARALLEL || mv->kind == HL_RFIT_NEW_UNIT;
+	int share = mv->kind == HL_RFIT_ADD_SPLIT;
 	double best_a = NAN, step = log(2.0);
-	size_t g, n = area ? NGRID : 1;
+	size_t g, n = area ? NGRID : share ? NSHARES : 1;
 	int r;
 	hl_status st;
 
@@ -191,7 +232,7 @@ tune(rf_ctx *x, const rf_cand *base, const rf_move *mv, double ref,
 			break;
 		}
 		if (g < n) {
-			a = area ? GRID[g] * ref : 0.0;
+			a = area ? GRID[g] * ref : share ? SHARES[g] : 0.0;
 		} else {
 			if (isnan(best_a))
 				break;
@@ -399,6 +440,35 @@ new_moves(walk *w)
 	return st;
 }
 
+/* Splits added between units that follow each other on a stream, and
+ * two-branch splits put in series either way round. */
+static hl_status
+split_moves(walk *w)
+{
+	const hl_network *net = w->base->net;
+	size_t p;
+	hl_status st = HL_OK;
+
+	for (p = 0; p < net->nparty && st == HL_OK; p++) {
+		int k, n = rf_stages(net, p), o;
+
+		if (net->party[p].utility)
+			continue;
+		for (k = 1; k <= n && st == HL_OK; k++) {
+			rf_move mv = { HL_RFIT_ADD_SPLIT, 0, p, p, k, 0, 0 };
+
+			if (k < n)
+				st = try_move(w, &mv, 0.0);
+			mv.kind = HL_RFIT_DROP_SPLIT;
+			for (o = 0; o < 2 && st == HL_OK; o++) {
+				mv.cold_pos = o;
+				st = try_move(w, &mv, 0.0);
+			}
+		}
+	}
+	return st;
+}
+
 /* Every move from base; w->best the best within the limits. */
 static hl_status
 all_moves(walk *w)
@@ -406,6 +476,9 @@ all_moves(walk *w)
 	const hl_network *net = w->base->net;
 	size_t i;
 	hl_status st = area_moves(w);
+
+	if (st == HL_OK)
+		st = split_moves(w);
 
 	for (i = 0; i < net->nunit && st == HL_OK; i++)
 		if (rf_recovery(net, &net->unit[i]) &&

@@ -76,7 +76,9 @@ proposal_text(FILE *fp, const hl_case *c, const hl_rfit *r, size_t i,
 
 		for (k = 0; k < p->nmod; k++)
 			fixed += p->mod[k].kind == HL_RFIT_REPIPE ||
-			    p->mod[k].kind == HL_RFIT_RESEQUENCE ?
+			    p->mod[k].kind == HL_RFIT_RESEQUENCE ||
+			    p->mod[k].kind == HL_RFIT_ADD_SPLIT ||
+			    p->mod[k].kind == HL_RFIT_DROP_SPLIT ?
 			    w->o->repipe_cost : p->mod[k].kind ==
 			    HL_RFIT_NEW_UNIT || p->mod[k].kind == HL_RFIT_TRIM ?
 			    w->o->unit_cost : 0.0;
