@@ -97,6 +97,36 @@ if [ -n "${XMLLINT:-}" ]; then
 	check_grep "reuses with area-today" "$WORK/stderr"
 fi
 
+# Today's network from the case file, fixed costs from its <cost>: the
+# output says they were given and prices with them.
+if [ -n "${XMLLINT:-}" ]; then
+	G="$DATA/good"
+	cat >"$WORK/costs.xml" <<-EOF
+	<?xml version="1.0" encoding="UTF-8"?>
+	<case version="1">
+	  <settings><cost repipe="5000" new-unit="7000"/></settings>
+	  <streams file="$G/kemp4.csv"/>
+	  <utilities file="$G/kemp4-utilities.csv"/>
+	  <network file="$G/kemp4-network.csv"/>
+	</case>
+	EOF
+	check_exit 0 hl retrofit "$WORK/costs.xml" --format xml -o "$WORK/c.xml"
+	r=/results/retrofit
+	[ "$(xpath "string($r/@fixed-costs)" "$WORK/c.xml")" = given ] &&
+		pass || fail "fixed costs from the case"
+	check_near "$(xpath "string($r/@repipe-cost)" "$WORK/c.xml")" 5000 1e-12 "repipe cost"
+	check_near "$(xpath "string($r/@unit-cost)" "$WORK/c.xml")" 7000 1e-12 "unit cost"
+	n=$(xpath "count($r/proposal/modification[@kind='add-unit' and @shells-added = 1])" "$WORK/c.xml")
+	if [ "$n" -gt 0 ]; then
+		# One shell of A m²: a + b·A^c + the new unit's 7000 (cost law
+		# as the case's defaults: 10000 + 800·A^0.8).
+		m="($r/proposal/modification[@kind='add-unit' and @shells-added = 1])[1]"
+		a=$(xpath "string($m/@area-added)" "$WORK/c.xml")
+		want=$(awk -v a="$a" 'BEGIN { printf "%.10g", 10000 + 800 * a ^ 0.8 + 7000 }')
+		check_near "$(xpath "string($m/@cost)" "$WORK/c.xml")" "$want" 1e-9 "new unit's cost"
+	fi
+fi
+
 # Same input and seed: the same bytes.
 check_exit 0 hl retrofit "$K4" --utilities "$U4" --network "$N4" --seed 7 \
 	--format csv -o "$WORK/a.csv"
