@@ -17,6 +17,7 @@
 #include "output.h"
 #include "report_html.h"
 #include "retrofit.h"
+#include "rfit.h"
 #include "sensitivity.h"
 #include "study.h"
 #include "sweep.h"
@@ -108,15 +109,22 @@ typedef struct {
 	size_t findings;
 	hl_audit *audit;
 	hl_retrofit *retrofit;
+	hl_rfit_opts rfo;
+	hl_network *rfit_today;
+	hl_rfit *rfit;
+	double *rfit_promise;
 	char st_note[HL_ERROR_TEXT], sw_note[HL_ERROR_TEXT];
 	char mr_note[HL_ERROR_TEXT], net_note[HL_ERROR_TEXT];
-	char audit_note[HL_ERROR_TEXT];
+	char audit_note[HL_ERROR_TEXT], rfit_note[HL_ERROR_TEXT];
 	char date[32];
 } study;
 
 static void
 study_free(study *s)
 {
+	free(s->rfit_promise);
+	hl_rfit_free(s->rfit);
+	hl_network_free(s->rfit_today);
 	hl_retrofit_free(s->retrofit);
 	hl_audit_free(s->audit);
 	hl_sensitivity_free(s->sv);
@@ -240,6 +248,56 @@ compute_audit(study *s, hl_error *err)
 	return st;
 }
 
+/* Retrofit proposals as `heatloom retrofit --max-changes 2` makes them,
+ * each checked; a plant that cannot be simulated, or a proposal that fails
+ * its check, leaves a note instead. */
+static hl_status
+compute_rfit(study *s, hl_error *err)
+{
+	hl_error e;
+	hl_status st;
+	size_t i;
+
+	if (s->audit == NULL || s->retrofit == NULL)
+		return HL_OK;
+	hl_rfit_opts_default(&s->rfo);
+	s->rfo.max_changes = 2;
+	if (!isnan(s->c->set.repipe_cost))
+		s->rfo.repipe_cost = s->c->set.repipe_cost;
+	if (!isnan(s->c->set.unit_cost))
+		s->rfo.unit_cost = s->c->set.unit_cost;
+	hl_error_clear(&e);
+	st = hl_rfit_today(s->c, s->audit->net, &s->rfit_today, &e);
+	if (st == HL_OK)
+		st = hl_rfit_run(s->c, s->rfit_today, &s->rfo, &s->rfit, &e);
+	for (i = 0; st == HL_OK && i < s->rfit->nproposal; i++) {
+		hl_netcheck *k = NULL;
+
+		st = hl_netcheck_run(s->rfit->p[i].net, &k, &e);
+		if (st == HL_OK && k->n > 0)
+			st = hl_error_set(&e, HL_ENOSOLUTION, NULL, 0,
+			    "proposal %zu fails its check (%s: %s)", i + 1,
+			    k->f[0].what, k->f[0].text);
+		hl_netcheck_free(k);
+	}
+	if (st == HL_OK && (s->rfit_promise = malloc((s->rfit->nproposal +
+	    1) * sizeof *s->rfit_promise)) == NULL)
+		st = hl_error_nomem(&e);
+	for (i = 0; st == HL_OK && i < s->rfit->nproposal; i++)
+		s->rfit_promise[i] = hl_retrofit_saving_at(s->retrofit,
+		    s->rfit->p[i].investment);
+	if (st == HL_EIO) {
+		*err = e;
+		return st;
+	}
+	if (st != HL_OK) {
+		hl_rfit_free(s->rfit);
+		s->rfit = NULL;
+		snprintf(s->rfit_note, sizeof s->rfit_note, "%s", e.text);
+	}
+	return HL_OK;
+}
+
 static hl_status
 load(const report_opts *o, study *s, hl_error *err)
 {
@@ -289,6 +347,8 @@ compute(const report_opts *o, study *s, hl_error *err)
 		st = compute_network(s, err);
 	if (st == HL_OK)
 		st = compute_audit(s, err);
+	if (st == HL_OK)
+		st = compute_rfit(s, err);
 	return st;
 }
 
@@ -350,6 +410,13 @@ fill(const report_opts *o, study *s, hl_report_data *d)
 	d->audit = s->audit;
 	d->retrofit = s->retrofit;
 	d->audit_note = s->audit_note[0] ? s->audit_note : NULL;
+	d->rfit = s->rfit;
+	d->rfit_promise = s->rfit_promise;
+	d->rfit_note = s->rfit_note[0] ? s->rfit_note : NULL;
+	d->rfit_payback = s->rfo.payback;
+	d->rfit_changes = s->rfo.max_changes;
+	d->rfit_costs_given = !isnan(s->c->set.repipe_cost) &&
+	    !isnan(s->c->set.unit_cost);
 	d->network_file = o->network;
 	d->net = s->y.net;
 	d->net_note = s->net_note[0] ? s->net_note : NULL;
@@ -396,10 +463,11 @@ const hl_command hl_cmd_report = {
 	"with an existing network (the case's <network> or --network) also the\n"
 	"audit: energy today against the targets and the saving, the culprits, the\n"
 	"units as read, the area efficiency and a retrofit at constant α with its\n"
-	"payback. Charts and styles are inline: the file needs no network, script\n"
+	"payback, and the retrofit proposals of `heatloom retrofit --max-changes\n"
+	"2`. Charts and styles are inline: the file needs no network, script\n"
 	"or other file, and prints on A4 and Letter. Every number is the rounding\n"
 	"of the one in the XML results of the same command (targets, sweep,\n"
-	"matches, design, audit).\n",
+	"matches, design, audit, retrofit).\n",
 	NULL, option_rows, sizeof(report_opts),
 	"give one CASE file", "give one CASE file, not several",
 	init, check, run_report

@@ -347,7 +347,7 @@ check_exit 0 hl audit "$CASES/demo.xml" --network "$CASES/demo-network.csv" \
 	--format xml -o "$A"
 check_exit 0 "$HTML_CHECK" "$R"
 got=$("$HTML_CHECK" "$R" | grep '^section ' | cut -d' ' -f2 | tr '\n' ' ')
-[ "$got" = "summary data targets utility-choice audit curves tradeoff matches network sensitivity assumptions methods caution " ] \
+[ "$got" = "summary data targets utility-choice audit retrofit curves tradeoff matches network sensitivity assumptions methods caution " ] \
 	&& pass || fail "audit sections: $got"
 # cell ID N: the text of the N-th cell of the row with that id.
 cell() {
@@ -392,6 +392,18 @@ pb=$(fix1 "$(x "$AU/retrofit/point[last()]/@payback" "$A")")
 expect a-payback "$pb years"
 expect sum-payback "$pb years"
 check_grep 'Tjoe' "$R"
+# The retrofit proposals against `heatloom retrofit --max-changes 2`, rank
+# by rank (the report runs the same search).
+RX="$WORK/rx.xml"
+check_exit 0 hl retrofit "$CASES/demo.xml" --network "$CASES/demo-network.csv" \
+	--max-changes 2 --quiet --format xml -o "$RX"
+xml_tsv "$RX" /results/retrofit/proposal rank changes investment saving \
+	payback hot-utility >"$WORK/rx.tsv"
+html_tsv rfit >"$WORK/rfit.tsv"
+compare rfit "$WORK/rx.tsv" "$WORK/rfit.tsv" '
+	want = x[1] "|" x[2] "|" sig(x[3], 3, 0) "|" sig(x[4], 3, 0) "|" sprintf("%.2f", x[5]) "|" sig(x[6], 3, 1)
+	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6
+	if (got != want) print "proposal " FNR ": " got ", want " want'
 # A bad network row stops the report as it stops the audit, nothing written.
 printf 'name,hot,cold,duty\nX-1,no such stream,reactor feed,100\n' >"$WORK/badnet.csv"
 check_exit 2 hl report "$CASES/demo.xml" --network "$WORK/badnet.csv" -o "$WORK/no.html"

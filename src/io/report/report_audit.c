@@ -304,9 +304,9 @@ retrofit(hl_report *r)
 	hl_report_table_start(r, "data retrofit", "From today (first row) to "
 			      "the targets (last row): the area a retrofit "
 			      "keeping today's α needs, the new area, its "
-			      "investment in shells of today's mean size, the "
-			      "saving at today's prices and the simple "
-			      "payback.", 7, head, unit, num);
+			      "investment (shells of the shell target's mean "
+			      "size, by the case's cost law), the saving at "
+			      "today's prices and the simple payback.", 7, head, unit, num);
 	for (i = 0; i < rf->n; i++)
 		retrofit_row(r, &rf->pt[i], i, rf->n);
 	hl_report_table_end(r);

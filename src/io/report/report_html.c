@@ -16,6 +16,7 @@ static const hl_report_section *const sections[] = {
 	&hl_report_sec_targets,
 	&hl_report_sec_choice,
 	&hl_report_sec_audit,
+	&hl_report_sec_retrofit,
 	&hl_report_sec_curves,
 	&hl_report_sec_tradeoff,
 	&hl_report_sec_matches,

@@ -105,6 +105,7 @@ extern const hl_report_section hl_report_sec_streams;
 extern const hl_report_section hl_report_sec_targets;
 extern const hl_report_section hl_report_sec_choice;
 extern const hl_report_section hl_report_sec_audit;
+extern const hl_report_section hl_report_sec_retrofit;
 extern const hl_report_section hl_report_sec_curves;
 extern const hl_report_section hl_report_sec_tradeoff;
 extern const hl_report_section hl_report_sec_matches;
