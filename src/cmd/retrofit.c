@@ -104,21 +104,6 @@ set_opts(const options *o, const hl_case *c, hl_rfit_opts *r,
 	w->network = o->network;
 }
 
-static void
-print_warnings(const hl_existing *net)
-{
-	size_t i;
-
-	for (i = 0; net != NULL && i < net->nwarn; i++) {
-		const hl_error *e = &net->warn[i];
-
-		fprintf(stderr, "heatloom: ");
-		if (e->file[0] != '\0' && e->line > 0)
-			fprintf(stderr, "%s:%ld: ", e->file, e->line);
-		fprintf(stderr, "warning: %s\n", e->text);
-	}
-}
-
 /* Every proposal's network passes the check, or nothing is written. */
 static hl_status
 check_all(const hl_rfit *r, hl_error *err)
@@ -180,7 +165,7 @@ load(const options *o, run_state *s, hl_error *err)
 	if (st == HL_OK) {
 		st = hl_audit_run(s->c, &s->a, err);
 		if (!o->c.quiet)
-			print_warnings(s->a ? s->a->net : NULL);
+			hl_cmd_print_warnings(s->a ? s->a->net : NULL);
 	}
 	return st;
 }
