@@ -981,6 +981,7 @@ test_spec_settings(void **state)
 
 	(void)state;
 	memset(&set, 0, sizeof set);
+	hl_settings_default_laws(&set);
 	set.exchanger = HL_EXCH_COUNTERFLOW;
 	set.fmin = 0.75;
 	set.xp = 0.85;
