@@ -129,7 +129,7 @@ grep -q ' $' "$WORK/r.txt" && fail "trailing blanks in the text report" || pass
 
 # CSV: a header and one row per unit.
 check_exit 0 hl size "$LIST" --format csv -o "$WORK/r.csv"
-check_grep "name,line,type,duty,hot_in,hot_out,cold_in,cold_out,u,lmtd,p,r,f,shells,area,area_shell,cost,status,cross,assumed,note" "$WORK/r.csv"
+check_grep "name,line,type,duty,hot_in,hot_out,cold_in,cold_out,u,lmtd,p,r,f,shells,parallel,area,area_shell,cost,status,cross,assumed,note" "$WORK/r.csv"
 check_grep "cross-4,16,shell-and-tube,640,100,36,20,84,0.4,16,0.8,1,0.80227" "$WORK/r.csv"
 check_near "$(wc -l <"$WORK/r.csv")" 8 0 "CSV rows"
 
@@ -153,7 +153,7 @@ done <"$WORK/doc-attrs"
 check_exit 1 hl size
 check_exit 1 hl size "$LIST" --cost-a 5000
 check_grep "together" "$WORK/stderr"
-check_exit 1 hl size "$LIST" --type plate
+check_exit 1 hl size "$LIST" --type spiral
 check_exit 1 hl size "$LIST" --fmin 1
 check_exit 0 hl help size
 check_grep "Usage: heatloom size UNITS.csv" "$WORK/stdout"
