@@ -187,6 +187,9 @@ resolve(const hl_unit_spec *u, const options *o, hl_size_row *row)
 	if (isinf(s->largest))
 		row->assumed &= ~(unsigned)HL_ASSUMED_LARGEST;
 	resolve_u(u, o, row);
+	if (s->type == HL_EXCH_FIRED_HEATER)
+		row->assumed &= ~(unsigned)(HL_ASSUMED_H_HOT |
+		    HL_ASSUMED_H_COLD);
 }
 
 /* Size one row. HL_ENOSOLUTION leaves the row marked as not sized, with

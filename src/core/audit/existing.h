@@ -98,6 +98,7 @@ typedef struct {
 	double u;           /* kW/(m²·K) from the film coefficients */
 	double lmtd;        /* K, counterflow, from the ends as read */
 	double f;           /* F of its shells (1 for counterflow) */
+	hl_exchanger_type type; /* its row's, else hl_case_pair_type */
 	int shells;         /* given, else estimated */
 	double area;        /* m², given or estimated; NaN when neither */
 	int area_estimated; /* 1: estimated, not given */

@@ -58,6 +58,13 @@ side_h(const hl_case *c, hl_side *sd)
 	}
 }
 
+static const char *
+side_name(const hl_case *c, const hl_side *sd)
+{
+	return sd->stream >= 0 ? c->stream[sd->stream].name :
+	       sd->util >= 0 ? c->util[sd->util].name : "";
+}
+
 static double
 side_shift(const hl_case *c, const hl_side *sd)
 {
@@ -99,6 +106,36 @@ approach(hl_existing_work *w, hl_existing_unit *u)
 	return rc < 0 ? hl_error_nomem(w->err) : HL_OK;
 }
 
+/* An air cooler: crossflow sections (both fluids unmixed), the given
+ * count if it reaches F >= fmin, else the fewest that do. */
+static hl_status
+sections_f(hl_existing_work *w, hl_existing_unit *u, int given, int quiet)
+{
+	double p, r, f1;
+	int n, rc = 0;
+
+	if (hl_exchanger_pr(u->hot.t_in, u->hot.t_out, u->cold.t_in,
+			    u->cold.t_out, &p, &r, NULL) != HL_OK ||
+	    !isfinite(r) || hl_exchanger_sections_crossflow(p, r,
+	    w->c->set.fmin, &n, &u->f, NULL) != HL_OK)
+		return HL_OK;
+	u->shells = n;
+	if (given > 0 && given != n) {
+		double p1;
+
+		if (hl_exchanger_p_shell(p, r, given, &p1, NULL) == HL_OK &&
+		    hl_exchanger_f_crossflow(p1, r, &f1, NULL) == HL_OK) {
+			u->f = f1;
+			u->shells = given;
+		} else if (!quiet)
+			rc = hl_existing_warn(w->net, u->file, u->line,
+				"unit '%s': %d crossflow sections cannot do "
+				"this duty; its area is estimated with %d",
+				u->name, given, n);
+	}
+	return rc < 0 ? hl_error_nomem(w->err) : HL_OK;
+}
+
 /* F and shells: the given count if it can do the duty, else the Xp rule
  * (Ahmad, Linnhoff & Smith 1988), else counterflow. Only an estimate is
  * worth a warning: a given area stands whatever its shells. */
@@ -109,9 +146,13 @@ shells_f(hl_existing_work *w, hl_existing_unit *u, int given, int quiet)
 	double p, r;
 	int n, rc = 0;
 
+	/* Counterflow, plate, double pipe: F = 1; a fired heater's area is
+	 * estimated as counterflow too (its audit share is by area). */
 	u->f = 1.0;
 	u->shells = given > 0 ? given : 1;
-	if (set->exchanger == HL_EXCH_COUNTERFLOW ||
+	if (u->type == HL_EXCH_AIR_COOLER)
+		return sections_f(w, u, given, quiet);
+	if (u->type != HL_EXCH_SHELL_TUBE ||
 	    hl_exchanger_pr(u->hot.t_in, u->hot.t_out, u->cold.t_in,
 			    u->cold.t_out, &p, &r, NULL) != HL_OK ||
 	    p == 0.0 || r == 0.0 || !isfinite(r))
@@ -152,6 +193,9 @@ hl_existing_size(hl_existing_work *w, hl_existing_unit *u, const hl_unit *row)
 	st = approach(w, u);
 	if (st != HL_OK)
 		return st;
+	u->type = row != NULL && row->type_given ?
+	    (hl_exchanger_type)row->type : hl_case_pair_type(w->c,
+	    side_name(w->c, &u->hot), side_name(w->c, &u->cold));
 	side_h(w->c, &u->hot);
 	side_h(w->c, &u->cold);
 	hl_exchanger_u(u->hot.h, u->cold.h, &u->u, NULL);

@@ -272,7 +272,9 @@ resolve_u(const ctx *c, const double *v, hl_unit_spec *u, hl_error *err)
 		st = check_coefficient(c, "h_cold", u->h_cold, err);
 	if (st != HL_OK)
 		return st;
-	if (isnan(u->u) && isnan(u->h_hot) && isnan(u->h_cold))
+	/* A fired heater is sized by duty: no coefficient needed. */
+	if (isnan(u->u) && isnan(u->h_hot) && isnan(u->h_cold) &&
+	    u->type != HL_EXCH_FIRED_HEATER)
 		return fail(c, err, "no heat transfer coefficient: give u, or "
 		    "h_hot and h_cold (kW/(m²·K), fouling included)");
 	if (isnan(u->u))
