@@ -151,4 +151,21 @@ check_exit 2 hl design "$DATA/good/kemp4.csv" --dtmin 0 -o "$WORK/zero.txt"
 [ -e "$WORK/zero.txt" ] && fail "a failed design wrote its output" || pass
 check_exit 0 hl design --help
 check_grep "screening estimates" "$WORK/stdout"
+
+# Exchanger types per utility and per pair; check prices them again.
+TC="$DATA/good/kemp4-types.xml"
+check_exit 0 hl design "$TC" --format xml -o "$X"
+valid "$X"
+ty() { xpath "string(/results/network/exchanger[@$1]/@$2)" "$X"; }
+[ "$(ty "hot='flue gas'" type)" = fired-heater ] && pass || fail "flue gas unit not a fired heater"
+[ "$(ty "cold='air'" type)" = air-cooler ] && pass || fail "air unit not an air cooler"
+[ "$(ty "hot='H2' and @cold='C1'" type)" = plate ] && pass || fail "H2/C1 not plate"
+check_near "$(ty "hot='flue gas'" area)" 0 0 "fired heater: no area"
+# 80000 + 109000·Q^0.8 at Q = 0.02 MW (the case's law) [formula check].
+check_near "$(ty "hot='flue gas'" cost)" "$(awk 'BEGIN { printf "%.15g", 80000 + 109000*exp(0.8*log(0.02)) }')" 1e-9 "fired heater cost"
+check_near "$(ty "hot='H2' and @cold='C1'" parallel)" 5 0 "plates in parallel beyond 5 m²"
+check_grep "below the smallest plausible" "$X"
+check_exit 0 hl check "$X"
+check_grep "sound, 0 problems" "$WORK/stdout"
+
 finish
