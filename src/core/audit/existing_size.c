@@ -196,6 +196,13 @@ hl_existing_size(hl_existing_work *w, hl_existing_unit *u, const hl_unit *row)
 	u->type = row != NULL && row->type_given ?
 	    (hl_exchanger_type)row->type : hl_case_pair_type(w->c,
 	    side_name(w->c, &u->hot), side_name(w->c, &u->cold));
+	if ((u->type == HL_EXCH_FIRED_HEATER && u->hot.util < 0) ||
+	    (u->type == HL_EXCH_AIR_COOLER && u->cold.util < 0))
+		return hl_error_set(w->err, HL_EINPUT, u->file, u->line,
+			"unit '%s': a %s needs a %s utility on its %s side",
+			u->name, hl_exchanger_type_name(u->type),
+			u->type == HL_EXCH_FIRED_HEATER ? "hot" : "cold",
+			u->type == HL_EXCH_FIRED_HEATER ? "hot" : "cold");
 	side_h(w->c, &u->hot);
 	side_h(w->c, &u->cold);
 	hl_exchanger_u(u->hot.h, u->cold.h, &u->u, NULL);

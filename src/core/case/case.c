@@ -749,6 +749,21 @@ hl_case_validate(const hl_case *c, hl_error *err)
 		if (st != HL_OK)
 			return st;
 	}
+	for (i = 0; i < c->nunit; i++) {
+		const hl_unit *u = &c->unit[i];
+
+		if (u->type_given && ((u->type == HL_EXCH_FIRED_HEATER &&
+		    hl_case_find_utility(c, u->hot) < 0) ||
+		    (u->type == HL_EXCH_AIR_COOLER &&
+		    hl_case_find_utility(c, u->cold) < 0)))
+			return hl_error_set(err, HL_EINPUT, u->file, u->line,
+				"unit '%s': a %s needs a %s utility on its %s "
+				"side", u->name, hl_exchanger_type_name(
+				(hl_exchanger_type)u->type), u->type ==
+				HL_EXCH_FIRED_HEATER ? "hot" : "cold",
+				u->type == HL_EXCH_FIRED_HEATER ? "hot" :
+				"cold");
+	}
 	return HL_OK;
 }
 
