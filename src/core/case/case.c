@@ -564,8 +564,8 @@ validate_utility(const hl_utility *u, hl_error *err)
 	    (u->kind == HL_HOT) && (u->type == HL_EXCH_FIRED_HEATER ||
 	    u->type == HL_EXCH_AIR_COOLER))
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
-			"utility '%s': a %s utility cannot be %s; a fired "
-			"heater heats the process, an air cooler cools it",
+			"utility '%s': a %s utility cannot have type %s; a "
+			"fired heater heats the process, an air cooler cools it",
 			u->name, u->kind == HL_HOT ? "hot" : "cold",
 			hl_exchanger_type_name((hl_exchanger_type)u->type));
 	if (u->cost_given && !(u->cost_a >= 0.0 && u->cost_b >= 0.0 &&

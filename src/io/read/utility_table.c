@@ -29,7 +29,9 @@ read_equipment(hl_table *t, hl_utility *u, hl_error *err)
 		if (u->type < 0)
 			return hl_error_set(err, HL_EINPUT, u->file, u->line,
 				"utility '%s': type '%.40s' is not one of "
-				"%s", u->name, ty, HL_EXCH_TYPE_CHOICES);
+				"shell-and-tube, counterflow, plate, "
+				"double-pipe, air-cooler, fired-heater",
+				u->name, ty);
 		u->type_given = 1;
 	}
 	for (i = 0; st == HL_OK && i < 3; i++) {
