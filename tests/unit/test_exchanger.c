@@ -1234,6 +1234,40 @@ test_implausible(void **state)
 	assert_int_equal(z.warn, 0);
 }
 
+/* Sizing and rating agree for the new types: an air cooler of the sized
+ * area (U·A, its sections) and a plate unit rate back to the duty and
+ * outlets they were sized for [derived: ε-NTU and F·LMTD are one
+ * relation]. */
+static void
+test_rate_types(void **state)
+{
+	hl_exchanger_spec s = typed(HL_EXCH_AIR_COOLER, 150, 60, 30, 45, 3000,
+	    0.05);
+	hl_exchanger_sizing z;
+	hl_exchanger_rating q;
+	double ch = 3000.0 / 90.0, cc = 3000.0 / 15.0;
+
+	(void)state;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_int_equal(hl_exchanger_rate(150, 30, ch, cc, s.u * z.area,
+	    HL_EXCH_AIR_COOLER, z.shells, &q, NULL), HL_OK);
+	check_rel(q.duty, 3000.0, 1e-9, "air cooler rated duty");
+	check_rel(q.hot_out, 60.0, 1e-9, "air cooler hot outlet");
+	s = typed(HL_EXCH_AIR_COOLER, 150, 60, 30, 100, 900, 0.05);
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_true(z.shells > 1);
+	assert_int_equal(hl_exchanger_rate(150, 30, 10.0, 900.0 / 70.0,
+	    s.u * z.area, HL_EXCH_AIR_COOLER, z.shells, &q, NULL), HL_OK);
+	check_rel(q.duty, 900.0, 1e-8, "air cooler sections rated duty");
+	s = typed(HL_EXCH_PLATE, 150, 90, 30, 80, 300, 0.5);
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_int_equal(hl_exchanger_rate(150, 30, 5.0, 6.0, s.u * z.area,
+	    HL_EXCH_PLATE, 1, &q, NULL), HL_OK);
+	check_rel(q.duty, 300.0, 1e-9, "plate rated duty");
+	assert_int_equal(hl_exchanger_rate(150, 30, 5.0, 6.0, 1.0,
+	    HL_EXCH_FIRED_HEATER, 1, &q, NULL), HL_EINPUT);
+}
+
 int
 main(void)
 {
@@ -1269,6 +1303,7 @@ main(void)
 		cmocka_unit_test(test_type_laws),
 		cmocka_unit_test(test_parallel),
 		cmocka_unit_test(test_implausible),
+		cmocka_unit_test(test_rate_types),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
