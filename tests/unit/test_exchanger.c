@@ -1268,6 +1268,29 @@ test_rate_types(void **state)
 	    HL_EXCH_FIRED_HEATER, 1, &q, NULL), HL_EINPUT);
 }
 
+/* Exactly n shells in series, as an existing unit has: the F of n shells
+ * (Kern 1950, eq. 7.41 at the per-shell P), or no solution when n cannot
+ * do the duty. */
+static void
+test_series_given(void **state)
+{
+	hl_exchanger_spec s = typed(HL_EXCH_SHELL_TUBE, 150, 90, 30, 110,
+	    480, 0.5);
+	hl_exchanger_sizing z;
+	double f3;
+
+	(void)state;
+	s.series = 3;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_int_equal(z.shells, 3);
+	assert_int_equal(hl_exchanger_f_shells(z.p, z.r, 3, &f3, NULL), HL_OK);
+	check_rel(z.f, f3, 1e-15, "F of the given shells");
+	s.series = 1;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_ENOSOLUTION);
+	s.series = -1;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_EINPUT);
+}
+
 int
 main(void)
 {
@@ -1304,6 +1327,7 @@ main(void)
 		cmocka_unit_test(test_parallel),
 		cmocka_unit_test(test_implausible),
 		cmocka_unit_test(test_rate_types),
+		cmocka_unit_test(test_series_given),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);

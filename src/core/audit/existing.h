@@ -99,7 +99,9 @@ typedef struct {
 	double lmtd;        /* K, counterflow, from the ends as read */
 	double f;           /* F of its shells (1 for counterflow) */
 	hl_exchanger_type type; /* its row's, else hl_case_pair_type */
-	int shells;         /* given, else estimated */
+	int shells;         /* in series: given, else estimated */
+	int parallel;       /* trains in parallel (estimated area), 1 */
+	unsigned warn;      /* HL_EXCH_WARN_* of an estimated area */
 	double area;        /* m², given or estimated; NaN when neither */
 	int area_estimated; /* 1: estimated, not given */
 	double approach;    /* K, the smaller end difference */

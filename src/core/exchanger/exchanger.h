@@ -169,6 +169,11 @@ typedef struct {
 				     no limit */
 	double smallest;          /* X below which a shell is implausible;
 				     0: none */
+	int series;               /* 0: the fewest shells (sections,
+				     hairpins) in series the rules allow;
+				     n > 0: exactly n, as an existing unit
+				     has (HL_ENOSOLUTION when n cannot do
+				     the duty) */
 } hl_exchanger_spec;
 
 /* Warnings: the sizing stands, but a number looks wrong. */
@@ -198,8 +203,8 @@ typedef struct {
 } hl_exchanger_sizing;
 
 /* Fill the type, F floor, Xp, cost law and shell limits of spec for the
- * case's exchanger type (hl_exchanger_spec_type for another type); the
- * temperatures, duty and U are left as they are. */
+ * case's exchanger type (hl_exchanger_spec_type for another type), series
+ * 0 (the fewest); the temperatures, duty and U are left as they are. */
 void hl_exchanger_spec_settings(hl_exchanger_spec *spec,
 				const hl_settings *set);
 void hl_exchanger_spec_type(hl_exchanger_spec *spec, const hl_settings *set,

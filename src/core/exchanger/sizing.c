@@ -36,6 +36,7 @@ hl_exchanger_spec_type(hl_exchanger_spec *spec, const hl_settings *set,
 	    &spec->cost_c);
 	spec->largest = set->law[type].largest;
 	spec->smallest = set->law[type].smallest;
+	spec->series = 0;
 }
 
 void
@@ -65,6 +66,10 @@ check_spec(const hl_exchanger_spec *s, hl_error *err)
 		    "cost law a + b·X^c needs a >= 0, b >= 0, c > 0 "
 		    "(got a %.6g, b %.6g, c %.6g)",
 		    s->cost_a, s->cost_b, s->cost_c);
+	if (s->series < 0 || s->series > 1000)
+		return hl_error_set(err, HL_EINPUT, NULL, 0,
+		    "%d shells in series: give 1 to 1000, or 0 to choose",
+		    s->series);
 	/* 0 (a spec filled by hand) means no limit on either side. */
 	if (!(s->largest >= 0.0 && s->smallest >= 0.0 &&
 	    (s->largest == 0.0 || s->smallest < s->largest)))
@@ -104,7 +109,8 @@ hl_exchanger_price(const hl_exchanger_spec *spec, hl_exchanger_sizing *z)
 		z->x = mw / z->parallel;
 	} else {
 		if (spec->type == HL_EXCH_DOUBLE_PIPE) {
-			z->shells = count_for(z->area, spec->largest);
+			if (spec->series <= 0)
+				z->shells = count_for(z->area, spec->largest);
 			z->parallel = 1;
 		} else
 			z->parallel = count_for(z->area / z->shells,
@@ -125,11 +131,35 @@ hl_exchanger_price(const hl_exchanger_spec *spec, hl_exchanger_sizing *z)
 
 /* F and series count by type: Bowman, Mueller & Nagle (1940) shells by the
  * Xp rule; crossflow sections; 1 for the counterflow types. */
+/* F of exactly n in series: each shell (section) at the per-shell P. */
+static hl_status
+series_given(const hl_exchanger_spec *spec, hl_exchanger_sizing *z,
+	     hl_error *err)
+{
+	double p1;
+	hl_status st;
+
+	z->shells = spec->series;
+	z->f = 1.0;
+	if (z->p == 0.0 || z->r == 0.0 || !isfinite(z->r))
+		return HL_OK;
+	if (spec->type == HL_EXCH_SHELL_TUBE)
+		return hl_exchanger_f_shells(z->p, z->r, spec->series, &z->f,
+		    err);
+	if (spec->type != HL_EXCH_AIR_COOLER)
+		return HL_OK;
+	st = hl_exchanger_p_shell(z->p, z->r, spec->series, &p1, err);
+	return st == HL_OK ? hl_exchanger_f_crossflow(p1, z->r, &z->f, err) :
+	    st;
+}
+
 static hl_status
 series(const hl_exchanger_spec *spec, hl_exchanger_sizing *z, hl_error *err)
 {
 	z->f = 1.0;
 	z->shells = 1;
+	if (spec->series > 0 && spec->type != HL_EXCH_FIRED_HEATER)
+		return series_given(spec, z, err);
 	if (spec->type == HL_EXCH_SHELL_TUBE)
 		return hl_exchanger_shells(z->p, z->r, spec->fmin, spec->xp,
 		    &z->shells, &z->f, NULL, err);
