@@ -178,4 +178,18 @@ check_near "$(ty "hot='steam'" cost)" "$(awk -v a="$A" -v n="$(ty "hot='steam'" 
 [ "$(ty "cold='cooling water'" type)" = plate ] && pass || fail "cooler not plate"
 check_exit 0 hl check "$X"
 
+
+# A default type per utility kind: cooler-type makes every cooler without
+# its own type an air cooler; heaters stay shell-and-tube.
+sed 's|<settings dtmin="10">|<settings dtmin="10" cooler-type="air-cooler">|; s| type="air-cooler"/>|/>|; s|<utility name="flue gas"[^>]*/>||' \
+	"$DATA/good/kemp4-types.xml" >"$WORK/kinds.xml"
+check_exit 0 hl design "$WORK/kinds.xml" --format xml -o "$X"
+[ "$(ty "cold='air'" type)" = air-cooler ] && pass || fail "cooler-type not applied"
+[ "$(ty "hot='steam'" type)" = shell-and-tube ] && pass || fail "heater not shell-and-tube"
+check_exit 0 hl check "$X"
+sed 's|<settings dtmin="10">|<settings dtmin="10" heater-type="air-cooler">|' \
+	"$DATA/good/kemp4-types.xml" >"$WORK/kinds-bad.xml"
+check_exit 2 hl design "$WORK/kinds-bad.xml"
+check_grep "heater-type cannot be air-cooler" "$WORK/stderr"
+
 finish

@@ -71,6 +71,7 @@ hl_settings_default(hl_settings *set)
 	set->t_tol = 1.0;
 	set->time_limit = 10.0;
 	set->exchanger = HL_EXCH_SHELL_TUBE;
+	set->kind_type[HL_HOT] = set->kind_type[HL_COLD] = -1;
 	hl_settings_default_laws(set);
 	set->area_policy = HL_AREAS_ALLOW;
 	set->area_penalty = 1.0;
@@ -289,6 +290,14 @@ names(const char *pattern, const char *name)
 	return strcmp(pattern, "*") == 0 || strcmp(pattern, name) == 0;
 }
 
+int
+hl_utility_type(const hl_settings *set, const hl_utility *u)
+{
+	if (u->type_given)
+		return u->type;
+	return set->kind_type[u->kind];
+}
+
 hl_exchanger_type
 hl_case_pair_type(const hl_case *c, const char *hot, const char *cold)
 {
@@ -310,8 +319,9 @@ hl_case_pair_type(const hl_case *c, const char *hot, const char *cold)
 	u = hl_case_find_utility(c, hot);
 	if (u < 0)
 		u = hl_case_find_utility(c, cold);
-	if (u >= 0 && c->util[u].type_given)
-		return (hl_exchanger_type)c->util[u].type;
+	if (u >= 0 && hl_utility_type(&c->set, &c->util[u]) >= 0)
+		return (hl_exchanger_type)hl_utility_type(&c->set,
+		    &c->util[u]);
 	return c->set.exchanger;
 }
 
@@ -660,6 +670,11 @@ validate_settings(const hl_case *c, hl_error *err)
 	if (!(s->fmin > 0.0 && s->fmin < 1.0) || !(s->xp > 0.0 && s->xp < 1.0))
 		return hl_error_set(err, HL_EINPUT, c->source, 0,
 			"fmin and xp must lie strictly between 0 and 1");
+	if (s->kind_type[HL_HOT] == HL_EXCH_AIR_COOLER ||
+	    s->kind_type[HL_COLD] == HL_EXCH_FIRED_HEATER)
+		return hl_error_set(err, HL_EINPUT, c->source, 0,
+			"heater-type cannot be air-cooler nor cooler-type "
+			"fired-heater");
 	return validate_laws(c, err);
 }
 

@@ -170,6 +170,9 @@ typedef struct {
 	double time_limit;   /* s per MILP subnetwork, 10 */
 	hl_exchanger_type exchanger; /* process units and utilities without one */
 	hl_exchanger_law law[HL_EXCH_NTYPES]; /* per type */
+	int kind_type[2];    /* default type of the units on a utility of
+				each kind (HL_HOT: heaters, HL_COLD:
+				coolers) that names none; -1: exchanger */
 	hl_area_policy area_policy; /* HL_AREAS_ALLOW */
 	double area_penalty; /* units per cross-area match, 1 */
 	char *currency;      /* label only, "EUR" by default */
@@ -204,6 +207,10 @@ hl_status hl_case_add_utility(hl_case *c, const hl_utility *u, hl_error *err);
 
 /* Append a match rule (deep copy). */
 hl_status hl_case_add_rule(hl_case *c, const hl_match_rule *r, hl_error *err);
+/* The type of the units on utility u: its own, else its kind's default
+ * (set->kind_type), else -1 (the settings' exchanger). */
+int hl_utility_type(const hl_settings *set, const hl_utility *u);
+
 /* Append an exchanger type rule (deep copy). */
 hl_status hl_case_add_type_rule(hl_case *c, const hl_type_rule *r,
 				hl_error *err);

@@ -47,8 +47,8 @@ party_of(const hl_case *c, const hl_match_party *q, hl_network_party *p)
 		const hl_utility *u = &c->util[q->index];
 
 		t.utility = 1;
-		t.type_given = u->type_given;
-		t.type = u->type;
+		t.type = hl_utility_type(&c->set, u);
+		t.type_given = t.type >= 0;
 		t.cost_given = u->cost_given;
 		t.cost_a = u->cost_a;
 		t.cost_b = u->cost_b;

@@ -165,6 +165,8 @@ static const hl_xattr settings_attrs[] = {
 	{ "fmin", HL_XATTR_AMOUNT, 0, NULL, NULL },
 	{ "xp", HL_XATTR_AMOUNT, 0, NULL, NULL },
 	{ "exchanger", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
+	{ "heater-type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
+	{ "cooler-type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
 	{ "interest", HL_XATTR_AMOUNT, 0, NULL, NULL },
 	{ "life", HL_XATTR_AMOUNT, 0, "years", NULL },
 	{ "cp-tol", HL_XATTR_AMOUNT, 0, NULL, NULL },
@@ -308,6 +310,12 @@ settings_values(walk *w, xmlNodePtr n)
 	}
 	if (ex != NULL)
 		s->exchanger = (hl_exchanger_type)hl_exchanger_type_parse(ex);
+	if (hl_xattr_text(n, "heater-type") != NULL)
+		s->kind_type[HL_HOT] = hl_exchanger_type_parse(
+			hl_xattr_text(n, "heater-type"));
+	if (hl_xattr_text(n, "cooler-type") != NULL)
+		s->kind_type[HL_COLD] = hl_exchanger_type_parse(
+			hl_xattr_text(n, "cooler-type"));
 	if (cur != NULL) {
 		char *d = strdup(cur);
 

@@ -46,10 +46,12 @@ type_used(const hl_case *c, hl_exchanger_type t)
 {
 	size_t i;
 
-	if (c->set.exchanger == t || c->set.law[t].given != 0)
+	if (c->set.exchanger == t || c->set.law[t].given != 0 ||
+	    c->set.kind_type[HL_HOT] == (int)t ||
+	    c->set.kind_type[HL_COLD] == (int)t)
 		return 1;
 	for (i = 0; i < c->nutil; i++)
-		if (c->util[i].type_given && c->util[i].type == (int)t)
+		if (hl_utility_type(&c->set, &c->util[i]) == (int)t)
 			return 1;
 	for (i = 0; i < c->ntyped; i++)
 		if (c->typed[i].type == t)
@@ -87,18 +89,19 @@ type_laws(hl_report *r, const hl_settings *s)
 	for (i = 0; i < c->nutil; i++) {
 		const hl_utility *u = &c->util[i];
 
-		if (!u->cost_given && !u->type_given)
+		if (!u->cost_given && hl_utility_type(s, u) < 0)
 			continue;
 		snprintf(name, B, "Units on %s", u->name);
 		if (u->cost_given)
 			snprintf(v, sizeof v, "%s, %g + %g·X^%g each",
-				 hl_exchanger_type_name(u->type_given ?
-				 (hl_exchanger_type)u->type : s->exchanger),
+				 hl_exchanger_type_name(hl_utility_type(s, u) >=
+				 0 ? (hl_exchanger_type)hl_utility_type(s, u) :
+				 s->exchanger),
 				 u->cost_a, u->cost_b, u->cost_c);
 		else
 			snprintf(v, sizeof v, "%s",
-				 hl_exchanger_type_name(
-				 (hl_exchanger_type)u->type));
+				 hl_exchanger_type_name((hl_exchanger_type)
+				 hl_utility_type(s, u)));
 		setting(r, name, v, CASE_TEXT);
 	}
 }
