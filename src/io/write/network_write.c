@@ -206,7 +206,9 @@ text_summary(FILE *fp, const hl_network *net)
 		fprintf(fp, "shell-and-tube units, F floor %.2f, Xp %.2f\n",
 		    set->fmin, set->xp);
 	else
-		fprintf(fp, "counterflow units (F = 1)\n");
+		fprintf(fp, "%s units%s\n", hl_exchanger_type_name(
+		    set->exchanger), set->exchanger == HL_EXCH_AIR_COOLER ?
+		    "" : " (F = 1)");
 	fprintf(fp, "Hot utility        %10.1f kW (target %.1f kW)\n", net->qh,
 	    net->qh_target);
 	fprintf(fp, "Cold utility       %10.1f kW (target %.1f kW)\n", net->qc,
