@@ -670,6 +670,14 @@ validate_settings(const hl_case *c, hl_error *err)
 	if (!(s->fmin > 0.0 && s->fmin < 1.0) || !(s->xp > 0.0 && s->xp < 1.0))
 		return hl_error_set(err, HL_EINPUT, c->source, 0,
 			"fmin and xp must lie strictly between 0 and 1");
+	if (s->exchanger == HL_EXCH_FIRED_HEATER ||
+	    s->exchanger == HL_EXCH_AIR_COOLER)
+		return hl_error_set(err, HL_EINPUT, c->source, 0,
+			"exchanger=\"%s\" would make process-to-process units "
+			"%ss; give it to the utility (type) or as heater-type "
+			"or cooler-type", hl_exchanger_type_name(s->exchanger),
+			s->exchanger == HL_EXCH_FIRED_HEATER ? "fired heater" :
+			"air cooler");
 	if (s->kind_type[HL_HOT] == HL_EXCH_AIR_COOLER ||
 	    s->kind_type[HL_COLD] == HL_EXCH_FIRED_HEATER)
 		return hl_error_set(err, HL_EINPUT, c->source, 0,
