@@ -25,11 +25,13 @@ type_tag(hl_exchanger_type t)
 	return (int)t >= 0 && t < HL_EXCH_NTYPES ? tag[t] : "?";
 }
 
-/* Whether the unit's cold outlet is above its hot outlet. */
+/* Whether the unit's cold outlet is above its hot outlet; a fired heater
+ * has no cross to speak of: it is sized by duty. */
 static int
 row_cross(const hl_size_row *row)
 {
-	return row->spec.cold_out > row->spec.hot_out;
+	return row->spec.type != HL_EXCH_FIRED_HEATER &&
+	    row->spec.cold_out > row->spec.hot_out;
 }
 
 /* A line that holds back its spaces until something follows them, so that
@@ -160,7 +162,10 @@ row_cells(const hl_size_row *row, cells *c)
 	number(c->text[K_HOUT], 1, s->hot_out);
 	number(c->text[K_CIN], 1, s->cold_in);
 	number(c->text[K_COUT], 1, s->cold_out);
-	number(c->text[K_U], 3, s->u);
+	if (s->type == HL_EXCH_FIRED_HEATER)
+		snprintf(c->text[K_U], CELL, "—");
+	else
+		number(c->text[K_U], 3, s->u);
 	if (row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD))
 		c->mark[K_U] = '*';
 	number(c->text[K_LMTD], 2, z->lmtd);
