@@ -2,9 +2,15 @@
  *
  * Pure numerics: nothing here allocates, prints or touches a file.
  *
+ * Every command sizes through one entry point, hl_exchanger_size ("Sizing
+ * by type" below): the type, duty, temperatures, U and the settings in;
+ * shells in series and in parallel, F, area, cost and warnings out. The
+ * rest are its parts (F, shells, crossflow, ε-NTU), usable on their own.
+ *
  * Units: temperatures in °C (differences in K), duties in kW, heat capacity
  * flow rates in kW/K, film and overall coefficients in kW/(m²·K), areas in m²,
- * cost in the case's currency.
+ * cost in the case's currency; a fired heater's cost law takes its duty in
+ * MW, as published furnace laws do.
  *
  * Notation (Kern 1950, ch. 7): T1 → T2 is the hot side, t1 → t2 the cold side.
  * P = (t2 − t1)/(T1 − t1) is the cold side's temperature effectiveness and
