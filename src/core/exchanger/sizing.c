@@ -129,8 +129,6 @@ hl_exchanger_price(const hl_exchanger_spec *spec, hl_exchanger_sizing *z)
 	    spec->cost_c));
 }
 
-/* F and series count by type: Bowman, Mueller & Nagle (1940) shells by the
- * Xp rule; crossflow sections; 1 for the counterflow types. */
 /* F of exactly n in series: each shell (section) at the per-shell P. */
 static hl_status
 series_given(const hl_exchanger_spec *spec, hl_exchanger_sizing *z,
@@ -153,6 +151,8 @@ series_given(const hl_exchanger_spec *spec, hl_exchanger_sizing *z,
 	    st;
 }
 
+/* F and series count by type: Bowman, Mueller & Nagle (1940) shells by the
+ * Xp rule; crossflow sections; 1 for the counterflow types. */
 static hl_status
 series(const hl_exchanger_spec *spec, hl_exchanger_sizing *z, hl_error *err)
 {
