@@ -15,6 +15,7 @@
 #include <cmocka.h>
 
 #include <math.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -125,6 +126,162 @@ test_round_trip(void **state)
 	print_message("round trip: %d units in 40 networks\n", n);
 }
 
+/* 1 when u joins two process streams. */
+static int
+recovery(const hl_network *net, const hl_network_unit *u)
+{
+	return !net->party[u->hot].utility && !net->party[u->cold].utility;
+}
+
+/* The exchanger types rating covers: a placed network whose recovery units
+ * are resized as plate, double-pipe and air-cooler units comes back from
+ * the simulation with its own duties (rating.h covers every type with the
+ * model sizing uses: counterflow for plate and double pipe, unmixed
+ * crossflow sections for the air cooler; Incropera & DeWitt, table 11.3,
+ * from memory). */
+static void
+test_types_round_trip(void **state)
+{
+	static const hl_exchanger_type ty[] = {
+		HL_EXCH_PLATE, HL_EXCH_DOUBLE_PIPE, HL_EXCH_AIR_COOLER
+	};
+	hl_rng rng;
+	int trial, n[3] = { 0, 0, 0 };
+
+	(void)state;
+	hl_rng_seed(&rng, 20261204);
+	for (trial = 0; trial < 20; trial++) {
+		hl_case *c = hl_gen_case(&rng, 1 + trial % 4, 1 + trial / 4 % 4);
+		netfix *f = calloc(1, sizeof *f);
+		hl_network *net, *sim;
+		hl_netsim *r = NULL;
+		hl_error err;
+		size_t i;
+
+		assert_non_null(f);
+		netfix_cascade(f, c, 10.0);
+		net = place(f);
+		for (i = 0; i < net->nunit; i++) {
+			hl_network_unit *u = &net->unit[i];
+
+			if (!recovery(net, u))
+				continue;
+			u->type = ty[i % 3];
+			if (hl_network_size_unit(net, u, &err) != HL_OK)
+				fail_msg("sizing as %s: %s",
+				    hl_exchanger_type_name(u->type), err.text);
+			n[i % 3]++;
+		}
+		hl_network_totals(net);
+		sim = hl_network_copy(net);
+		assert_non_null(sim);
+		if (hl_netsim_run(sim, &r, &err) != HL_OK)
+			fail_msg("simulation: %s", err.text);
+		assert_true(r->sound);
+		for (i = 0; i < net->nunit; i++) {
+			const hl_network_unit *a = &net->unit[i];
+			const hl_network_unit *b = &sim->unit[i];
+			double s = fmax(1.0, a->duty);
+
+			near(b->duty / s, a->duty / s, TOL_TRIP, "duty");
+			near(b->hot_out, a->hot_out, TOL_TRIP, "hot out");
+			near(b->cold_out, a->cold_out, TOL_TRIP, "cold out");
+		}
+		hl_netsim_free(r);
+		hl_network_free(sim);
+		hl_network_free(net);
+		free(f);
+		hl_case_free(c);
+	}
+	print_message("typed round trip: %d plate, %d double pipe, %d air "
+	    "cooler\n", n[0], n[1], n[2]);
+	assert_true(n[0] > 0 && n[1] > 0 && n[2] > 0);
+}
+
+/* A held unit (retrofit hardware) keeps its type and its shells in
+ * series: its area is the free sizing's at that count; the area bought is
+ * priced by its type's law per shell bought, and bought shells split in
+ * parallel so that none passes the type's largest (common practice, no
+ * source; the law a + b·A^c per shell as exchanger.h). */
+static void
+test_held_typed(void **state)
+{
+	static const hl_exchanger_type ty[] = {
+		HL_EXCH_SHELL_TUBE, HL_EXCH_PLATE, HL_EXCH_AIR_COOLER
+	};
+	hl_rng rng;
+	size_t t;
+
+	(void)state;
+	hl_rng_seed(&rng, 5);
+	for (t = 0; t < sizeof ty / sizeof ty[0]; t++) {
+		hl_case *c = hl_gen_case(&rng, 3, 3);
+		netfix *f = calloc(1, sizeof *f);
+		hl_network *net;
+		hl_network_unit u, h;
+		hl_error err;
+		double a, b, cc, per;
+		size_t i, k = SIZE_MAX;
+
+		assert_non_null(f);
+		netfix_cascade(f, c, 10.0);
+		net = place(f);
+		for (i = 0; i < net->nunit; i++)
+			if (recovery(net, &net->unit[i]) && (k == SIZE_MAX ||
+			    net->unit[i].duty > net->unit[k].duty))
+				k = i;
+		assert_true(k != SIZE_MAX);
+		net->set.law[ty[t]].a = 1000.0 * (double)(t + 2);
+		net->set.law[ty[t]].b = 300.0 * (double)(t + 1);
+		net->set.law[ty[t]].c = 0.7;
+		net->set.law[ty[t]].largest = HUGE_VAL;
+		net->set.law[ty[t]].smallest = 0.0;
+		u = net->unit[k];
+		u.note = NULL;
+		u.type = ty[t];
+		if (hl_network_size_unit(net, &u, &err) != HL_OK)
+			fail_msg("free sizing: %s", err.text);
+		h = u;
+		h.held = 1;
+		snprintf(h.reuses, sizeof h.reuses, "E1");
+		h.area_today = 0.6 * u.area;
+		h.area_added = 0.4 * u.area;
+		h.shells_added = 1;
+		h.parallel = 1;
+		if (hl_network_size_unit(net, &h, &err) != HL_OK)
+			fail_msg("held sizing: %s", err.text);
+		assert_int_equal(h.type, ty[t]);
+		assert_int_equal(h.shells, u.shells);
+		near(h.area, u.area, 1e-12, "held area at the same count");
+		near(h.ft, u.ft, 1e-12, "held F");
+		hl_exchanger_law_of(&net->set, ty[t], &a, &b, &cc);
+		assert_true(a == 1000.0 * (double)(t + 2));
+		near(h.cost, a + b * pow(h.area_added, cc), 1e-12,
+		    "bought shell by the type's law");
+		/* A largest shell a third of the area bought: 3 shells. */
+		net->set.law[ty[t]].largest = h.area_added / 2.5;
+		h.shells_added = 1;
+		if (hl_network_size_unit(net, &h, &err) != HL_OK)
+			fail_msg("held sizing: %s", err.text);
+		assert_int_equal(h.shells_added, 3);
+		per = h.area_added / 3.0;
+		assert_true(per <= net->set.law[ty[t]].largest);
+		near(h.cost, 3.0 * (a + b * pow(per, cc)), 1e-12,
+		    "bought shells in parallel, each within the largest");
+		/* A new unit's trains are the bought ones. */
+		h.reuses[0] = '\0';
+		h.shells_added = h.shells;
+		if (hl_network_size_unit(net, &h, &err) != HL_OK)
+			fail_msg("held sizing: %s", err.text);
+		assert_int_equal(h.parallel, h.shells_added / h.shells);
+		assert_true(h.area_added / h.shells_added <=
+		    net->set.law[ty[t]].largest * (1.0 + 1e-12));
+		hl_network_free(net);
+		free(f);
+		hl_case_free(c);
+	}
+}
+
 /* More area on a recovery unit: it does at least its old duty, balances
  * close, the utilities fall by what recovery gains (when the streams reach
  * their targets). */
@@ -220,6 +377,8 @@ main(void)
 {
 	const struct CMUnitTest tests[] = {
 		cmocka_unit_test(test_round_trip),
+		cmocka_unit_test(test_types_round_trip),
+		cmocka_unit_test(test_held_typed),
 		cmocka_unit_test(test_more_area),
 		cmocka_unit_test(test_no_area),
 	};

@@ -119,8 +119,10 @@ test_eps_series_cr1(void **state)
 	}
 }
 
-/* Size by exchanger.h (LMTD, F, shells by the Xp rule), rate at that area
- * and shell count: the temperatures come back to 1e-9. */
+/* Size by exchanger.h (LMTD, F, shells by the Xp rule or crossflow
+ * sections, by type), rate at that area and shell count: the temperatures
+ * come back to 1e-9 for every type rating covers [derived: ε-NTU and
+ * F·LMTD are one relation, Kakaç & Liu ch. 2]. */
 static void
 test_size_then_rate(void **state)
 {
@@ -132,16 +134,21 @@ test_size_then_rate(void **state)
 		{ 220.0, 120.0, 40.0, 190.0 },   /* a deep cross */
 		{ 120.0, 60.0, 50.0, 100.0 },
 		{ 180.0, 130.0, 60.0, 110.0 },   /* Cr = 1 */
+		{ 150.0, 60.0, 30.0, 45.0 },     /* an air cooler's */
+		{ 150.0, 60.0, 30.0, 100.0 },    /* sections in series */
 	};
 	static const double share[] = { 1.0, 0.4 };
-	static const hl_exchanger_type ty[] = { HL_EXCH_COUNTERFLOW,
-						HL_EXCH_SHELL_TUBE };
+	static const hl_exchanger_type ty[] = {
+		HL_EXCH_COUNTERFLOW, HL_EXCH_SHELL_TUBE, HL_EXCH_PLATE,
+		HL_EXCH_DOUBLE_PIPE, HL_EXCH_AIR_COOLER
+	};
+	const size_t nty = sizeof ty / sizeof ty[0];
 	size_t i, j, k;
 	hl_error err;
 
 	(void)state;
 	for (i = 0; i < sizeof tt / sizeof tt[0]; i++)
-		for (j = 0; j < 2; j++)
+		for (j = 0; j < nty; j++)
 			for (k = 0; k < 2; k++) {
 				const double *t = tt[i];
 				double duty = 700.0, hh = 0.8, hc = 0.6;
@@ -188,6 +195,50 @@ test_size_then_rate(void **state)
 				    "rated cold outlet");
 				check_abs(g.ft, z.f, 1e-9, "F at the rating");
 			}
+}
+
+/* The types beyond counterflow and shell-and-tube: plate and double pipe
+ * rate as counterflow (Kays & London counterflow table, as above); one
+ * air-cooler section is the unmixed crossflow ε; at Cr = 0 every
+ * arrangement gives ε = 1 − e^{−NTU} (Incropera & DeWitt, table 11.3,
+ * from memory); n sections at Cr = 1 follow the series rule nε1/(1 +
+ * (n−1)ε1) (same table). A fired heater is not rated. */
+static void
+test_eps_types(void **state)
+{
+	hl_error err;
+	double e, e1, x;
+	int n;
+
+	(void)state;
+	check_ok(hl_rating_eps(HL_EXCH_PLATE, 7, 2.0, 0.5, &e, &err), &err);
+	check_abs(e, 0.775, TOL_TABLE, "plate as counterflow");
+	check_ok(hl_rating_eps(HL_EXCH_DOUBLE_PIPE, 3, 5.0, 1.0, &e, &err),
+	    &err);
+	check_abs(e, 0.833, TOL_TABLE, "double pipe as counterflow");
+	check_ok(hl_rating_eps(HL_EXCH_AIR_COOLER, 1, 1.5, 0.6, &e, &err),
+	    &err);
+	check_ok(hl_exchanger_eps_crossflow(1.5, 0.6, &x, &err), &err);
+	check_abs(e, x, 1e-15, "one section is one crossflow pass");
+	check_ok(hl_rating_eps(HL_EXCH_AIR_COOLER, 3, 2.0, 0.0, &e, &err),
+	    &err);
+	check_abs(e, 1.0 - exp(-2.0), 1e-12, "Cr = 0");
+	for (n = 2; n <= 4; n++) {
+		check_ok(hl_rating_eps(HL_EXCH_AIR_COOLER, 1, 3.0 / n, 1.0,
+		    &e1, &err), &err);
+		check_ok(hl_rating_eps(HL_EXCH_AIR_COOLER, n, 3.0, 1.0, &e,
+		    &err), &err);
+		check_abs(e, n * e1 / (1.0 + (n - 1.0) * e1), 1e-12,
+		    "sections in series at Cr = 1");
+		assert_true(e > e1);
+	}
+	assert_int_equal(hl_rating_eps(HL_EXCH_AIR_COOLER, 0, 1.0, 0.5, &e,
+	    &err), HL_EINPUT);
+	assert_int_equal(hl_rating_eps(HL_EXCH_AIR_COOLER, 1, 1.0, 1.5, &e,
+	    &err), HL_EINPUT);
+	assert_int_equal(hl_rating_eps(HL_EXCH_FIRED_HEATER, 1, 1.0, 0.5, &e,
+	    &err), HL_EINPUT);
+	assert_non_null(strstr(err.text, "not rated"));
 }
 
 /* A hot stream that changes cp inside the unit (a condensing then cooling
@@ -266,6 +317,15 @@ test_limits(void **state)
 	rs.hot.t_in = 10.0;
 	assert_int_equal(hl_rating_run(&rs, &g, &err), HL_EINPUT);
 	assert_non_null(strstr(err.text, "below the cold inlet"));
+	rs.hot.t_in = 200.0;
+	rs.type = HL_EXCH_AIR_COOLER;
+	rs.shells = 0;
+	assert_int_equal(hl_rating_run(&rs, &g, &err), HL_EINPUT);
+	assert_non_null(strstr(err.text, "sections"));
+	rs.type = HL_EXCH_FIRED_HEATER;
+	rs.shells = 1;
+	assert_int_equal(hl_rating_run(&rs, &g, &err), HL_EINPUT);
+	assert_non_null(strstr(err.text, "not rated"));
 }
 
 int
@@ -274,6 +334,7 @@ main(void)
 	const struct CMUnitTest tests[] = {
 		cmocka_unit_test(test_eps_published),
 		cmocka_unit_test(test_eps_series_cr1),
+		cmocka_unit_test(test_eps_types),
 		cmocka_unit_test(test_size_then_rate),
 		cmocka_unit_test(test_segmented),
 		cmocka_unit_test(test_limits),

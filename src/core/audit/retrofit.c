@@ -5,6 +5,7 @@
 #include <string.h>
 
 #include "cascade.h"
+#include "exchanger.h"
 #include "retrofit.h"
 #include "sweep.h"
 
@@ -59,9 +60,20 @@ target_curve(const hl_case *c, const hl_audit *a, hl_retrofit *r,
 	return HL_OK;
 }
 
+/* Price of one shell of area a (m²) by the law of the case's exchanger
+ * type (exchanger.h: its <equipment> law, else the process law). */
+static double
+shell_price(const hl_settings *set, double a)
+{
+	double ca, cb, cc;
+
+	hl_exchanger_law_of(set, set->exchanger, &ca, &cb, &cc);
+	return a > 0.0 ? ca + cb * pow(a, cc) : NAN;
+}
+
 /* The shell new area is bought in at a point: the shell target's mean
  * shell (Ahmad & Smith 1989), today's mean where that is nil; its price by
- * the case's cost law per shell. */
+ * the cost law of the case's exchanger type per shell. */
 static void
 shell_at(const hl_case *c, const hl_retrofit *r, const hl_supertargets *st,
 	 double area_target, hl_retrofit_point *p)
@@ -70,8 +82,7 @@ shell_at(const hl_case *c, const hl_retrofit *r, const hl_supertargets *st,
 
 	p->shell_area = st->shells > 0 && area_target > 0.0 ?
 	    area_target / st->shells : r->shell_area;
-	p->shell_cost = p->shell_area > 0.0 ? set->cost_a + set->cost_b *
-	    pow(p->shell_area, set->cost_c) : NAN;
+	p->shell_cost = shell_price(set, p->shell_area);
 }
 
 /* Investment in new area bought as shells of the point's size. */
@@ -150,8 +161,7 @@ hl_retrofit_screen(const hl_case *c, const hl_audit *a, size_t npoints,
 	r->alpha = a->alpha;
 	if (a->net->shells > 0 && a->net->area > 0.0)
 		r->shell_area = a->net->area / a->net->shells;
-	r->shell_cost = r->shell_area > 0.0 ? set->cost_a + set->cost_b *
-			pow(r->shell_area, set->cost_c) : NAN;
+	r->shell_cost = shell_price(set, r->shell_area);
 	s = target_curve(c, a, r, err);
 	if (s == HL_OK)
 		s = curve(c, a, r, npoints < 2 ? 2 : npoints, err);

@@ -113,8 +113,8 @@ add_new(hl_network *net, const rf_move *mv, double a)
 	u.hot_in = u.hot_out = rf_temp_at(net, mv->hot, mv->hot_pos);
 	u.cold_in = u.cold_out = rf_temp_at(net, mv->cold, mv->cold_pos);
 	u.hot_share = u.cold_share = 1.0;
-	u.type = net->set.exchanger;
-	u.shells = u.shells_added = 1;
+	u.type = hl_network_unit_type(net, mv->hot, mv->cold);
+	u.shells = u.shells_added = u.parallel = 1;
 	u.held = 1;
 	u.area_added = a;
 	if (hl_network_add_unit(net, &u, NULL) != HL_OK)
@@ -191,6 +191,7 @@ apply(const rf_cand *base, const rf_move *mv, double a, rf_cand *out)
 		} else if (mv->kind == HL_RFIT_SHELL_PARALLEL) {
 			u->area_added += a;
 			u->shells_added += u->shells;
+			u->parallel = (u->parallel > 0 ? u->parallel : 1) + 1;
 		} else if (mv->kind == HL_RFIT_REMOVE) {
 			rc = rf_move_remove(net, mv->unit);
 		} else {

@@ -109,8 +109,9 @@ add_unit(const hl_case *c, const hl_existing_unit *x, hl_network *net,
 	    net->party[u.cold].target;
 	u.hot_share = x->hot.share;
 	u.cold_share = x->cold.share;
-	u.type = c->set.exchanger;
+	u.type = x->type;
 	u.shells = x->shells >= 1 ? x->shells : 1;
+	u.parallel = x->parallel >= 1 ? x->parallel : 1;
 	u.held = 1;
 	u.line = x->line;
 	return hl_network_add_unit(net, &u, err);
@@ -220,6 +221,34 @@ add_parties(const hl_case *c, const hl_existing *ex, hl_network *net,
 	return st;
 }
 
+/* The case's type for every hot-cold pair, so that a unit the search adds
+ * (hl_network_unit_type) is of the type the engineer fixed for it. */
+static hl_status
+pair_types(const hl_case *c, hl_network *net, hl_error *err)
+{
+	size_t h, k, n = 0;
+
+	net->typed = malloc(net->nparty * net->nparty * sizeof *net->typed +
+	    1);
+	if (net->typed == NULL)
+		return hl_error_nomem(err);
+	for (h = 0; h < net->nparty; h++)
+		for (k = 0; k < net->nparty; k++) {
+			hl_network_typed *t = &net->typed[n];
+
+			if (net->party[h].kind != HL_HOT ||
+			    net->party[k].kind != HL_COLD)
+				continue;
+			t->hot = (long)h;
+			t->cold = (long)k;
+			t->type = hl_case_pair_type(c, net->party[h].name,
+			    net->party[k].name);
+			n++;
+		}
+	net->ntyped = n;
+	return HL_OK;
+}
+
 hl_status
 hl_rfit_today(const hl_case *c, const hl_existing *ex, hl_network **out,
 	      hl_error *err)
@@ -238,6 +267,8 @@ hl_rfit_today(const hl_case *c, const hl_existing *ex, hl_network **out,
 		st = hl_error_nomem(err);
 	if (st == HL_OK)
 		st = add_parties(c, ex, net, err);
+	if (st == HL_OK)
+		st = pair_types(c, net, err);
 	for (i = 0; i < ex->nunit && st == HL_OK; i++)
 		st = add_unit(c, &ex->unit[i], net, count, err);
 	for (i = 0; i < c->nstream && st == HL_OK; i++)

@@ -9,16 +9,55 @@
 /* Bisection steps: the interval halves each time, 200 reach the last bit. */
 #define BISECT_MAX 200
 
-/* ε by table 11.3 of Incropera & DeWitt (counterflow; 1-2 shell, n shells
- * in series) through exchanger.h, which holds the cancellation-free forms. */
+/* n crossflow sections (both fluids unmixed) in series, counter-current
+ * between them: the series rule of Incropera & DeWitt, table 11.3 (from
+ * memory) with the crossflow ε per section (crossflow.c). */
+static hl_status
+eps_sections(double ntu, double cr, int n, double *eps, hl_error *err)
+{
+	double e1;
+	hl_status st;
+
+	if (n < 1)
+		return hl_error_set(err, HL_EINPUT, NULL, 0,
+		    "%d sections in series: the count must be at least 1", n);
+	if (ntu / n > HL_CROSSFLOW_NTU_MAX)
+		ntu = n * HL_CROSSFLOW_NTU_MAX;
+	st = hl_exchanger_eps_crossflow(ntu / n, cr, &e1, err);
+	if (st != HL_OK)
+		return st;
+	if (e1 >= 1.0 || cr == 0.0 || n == 1) {
+		*eps = n == 1 ? e1 : -expm1(-ntu);
+		return HL_OK;
+	}
+	*eps = hl_exchanger_eps_cf(n * hl_exchanger_ntu_counterflow(e1, cr),
+	    cr);
+	return HL_OK;
+}
+
+
+/* ε by table 11.3 of Incropera & DeWitt (counterflow for counterflow, plate
+ * and double pipe; 1-2 shell, n shells in series; crossflow sections)
+ * through exchanger.h, which holds the cancellation-free forms. */
 hl_status
 hl_rating_eps(hl_exchanger_type type, int shells, double ntu, double cr,
 	      double *eps, hl_error *err)
 {
-	if (type == HL_EXCH_COUNTERFLOW)
+	if (type == HL_EXCH_COUNTERFLOW || type == HL_EXCH_PLATE ||
+	    type == HL_EXCH_DOUBLE_PIPE)
 		return hl_exchanger_eps_counterflow(ntu, cr, eps, err);
 	if (type == HL_EXCH_SHELL_TUBE)
 		return hl_exchanger_eps_shells(ntu, cr, shells, eps, err);
+	if (type == HL_EXCH_AIR_COOLER) {
+		if (!(ntu >= 0.0 && isfinite(ntu) && cr >= 0.0 && cr <= 1.0))
+			return hl_error_set(err, HL_EINPUT, NULL, 0,
+			    "NTU %.6g and Cr %.6g: give NTU >= 0 and "
+			    "0 <= Cr <= 1", ntu, cr);
+		return eps_sections(ntu, cr, shells, eps, err);
+	}
+	if (type == HL_EXCH_FIRED_HEATER)
+		return hl_error_set(err, HL_EINPUT, NULL, 0,
+		    "a fired heater is sized by duty and is not rated");
 	return hl_error_set(err, HL_EINPUT, NULL, 0,
 	    "unknown exchanger type %d", (int)type);
 }
@@ -69,6 +108,24 @@ hl_rating_duty_max(const hl_rating_spec *spec)
 	return fmax(0.0, fmin(qh, qc));
 }
 
+/* F of exactly n shells (sections) in series at the per-shell P: Bowman,
+ * Mueller & Nagle (1940) for shell and tube, the unmixed crossflow F for an
+ * air cooler (crossflow.c); 1 where a side is isothermal. */
+static hl_status
+f_at(hl_exchanger_type type, int n, double p, double r, double *f)
+{
+	double p1;
+	hl_status st;
+
+	*f = 1.0;
+	if (p == 0.0 || r == 0.0 || !isfinite(r))
+		return HL_OK;
+	if (type == HL_EXCH_SHELL_TUBE)
+		return hl_exchanger_f_shells(p, r, n, f, NULL);
+	st = hl_exchanger_p_shell(p, r, n, &p1, NULL);
+	return st == HL_OK ? hl_exchanger_f_crossflow(p1, r, f, NULL) : st;
+}
+
 /* Q = U·A·F·LMTD per piece (Kern 1950, ch. 7; pieces as profile.h) at the
  * spec's shell count, F of Bowman, Mueller & Nagle (1940) per shell. */
 double
@@ -104,11 +161,11 @@ hl_rating_area_needed(const hl_rating_spec *spec, double duty, double *u,
 		   HL_OK) {
 		return HUGE_VAL;
 	}
-	if (spec->type == HL_EXCH_SHELL_TUBE &&
+	if ((spec->type == HL_EXCH_SHELL_TUBE ||
+	     spec->type == HL_EXCH_AIR_COOLER) &&
 	    (hl_exchanger_pr(hs.t_in, hs.t_out, cs.t_in, cs.t_out, &p, &r,
 			     NULL) != HL_OK ||
-	     hl_exchanger_f_shells(p, r, spec->shells, &f, NULL) != HL_OK ||
-	     !(f > 0.0)))
+	     f_at(spec->type, spec->shells, p, r, &f) != HL_OK || !(f > 0.0)))
 		return HUGE_VAL;
 	if (!(uu > 0.0 && lm > 0.0))
 		return HUGE_VAL;
@@ -156,12 +213,16 @@ check_spec(const hl_rating_spec *s, hl_error *err)
 	if (!(s->area >= 0.0 && isfinite(s->area)))
 		return hl_error_set(err, HL_EINPUT, NULL, 0,
 		    "area %.6g m² must be a number not below 0", s->area);
-	if (s->type == HL_EXCH_SHELL_TUBE &&
+	if ((s->type == HL_EXCH_SHELL_TUBE || s->type == HL_EXCH_AIR_COOLER) &&
 	    (s->shells < 1 || s->shells > HL_EXCHANGER_MAX_SHELLS))
 		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "%d shells in series: give 1 to %d", s->shells,
+		    "%d %s in series: give 1 to %d", s->shells,
+		    s->type == HL_EXCH_AIR_COOLER ? "sections" : "shells",
 		    HL_EXCHANGER_MAX_SHELLS);
-	if (s->type != HL_EXCH_SHELL_TUBE && s->type != HL_EXCH_COUNTERFLOW)
+	if (s->type == HL_EXCH_FIRED_HEATER)
+		return hl_error_set(err, HL_EINPUT, NULL, 0,
+		    "a fired heater is sized by duty and is not rated");
+	if ((int)s->type < 0 || s->type >= HL_EXCH_NTYPES)
 		return hl_error_set(err, HL_EINPUT, NULL, 0,
 		    "unknown exchanger type %d", (int)s->type);
 	return HL_OK;

@@ -22,6 +22,14 @@
  * Selection, Rating and Thermal Design, ch. 2): rating a unit at the area
  * sizing gave returns the sizing's temperatures.
  *
+ * The other types: plate and double pipe are counterflow (the double
+ * pipe's hairpins in series are one counterflow path); an air cooler is
+ * `shells` crossflow sections, both fluids unmixed (Incropera & DeWitt,
+ * table 11.3, the unmixed-unmixed row), in series counter-current between
+ * sections, F of the sections as sizing has it (crossflow.c). A fired
+ * heater is sized by duty and is not rated (HL_EINPUT). This is the one
+ * rating entry point of the project.
+ *
  * Where a side changes cp (a segmented stream) or film coefficient inside
  * the unit, the duty is the one at which the area sizing needs, piece by
  * piece (profile.h) with the F of the terminal temperatures at the given
@@ -49,8 +57,9 @@
 #include "exchanger.h"
 #include "status.h"
 
-/* ε of a unit: counterflow (shells ignored) or n >= 1 shells in series of
- * the 1-2 kind. Domain: ntu >= 0 finite, 0 <= cr <= 1. */
+/* ε of a unit: counterflow, plate, double pipe (shells ignored); n >= 1
+ * shells in series of the 1-2 kind; n >= 1 crossflow sections of an air
+ * cooler. Domain: ntu >= 0 finite, 0 <= cr <= 1; a fired heater HL_EINPUT. */
 hl_status hl_rating_eps(hl_exchanger_type type, int shells, double ntu,
 			double cr, double *eps, hl_error *err);
 
@@ -69,7 +78,8 @@ typedef struct {
 typedef struct {
 	hl_rating_side hot, cold;
 	hl_exchanger_type type;
-	int shells;           /* in series, >= 1 (counterflow: ignored) */
+	int shells;           /* in series, >= 1: shells, air-cooler
+				 sections (counterflow types: ignored) */
 	double area;          /* m², total, >= 0 */
 } hl_rating_spec;
 
@@ -97,7 +107,8 @@ double hl_rating_area_needed(const hl_rating_spec *spec, double duty,
 double hl_rating_duty_max(const hl_rating_spec *spec);
 
 /* Rate the unit. Domain: hot.t_in >= cold.t_in, shares in (0, 1], area >= 0
- * finite, shells >= 1 for shell-and-tube, nseg >= 1 on both sides, every
+ * finite, shells >= 1 for shell-and-tube and air cooler, not a fired
+ * heater, nseg >= 1 on both sides, every
  * number finite. */
 hl_status hl_rating_run(const hl_rating_spec *spec, hl_rating_result *out,
 			hl_error *err);

@@ -18,6 +18,14 @@ copy_strings(hl_network *d, const hl_network *s)
 	for (i = 0; i < s->nnote; i++)
 		if (hl_network_add_note(d, NULL, "%s", s->note[i]) != HL_OK)
 			return -1;
+	/* A new unit on a copy takes its type from the pair rules. */
+	if (s->ntyped > 0) {
+		d->typed = malloc(s->ntyped * sizeof *d->typed);
+		if (d->typed == NULL)
+			return -1;
+		memcpy(d->typed, s->typed, s->ntyped * sizeof *d->typed);
+		d->ntyped = s->ntyped;
+	}
 	return 0;
 }
 

@@ -305,7 +305,7 @@ retrofit(hl_report *r)
 			      "the targets (last row): the area a retrofit "
 			      "keeping today's α needs, the new area, its "
 			      "investment (shells of the shell target's mean "
-			      "size, by the case's cost law), the saving at "
+			      "size, by the cost law of the case's exchanger type), the saving at "
 			      "today's prices and the simple payback.", 7, head, unit, num);
 	for (i = 0; i < rf->n; i++)
 		retrofit_row(r, &rf->pt[i], i, rf->n);

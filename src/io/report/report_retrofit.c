@@ -77,7 +77,7 @@ modifications(hl_report *r, const hl_rfit_proposal *p)
 
 	hl_report_table_start(r, "data rfit-mods", "The best proposal's "
 			      "modifications: places as stream #stage; cost "
-			      "the shells bought by the case's cost law plus "
+			      "the shells bought by the cost law of the unit's type plus "
 			      "the fixed cost of a re-pipe or a new unit.", 7,
 			      head, unit, num);
 	for (k = 0; k < p->nmod; k++) {

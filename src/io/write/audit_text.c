@@ -181,9 +181,13 @@ unit_row(FILE *fp, const hl_case *c, const hl_audit *a, size_t i, int w)
 		fprintf(fp, " %9.1f%s %2d", u->area,
 			u->area_estimated ? "*" : " ", u->shells);
 	if (isnan(a->unit_alpha[i]))
-		fprintf(fp, "     -\n");
+		fprintf(fp, "     -");
 	else
-		fprintf(fp, "  %5.2f\n", a->unit_alpha[i]);
+		fprintf(fp, "  %5.2f", a->unit_alpha[i]);
+	/* A type other than shell-and-tube is named after the row. */
+	if (!isnan(u->lmtd) && u->type != HL_EXCH_SHELL_TUBE)
+		fprintf(fp, "  %s", hl_exchanger_type_name(u->type));
+	fputc('\n', fp);
 }
 
 static void
@@ -286,7 +290,7 @@ retrofit(FILE *fp, const hl_case *c, const hl_audit *a,
 			fprintf(fp, "%6.1f y\n", p->payback);
 	}
 	fprintf(fp, "  Needed area = area target / α; new area priced by the "
-		"case's cost law per shell, in\n  shells the size of the shell "
+		"cost law of the case's exchanger type per shell, in\n  shells the size of the shell "
 		"target's mean shell at each energy (%.1f m², %s %s\n  each at "
 		"the targets; today's mean shell is %.1f m²); saving at "
 		"today's prices.\n", r->n > 0 ? r->pt[r->n - 1].shell_area :

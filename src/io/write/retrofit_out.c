@@ -29,8 +29,8 @@ limits(FILE *fp, const hl_case *c, const hl_rfit_out *w)
 		fprintf(fp, "investment at most %.0f %s", o->budget, cur(c));
 	fprintf(fp, "; at most %d changes.\n", o->max_changes);
 	fprintf(fp, "Fixed costs: a re-pipe %.0f %s (%s), a new unit %.0f %s "
-	    "on top of its shells (%s); shells by the case's cost law a + "
-	    "b·A^c per shell.\n", o->repipe_cost, cur(c), w->repipe_given ?
+	    "on top of its shells (%s); area and shells by the law a + "
+	    "b·A^c per shell of each unit's type.\n", o->repipe_cost, cur(c), w->repipe_given ?
 	    "from the case" : "illustrative default: set <cost repipe>",
 	    o->unit_cost, cur(c), w->unit_given ? "from the case" :
 	    "illustrative default: set <cost new-unit>");
