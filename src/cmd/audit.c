@@ -45,6 +45,7 @@ help(FILE *fp)
 "  --dtmin K          ΔTmin of the targets (default: the case's, or 10)\n"
 "  --utilities FILE   utility table (CSV) to add to the case\n"
 "  --format FMT       text (default), xml, or csv (the retrofit curve)\n"
+HL_HELP_UNITS
 "  -o, --output FILE  write to FILE instead of standard output\n"
 "  --svg FILE         chart of area against energy: the targets, today's\n"
 "                     point and the retrofit curve\n"
@@ -74,6 +75,7 @@ parse(int argc, char **argv, audit_opts *s)
 		{ "format", required_argument, NULL, HL_OPT_FORMAT },
 		{ "svg", required_argument, NULL, OPT_SVG },
 		{ "output", required_argument, NULL, 'o' },
+		{ "units", required_argument, NULL, HL_OPT_UNITS },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};

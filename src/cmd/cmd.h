@@ -59,8 +59,14 @@ enum {
 	HL_OPT_UTIL,           /* --utilities FILE */
 	HL_OPT_FORMAT,         /* --format FMT */
 	HL_OPT_VERBOSE,        /* --verbose */
-	HL_OPT_QUIET           /* --quiet */
+	HL_OPT_QUIET,          /* --quiet */
+	HL_OPT_UNITS           /* --units si|us: sets the display units */
 };
+
+/* The help line of --units, for the commands that offer it. */
+#define HL_HELP_UNITS \
+"  --units SYS        si (default) or us: text, CSV, SVG and the report in\n" \
+"                     °F, Btu/h, Btu/(h·°F), ft², Btu/(h·ft²·°F); XML stays SI\n"
 
 /* Handle getopt_long's result ch for the shared options, -o, -h and the
  * two getopt errors. Returns 1 when ch was one of them and has been applied,

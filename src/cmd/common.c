@@ -9,6 +9,7 @@
 #include "case_load.h"
 #include "cmd.h"
 #include "csv.h"
+#include "display.h"
 #include "output.h"
 
 const char hl_caution[] =
@@ -21,6 +22,7 @@ void
 hl_common_init(hl_common *o)
 {
 	memset(o, 0, sizeof *o);
+	hl_display_set(HL_UNITS_SI);
 	o->format = HL_FMT_TEXT;
 	o->dtmin = NAN;
 }
@@ -131,6 +133,16 @@ hl_cmd_common_opt(const char *cmd, int ch, char **argv, unsigned formats,
 	case HL_OPT_QUIET:
 		o->quiet = 1;
 		return 1;
+	case HL_OPT_UNITS: {
+		hl_unit_system s;
+
+		if (hl_display_parse(optarg, &s) != 0)
+			*rc = hl_cmd_usage(cmd, "--units wants si or us, not "
+					   "'%s'", optarg);
+		else
+			hl_display_set(s);
+		return 1;
+	}
 	case 'o':
 		o->output = optarg;
 		return 1;

@@ -35,6 +35,7 @@ help(FILE *fp)
 "Options:\n"
 "  --dtmin K          minimum approach temperature (default: the case's, or 10)\n"
 "  --utilities FILE   utility table (CSV) to add to the case\n"
+HL_HELP_UNITS
 "  -o, --output DIR   the folder to write into (required)\n"
 "  --verbose          show the LP solver's messages on standard error\n"
 "  -h, --help         show this help\n"
@@ -49,6 +50,7 @@ parse(int argc, char **argv, hl_common *o, const char **dir)
 		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
 		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
 		{ "output", required_argument, NULL, 'o' },
+		{ "units", required_argument, NULL, HL_OPT_UNITS },
 		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }

@@ -49,6 +49,7 @@ help(FILE *fp)
 "                     the case's, or ΔTmin)\n"
 "  --utilities FILE   utility table (CSV) to add to the case\n"
 "  --format FMT       text (default), xml (what `heatloom check` reads), csv\n"
+HL_HELP_UNITS
 "  -o, --output FILE  write to FILE instead of standard output\n"
 "  --svg FILE         also draw the grid diagram into FILE (SVG)\n"
 "  --time-limit S     seconds per subnetwork for the match MILP (default:\n"
@@ -82,6 +83,7 @@ parse(int argc, char **argv, options *o)
 		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
 		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
 		{ "output", required_argument, NULL, 'o' },
+		{ "units", required_argument, NULL, HL_OPT_UNITS },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};

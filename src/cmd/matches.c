@@ -37,6 +37,7 @@ help(FILE *fp)
 "  --dtmin K            minimum approach temperature (default: the case's, or 10)\n"
 "  --utilities FILE     utility table (CSV) to add to the case\n"
 "  --format FMT         text (default), xml, or csv (the match table)\n"
+HL_HELP_UNITS
 "  -o, --output FILE    write to FILE instead of standard output\n"
 "  --time-limit S       solver time per subnetwork in s (default: the case's,\n"
 "                       or 10); at the limit the best network found is given\n"
@@ -66,6 +67,7 @@ parse(int argc, char **argv, options *o)
 		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
 		{ "format", required_argument, NULL, HL_OPT_FORMAT },
 		{ "output", required_argument, NULL, 'o' },
+		{ "units", required_argument, NULL, HL_OPT_UNITS },
 		{ "time-limit", required_argument, NULL, OPT_TIME },
 		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
 		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },

@@ -66,6 +66,7 @@ help(FILE *fp)
 "  --title TEXT       title of the report (default: from the case file name)\n"
 "  --author TEXT      name shown as \"prepared by\"\n"
 "  --date TEXT        date shown (default: today, or SOURCE_DATE_EPOCH)\n"
+HL_HELP_UNITS
 "  -o, --output FILE  write to FILE instead of standard output\n"
 "  --verbose          show the LP solver's messages on standard error\n"
 "  -h, --help         show this help\n"
@@ -140,6 +141,7 @@ parse(int argc, char **argv, report_opts *s)
 		{ "date", required_argument, NULL, OPT_DATE },
 		{ "network", required_argument, NULL, OPT_NETWORK },
 		{ "output", required_argument, NULL, 'o' },
+		{ "units", required_argument, NULL, HL_OPT_UNITS },
 		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }

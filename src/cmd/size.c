@@ -44,6 +44,7 @@ help(FILE *fp)
 "  --strict           a unit that cannot be built is an error (exit 3)\n"
 "                     instead of a unit reported as not sized\n"
 "  --format FMT       text (default), xml, or csv\n"
+HL_HELP_UNITS
 "  -o, --output FILE  write to FILE instead of standard output\n"
 "  -h, --help         show this help\n"
 "\n"
@@ -127,6 +128,7 @@ parse(int argc, char **argv, options *o)
 		{ "cost-c", required_argument, NULL, OPT_COST_C },
 		{ "strict", no_argument, NULL, OPT_STRICT },
 		{ "output", required_argument, NULL, 'o' },
+		{ "units", required_argument, NULL, HL_OPT_UNITS },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
@@ -146,6 +148,15 @@ parse(int argc, char **argv, options *o)
 		case 'o':
 			o->c.output = optarg;
 			break;
+		case HL_OPT_UNITS: {
+			int rc;
+
+			hl_cmd_common_opt("size", ch, argv, 0, help, &o->c,
+					  &rc);
+			if (rc != 0)
+				return rc;
+			break;
+		}
 		case 'h':
 			help(stdout);
 			return -1;

@@ -29,6 +29,7 @@ help(FILE *fp)
 "  --step K           grid step (default 1)\n"
 "  --utilities FILE   utility table (CSV) to add to the case\n"
 "  --format FMT       text (default), xml, or csv\n"
+HL_HELP_UNITS
 "  -o, --output FILE  write to FILE instead of standard output\n"
 "  --cost-svg FILE    chart of annual cost against ΔTmin\n"
 "  --area-svg FILE    chart of area against hot utility\n"
@@ -68,6 +69,7 @@ parse(int argc, char **argv, sweep_opts *s)
 		{ "cost-svg", required_argument, NULL, OPT_COST },
 		{ "area-svg", required_argument, NULL, OPT_AREA },
 		{ "output", required_argument, NULL, 'o' },
+		{ "units", required_argument, NULL, HL_OPT_UNITS },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};

@@ -37,6 +37,7 @@ help(FILE *fp)
 "                     tolerances (csv: one row per datum)\n"
 "  --supertargets     also the area, units, shells and cost targets at this\n"
 "                     ΔTmin (text and xml)\n"
+HL_HELP_UNITS
 "  -o, --output FILE  write to FILE instead of standard output\n"
 "  --verbose          show the LP solver's messages on standard error\n"
 "  -h, --help         show this help\n"
@@ -62,6 +63,7 @@ parse(int argc, char **argv, hl_common *o)
 		{ "supertargets", no_argument, NULL, OPT_SUPER },
 		{ "output", required_argument, NULL, 'o' },
 		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
+		{ "units", required_argument, NULL, HL_OPT_UNITS },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
