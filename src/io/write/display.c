@@ -100,6 +100,19 @@ hl_show_col(FILE *fp, const char *s, int width)
 	fputs(s, fp);
 }
 
+void
+hl_show_left(FILE *fp, const char *s, int width)
+{
+	int n = 0;
+	const char *p;
+
+	fputs(s, fp);
+	for (p = s; *p; p++)
+		n += ((unsigned char)*p & 0xc0) != 0x80;
+	for (; n < width; n++)
+		fputc(' ', fp);
+}
+
 const char *
 hl_show_header(char *buf, size_t size, const char *name, hl_qty q)
 {

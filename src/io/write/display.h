@@ -48,6 +48,8 @@ const char *hl_show_header(char *buf, size_t size, const char *name,
 
 /* Print s right-aligned in width characters (not bytes: "°F" is two). */
 void hl_show_col(FILE *fp, const char *s, int width);
+/* The same left-aligned. */
+void hl_show_left(FILE *fp, const char *s, int width);
 
 /* Shorthands for the writers: a value and its unit symbol per quantity. */
 static inline double hl_show_t(double v) { return hl_show(HL_QTY_TEMP, v); }
