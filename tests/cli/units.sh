@@ -60,4 +60,49 @@ check_grep "hot utility   kW      14800.0     10450.0" "$WORK/crude-audit.txt"
 check_exit 0 hl design "$CASES/crude.xml" -o "$WORK/crude-design.txt"
 check_grep "Heat exchanger network" "$WORK/crude-design.txt"
 
+# --units us: every CSV equals the SI one after conversion back with the
+# NIST SP 811 (2008) App. B.8 factors (tests/cli/us_csv.awk); XML stays SI.
+AWK_US="$TOP_SRCDIR/tests/cli/us_csv.awk"
+us_same() {
+	what=$1
+	shift
+	if hl "$@" --format csv -o "$WORK/a.csv" 2>/dev/null &&
+	   hl "$@" --format csv --units us -o "$WORK/b.csv" 2>/dev/null &&
+	   grep -q '\[' "$WORK/b.csv" &&
+	   awk -f "$AWK_US" "$WORK/a.csv" "$WORK/b.csv" >"$WORK/diff"; then
+		pass
+	else
+		fail "--units us $what differs from SI: $(head -3 "$WORK/diff")"
+	fi
+}
+us_same "targets (demo)" targets "$CASES/demo.xml"
+us_same "targets (crude)" targets "$CASES/crude.xml"
+us_same "sweep" sweep "$CASES/demo.xml" --from 5 --to 20 --step 5
+us_same "design (demo)" design "$CASES/demo.xml"
+us_same "design (crude)" design "$CASES/crude.xml"
+us_same "size" size "$CASES/demo-exchangers.csv"
+check_exit 0 hl curves "$CASES/demo.xml" -o "$WORK/si"
+check_exit 0 hl curves "$CASES/demo.xml" -o "$WORK/us" --units us
+for f in composite shifted-composite grand-composite balanced-composite; do
+	if awk -f "$AWK_US" "$WORK/si/$f.csv" "$WORK/us/$f.csv" >"$WORK/diff"; then
+		pass
+	else
+		fail "curves $f.csv in US units differ: $(head -3 "$WORK/diff")"
+	fi
+done
+check_grep "Temperature (°F)" "$WORK/us/composite.svg"
+check_grep "Heat load (MMBtu/h)" "$WORK/us/composite.svg"
+check_exit 0 hl targets "$CASES/demo.xml" --format xml -o "$WORK/si.xml"
+check_exit 0 hl targets "$CASES/demo.xml" --format xml --units us -o "$WORK/us.xml"
+if cmp -s "$WORK/si.xml" "$WORK/us.xml"; then pass; else fail "XML changed with --units us"; fi
+# The text: 978.0 kW of hot utility is 3 337 075 Btu/h (2.930 711e-4 kW per
+# Btu/h, NIST SP 811 App. B.8), printed to the whole Btu/h.
+check_exit 0 hl targets "$CASES/demo.xml" --units us -o "$WORK/us.txt"
+qh=$(awk '/^Minimum hot utility/ { print $4 }' "$WORK/us.txt")
+check_near "$(awk -v q="$qh" 'BEGIN { print q * 1055.05585262 / 3.6e6 }')" 978.0 1e-6 "hot utility in Btu/h"
+check_grep "Pinch                  316.4 °F hot / 298.4 °F cold" "$WORK/us.txt"
+check_grep "ΔTmin                  18.0 °F" "$WORK/us.txt"
+check_exit 1 hl targets "$CASES/demo.xml" --units imperial
+check_grep "--units wants si or us, not 'imperial'" "$WORK/stderr"
+
 finish
