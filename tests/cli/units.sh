@@ -103,6 +103,17 @@ qh=$(awk '/^Minimum hot utility/ { print $4 }' "$WORK/us.txt")
 check_near "$(awk -v q="$qh" 'BEGIN { print q * 1055.05585262 / 3.6e6 }')" 978.0 1e-6 "hot utility in Btu/h"
 check_grep "Pinch                  316.4 °F hot / 298.4 °F cold" "$WORK/us.txt"
 check_grep "ΔTmin                  18.0 °F" "$WORK/us.txt"
+# The report: 978 kW to 3 sig. figures in Btu/h; the pinch in °F
+# (t/°F = 1.8 t/°C + 32, NIST SP 811 App. B.8); table units converted.
+check_exit 0 hl report "$CASES/demo.xml" --units us --no-sweep -o "$WORK/us.html"
+check_grep 'id="t-qh">3 340 000 Btu/h<' "$WORK/us.html"
+check_grep 'id="t-pinch1">316.4 °F hot / 298.4 °F cold (307.4 °F shifted)<' "$WORK/us.html"
+check_grep '<span class="unit">Btu/(h·°F)</span>' "$WORK/us.html"
+if grep -q '<span class="unit">°C</span>\|<span class="unit">kW</span>' "$WORK/us.html"; then
+	fail "the US report still labels a column in °C or kW"
+else
+	pass
+fi
 check_exit 1 hl targets "$CASES/demo.xml" --units imperial
 check_grep "--units wants si or us, not 'imperial'" "$WORK/stderr"
 
