@@ -106,8 +106,10 @@ check_grep "ΔTmin                  18.0 °F" "$WORK/us.txt"
 # The report: 978 kW to 3 sig. figures in Btu/h; the pinch in °F
 # (t/°F = 1.8 t/°C + 32, NIST SP 811 App. B.8); table units converted.
 check_exit 0 hl report "$CASES/demo.xml" --units us --no-sweep -o "$WORK/us.html"
-check_grep 'id="t-qh">3 340 000 Btu/h<' "$WORK/us.html"
-check_grep 'id="t-pinch1">316.4 °F hot / 298.4 °F cold (307.4 °F shifted)<' "$WORK/us.html"
+nn=$(printf '\342\200\257')   # U+202F between digit groups
+nb=$(printf '\302\240')        # U+00A0 between number and unit
+check_grep "id=\"t-qh\">3${nn}340${nn}000${nb}Btu/h<" "$WORK/us.html"
+check_grep "id=\"t-pinch1\">316.4${nb}°F hot / 298.4${nb}°F cold (307.4${nb}°F shifted)<" "$WORK/us.html"
 check_grep '<span class="unit">Btu/(h·°F)</span>' "$WORK/us.html"
 if grep -q '<span class="unit">°C</span>\|<span class="unit">kW</span>' "$WORK/us.html"; then
 	fail "the US report still labels a column in °C or kW"
