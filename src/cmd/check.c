@@ -11,6 +11,7 @@
 #include <string.h>
 
 #include "cmd.h"
+#include "display.h"
 #include "netcheck.h"
 #include "network_xml.h"
 #include "output.h"
@@ -35,6 +36,8 @@ help(FILE *fp)
 "\n"
 "Options:\n"
 "  --quiet            no summary on standard output\n"
+HL_HELP_UNITS
+"                     (the summary; the problems stay in SI units)\n"
 "  -h, --help         show this help\n"
 "\n"
 "%s\n", hl_caution);
@@ -45,6 +48,7 @@ parse(int argc, char **argv, hl_common *o)
 {
 	static const struct option opts[] = {
 		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
+		{ "units", required_argument, NULL, HL_OPT_UNITS },
 		{ "help", no_argument, NULL, 'h' },
 		{ NULL, 0, NULL, 0 }
 	};
@@ -107,10 +111,12 @@ run(int argc, char **argv)
 	report(o.input, r);
 	if (!o.quiet)
 		printf("%s: %zu exchangers, %zu streams, %zu utilities: "
-		    "%s%zu problem%s (targets from the streams: %.1f kW "
-		    "hot, %.1f kW cold)\n", o.input, net->nunit, nstream,
+		    "%s%zu problem%s (targets from the streams: %.*f %s "
+		    "hot, %.*f %s cold)\n", o.input, net->nunit, nstream,
 		    net->nparty - nstream, r->n == 0 ? "sound, " : "",
-		    r->n, r->n == 1 ? "" : "s", r->qh_min, r->qc_min);
+		    r->n, r->n == 1 ? "" : "s", HL_DIG_Q(1),
+		    hl_show_q(r->qh_min), HL_SYM_Q, HL_DIG_Q(1),
+		    hl_show_q(r->qc_min), HL_SYM_Q);
 	rc = r->n == 0 ? 0 : HL_EINPUT;
 	hl_netcheck_free(r);
 	hl_network_free(net);

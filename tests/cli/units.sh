@@ -82,6 +82,7 @@ us_same "design (demo)" design "$CASES/demo.xml"
 us_same "design (crude)" design "$CASES/crude.xml"
 us_same "size" size "$CASES/demo-exchangers.csv"
 us_same "matches" matches "$CASES/demo.xml"
+us_same "audit" audit "$CASES/crude.xml"
 check_exit 0 hl curves "$CASES/demo.xml" -o "$WORK/si"
 check_exit 0 hl curves "$CASES/demo.xml" -o "$WORK/us" --units us
 for f in composite shifted-composite grand-composite balanced-composite; do
