@@ -117,6 +117,12 @@ if grep -q '<span class="unit">°C</span>\|<span class="unit">kW</span>' "$WORK/
 else
 	pass
 fi
+# The sensitivity text: d(QHmin)/d(cp) is a temperature difference, so
+# reactor effluent's -62 K reads -111.60 °F (1 K = 1.8 °F).
+check_exit 0 hl targets "$CASES/demo.xml" --sensitivity --units us -o "$WORK/sens.txt"
+check_grep "QHmin 3337075 Btu/h lies within" "$WORK/sens.txt"
+check_grep "±1.8 °F on temperatures" "$WORK/sens.txt"
+check_grep "reactor effluent     cp     22748 Btu/(h·°F)   ±5 %      ±126932      ±159688    -111.60" "$WORK/sens.txt"
 check_exit 1 hl targets "$CASES/demo.xml" --units imperial
 check_grep "--units wants si or us, not 'imperial'" "$WORK/stderr"
 

@@ -1,14 +1,15 @@
 /* plausible.c - unit slips that deserve a warning (plausible.h). */
 #include <math.h>
 
+#include "case.h"
 #include "plausible.h"
 #include "read_warn.h"
 
 void
 hl_doubt_htc(const char *file, long line, const char *col, double h)
 {
-	if (isnan(h))
-		return;
+	if (isnan(h) || h > HL_H_MAX)
+		return; /* refused later: one message is enough */
 	if (h > HL_DOUBT_HTC_HIGH)
 		hl_read_warn(file, line, "%s %g kW/(m²·K) is above %g, more "
 			"than condensing steam gives: in W/(m²·K)? write the "
@@ -24,7 +25,8 @@ void
 hl_doubt_cp(const char *file, long line, const char *col, double cp,
 	    double span)
 {
-	if (isnan(cp) || !(cp > HL_DOUBT_CP) || !(span >= HL_DOUBT_SPAN))
+	if (isnan(cp) || !(cp > HL_DOUBT_CP) || !(span >= HL_DOUBT_SPAN) ||
+	    cp > HL_CP_MAX)
 		return;
 	hl_read_warn(file, line, "%s %g kW/K over %g K (%g MW) is implausibly "
 		"large for one stream: in W/K? write the unit in the header, "
@@ -34,7 +36,7 @@ hl_doubt_cp(const char *file, long line, const char *col, double cp,
 void
 hl_doubt_duty(const char *file, long line, const char *col, double q)
 {
-	if (isnan(q) || !(q > HL_DOUBT_DUTY))
+	if (isnan(q) || !(q > HL_DOUBT_DUTY) || q > HL_DOUBT_DUTY_OUT)
 		return;
 	hl_read_warn(file, line, "%s %g kW (%g MW) is implausibly large for "
 		"one stream or unit: in W? write the unit in the header, "

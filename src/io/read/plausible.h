@@ -21,9 +21,12 @@
 #define HL_DOUBT_CP 5000.0       /* kW/K */
 #define HL_DOUBT_SPAN 10.0       /* K */
 #define HL_DOUBT_DUTY 2.0e6      /* kW */
+#define HL_DOUBT_DUTY_OUT 1.0e12 /* kW: beyond, other checks refuse it */
 #define HL_DOUBT_KELVIN 250.0    /* °C */
 
-/* Each warns about column col of the row at file:line when the value (in
+/* Values past the hard limits of case.h (HL_CP_MAX, HL_H_MAX) are refused
+ * by the checks that follow and get no warning besides the error.
+ * Each warns about column col of the row at file:line when the value (in
  * the canonical unit; NaN: not given) looks like another unit. */
 void hl_doubt_htc(const char *file, long line, const char *col, double h);
 void hl_doubt_cp(const char *file, long line, const char *col, double cp,

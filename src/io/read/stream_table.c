@@ -127,9 +127,10 @@ row_doubts(const hl_table *t, const row *r)
 /* Every temperature at or above HL_DOUBT_KELVIN with no unit in the
  * header: kelvin written as °C? */
 static void
-kelvin_doubt(const hl_table *t, double coolest)
+kelvin_doubt(const hl_table *t, double coolest, double hottest)
 {
-	if (coolest < HL_DOUBT_KELVIN || hl_table_unit(t, C_SUPPLY) != NULL ||
+	if (coolest < HL_DOUBT_KELVIN || hottest > HL_T_MAX ||
+	    hl_table_unit(t, C_SUPPLY) != NULL ||
 	    hl_table_unit(t, C_TARGET) != NULL)
 		return;
 	hl_read_warn(hl_table_file(t), t->header_line, "every supply and "
@@ -255,7 +256,7 @@ read_rows(hl_case *c, hl_table *t, hl_error *err)
 	builder b;
 	hl_status st = HL_OK;
 	int rc, rows = 0;
-	double coolest = INFINITY;
+	double coolest = INFINITY, hottest = -INFINITY;
 
 	memset(&b, 0, sizeof b);
 	b.s.file = (char *)hl_table_file(t);
@@ -267,6 +268,7 @@ read_rows(hl_case *c, hl_table *t, hl_error *err)
 		if (st != HL_OK)
 			break;
 		coolest = fmin(coolest, fmin(r.supply, r.target));
+		hottest = fmax(hottest, fmax(r.supply, r.target));
 		if (b.open && strcmp(b.name, hl_table_text(t, C_NAME)) == 0) {
 			st = builder_continue(&b, t, &r, err);
 		} else {
@@ -288,7 +290,7 @@ read_rows(hl_case *c, hl_table *t, hl_error *err)
 	if (st == HL_OK)
 		st = builder_flush(c, &b, err);
 	if (st == HL_OK)
-		kelvin_doubt(t, coolest);
+		kelvin_doubt(t, coolest, hottest);
 	free(b.s.seg);
 	return st;
 }
