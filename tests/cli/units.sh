@@ -48,6 +48,11 @@ printf 'name,supply,target,cp\nH1,180,60,12000\nC1,20,150,9\n' >"$WORK/wk.csv"
 check_exit 0 hl targets "$WORK/wk.csv"
 check_grep "warning: $WORK/wk.csv:2: cp 12000 kW/K over 120 K" "$WORK/stderr"
 
+# The same heuristics on an XML case's own streams.
+printf '<?xml version="1.0"?>\n<case version="1"><streams>\n<stream name="a" supply="180" target="60" cp="2" h="800"/>\n<stream name="b" supply="20" target="150" cp="3"/></streams></case>\n' >"$WORK/slip.xml"
+check_exit 0 hl targets "$WORK/slip.xml"
+check_grep "warning: $WORK/slip.xml:3: h 800 kW/(m²·K) is above 20" "$WORK/stderr"
+
 # The invented crude preheat train keeps working: targets, design, audit
 # of today's 17 units, all from tables with units in their headers.
 check_exit 0 hl targets "$CASES/crude.xml" --format xml -o "$WORK/crude.xml"

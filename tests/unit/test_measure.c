@@ -9,6 +9,7 @@
 #include <string.h>
 #include <cmocka.h>
 
+#include "display.h"
 #include "measure.h"
 #include "read_warn.h"
 #include "tables.h"
@@ -256,6 +257,42 @@ test_exchanger_list_units(void **state)
 	hl_units_table_free(ut);
 }
 
+/* The display layer: SI passes values through untouched; US converts with
+ * the same factors (NIST SP 811, 2008, App. B.8) and back. */
+static void
+test_display(void **state)
+{
+	char h[64];
+
+	(void)state;
+	hl_display_set(HL_UNITS_SI);
+	assert_true(hl_show_t(158.0) == 158.0);
+	assert_true(hl_show_q(978.0) == 978.0);
+	assert_string_equal(HL_SYM_DT, "K");
+	assert_string_equal(hl_show_header(h, sizeof h, "hot", HL_QTY_TEMP),
+			    "hot");
+	assert_int_equal(HL_DIG_Q(1), 1);
+	hl_display_set(HL_UNITS_US);
+	assert_true(fabs(hl_show_t(100.0) - 212.0) < 1e-12);
+	assert_true(fabs(hl_show_dt(10.0) - 18.0) < 1e-12);
+	/* 1 kW = 1/2.930 711e-4 Btu/h = 3412.142 Btu/h. */
+	assert_printed(hl_show_q(1.0), 3412.142);
+	/* 1 m² = 1/0.092 903 04 ft² = 10.763 91 ft². */
+	assert_printed(hl_show_a(1.0), 10.76391);
+	assert_printed(hl_show_h(1.0), 1e3 / 5.678263);
+	assert_true(fabs(hl_unshow(HL_QTY_TEMP, hl_show_t(37.5)) - 37.5) <
+		    1e-12);
+	assert_string_equal(HL_SYM_T, "°F");
+	assert_string_equal(HL_SYM_CP, "Btu/(h·°F)");
+	assert_string_equal(hl_show_header(h, sizeof h, "duty", HL_QTY_POWER),
+			    "duty [Btu/h]");
+	/* What the writers print, the readers take back. */
+	assert_non_null(hl_measure_find(HL_QTY_HTC, HL_SYM_H, NULL, 0));
+	assert_non_null(hl_measure_find(HL_QTY_PRICE, "/MMBtu", NULL, 0));
+	assert_int_equal(HL_DIG_Q(1), 0);
+	hl_display_set(HL_UNITS_SI);
+}
+
 int
 main(void)
 {
@@ -268,6 +305,7 @@ main(void)
 		cmocka_unit_test(test_warnings),
 		cmocka_unit_test(test_utility_price_units),
 		cmocka_unit_test(test_exchanger_list_units),
+		cmocka_unit_test(test_display),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);
