@@ -111,6 +111,13 @@ test_spellings(void **state)
 	assert_non_null(hl_measure_find(HL_QTY_PRICE, " US dollar / MMBtu",
 					cur, sizeof cur));
 	assert_string_equal(cur, "US dollar");
+	assert_non_null(hl_measure_find(HL_QTY_PRICE, "EUR per GJ", cur,
+					sizeof cur));
+	assert_string_equal(cur, "EUR");
+	assert_non_null(hl_measure_find(HL_QTY_PRICE, "per MWh", cur,
+					sizeof cur));
+	assert_string_equal(cur, "");
+	assert_non_null(hl_measure_find(HL_QTY_PRICE, "MMBtu", NULL, 0));
 }
 
 static const char us[] =

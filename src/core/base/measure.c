@@ -11,7 +11,10 @@
  *     temperature: t/°C = (t/°F − 32)/1.8; kelvin: t/°C = T/K − 273.15;
  *   - hour: 3.6 E+03 s; watt hour: 3.6 E+03 J (exact).
  * From these (SP 811, B.8 rows the tests check against): Btu_IT/h =
- * 2.930 711 E-01 W; Btu_IT/(h·ft²·°F) = 5.678 263 E+00 W/(m²·K).
+ * 2.930 711 E-01 W; Btu_IT/(h·ft²·°F) = 5.678 263 E+00 W/(m²·K). The
+ * printed 7-figure values are quoted from memory; each agrees with the
+ * exact definitions above to its last digit, which is what the tests
+ * check.
  * MMBtu is 10^6 Btu_IT: the gas trade's unit, common practice, no source.
  */
 #include <ctype.h>
@@ -107,21 +110,42 @@ fold(const char *s, char *out, size_t size)
 	out[n] = '\0';
 }
 
-/* Split "USD/MMBtu" into the currency "USD" and the unit "/MMBtu". A price
- * without a '/' ("MWh") is taken as the unit alone. */
+/* Where a price's unit starts: after the '/' of "USD/MMBtu", or after
+ * the word "per" of "EUR per MWh"; *cut is where the currency ends. NULL
+ * when neither is there ("MWh": the unit alone). */
+static const char *
+unit_start(const char *text, const char **cut)
+{
+	const char *p = strchr(text, '/');
+
+	if (p != NULL) {
+		*cut = p;
+		return p + 1;
+	}
+	for (p = text; *p; p++)
+		if (strncasecmp(p, "per ", 4) == 0 && (p == text ||
+		    p[-1] == ' ')) {
+			*cut = p;
+			return p + 4;
+		}
+	return NULL;
+}
+
+/* Split "USD/MMBtu" or "USD per MMBtu" into the currency "USD" and what
+ * follows it, the unit. */
 static const char *
 split_currency(const char *text, char *currency, size_t size)
 {
-	const char *slash = strchr(text, '/');
+	const char *cut = NULL, *unit = unit_start(text, &cut);
 	const char *a = text, *b;
 	size_t n;
 
-	if (slash == NULL) {
+	if (unit == NULL) {
 		if (currency != NULL && size > 0)
 			currency[0] = '\0';
 		return NULL;
 	}
-	b = slash;
+	b = cut;
 	while (a < b && (*a == ' ' || *a == '\t'))
 		a++;
 	while (b > a && (b[-1] == ' ' || b[-1] == '\t'))
@@ -131,7 +155,7 @@ split_currency(const char *text, char *currency, size_t size)
 		memcpy(currency, a, n);
 		currency[n] = '\0';
 	}
-	return slash;
+	return unit;
 }
 
 const hl_measure *
@@ -144,11 +168,11 @@ hl_measure_find(hl_qty q, const char *text, char *currency,
 	if (currency != NULL && currency_size > 0)
 		currency[0] = '\0';
 	if (q == HL_QTY_PRICE) {
-		const char *slash = split_currency(text, currency,
-						   currency_size);
+		const char *unit = split_currency(text, currency,
+						  currency_size);
 
 		key[0] = '/';
-		fold(slash != NULL ? slash + 1 : text, key + 1, sizeof key - 1);
+		fold(unit != NULL ? unit : text, key + 1, sizeof key - 1);
 	} else {
 		fold(text, key, sizeof key);
 	}
@@ -200,12 +224,15 @@ hl_measure_what(hl_qty q)
 	return (unsigned)q < HL_QTY_COUNT ? what[q] : "quantity";
 }
 
+/* Linear conversion, canonical = value·scale + offset (NIST SP 811, 2008,
+ * App. B.8 factors and temperature formulas). */
 double
 hl_measure_to_canonical(const hl_measure *m, double value)
 {
 	return m == NULL ? value : value * m->scale + m->offset;
 }
 
+/* The inverse, value = (canonical − offset)/scale. */
 double
 hl_measure_from_canonical(const hl_measure *m, double value)
 {
