@@ -40,7 +40,9 @@ factor(hl_qty q, const char *unit)
  *   square foot -> square meter                        9.290 304 E-02
  *   British thermal unit_IT -> joule                   1.055 056 E+03
  *   degree Fahrenheit (interval) -> kelvin             5.555 556 E-01
- *   watt hour -> joule                                 3.6 E+03 */
+ *   watt hour -> joule                                 3.6 E+03
+ * The rows are quoted from memory; the Btu_IT (1055.055 852 62 J exactly)
+ * and the 5.678 263 row were confirmed against a copy of the table. */
 static void
 test_nist_factors(void **state)
 {
