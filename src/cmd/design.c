@@ -6,7 +6,6 @@
  * independent check of the network as written (the XML is read back and
  * verified by netcheck.h): a network that fails it is never written.
  */
-#include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -20,48 +19,14 @@
 #include "netcheck.h"
 #include "network.h"
 #include "network_match.h"
-#include "network_out.h"
-#include "network_xml.h"
+#include "network_write.h"
+#include "network_read.h"
 #include "output.h"
 #include "result_xml.h"
+#include "study.h"
 #include "targets_out.h"
 #include "utility_lp.h"
 #include "utility_out.h"
-
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom design CASE [options]\n"
-"\n"
-"Design a heat exchanger network that meets the energy targets: the least-\n"
-"cost utility levels, the fewest units (match MILP), the placement of every\n"
-"match on its streams in temperature order, stream splits where series\n"
-"would break the minimum approach, the cheapest order and split shares, and\n"
-"each exchanger sized (U from the film coefficients, LMTD, F, shells, area,\n"
-"cost). The network is checked as `heatloom check` would before it is\n"
-"written. CASE is an XML case file or a stream table (CSV).\n"
-"\n"
-"Options:\n"
-"  --dtmin K          minimum approach temperature for the targets (default:\n"
-"                     the case's, or 10)\n"
-"  --emat K           exchanger minimum approach, at most ΔTmin (default:\n"
-"                     the case's, or ΔTmin)\n"
-"  --utilities FILE   utility table (CSV) to add to the case\n"
-"  --format FMT       text (default), xml (what `heatloom check` reads), csv\n"
-HL_HELP_UNITS
-"  -o, --output FILE  write to FILE instead of standard output\n"
-"  --svg FILE         also draw the grid diagram into FILE (SVG)\n"
-"  --time-limit S     seconds per subnetwork for the match MILP (default:\n"
-"                     the case's, or 10); the best network found is used\n"
-"  --quiet            no warnings on standard error\n"
-"  --verbose          the solvers' messages on standard error\n"
-"  -h, --help         show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
-
-enum { OPT_EMAT = 256, OPT_SVG, OPT_TIME };
 
 typedef struct {
 	hl_common c;
@@ -69,54 +34,47 @@ typedef struct {
 	double time_limit;  /* NaN unless --time-limit */
 	const char *svg;
 } options;
+HL_COMMON_FIRST(options);
+
+static const hl_option option_rows[] = {
+	HL_ROW_DTMIN("minimum approach temperature for the targets (default:\n"
+		     "the case's, or 10)"),
+	HL_ROW_NUMBER("emat", "K", options, emat, 0.0, 500.0,
+	    "exchanger minimum approach, at most ΔTmin (default:\n"
+	    "the case's, or ΔTmin)"),
+	HL_ROW_UTILITIES,
+	HL_ROW_FORMAT("text (default), xml (what `heatloom check` reads), csv"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
+	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
+	HL_ROW_TEXT("svg", "FILE", options, svg,
+	    "also draw the grid diagram into FILE (SVG)"),
+	HL_ROW_NUMBER("time-limit", "S", options, time_limit, 0.0, 86400.0,
+	    "seconds per subnetwork for the match MILP (default:\n"
+	    "the case's, or 10); the best network found is used"),
+	HL_ROW_QUIET("no warnings on standard error"),
+	HL_ROW_VERBOSE("the solvers' messages on standard error"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
+
+static void
+init(void *opts)
+{
+	options *o = opts;
+
+	o->emat = o->time_limit = NAN;
+}
 
 static int
-parse(int argc, char **argv, options *o)
+check(void *opts)
 {
-	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
-		{ "emat", required_argument, NULL, OPT_EMAT },
-		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
-		{ "format", required_argument, NULL, HL_OPT_FORMAT },
-		{ "svg", required_argument, NULL, OPT_SVG },
-		{ "time-limit", required_argument, NULL, OPT_TIME },
-		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
-		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
-		{ "output", required_argument, NULL, 'o' },
-		{ "units", required_argument, NULL, HL_OPT_UNITS },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
-				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
-	int ch, rc;
+	const options *o = opts;
 
-	memset(o, 0, sizeof *o);
-	hl_common_init(&o->c);
-	o->emat = o->time_limit = NAN;
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (hl_cmd_common_opt("design", ch, argv, formats, help, &o->c,
-				      &rc)) {
-			if (rc != 0)
-				return rc;
-			continue;
-		}
-		if (ch == OPT_SVG)
-			o->svg = optarg;
-		else if (hl_cmd_parse_double("design", ch == OPT_EMAT ?
-		    "--emat" : "--time-limit", optarg, 0.0, ch == OPT_EMAT ?
-		    500.0 : 86400.0, ch == OPT_EMAT ? &o->emat :
-		    &o->time_limit) != 0)
-			return 1;
-	}
-	rc = hl_cmd_one_input("design", argc, argv, &o->c);
-	if (rc == 0 && o->svg != NULL && o->c.output != NULL &&
+	if (o->svg != NULL && o->c.output != NULL &&
 	    strcmp(o->svg, o->c.output) == 0)
 		return hl_cmd_usage("design", "--svg and -o name the same "
 		    "file '%s'", o->svg);
-	return rc;
+	return 0;
 }
 
 /* What the stages give, freed together. */
@@ -166,45 +124,27 @@ load(const options *o, run_state *s, hl_error *err)
 	return HL_OK;
 }
 
-/* Targets, utility loads, matches, placement. */
+/* Targets, utility loads, matches, placement (study.h). */
 static hl_status
 solve(const options *o, run_state *s, hl_error *err)
 {
-	hl_utility_lp_opts lo = { o->c.verbose, hl_cmd_log_stderr, NULL, NAN };
-	const double *util_load = NULL;
-	double *loads = NULL;
-	hl_match_options mo;
+	hl_study_opts so = { o->c.verbose, hl_cmd_log_stderr, 1,
+			     o->time_limit };
+	hl_study y;
 	hl_status st;
-	size_t i;
 
-	st = hl_cascade_compute(s->c, s->c->set.dtmin, &s->cas, err);
-	if (st == HL_OK && s->c->nutil > 0) {
-		st = hl_utility_lp_solve(s->c, s->c->set.dtmin, &lo, &s->lp,
-		    err);
-		if (st == HL_OK && (loads = calloc(s->c->nutil,
-		    sizeof *loads)) == NULL)
-			st = hl_error_nomem(err);
-		for (i = 0; st == HL_OK && i < s->c->nutil; i++)
-			loads[i] = s->lp->util[i].load;
-		util_load = loads;
-	}
-	if (st == HL_OK) {
-		hl_match_options_default(&mo, s->c);
-		if (!isnan(o->time_limit))
-			mo.time_limit = o->time_limit;
-		if (o->c.verbose) {
-			mo.log = hl_cmd_log_stderr;
-			mo.ctx = NULL;
-		}
-		st = hl_match_solve(s->c, s->c->set.dtmin, util_load, &mo,
-		    &s->mr, err);
-	}
-	free(loads);
+	memset(&y, 0, sizeof y);
+	st = hl_study_targets(s->c, &so, &y, err);
 	if (st == HL_OK)
-		st = hl_network_from_matches(s->c, s->mr, s->cas->qh,
-		    s->cas->qc, &s->feed, err);
+		st = hl_study_matches(s->c, &so, &y, err);
 	if (st == HL_OK)
-		st = hl_network_place(&s->feed.in, &s->net, err);
+		st = hl_study_network(s->c, &y, err);
+	/* run_state owns what the stages gave from here (state_free). */
+	s->cas = y.cas;
+	s->lp = y.lp;
+	s->mr = y.mr;
+	s->feed = y.feed;
+	s->net = y.net;
 	if (st == HL_OK && (s->net->source = strdup(s->c->source != NULL ?
 	    s->c->source : o->c.input)) == NULL)
 		st = hl_error_nomem(err);
@@ -362,41 +302,42 @@ warn(const run_state *s)
 		    "(give --time-limit)\n", s->mr->units, s->mr->lower);
 }
 
-static int
-run(int argc, char **argv)
+static hl_status
+run_design(void *opts, hl_error *err)
 {
+	const options *o = opts;
 	run_state s;
-	options o;
-	hl_error err;
 	hl_status st;
-	int rc = parse(argc, argv, &o);
 
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
 	memset(&s, 0, sizeof s);
-	hl_error_clear(&err);
-	st = load(&o, &s, &err);
+	st = load(o, &s, err);
 	if (st == HL_OK)
-		st = solve(&o, &s, &err);
+		st = solve(o, &s, err);
 	if (st == HL_OK)
-		st = build_xml(&s, &err);
+		st = build_xml(&s, err);
 	if (st == HL_OK)
-		st = self_check(&s, &err);
-	if (st == HL_OK && o.svg != NULL)
-		st = write_svg(&o, &s, &err);
+		st = self_check(&s, err);
+	if (st == HL_OK && o->svg != NULL)
+		st = write_svg(o, &s, err);
 	if (st == HL_OK)
-		st = write_main(&o, &s, &err);
-	if (st == HL_OK && !o.c.quiet)
+		st = write_main(o, &s, err);
+	if (st == HL_OK && !o->c.quiet)
 		warn(&s);
-	rc = st == HL_OK ? 0 : hl_cmd_fail(&err);
 	state_free(&s);
-	return rc;
+	return st;
 }
 
 const hl_command hl_cmd_design = {
-	"design", "CASE [--dtmin K] [--emat K] [--utilities FILE] "
-	"[--format text|xml|csv] [-o FILE] [--svg FILE] [--time-limit S] "
-	"[--quiet]",
+	"design", "CASE [options]",
 	"a sized heat exchanger network that meets the targets, checked",
-	run, help
+	"Design a heat exchanger network that meets the energy targets: the least-\n"
+	"cost utility levels, the fewest units (match MILP), the placement of every\n"
+	"match on its streams in temperature order, stream splits where series\n"
+	"would break the minimum approach, the cheapest order and split shares, and\n"
+	"each exchanger sized (U from the film coefficients, LMTD, F, shells, area,\n"
+	"cost). The network is checked as `heatloom check` would before it is\n"
+	"written. CASE is an XML case file or a stream table (CSV).\n",
+	NULL, option_rows, sizeof(options),
+	"give one CASE file", "give one CASE file, not several",
+	init, check, run_design
 };

@@ -1,5 +1,4 @@
 /* targets.c - `heatloom targets`: minimum utilities and pinches. */
-#include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -16,80 +15,30 @@
 #include "utility_lp.h"
 #include "utility_out.h"
 
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom targets CASE [options]\n"
-"\n"
-"Minimum hot and cold utility, pinch temperatures and the heat cascade of\n"
-"the process streams (problem table algorithm). When the case has utilities,\n"
-"also the load and yearly cost of each utility level at least total cost\n"
-"(transshipment LP) and the utility pinches. CASE is an XML case file or a\n"
-"stream table (CSV).\n"
-"\n"
-"Options:\n"
-"  --dtmin K          minimum approach temperature (default: the case's, or 10)\n"
-"  --utilities FILE   utility table (CSV) to add to the case\n"
-"  --format FMT       text (default), xml, or csv (the cascade)\n"
-"  --sensitivity      how far each stream datum and ΔTmin move the targets,\n"
-"                     ranked, with the band from the cp_tol and t_tol\n"
-"                     tolerances (csv: one row per datum)\n"
-"  --supertargets     also the area, units, shells and cost targets at this\n"
-"                     ΔTmin (text and xml)\n"
-HL_HELP_UNITS
-"  -o, --output FILE  write to FILE instead of standard output\n"
-"  --verbose          show the LP solver's messages on standard error\n"
-"  -h, --help         show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
+typedef struct {
+	hl_common c;
+	int sensitivity;  /* replaces the text and CSV outputs, adds to XML */
+	int super;        /* adds to the text and the XML */
+} options;
+HL_COMMON_FIRST(options);
 
-enum { OPT_SENS = 256, OPT_SUPER };
-
-/* --sensitivity: replaces the text and CSV outputs, adds to the XML. */
-static int want_sensitivity;
-/* --supertargets: adds to the text and the XML. */
-static int want_super;
-
-static int
-parse(int argc, char **argv, hl_common *o)
-{
-	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
-		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
-		{ "format", required_argument, NULL, HL_OPT_FORMAT },
-		{ "sensitivity", no_argument, NULL, OPT_SENS },
-		{ "supertargets", no_argument, NULL, OPT_SUPER },
-		{ "output", required_argument, NULL, 'o' },
-		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
-		{ "units", required_argument, NULL, HL_OPT_UNITS },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
-				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
-	int ch, rc;
-
-	hl_common_init(o);
-	want_sensitivity = 0;
-	want_super = 0;
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (hl_cmd_common_opt("targets", ch, argv, formats, help, o,
-				      &rc)) {
-			if (rc != 0)
-				return rc;
-			continue;
-		}
-		if (ch == OPT_SENS)
-			want_sensitivity = 1;
-		else if (ch == OPT_SUPER)
-			want_super = 1;
-	}
-	return hl_cmd_one_input("targets", argc, argv, o);
-}
+static const hl_option option_rows[] = {
+	HL_ROW_DTMIN("minimum approach temperature (default: the case's, or 10)"),
+	HL_ROW_UTILITIES,
+	HL_ROW_FORMAT("text (default), xml, or csv (the cascade)"),
+	HL_ROW_FLAG("sensitivity", options, sensitivity, 1,
+	    "how far each stream datum and ΔTmin move the targets,\n"
+	    "ranked, with the band from the cp_tol and t_tol\n"
+	    "tolerances (csv: one row per datum)"),
+	HL_ROW_FLAG("supertargets", options, super, 1,
+	    "also the area, units, shells and cost targets at this\n"
+	    "ΔTmin (text and xml)"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
+	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
+	HL_ROW_VERBOSE("show the LP solver's messages on standard error"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
 
 static hl_status
 write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
@@ -129,8 +78,10 @@ write_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
 }
 
 static hl_status
-run_targets(const hl_common *o, hl_error *err)
+run_targets(void *opts, hl_error *err)
 {
+	const options *oo = opts;
+	const hl_common *o = &oo->c;
 	hl_utility_lp_opts lo = { o->verbose, hl_cmd_log_stderr, NULL, NAN };
 	hl_case *c = NULL;
 	hl_cascade *cas = NULL;
@@ -152,16 +103,16 @@ run_targets(const hl_common *o, hl_error *err)
 	}
 	if (st == HL_OK && c->nutil > 0)
 		st = hl_utility_lp_solve(c, c->set.dtmin, &lo, &lp, err);
-	if (st == HL_OK && want_sensitivity)
+	if (st == HL_OK && oo->sensitivity)
 		st = hl_sensitivity_compute(c, cas, &sv, err);
-	if (st == HL_OK && want_super)
+	if (st == HL_OK && oo->super)
 		st = hl_sweep_point_from(c, cas, lp, &sup, err);
 	if (st == HL_OK)
 		st = hl_output_open(&out, o->output, err);
 	if (st == HL_OK) {
 		if (o->format == HL_FMT_XML)
 			st = write_xml(out.fp, c, cas, &th, lp, sv,
-				       want_super ? &sup : NULL, err);
+				       oo->super ? &sup : NULL, err);
 		else if (sv != NULL && o->format == HL_FMT_CSV)
 			hl_sensitivity_csv(out.fp, c, sv);
 		else if (sv != NULL)
@@ -170,7 +121,7 @@ run_targets(const hl_common *o, hl_error *err)
 			hl_targets_csv(out.fp, cas);
 		else
 			write_text(out.fp, c, cas, &th, lp,
-				   want_super ? &sup : NULL);
+				   oo->super ? &sup : NULL);
 		st = st == HL_OK ? hl_output_commit(&out, err) : st;
 		hl_output_abort(&out);
 	}
@@ -181,24 +132,15 @@ run_targets(const hl_common *o, hl_error *err)
 	return st;
 }
 
-static int
-run(int argc, char **argv)
-{
-	hl_common o;
-	hl_error err;
-	int rc = parse(argc, argv, &o);
-
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
-	hl_error_clear(&err);
-	if (run_targets(&o, &err) != HL_OK)
-		return hl_cmd_fail(&err);
-	return 0;
-}
-
 const hl_command hl_cmd_targets = {
-	"targets", "CASE [--dtmin K] [--utilities FILE] [--format text|xml|csv] "
-	"[--sensitivity] [--supertargets] [-o FILE] [--verbose]",
+	"targets", "CASE [options]",
 	"energy targets, pinches, heat cascade, least-cost utility levels",
-	run, help
+	"Minimum hot and cold utility, pinch temperatures and the heat cascade of\n"
+	"the process streams (problem table algorithm). When the case has utilities,\n"
+	"also the load and yearly cost of each utility level at least total cost\n"
+	"(transshipment LP) and the utility pinches. CASE is an XML case file or a\n"
+	"stream table (CSV).\n",
+	NULL, option_rows, sizeof(options),
+	"give one CASE file", "give one CASE file, not several",
+	NULL, NULL, run_targets
 };

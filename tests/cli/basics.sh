@@ -1,5 +1,6 @@
 #!/bin/sh
-# basics.sh - help, version, usage errors and exit codes (design.md).
+# basics.sh - help, version, usage errors and exit codes (doc/design.md,
+# "Contracts").
 . "$TOP_SRCDIR/tests/cli/lib.sh"
 
 check_exit 0 hl --help

@@ -44,7 +44,7 @@ approaches() {
 # The four-stream problem (Linnhoff et al., User Guide on Process
 # Integration, IChemE 1982; Kemp, Pinch Analysis and Process Integration,
 # 2007, ch. 2; from memory, targets confirmed by a hand cascade): at ΔTmin
-# 10 K, 20 / 60 kW and six units (references.md). The temperatures are those
+# 10 K, 20 / 60 kW and six units (doc/references.md). The temperatures are those
 # of the network the pinch design rules give (derived by hand: H1-C2 240 kW
 # from 170 to 90 °C against 80 to 140 °C, H2-C1 90 kW 150 -> 90 against
 # 80 -> 125, H1-C1 90 kW 90 -> 60 against 35 -> 80, H2-C1 30 kW 90 -> 70

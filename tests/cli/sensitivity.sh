@@ -24,7 +24,7 @@ if [ -n "${XMLLINT:-}" ]; then
 	check_near "$(xpath "string($row/@hot-plus)" "$WORK/s.xml")" -80 1e-9 "H1 cp dQH"
 	check_near "$(xpath "string($row/@cold-plus)" "$WORK/s.xml")" 30 1e-9 "H1 cp dQC"
 	check_near "$(xpath "string($row/@rank)" "$WORK/s.xml")" 1 0 "H1 cp rank"
-	# ΔTmin: (65 − 20)/10 from the 20 K targets of references.md.
+	# ΔTmin: (65 − 20)/10 from the 20 K targets of doc/references.md.
 	check_near "$(xpath 'string(/results/sensitivity-dtmin/@hot-plus)' "$WORK/s.xml")" 4.5 1e-9 "dQH/dΔTmin"
 	# The band re-solved at the worst corner (derived by hand).
 	check_near "$(xpath 'string(/results/sensitivity-band[@target="hot"]/@high)' "$WORK/s.xml")" 66.6 1e-9 "QH band high"

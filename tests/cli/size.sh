@@ -75,13 +75,13 @@ check_near "$(at balance duty)" 601.25 1e-12 "mean of the two sides"
 
 # Temperature crosses needing several shells; shells and F from the Xp rule
 # of Ahmad, Linnhoff & Smith (1988) with Xp 0.9 and F floor 0.80
-# (references.md: P 0.8, R 1 -> 4 shells, F 0.802; P 0.9, R 0.8 -> 5
+# (doc/references.md: P 0.8, R 1 -> 4 shells, F 0.802; P 0.9, R 0.8 -> 5
 # shells, F 0.837) [derived].
 check_near "$(at cross-4 shells)" 4 0 "P 0.8 R 1 shells"
 check_near "$(at cross-4 ft)" 0.802 5e-4 "P 0.8 R 1 F"
 check_near "$(at cross-5 shells)" 5 0 "P 0.9 R 0.8 shells"
 check_near "$(at cross-5 ft)" 0.837 5e-4 "P 0.9 R 0.8 F"
-# Area split evenly over the shells (design.md).
+# Area split evenly over the shells (doc/methods.md, "Area and cost").
 check_near "$(at cross-5 area-shell)" "$(calc "$(at cross-5 area)/5")" 1e-12 "area per shell"
 # Cost per shell a + b·A^c with the built-in law, marked as assumed.
 check_near "$(at cross-5 cost)" "$(calc "5*(10000 + 800*($(at cross-5 area)/5)^0.8)")" 1e-9 "default cost law"

@@ -34,7 +34,7 @@ check_near "$(xpath 'string(/results/targets/utility[@name="steam"]/@cost)' "$WO
 check_grep 'optimal="true"' "$WORK/k.xml"
 
 # Smith (2005) ch. 16 with a cheaper MP level at 200 °C: 3000 kW there,
-# 4500 kW of HP steam (references.md, derived by hand); LP steam at 120 °C
+# 4500 kW of HP steam (doc/references.md, derived by hand); LP steam at 120 °C
 # lies below the 150/140 °C pinch and stays unused.
 check_exit 0 hl targets "$DATA/good/smith4.csv" --utilities "$DATA/good/smith4-levels.csv" --format xml -o "$WORK/s.xml"
 valid "$WORK/s.xml"

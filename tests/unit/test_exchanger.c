@@ -79,7 +79,7 @@ naive_f(double p, double r)
 	    log((2.0 - p * (r + 1.0 - s)) / (2.0 - p * (r + 1.0 + s)));
 }
 
-/* Kern (1950) eq. 7.41 at R = 1 (its limit, as quoted in references.md):
+/* Kern (1950) eq. 7.41 at R = 1 (its limit, as quoted in doc/references.md):
  * F = [P√2/(1−P)] / ln{[2−P(2−√2)]/[2−P(2+√2)]}. */
 static double
 naive_f_r1(double p)
@@ -90,7 +90,7 @@ naive_f_r1(double p)
 	    log((2.0 - p * (2.0 - s)) / (2.0 - p * (2.0 + s)));
 }
 
-/* Per-shell P of N shells in series, literally (references.md, from memory):
+/* Per-shell P of N shells in series, literally (doc/references.md, from memory):
  * Z = [(1−PR)/(1−P)]^(1/N), P1 = (Z−1)/(Z−R); R = 1: P1 = P/(N − (N−1)P). */
 static double
 naive_p_shell(double p, double r, int n)
@@ -176,7 +176,7 @@ module_eps_n(double ntu, double cr, int n)
 }
 
 /* Counterflow NTU referred to the cold side, ln[(1−PR)/(1−P)]/(1−R), R = 1:
- * P/(1−P) (references.md, ε-NTU link). */
+ * P/(1−P) (doc/references.md, ε-NTU link). */
 static double
 naive_ntu_cf(double p, double r)
 {
@@ -443,7 +443,7 @@ test_f_r1_continuity(void **state)
 
 /* ---- shells in series ---- */
 
-/* The stable per-shell P equals the literal Z formula (references.md, from
+/* The stable per-shell P equals the literal Z formula (doc/references.md, from
  * memory; confirmed against ε-NTU in test_area_two_routes) and its R = 1
  * form, and is continuous through R = 1. */
 static void
@@ -477,7 +477,7 @@ test_p_shell_formula(void **state)
 	}
 }
 
-/* Values [derived] in references.md with Xp 0.9 (Ahmad, Linnhoff & Smith
+/* Values [derived] in doc/references.md with Xp 0.9 (Ahmad, Linnhoff & Smith
  * 1988 closed form, from memory) and an F floor of 0.80. A second route
  * checks F and the per-shell P: the NTU from inverting the literal
  * Incropera & DeWitt n-shell ε-NTU relation, F = NTU_cf/NTU, P1 = ε1 at NTU/N. */

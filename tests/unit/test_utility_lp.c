@@ -16,22 +16,12 @@
 #include "cascade.h"
 #include "gen.h"
 #include "glpk_guard.h"
+#include "near.h"
 #include "utility_lp.h"
 
 /* Agreement demanded between the LP and the problem table: both are exact
  * up to rounding. */
 #define REL 1e-9
-
-static void
-assert_rel(double got, double want, double rel)
-{
-	double scale = fabs(want) > 1.0 ? fabs(want) : 1.0;
-
-	if (fabs(got - want) > rel * scale) {
-		print_error("got %.15g, want %.15g\n", got, want);
-		fail();
-	}
-}
 
 /* The four-stream problems and their sources: tests/unit/gen.c. */
 static hl_utility_lp *
@@ -297,7 +287,7 @@ test_random_one_each(void **state)
 /* --- Several levels, answers known by hand -------------------------------
  * Smith's problem with a second, cheaper hot utility condensing at 200 °C
  * (195 °C shifted): the cascade carries 3.0 MW past 195 °C, so the level can
- * take at most 3000 kW of the 7500 kW (references.md, derived by hand). */
+ * take at most 3000 kW of the 7500 kW (doc/references.md, derived by hand). */
 static void
 test_smith_second_level(void **state)
 {

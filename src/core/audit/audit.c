@@ -5,7 +5,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "audit_private.h"
+#include "audit_int.h"
 #include "cascade.h"
 #include "utility_lp.h"
 
@@ -202,7 +202,6 @@ energy(const hl_case *c, hl_audit *a, hl_error *err)
 	hl_cascade *cas = NULL;
 	hl_utility_lp *lp = NULL;
 	hl_status st;
-	size_t i;
 
 	st = hl_cascade_compute(c, a->dtmin, &cas, err);
 	if (st == HL_OK && c->nutil > 0)
@@ -212,8 +211,8 @@ energy(const hl_case *c, hl_audit *a, hl_error *err)
 		a->hot_target = cas->qh;
 		a->cold_target = cas->qc;
 		a->cost_target = lp ? lp->cost : 0.0;
-		for (i = 0; lp != NULL && i < c->nutil; i++)
-			a->target_load[i] = lp->util[i].load;
+		if (lp != NULL)
+			hl_utility_lp_copy_loads(lp, a->target_load);
 		a->price_hot = mean_price(c, a->net, HL_HOT);
 		a->price_cold = mean_price(c, a->net, HL_COLD);
 		a->saving = a->net->hot_now - a->hot_target;

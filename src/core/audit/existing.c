@@ -12,7 +12,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "existing_private.h"
+#include "existing_int.h"
 
 const char *
 hl_existing_role_name(hl_unit_role r)

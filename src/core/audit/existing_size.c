@@ -3,7 +3,7 @@
 #include <stdio.h>
 
 #include "exchanger.h"
-#include "existing_private.h"
+#include "existing_int.h"
 
 /* Heat-weighted film coefficient of a stream over [lo, hi]:
  * 1/h = Σ(q_j/h_j) / Σq_j over its segments there (series resistances

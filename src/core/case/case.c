@@ -560,3 +560,9 @@ hl_case_validate(const hl_case *c, hl_error *err)
 	}
 	return HL_OK;
 }
+
+const char *
+hl_exchanger_type_name(hl_exchanger_type t)
+{
+	return t == HL_EXCH_COUNTERFLOW ? "counterflow" : "shell-and-tube";
+}

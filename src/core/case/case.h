@@ -63,6 +63,10 @@ typedef enum {
 	HL_EXCH_COUNTERFLOW = 1 /* pure counterflow, F = 1 */
 } hl_exchanger_type;
 
+/* Name of an exchanger type as files and reports spell it
+ * ("shell-and-tube", "counterflow"). */
+const char *hl_exchanger_type_name(hl_exchanger_type t);
+
 /* A constraint on which hot/cold pairs may be matched (matches stage).
  * hot or cold may be "*" for any stream or utility of that side. */
 typedef enum {

@@ -183,13 +183,4 @@ void hl_network_totals(hl_network *net);
 hl_status hl_network_place(const hl_network_input *in, hl_network **out,
 			   hl_error *err);
 
-/* Parties of a case for a network input: process streams in case order,
- * then the case's utilities with their loads (util_load, kW, one per
- * utility; NULL: all 0). Caller frees each with hl_network_party_free and
- * the array with free(). */
-hl_status hl_network_parties_from_case(const hl_case *c,
-				       const double *util_load,
-				       hl_network_party **out, size_t *n,
-				       hl_error *err);
-
 #endif

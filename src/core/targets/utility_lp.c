@@ -779,6 +779,28 @@ hl_utility_lp_free(hl_utility_lp *r)
 	free(r);
 }
 
+void
+hl_utility_lp_copy_loads(const hl_utility_lp *r, double *load)
+{
+	size_t i;
+
+	for (i = 0; i < r->nutil; i++)
+		load[i] = r->util[i].load;
+}
+
+hl_status
+hl_utility_lp_loads(const hl_utility_lp *r, double **out, hl_error *err)
+{
+	*out = NULL;
+	if (r == NULL)
+		return HL_OK;
+	*out = malloc((r->nutil > 0 ? r->nutil : 1) * sizeof **out);
+	if (*out == NULL)
+		return hl_error_nomem(err);
+	hl_utility_lp_copy_loads(r, *out);
+	return HL_OK;
+}
+
 const char *
 hl_utility_use_name(hl_utility_use use)
 {

@@ -105,6 +105,12 @@ hl_status hl_utility_lp_solve(const hl_case *c, double dtmin,
 			      hl_utility_lp **out, hl_error *err);
 void hl_utility_lp_free(hl_utility_lp *r);
 
+/* The load of each case utility (kW, case order) into load[r->nutil]. */
+void hl_utility_lp_copy_loads(const hl_utility_lp *r, double *load);
+/* The same in a new array (free it); *out is NULL when r is NULL. */
+hl_status hl_utility_lp_loads(const hl_utility_lp *r, double **out,
+			      hl_error *err);
+
 /* Name of a use ("used", "unused", "out of reach"). */
 const char *hl_utility_use_name(hl_utility_use use);
 

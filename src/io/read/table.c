@@ -4,6 +4,7 @@
 #include <string.h>
 #include <strings.h>
 
+#include "number.h"
 #include "table.h"
 
 /* Split a header cell "supply [°F]" into its name and unit text (NULL when

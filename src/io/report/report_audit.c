@@ -111,8 +111,8 @@ culprit_row(hl_report *r, const hl_violation *vi, size_t rank)
 static void
 culprits(hl_report *r)
 {
-	static const char *const head[] = { "#", "Unit", "Rule broken and "
-		"what to do", "Duty", "Saving" };
+	static const char *const head[] = { "#", "Unit", ("Rule broken and "
+		"what to do"), "Duty", "Saving" };
 	const hl_audit *a = r->d->audit;
 	const char *cur = hl_report_currency(r->d->c);
 	static const int num[] = { 1, 0, 0, 1, 1 };
@@ -286,8 +286,8 @@ retrofit_sentence(hl_report *r)
 static void
 retrofit(hl_report *r)
 {
-	static const char *const head[] = { "Hot utility", "ΔTmin", "Area "
-		"needed", "New area", "Investment", "Saving", "Payback" };
+	static const char *const head[] = { "Hot utility", "ΔTmin", ("Area "
+		"needed"), "New area", "Investment", "Saving", "Payback" };
 	static const int num[] = { 1, 1, 1, 1, 1, 1, 1 };
 	const hl_retrofit *rf = r->d->retrofit;
 	const char *cur = hl_report_currency(r->d->c);

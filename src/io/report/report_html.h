@@ -81,10 +81,4 @@ typedef struct {
 hl_status hl_report_html_write(FILE *fp, const hl_report_data *d,
 			       hl_error *err);
 
-/* The sections the report would hold for d, in order, as their anchor ids
- * ("summary", "streams", …); n gets their count (at most 32). For the
- * command's --verbose and the tests. */
-size_t hl_report_html_sections(const hl_report_data *d, const char **ids,
-			       size_t max);
-
 #endif

@@ -186,8 +186,8 @@ sweep_table(hl_report *r)
 		 "least-cost and the chosen one are shown", every);
 	snprintf(cap, sizeof cap, "Supertargets over ΔTmin (%s area; capital "
 		 "annualised)%s. Shaded: the grid's least total cost (orange) "
-		 "and the chosen ΔTmin (blue-grey).", r->d->c->set.exchanger ==
-		 HL_EXCH_SHELL_TUBE ? "shell-and-tube" : "counterflow",
+		 "and the chosen ΔTmin (blue-grey).", 
+		 hl_exchanger_type_name(r->d->c->set.exchanger),
 		 every > 1 ? thin : "");
 	hl_report_table_start(r, "data sweep", cap, 9, head, unit, num);
 	for (i = 0; i < sw->n; i++)

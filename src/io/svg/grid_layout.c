@@ -16,6 +16,7 @@
 #include <string.h>
 
 #include "grid_int.h"
+#include "utf8.h"
 
 #define ROW 38.0      /* between stream lines */
 #define BRANCH 22.0   /* between the branches of a split */
@@ -31,11 +32,7 @@
 double
 hl_grid_text_width(const char *s, double fs)
 {
-	size_t n = 0;
-
-	for (; *s != '\0'; s++)
-		n += ((unsigned char)*s & 0xc0) != 0x80;
-	return 0.58 * fs * (double)n;
+	return 0.58 * fs * (double)hl_utf8_chars(s);
 }
 
 void

@@ -40,8 +40,7 @@ audit_attrs(xmlTextWriterPtr w, const hl_case *c, const hl_audit *a)
 	rc |= hl_xml_num(w, "pinch-hot", a->pinch_hot);
 	rc |= hl_xml_num(w, "pinch-cold", a->pinch_cold);
 	rc |= num_opt(w, "dtmin-now", a->dtmin_now);
-	rc |= hl_xml_str(w, "basis", c->set.exchanger == HL_EXCH_SHELL_TUBE ?
-			 "shell-and-tube" : "counterflow");
+	rc |= hl_xml_str(w, "basis", hl_exchanger_type_name(c->set.exchanger));
 	rc |= hl_xml_num(w, "area-existing", a->area_existing);
 	if (a->have_now)
 		rc |= hl_xml_num(w, "area-target-now", a->area_target_now);
@@ -284,9 +283,7 @@ chart_create(const hl_case *c, const hl_audit *a)
 		snprintf(sub, sizeof sub, "%s · %s · %s · α = %.2f",
 			 slash ? slash + 1 : src, dt, sv, a->alpha);
 	if (hl_svg_chart_set_subtitle(ch, sub) < 0 ||
-	    hl_svg_chart_set_footnote(ch, "heatloom · screening estimate: "
-		"detailed design and the safety review of each match belong "
-		"to qualified engineers under local codes") < 0) {
+	    hl_svg_chart_set_footnote(ch, hl_svg_caution) < 0) {
 		hl_svg_chart_free(ch);
 		return NULL;
 	}

@@ -5,31 +5,8 @@
 
 #include "audit_out.h"
 #include "display.h"
-
-/* Characters of a UTF-8 string, for column alignment. */
-static int
-chars(const char *s)
-{
-	int n = 0;
-
-	for (; *s; s++)
-		n += ((unsigned char)*s & 0xc0) != 0x80;
-	return n;
-}
-
-/* Pad a UTF-8 name to w characters (longer names are cut). */
-static void
-put_name(FILE *fp, const char *s, int w)
-{
-	int n = 0;
-
-	for (; *s && (n < w || ((unsigned char)*s & 0xc0) == 0x80); s++) {
-		n += ((unsigned char)*s & 0xc0) != 0x80;
-		fputc(*s, fp);
-	}
-	for (; n < w; n++)
-		fputc(' ', fp);
-}
+#include "text_out.h"
+#include "utf8.h"
 
 /* Whole currency with spaces between thousands, sign kept. */
 static const char *
@@ -151,8 +128,8 @@ unit_width(const hl_audit *a)
 	size_t i;
 
 	for (i = 0; i < a->net->nunit; i++)
-		if (chars(a->net->unit[i].name) > w)
-			w = chars(a->net->unit[i].name);
+		if ((int)hl_utf8_chars(a->net->unit[i].name) > w)
+			w = (int)hl_utf8_chars(a->net->unit[i].name);
 	return w > 28 ? 28 : w;
 }
 
@@ -173,14 +150,14 @@ culprits(FILE *fp, const hl_case *c, const hl_audit *a)
 		"kW across the pinch costs\na kW of heating and a kW of "
 		"cooling: Linnhoff et al. 1982)\n\n");
 	fprintf(fp, "   #  ");
-	put_name(fp, "unit", w);
+	hl_text_pad(fp, "unit", w);
 	fprintf(fp, "  %-29s %9s %13s\n", "rule broken", HL_SYM_Q,
 		c->nutil ? "saving/year" : "");
 	for (i = 0; i < a->nviol; i++) {
 		const hl_violation *v = &a->viol[i];
 
 		fprintf(fp, "  %2zu  ", i + 1);
-		put_name(fp, a->net->unit[v->unit].name, w);
+		hl_text_pad(fp, a->net->unit[v->unit].name, w);
 		fprintf(fp, "  %-29s %9.*f %13s\n", rule_name(v->kind),
 			HL_DIG_Q(1), hl_show_q(v->duty), c->nutil && v->kind != HL_VIOL_UP ?
 			money(m, sizeof m, v->saving) : "");
@@ -202,11 +179,11 @@ unit_row(FILE *fp, const hl_case *c, const hl_audit *a, size_t i, int w)
 	const hl_existing_unit *u = &a->net->unit[i];
 
 	fprintf(fp, "  ");
-	put_name(fp, u->name, w);
+	hl_text_pad(fp, u->name, w);
 	fprintf(fp, "  ");
-	put_name(fp, hl_existing_side_name(c, &u->hot), 16);
+	hl_text_pad(fp, hl_existing_side_name(c, &u->hot), 16);
 	fprintf(fp, "  ");
-	put_name(fp, hl_existing_side_name(c, &u->cold), 16);
+	hl_text_pad(fp, hl_existing_side_name(c, &u->cold), 16);
 	fprintf(fp, " %8.*f  %6.1f→%-6.1f %6.1f→%-6.1f", HL_DIG_Q(1),
 		hl_show_q(u->duty), hl_show_t(u->hot.t_in),
 		hl_show_t(u->hot.t_out), hl_show_t(u->cold.t_in),
@@ -236,7 +213,7 @@ units(FILE *fp, const hl_case *c, const hl_audit *a)
 	fprintf(fp, "\nToday's units as read (temperatures filled along the "
 		"streams; * area estimated\nfrom film coefficients; α_u = "
 		"vertical-transfer area / area)\n\n  ");
-	put_name(fp, "unit", w);
+	hl_text_pad(fp, "unit", w);
 	fprintf(fp, "  %-16s  %-16s", "hot", "cold");
 	hl_show_col(fp, dq, 9);
 	fputs("  ", fp);
@@ -246,18 +223,15 @@ units(FILE *fp, const hl_case *c, const hl_audit *a)
 	fprintf(fp, " %3s %6s\n", "sh", "α_u");
 	for (i = 0; i < a->net->nunit; i++)
 		unit_row(fp, c, a, i, w);
-	for (i = a->net->nrow; i < a->net->nunit; i++) {
+	if (a->net->nrow < a->net->nunit)
 		fprintf(fp, "  (gaps: stretches no row covers, counted as "
 			"utility; see the warnings)\n");
-		break;
-	}
 }
 
 static void
 efficiency(FILE *fp, const hl_case *c, const hl_audit *a)
 {
-	const char *basis = c->set.exchanger == HL_EXCH_SHELL_TUBE ?
-			    "shell-and-tube" : "counterflow";
+	const char *basis = hl_exchanger_type_name(c->set.exchanger);
 
 	fprintf(fp, "\nArea efficiency (Tjoe & Linnhoff 1986)\n");
 	if (isinf(a->dtmin_now))

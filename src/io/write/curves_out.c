@@ -7,10 +7,6 @@
 #include "display.h"
 #include "result_xml.h"
 
-static const char footnote[] =
-	"heatloom \xc2\xb7 screening estimate: detailed design and the safety "
-	"review of each match belong to qualified engineers under local codes";
-
 /* Heat axis unit: kW, or MW past 20 000 kW; MMBtu/h in US units. */
 typedef struct {
 	double f;          /* multiply kW by f */
@@ -107,7 +103,7 @@ new_chart(const char *title, const char *ylabel, const char *xname,
 
 	snprintf(xl, sizeof xl, "%s (%s)", xname, s.unit);
 	ch = hl_svg_chart_create(title, xl, ylabel);
-	if (ch != NULL && hl_svg_chart_set_footnote(ch, footnote) < 0) {
+	if (ch != NULL && hl_svg_chart_set_footnote(ch, hl_svg_caution) < 0) {
 		hl_svg_chart_free(ch);
 		return NULL;
 	}

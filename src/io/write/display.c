@@ -3,6 +3,7 @@
 #include <string.h>
 
 #include "display.h"
+#include "utf8.h"
 
 static hl_unit_system system_now = HL_UNITS_SI;
 
@@ -90,11 +91,8 @@ hl_show_digits(hl_qty q, int si_digits)
 void
 hl_show_col(FILE *fp, const char *s, int width)
 {
-	int n = 0;
-	const char *p;
+	int n = (int)hl_utf8_chars(s);
 
-	for (p = s; *p; p++)
-		n += ((unsigned char)*p & 0xc0) != 0x80;
 	for (; n < width; n++)
 		fputc(' ', fp);
 	fputs(s, fp);
@@ -103,12 +101,9 @@ hl_show_col(FILE *fp, const char *s, int width)
 void
 hl_show_left(FILE *fp, const char *s, int width)
 {
-	int n = 0;
-	const char *p;
+	int n = (int)hl_utf8_chars(s);
 
 	fputs(s, fp);
-	for (p = s; *p; p++)
-		n += ((unsigned char)*p & 0xc0) != 0x80;
 	for (; n < width; n++)
 		fputc(' ', fp);
 }

@@ -4,6 +4,8 @@
 
 #include "display.h"
 #include "matches_out.h"
+#include "text_out.h"
+#include "utf8.h"
 
 static const char *
 kind_name(hl_kind k)
@@ -54,22 +56,11 @@ hl_matches_rule_text(const hl_case *c, long rule, char *buf, size_t size)
 
 /* ---- text ---- */
 
-/* Characters in a UTF-8 string (printf pads by bytes, not characters). */
-static int
-display_width(const char *s)
-{
-	int n = 0;
-
-	for (; *s != '\0'; s++)
-		n += ((unsigned char)*s & 0xc0) != 0x80;
-	return n;
-}
-
 /* s right-aligned (left = 0) or left-aligned in width characters. */
 static void
 pad(FILE *fp, const char *s, int width, int left)
 {
-	int n = width - display_width(s);
+	int n = width - (int)hl_utf8_chars(s);
 
 	if (left)
 		fputs(s, fp);
@@ -441,22 +432,6 @@ hl_matches_xml(xmlTextWriterPtr w, const hl_case *c,
 
 /* ---- CSV ---- */
 
-static void
-csv_field(FILE *fp, const char *s)
-{
-	if (strpbrk(s, ",\"\r\n") == NULL) {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (; *s != '\0'; s++) {
-		if (*s == '"')
-			fputc('"', fp);
-		fputc(*s, fp);
-	}
-	fputc('"', fp);
-}
-
 void
 hl_matches_csv(FILE *fp, const hl_match_result *r)
 {
@@ -479,9 +454,9 @@ hl_matches_csv(FILE *fp, const hl_match_result *r)
 		hl_format_number(v[2], sizeof v[2], hl_show_t(m->hot_to));
 		hl_format_number(v[3], sizeof v[3], hl_show_t(m->cold_from));
 		hl_format_number(v[4], sizeof v[4], hl_show_t(m->cold_to));
-		csv_field(fp, r->party[m->hot].name);
+		hl_csv_text(fp, r->party[m->hot].name);
 		fputc(',', fp);
-		csv_field(fp, r->party[m->cold].name);
+		hl_csv_text(fp, r->party[m->cold].name);
 		fprintf(fp, ",%s,%s,%s,%s,%s,%s\n", v[0], r->sub[m->sub].label,
 			v[1], v[2], v[3], v[4]);
 	}

@@ -4,6 +4,8 @@
 
 #include "display.h"
 #include "sensitivity_out.h"
+#include "text_out.h"
+#include "utf8.h"
 
 /* Below this a change in kW prints as zero, never as "-0.0". */
 #define SHOWN_ZERO 0.05
@@ -14,21 +16,10 @@ tidy(double v)
 	return fabs(v) < SHOWN_ZERO ? 0.0 : v;
 }
 
-/* Characters (not bytes) of a UTF-8 string, for padding columns. */
-static size_t
-text_width(const char *s)
-{
-	size_t n = 0;
-
-	for (; *s; s++)
-		n += ((unsigned char)*s & 0xC0) != 0x80;
-	return n;
-}
-
 static void
 put_padded(FILE *fp, const char *s, size_t width)
 {
-	size_t n = text_width(s);
+	size_t n = hl_utf8_chars(s);
 
 	fputs(s, fp);
 	for (; n < width; n++)
@@ -248,8 +239,8 @@ name_width(const hl_case *c)
 	size_t i, w = 6;
 
 	for (i = 0; i < c->nstream; i++)
-		if (text_width(c->stream[i].name) > w)
-			w = text_width(c->stream[i].name);
+		if (hl_utf8_chars(c->stream[i].name) > w)
+			w = hl_utf8_chars(c->stream[i].name);
 	return w > 40 ? 40 : w;
 }
 
@@ -428,8 +419,8 @@ text_utilities(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 	if (sv->nurow == 0)
 		return;
 	for (i = 0; i < c->nutil; i++)
-		if (text_width(c->util[i].name) > nw)
-			nw = text_width(c->util[i].name);
+		if (hl_utf8_chars(c->util[i].name) > nw)
+			nw = hl_utf8_chars(c->util[i].name);
 	nw = nw > 40 ? 40 : nw;
 	fprintf(fp, "\nThe utilities' temperatures (the energy targets do not "
 		"depend on them; the\nutility cost does): how far the cost "
@@ -737,35 +728,6 @@ hl_sensitivity_xml(xmlTextWriterPtr w, const hl_case *c,
 	return rc < 0 ? -1 : 0;
 }
 
-/* A CSV field, quoted when it holds a comma, quote or line break. */
-static void
-csv_text(FILE *fp, const char *s)
-{
-	if (strpbrk(s, ",\"\r\n") == NULL) {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (; *s; s++) {
-		if (*s == '"')
-			fputc('"', fp);
-		fputc(*s, fp);
-	}
-	fputc('"', fp);
-}
-
-static void
-csv_num(FILE *fp, double v)
-{
-	char b[64];
-
-	fputc(',', fp);
-	if (isnan(v))
-		return;
-	hl_format_number(b, sizeof b, v);
-	fputs(b, fp);
-}
-
 static void
 csv_row(FILE *fp, const hl_case *c, const hl_sens_row *r)
 {
@@ -773,23 +735,23 @@ csv_row(FILE *fp, const hl_case *c, const hl_sens_row *r)
 		fprintf(fp, ",,dtmin,");
 	} else {
 		fprintf(fp, "%zu,", r->rank);
-		csv_text(fp, c->stream[r->stream].name);
+		hl_csv_text(fp, c->stream[r->stream].name);
 		fprintf(fp, ",%s,", hl_sensitivity_quantity_name(r->q));
 		if (!is_temperature(r->q))
 			fprintf(fp, "%zu", r->segment + 1);
 	}
-	csv_num(fp, r->value);
-	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->tol);
-	csv_num(fp, r->hot_minus);
-	csv_num(fp, r->hot_plus);
-	csv_num(fp, r->cold_minus);
-	csv_num(fp, r->cold_plus);
-	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->hot_down);
-	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->hot_up);
-	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_down);
-	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_up);
-	csv_num(fp, r->cost_minus);
-	csv_num(fp, r->cost_plus);
+	hl_csv_value(fp, r->value);
+	hl_csv_value(fp, r->q == HL_SENS_DTMIN ? NAN : r->tol);
+	hl_csv_value(fp, r->hot_minus);
+	hl_csv_value(fp, r->hot_plus);
+	hl_csv_value(fp, r->cold_minus);
+	hl_csv_value(fp, r->cold_plus);
+	hl_csv_value(fp, r->q == HL_SENS_DTMIN ? NAN : r->hot_down);
+	hl_csv_value(fp, r->q == HL_SENS_DTMIN ? NAN : r->hot_up);
+	hl_csv_value(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_down);
+	hl_csv_value(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_up);
+	hl_csv_value(fp, r->cost_minus);
+	hl_csv_value(fp, r->cost_plus);
 	fprintf(fp, ",%d,\n", r->kink);
 }
 
@@ -801,14 +763,14 @@ csv_urow(FILE *fp, const hl_case *c, const hl_sens_urow *u)
 	int i;
 
 	fprintf(fp, ",,%s,", hl_sensitivity_quantity_name(u->q));
-	csv_num(fp, u->value);
-	csv_num(fp, u->tol);
+	hl_csv_value(fp, u->value);
+	hl_csv_value(fp, u->tol);
 	for (i = 0; i < 8; i++)
-		csv_num(fp, 0.0);
-	csv_num(fp, u->cost_minus);
-	csv_num(fp, u->cost_plus);
+		hl_csv_value(fp, 0.0);
+	hl_csv_value(fp, u->cost_minus);
+	hl_csv_value(fp, u->cost_plus);
 	fprintf(fp, ",0,");
-	csv_text(fp, c->util[u->util].name);
+	hl_csv_text(fp, c->util[u->util].name);
 	fputc('\n', fp);
 }
 

@@ -12,36 +12,14 @@
 
 #include "display.h"
 #include "size_out.h"
+#include "text_out.h"
+#include "utf8.h"
 
-const char *
-hl_size_type_name(hl_exchanger_type type)
-{
-	return type == HL_EXCH_COUNTERFLOW ? "counterflow" : "shell-and-tube";
-}
-
-int
-hl_size_row_cross(const hl_size_row *row)
+/* Whether the unit's cold outlet is above its hot outlet. */
+static int
+row_cross(const hl_size_row *row)
 {
 	return row->spec.cold_out > row->spec.hot_out;
-}
-
-/* Display width of a UTF-8 string: one per character. */
-/* Display width of the first len bytes of a UTF-8 string: one per
- * character. */
-static size_t
-width_n(const char *s, size_t len)
-{
-	size_t i, n = 0;
-
-	for (i = 0; i < len && s[i] != '\0'; i++)
-		n += ((unsigned char)s[i] & 0xC0) != 0x80;
-	return n;
-}
-
-static size_t
-text_width(const char *s)
-{
-	return width_n(s, strlen(s));
 }
 
 /* A line that holds back its spaces until something follows them, so that
@@ -76,40 +54,6 @@ end_line(line *l)
 {
 	l->pending = 0;
 	fputc('\n', l->fp);
-}
-
-/* s broken at spaces into lines of at most width characters, the first
- * led by `first`, the others by `next`. */
-static void
-wrapped(FILE *fp, const char *s, const char *first, const char *next,
-	size_t width)
-{
-	const char *lead = first;
-	size_t col = 0, n, w;
-
-	for (;;) {
-		s += strspn(s, " ");
-		if (*s == '\0')
-			break;
-		n = strcspn(s, " ");
-		w = width_n(s, n);
-		if (col > 0 && col + 1 + w > width) {
-			fputc('\n', fp);
-			col = 0;
-			lead = next;
-		}
-		if (col == 0) {
-			fputs(lead, fp);
-			col = text_width(lead);
-		} else {
-			fputc(' ', fp);
-			col++;
-		}
-		fwrite(s, 1, n, fp);
-		col += w;
-		s += n;
-	}
-	fputc('\n', fp);
 }
 
 /* The columns after the unit's name. */
@@ -186,7 +130,7 @@ sized_cells(const hl_size_row *row, cells *c)
 	if (row->assumed & HL_ASSUMED_COST)
 		c->mark[K_COST] = '*';
 	snprintf(c->text[K_NOTE], CELL, "%s",
-	    hl_size_row_cross(row) ? "cross" : "");
+	    row_cross(row) ? "cross" : "");
 }
 
 static void
@@ -227,7 +171,7 @@ typedef struct {
 static size_t
 wider(size_t w, const char *s)
 {
-	size_t n = text_width(s);
+	size_t n = hl_utf8_chars(s);
 
 	return n > w ? n : w;
 }
@@ -238,9 +182,9 @@ measure(const hl_size_result *r, widths *w)
 	cells c;
 	size_t i, k;
 
-	w->name = text_width("unit");
+	w->name = hl_utf8_chars("unit");
 	for (k = 0; k < K_COUNT; k++)
-		w->col[k] = wider(text_width(column[k].head), unit_text(k));
+		w->col[k] = wider(hl_utf8_chars(column[k].head), unit_text(k));
 	for (i = 0; i < r->n; i++) {
 		w->name = wider(w->name, r->row[i].unit->name);
 		row_cells(&r->row[i], &c);
@@ -253,7 +197,7 @@ measure(const hl_size_result *r, widths *w)
 static void
 put_cell(line *l, size_t k, size_t w, const char *s, char mark)
 {
-	size_t n = text_width(s);
+	size_t n = hl_utf8_chars(s);
 	char m[2] = { mark, '\0' };
 
 	pad(l, 1);
@@ -269,7 +213,7 @@ static void
 put_name(line *l, const char *s, size_t w)
 {
 	put(l, s);
-	pad(l, w - text_width(s));
+	pad(l, w - hl_utf8_chars(s));
 }
 
 static void
@@ -337,7 +281,7 @@ note(FILE *fp, const hl_size_row *row, const char *fmt, ...)
 	va_end(ap);
 	snprintf(buf, sizeof buf, "%.200s (line %ld): %s", row->unit->name,
 	    row->unit->line, text);
-	wrapped(fp, buf, "  ", "      ", NOTE_WIDTH);
+	hl_text_wrap(fp, buf, "  ", "      ", NOTE_WIDTH);
 }
 
 static void
@@ -346,7 +290,7 @@ note_cross(FILE *fp, const hl_size_row *row)
 	const hl_exchanger_spec *s = &row->spec;
 	char tail[64] = "";
 
-	if (!hl_size_row_cross(row))
+	if (!row_cross(row))
 		return;
 	if (s->type == HL_EXCH_COUNTERFLOW)
 		snprintf(tail, sizeof tail, "; a counterflow unit can do it");
@@ -402,7 +346,7 @@ note_h(FILE *fp, const hl_size_row *row, const hl_settings *d)
 static int
 has_note(const hl_size_row *row)
 {
-	return row->status != HL_OK || hl_size_row_cross(row) ||
+	return row->status != HL_OK || row_cross(row) ||
 	    (row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)) ||
 	    balance_differs(row);
 }
@@ -452,26 +396,26 @@ text_assumed(FILE *fp, const hl_size_result *r)
 	fprintf(fp, "\n* assumed: built-in defaults (set them per row or on "
 	    "the command line)\n");
 	if (a & HL_ASSUMED_TYPE)
-		wrapped(fp, "type shell-and-tube (column type, --type)", "  ",
+		hl_text_wrap(fp, "type shell-and-tube (column type, --type)", "  ",
 		    "    ", NOTE_WIDTH);
 	if (a & (HL_ASSUMED_FMIN | HL_ASSUMED_XP)) {
 		snprintf(buf, sizeof buf, "shells: F floor %.2f, each shell's "
 		    "P at most %g of its maximum (columns fmin, xp; --fmin, "
 		    "--xp)", d->fmin, d->xp);
-		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+		hl_text_wrap(fp, buf, "  ", "    ", NOTE_WIDTH);
 	}
 	if (a & HL_ASSUMED_COST) {
 		snprintf(buf, sizeof buf, "cost per shell %g + %g·A^%g, A in "
 		    "m²: an illustrative law, not a price; give your own "
 		    "(columns cost_a, cost_b, cost_c; --cost-a, --cost-b, "
 		    "--cost-c)", d->cost_a, d->cost_b, d->cost_c);
-		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+		hl_text_wrap(fp, buf, "  ", "    ", NOTE_WIDTH);
 	}
 	if (a & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)) {
 		snprintf(buf, sizeof buf, "U from one given film coefficient "
 		    "and %g kW/(m²·K) for the other (see the notes)",
 		    d->h_default);
-		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+		hl_text_wrap(fp, buf, "  ", "    ", NOTE_WIDTH);
 	}
 }
 
@@ -580,7 +524,7 @@ xml_row(xmlTextWriterPtr w, const hl_size_row *row)
 	rc |= xmlTextWriterStartElement(w, BAD_CAST "exchanger");
 	rc |= hl_xml_str(w, "id", row->unit->name);
 	rc |= hl_xml_int(w, "line", row->unit->line);
-	rc |= hl_xml_str(w, "type", hl_size_type_name(row->spec.type));
+	rc |= hl_xml_str(w, "type", hl_exchanger_type_name(row->spec.type));
 	rc |= xml_terminals(w, row);
 	rc |= xml_sizing(w, row);
 	rc |= hl_xml_str(w, "status", row->status == HL_OK ? "sized" :
@@ -612,39 +556,6 @@ hl_size_xml(xmlTextWriterPtr w, const hl_size_result *r)
 	return rc < 0 ? -1 : 0;
 }
 
-/* A CSV field, quoted when RFC 4180 needs it. */
-static void
-csv_text(FILE *fp, const char *s)
-{
-	const char *p;
-
-	if (strpbrk(s, ",\"\r\n") == NULL && s[0] != ' ' && s[0] != '#' &&
-	    (s[0] == '\0' || s[strlen(s) - 1] != ' ')) {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (p = s; *p != '\0'; p++) {
-		if (*p == '"')
-			fputc('"', fp);
-		fputc(*p, fp);
-	}
-	fputc('"', fp);
-}
-
-/* A number, or an empty field for NaN and infinity. */
-static void
-csv_num(FILE *fp, double v)
-{
-	char b[64];
-
-	fputc(',', fp);
-	if (!isfinite(v))
-		return;
-	hl_format_number(b, sizeof b, v);
-	fputs(b, fp);
-}
-
 static void
 csv_row(FILE *fp, const hl_size_row *row)
 {
@@ -653,29 +564,29 @@ csv_row(FILE *fp, const hl_size_row *row)
 	int ok = row->status == HL_OK;
 	char assumed[64];
 
-	csv_text(fp, row->unit->name);
-	fprintf(fp, ",%ld,%s", row->unit->line, hl_size_type_name(s->type));
-	csv_num(fp, hl_show_q(s->duty));
-	csv_num(fp, hl_show_t(s->hot_in));
-	csv_num(fp, hl_show_t(s->hot_out));
-	csv_num(fp, hl_show_t(s->cold_in));
-	csv_num(fp, hl_show_t(s->cold_out));
-	csv_num(fp, hl_show_h(s->u));
-	csv_num(fp, hl_show_dt(z->lmtd));
-	csv_num(fp, z->p);
-	csv_num(fp, z->r);
-	csv_num(fp, ok ? z->f : NAN);
-	csv_num(fp, ok ? z->shells : NAN);
-	csv_num(fp, ok ? hl_show_a(z->area) : NAN);
-	csv_num(fp, ok ? hl_show_a(z->area_shell) : NAN);
-	csv_num(fp, ok ? z->cost : NAN);
+	hl_csv_text(fp, row->unit->name);
+	fprintf(fp, ",%ld,%s", row->unit->line, hl_exchanger_type_name(s->type));
+	hl_csv_num(fp, hl_show_q(s->duty));
+	hl_csv_num(fp, hl_show_t(s->hot_in));
+	hl_csv_num(fp, hl_show_t(s->hot_out));
+	hl_csv_num(fp, hl_show_t(s->cold_in));
+	hl_csv_num(fp, hl_show_t(s->cold_out));
+	hl_csv_num(fp, hl_show_h(s->u));
+	hl_csv_num(fp, hl_show_dt(z->lmtd));
+	hl_csv_num(fp, z->p);
+	hl_csv_num(fp, z->r);
+	hl_csv_num(fp, ok ? z->f : NAN);
+	hl_csv_num(fp, ok ? z->shells : NAN);
+	hl_csv_num(fp, ok ? hl_show_a(z->area) : NAN);
+	hl_csv_num(fp, ok ? hl_show_a(z->area_shell) : NAN);
+	hl_csv_num(fp, ok ? z->cost : NAN);
 	fprintf(fp, ",%s,%d,", ok ? "sized" : "too-many-shells",
-	    hl_size_row_cross(row));
+	    row_cross(row));
 	assumed_list(row->assumed, s->type == HL_EXCH_SHELL_TUBE, assumed,
 	    sizeof assumed);
 	fputs(assumed, fp);
 	fputc(',', fp);
-	csv_text(fp, ok ? "" : row->note);
+	hl_csv_text(fp, ok ? "" : row->note);
 	fputc('\n', fp);
 }
 

@@ -115,8 +115,7 @@ hl_sweep_text(FILE *fp, const hl_case *c, const hl_sweep *sw)
 			i == sw->best ? "  <- least on the grid" : "");
 	}
 	fprintf(fp, "\nArea is %s area; costs in %s per year (capital "
-		"annualised).\n", c->set.exchanger == HL_EXCH_SHELL_TUBE ?
-		"shell-and-tube" : "counterflow", cur);
+		"annualised).\n", hl_exchanger_type_name(c->set.exchanger), cur);
 	fprintf(fp, "Optimum ΔTmin %.2f %s: total annual cost %.0f %s/yr "
 		"(energy %.0f, capital %.0f), %d units, %d shells, %.1f %s\n",
 		hl_show_dt(sw->optimum.dtmin), HL_SYM_DT,
@@ -228,9 +227,7 @@ chart(const char *title, const char *xl, const char *yl, const hl_case *c,
 		 slash ? slash + 1 : src, hl_show_dt(sw->optimum.dtmin),
 		 HL_SYM_DT, sw->optimum.total_cost, currency(c));
 	if (hl_svg_chart_set_subtitle(ch, sub) < 0 ||
-	    hl_svg_chart_set_footnote(ch, "heatloom · screening estimate: "
-		"detailed design and the safety review of each match belong "
-		"to qualified engineers under local codes") < 0) {
+	    hl_svg_chart_set_footnote(ch, hl_svg_caution) < 0) {
 		hl_svg_chart_free(ch);
 		return NULL;
 	}

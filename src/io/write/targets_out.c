@@ -112,15 +112,6 @@ hl_targets_text_caution(FILE *fp)
 		"local codes.\n");
 }
 
-void
-hl_targets_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
-		const hl_threshold *th)
-{
-	hl_targets_text_summary(fp, c, cas, th);
-	hl_targets_text_table(fp, cas);
-	hl_targets_text_caution(fp);
-}
-
 int
 hl_targets_xml_begin(xmlTextWriterPtr w, const hl_cascade *cas,
 		     const hl_threshold *th)

@@ -4,32 +4,9 @@
 
 #include "display.h"
 #include "result_xml.h"
+#include "text_out.h"
 #include "utility_out.h"
-
-/* Characters of a UTF-8 string, for column alignment. */
-static int
-chars(const char *s)
-{
-	int n = 0;
-
-	for (; *s; s++)
-		n += ((unsigned char)*s & 0xc0) != 0x80;
-	return n;
-}
-
-/* Pad a UTF-8 name to w characters (names longer than w are cut). */
-static void
-put_name(FILE *fp, const char *s, int w)
-{
-	int n = 0;
-
-	for (; *s && (n < w || ((unsigned char)*s & 0xc0) == 0x80); s++) {
-		n += ((unsigned char)*s & 0xc0) != 0x80;
-		fputc(*s, fp);
-	}
-	for (; n < w; n++)
-		fputc(' ', fp);
-}
+#include "utf8.h"
 
 /* Whole currency with thin spaces between thousands. */
 static void
@@ -55,8 +32,8 @@ name_width(const hl_case *c)
 	size_t i;
 
 	for (i = 0; i < c->nutil; i++)
-		if (chars(c->util[i].name) > w)
-			w = chars(c->util[i].name);
+		if ((int)hl_utf8_chars(c->util[i].name) > w)
+			w = (int)hl_utf8_chars(c->util[i].name);
 	return w > 28 ? 28 : w;
 }
 
@@ -71,7 +48,7 @@ text_rows(FILE *fp, const hl_case *c, const hl_utility_lp *lp, int w)
 		const hl_utility_load *l = &lp->util[i];
 
 		fprintf(fp, "  ");
-		put_name(fp, u->name, w);
+		hl_text_pad(fp, u->name, w);
 		fprintf(fp, "  %-4s  %7.1f  %7.1f  %8.2f  %10.*f  ",
 			u->kind == HL_HOT ? "hot" : "cold", hl_show_t(u->supply),
 			hl_show_t(u->target), hl_show_p(u->price), HL_DIG_Q(1),

@@ -1,4 +1,4 @@
-/* network_xml.h - reading a network back from its XML (doc/results.md).
+/* network_read.h - reading a network back from its XML (doc/results.md).
  *
  * The file is a results document (root <results>) holding one <network>,
  * or a bare <network>. Every attribute is checked for its type (xml_attr.h)
@@ -11,8 +11,8 @@
  * unknown or malformed attribute, an unknown name), HL_EIO (cannot read,
  * out of memory).
  */
-#ifndef HL_NETWORK_XML_H
-#define HL_NETWORK_XML_H
+#ifndef HL_NETWORK_READ_H
+#define HL_NETWORK_READ_H
 
 #include <stddef.h>
 

@@ -1,4 +1,4 @@
-/* network_xml.c - a network read back from XML (network_xml.h). */
+/* network_read.c - a network read back from XML (network_read.h). */
 #include <errno.h>
 #include <math.h>
 #include <stdio.h>
@@ -8,7 +8,7 @@
 #include <libxml/parser.h>
 #include <libxml/xmlerror.h>
 
-#include "network_xml.h"
+#include "network_read.h"
 #include "xml_attr.h"
 
 /* The size a network file may have. */

@@ -1,66 +1,15 @@
-/* network_out.c - writers of a designed network (network_out.h). */
+/* network_write.c - writers of a designed network (network_write.h). */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
 #include "display.h"
-#include "network_out.h"
+#include "network_write.h"
+#include "text_out.h"
+#include "utf8.h"
 #include "profile.h"
 #include "result_xml.h"
-
-const char *
-hl_network_type_name(hl_exchanger_type t)
-{
-	return t == HL_EXCH_COUNTERFLOW ? "counterflow" : "shell-and-tube";
-}
-
-/* Characters (not bytes) of a UTF-8 string. */
-static size_t
-width(const char *s)
-{
-	size_t n = 0;
-
-	for (; *s != '\0'; s++)
-		n += ((unsigned char)*s & 0xC0) != 0x80;
-	return n;
-}
-
-/* s broken at spaces into lines of at most `cols` characters, the first
- * led by `first`, the others by `next`. */
-static void
-wrapped(FILE *fp, const char *s, const char *first, const char *next,
-	size_t cols)
-{
-	const char *lead = first;
-	size_t col = 0, n;
-	char word[512];
-
-	/* Line breaks in the text are blanks like any other. */
-	for (;;) {
-		s += strspn(s, " \n");
-		if (*s == '\0')
-			break;
-		n = strcspn(s, " \n");
-		snprintf(word, sizeof word, "%.*s", (int)n, s);
-		if (col > 0 && col + 1 + width(word) > cols) {
-			fputc('\n', fp);
-			col = 0;
-			lead = next;
-		}
-		if (col == 0) {
-			fputs(lead, fp);
-			col = width(lead);
-		} else {
-			fputc(' ', fp);
-			col++;
-		}
-		fputs(word, fp);
-		col += width(word);
-		s += n;
-	}
-	fputc('\n', fp);
-}
 
 #define NCOL 16
 #define CELL 96
@@ -122,7 +71,7 @@ row(FILE *fp, char c[NCOL][CELL], const size_t *w)
 	size_t i, n = 0, end;
 
 	for (i = 0; i < NCOL; i++) {
-		size_t pad = w[i] - width(c[i]), k;
+		size_t pad = w[i] - hl_utf8_chars(c[i]), k;
 		int left = i < 3;
 
 		if (i > 0)
@@ -146,14 +95,17 @@ text_table(FILE *fp, const hl_network *net)
 	char c[NCOL][CELL];
 	size_t w[NCOL], i, k;
 
-	for (k = 0; k < NCOL; k++)
-		w[k] = width(head[0][k]) > width(head_text(1, k)) ?
-		    width(head[0][k]) : width(head_text(1, k));
+	for (k = 0; k < NCOL; k++) {
+		size_t top = hl_utf8_chars(head[0][k]);
+		size_t unit = hl_utf8_chars(head_text(1, k));
+
+		w[k] = top > unit ? top : unit;
+	}
 	for (i = 0; i < net->nunit; i++) {
 		cells(net, &net->unit[i], c);
 		for (k = 0; k < NCOL; k++)
-			if (width(c[k]) > w[k])
-				w[k] = width(c[k]);
+			if (hl_utf8_chars(c[k]) > w[k])
+				w[k] = hl_utf8_chars(c[k]);
 	}
 	for (k = 0; k < 2; k++) {
 		char h[NCOL][CELL];
@@ -219,12 +171,13 @@ text_chain(FILE *fp, const hl_network *net, size_t p)
 			out = hot ? u->hot_out : u->cold_out;
 			count++;
 		}
-		if (count > 1)
-			n += (size_t)snprintf(buf + n, sizeof buf - n, "]");
 		/* After a split the branches mix: show the mixed outlet. */
 		if (count > 1) {
 			double q = 0.0;
 
+			if (n < sizeof buf)
+				n += (size_t)snprintf(buf + n, sizeof buf - n,
+				    "]");
 			for (i = 0; i < net->nunit; i++) {
 				const hl_network_unit *u = &net->unit[i];
 
@@ -241,7 +194,7 @@ text_chain(FILE *fp, const hl_network *net, size_t p)
 	}
 	fprintf(fp, "  %s (%s): ", s->name, s->kind == HL_HOT ? "hot" :
 	    "cold");
-	wrapped(fp, buf, "", "      ", 72);
+	hl_text_wrap(fp, buf, "", "      ", 72);
 }
 
 static void
@@ -301,12 +254,12 @@ text_notes(FILE *fp, const hl_network *net)
 		return;
 	fprintf(fp, "\nNotes\n");
 	for (i = 0; i < net->nnote; i++)
-		wrapped(fp, net->note[i], "  ", "      ", 78);
+		hl_text_wrap(fp, net->note[i], "  ", "      ", 78);
 	for (i = 0; i < net->nunit; i++)
 		if (net->unit[i].note != NULL) {
 			snprintf(buf, sizeof buf, "%s: %s", net->unit[i].id,
 			    net->unit[i].note);
-			wrapped(fp, buf, "  ", "      ", 78);
+			hl_text_wrap(fp, buf, "  ", "      ", 78);
 		}
 }
 
@@ -341,7 +294,7 @@ text_assumed(FILE *fp, const hl_network *net)
 		    "estimate.", hl_show_h(net->set.h_default),
 		    hl_display_get() == HL_UNITS_SI ? "kW/(m²K)" : HL_SYM_H,
 		    buf);
-		wrapped(fp, line, "", "  ", 78);
+		hl_text_wrap(fp, line, "", "  ", 78);
 	}
 	snprintf(buf, sizeof buf, "Cost per shell %.6g + %.6g·A^%.3g (A in "
 	    "m², the setting cost a, b, c; the built-in law is illustrative, "
@@ -351,7 +304,7 @@ text_assumed(FILE *fp, const hl_network *net)
 	    "fraction of a stream's flow through the unit (1 unless the "
 	    "stream is split).", net->set.cost_a, net->set.cost_b,
 	    net->set.cost_c);
-	wrapped(fp, buf, "", "", 78);
+	hl_text_wrap(fp, buf, "", "", 78);
 }
 
 void
@@ -370,7 +323,7 @@ hl_network_text(FILE *fp, const hl_network *net, const char *caution)
 	text_assumed(fp, net);
 	if (caution != NULL) {
 		fputc('\n', fp);
-		wrapped(fp, caution, "", "", 78);
+		hl_text_wrap(fp, caution, "", "", 78);
 	}
 }
 
@@ -425,7 +378,7 @@ xml_unit(xmlTextWriterPtr w, const hl_network *net, const hl_network_unit *u)
 	rc |= hl_xml_str(w, "id", u->id);
 	rc |= hl_xml_str(w, "hot", net->party[u->hot].name);
 	rc |= hl_xml_str(w, "cold", net->party[u->cold].name);
-	rc |= hl_xml_str(w, "type", hl_network_type_name(u->type));
+	rc |= hl_xml_str(w, "type", hl_exchanger_type_name(u->type));
 	rc |= hl_xml_num(w, "duty", u->duty);
 	rc |= hl_xml_num(w, "hot-in", u->hot_in);
 	rc |= hl_xml_num(w, "hot-out", u->hot_out);
@@ -468,7 +421,7 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 	rc |= xmlTextWriterStartElement(w, BAD_CAST "network");
 	rc |= hl_xml_num(w, "dtmin", set->dtmin);
 	rc |= hl_xml_num(w, "emat", isnan(set->emat) ? set->dtmin : set->emat);
-	rc |= hl_xml_str(w, "exchanger", hl_network_type_name(set->exchanger));
+	rc |= hl_xml_str(w, "exchanger", hl_exchanger_type_name(set->exchanger));
 	rc |= hl_xml_num(w, "fmin", set->fmin);
 	rc |= hl_xml_num(w, "xp", set->xp);
 	rc |= hl_xml_num(w, "h-default", set->h_default);
@@ -510,39 +463,6 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 	return rc < 0 ? -1 : 0;
 }
 
-/* A CSV field, quoted when RFC 4180 needs it. */
-static void
-csv_text(FILE *fp, const char *s, int first)
-{
-	const char *p;
-
-	if (!first)
-		fputc(',', fp);
-	if (strpbrk(s, ",\"\r\n") == NULL && s[0] != ' ' && s[0] != '#') {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (p = s; *p != '\0'; p++) {
-		if (*p == '"')
-			fputc('"', fp);
-		fputc(*p, fp);
-	}
-	fputc('"', fp);
-}
-
-static void
-csv_num(FILE *fp, double v)
-{
-	char b[64];
-
-	fputc(',', fp);
-	if (!isfinite(v))
-		return;
-	hl_format_number(b, sizeof b, v);
-	fputs(b, fp);
-}
-
 void
 hl_network_csv(FILE *fp, const hl_network *net)
 {
@@ -566,32 +486,37 @@ hl_network_csv(FILE *fp, const hl_network *net)
 	for (i = 0; i < net->nunit; i++) {
 		const hl_network_unit *u = &net->unit[i];
 
-		csv_text(fp, u->id, 1);
-		csv_text(fp, net->party[u->hot].name, 0);
-		csv_text(fp, net->party[u->cold].name, 0);
-		csv_text(fp, hl_network_type_name(u->type), 0);
-		csv_num(fp, hl_show_q(u->duty));
-		csv_num(fp, hl_show_t(u->hot_in));
-		csv_num(fp, hl_show_t(u->hot_out));
-		csv_num(fp, hl_show_t(u->cold_in));
-		csv_num(fp, hl_show_t(u->cold_out));
-		csv_num(fp, u->hot_share);
-		csv_num(fp, u->cold_share);
-		csv_num(fp, u->hot_stage > 0 ? u->hot_stage : NAN);
-		csv_num(fp, u->cold_stage > 0 ? u->cold_stage : NAN);
-		csv_num(fp, hl_show_h(u->u));
-		csv_num(fp, hl_show_dt(u->lmtd));
-		csv_num(fp, u->ft);
-		csv_num(fp, u->shells);
-		csv_num(fp, hl_show_a(u->area));
-		csv_num(fp, hl_show_a(u->area_shell));
-		csv_num(fp, u->cost);
-		csv_num(fp, hl_show_dt(u->approach));
-		csv_num(fp, hl_show_dt(u->required));
-		csv_text(fp, u->assumed == 0 ? "" : u->assumed ==
+		hl_csv_text(fp, u->id);
+		fputc(',', fp);
+		hl_csv_text(fp, net->party[u->hot].name);
+		fputc(',', fp);
+		hl_csv_text(fp, net->party[u->cold].name);
+		fputc(',', fp);
+		hl_csv_text(fp, hl_exchanger_type_name(u->type));
+		hl_csv_num(fp, hl_show_q(u->duty));
+		hl_csv_num(fp, hl_show_t(u->hot_in));
+		hl_csv_num(fp, hl_show_t(u->hot_out));
+		hl_csv_num(fp, hl_show_t(u->cold_in));
+		hl_csv_num(fp, hl_show_t(u->cold_out));
+		hl_csv_num(fp, u->hot_share);
+		hl_csv_num(fp, u->cold_share);
+		hl_csv_num(fp, u->hot_stage > 0 ? u->hot_stage : NAN);
+		hl_csv_num(fp, u->cold_stage > 0 ? u->cold_stage : NAN);
+		hl_csv_num(fp, hl_show_h(u->u));
+		hl_csv_num(fp, hl_show_dt(u->lmtd));
+		hl_csv_num(fp, u->ft);
+		hl_csv_num(fp, u->shells);
+		hl_csv_num(fp, hl_show_a(u->area));
+		hl_csv_num(fp, hl_show_a(u->area_shell));
+		hl_csv_num(fp, u->cost);
+		hl_csv_num(fp, hl_show_dt(u->approach));
+		hl_csv_num(fp, hl_show_dt(u->required));
+		fputc(',', fp);
+		hl_csv_text(fp, u->assumed == 0 ? "" : u->assumed ==
 		    (HL_NETWORK_H_HOT | HL_NETWORK_H_COLD) ? "h-hot h-cold" :
-		    u->assumed == HL_NETWORK_H_HOT ? "h-hot" : "h-cold", 0);
-		csv_text(fp, u->note != NULL ? u->note : "", 0);
+		    u->assumed == HL_NETWORK_H_HOT ? "h-hot" : "h-cold");
+		fputc(',', fp);
+		hl_csv_text(fp, u->note != NULL ? u->note : "");
 		fputc('\n', fp);
 	}
 }
