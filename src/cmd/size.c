@@ -22,13 +22,14 @@
 
 /* Which settings the command line gave. */
 enum { GIVEN_TYPE = 1, GIVEN_FMIN = 2, GIVEN_XP = 4, GIVEN_COST_A = 8,
-       GIVEN_COST_B = 16, GIVEN_COST_C = 32 };
+       GIVEN_COST_B = 16, GIVEN_COST_C = 32, GIVEN_LARGEST = 64 };
 #define GIVEN_COST (GIVEN_COST_A | GIVEN_COST_B | GIVEN_COST_C)
 
 typedef struct {
 	hl_common c;
 	hl_settings set;  /* defaults, overridden by the options */
 	hl_settings defaults;
+	double largest;   /* --largest, NaN when not given */
 	unsigned given;
 	int strict;
 } options;
@@ -38,31 +39,37 @@ static int
 parse_type(void *opts, const char *arg)
 {
 	options *o = opts;
+	int t = hl_exchanger_type_parse(arg);
 
-	if (strcmp(arg, "shell-and-tube") == 0)
-		o->set.exchanger = HL_EXCH_SHELL_TUBE;
-	else if (strcmp(arg, "counterflow") == 0)
-		o->set.exchanger = HL_EXCH_COUNTERFLOW;
-	else
-		return hl_cmd_usage("size", "--type wants shell-and-tube or "
-		    "counterflow, not '%s'", arg);
+	if (t < 0)
+		return hl_cmd_usage("size", "--type wants shell-and-tube, "
+		    "counterflow, plate, double-pipe, air-cooler or "
+		    "fired-heater, not '%s'", arg);
+	o->set.exchanger = (hl_exchanger_type)t;
 	return 0;
 }
 
 static const hl_option option_rows[] = {
 	{ "type", 0, "T", "shell-and-tube (default: 1 shell pass, 2, 4, … tube\n"
-	  "passes per shell) or counterflow (F = 1)", HL_ARG_CALL, 0, 0, 0,
-	  parse_type },
+	  "passes per shell), counterflow (F = 1), plate\n"
+	  "(F = 1), double-pipe (hairpins, F = 1), air-cooler\n"
+	  "(crossflow, both fluids unmixed) or fired-heater\n"
+	  "(sized and costed by duty)", HL_ARG_CALL, 0, 0, 0, parse_type },
 	HL_ROW_NUMBER("fmin", "F", options, set.fmin, 0.0, 0.999,
 	    "F floor for the shell count (default 0.80)"),
 	HL_ROW_NUMBER("xp", "X", options, set.xp, 0.01, 1.0,
 	    "largest share of the maximum P per shell (default 0.9)"),
+	HL_ROW_NUMBER("largest", "X", options, largest, 1e-6, 1e9,
+	    "largest shell: m² (MW for a fired heater); beyond it\n"
+	    "shells go in parallel (default per type, illustrative)"),
 	/* The three cost options share one help line. */
 	HL_ROW_NUMBER("cost-a", "A", options, set.cost_a, 0.0, 1e12, NULL),
 	HL_ROW_NUMBER("cost-b", "B", options, set.cost_b, 0.0, 1e12, NULL),
 	HL_ROW_NUMBER("cost-c", "C", options, set.cost_c, 0.01, 10.0,
-	    "cost per shell A + B·area^C, area in m² (default an\n"
-	    "illustrative 10000 + 800·area^0.8); all three together"),
+	    "cost per shell A + B·X^C, X the area of one shell in\n"
+	    "m² or a fired heater's duty in MW (default: the type's\n"
+	    "illustrative law, e.g. 10000 + 800·A^0.8 for\n"
+	    "shell-and-tube); all three together"),
 	HL_ROW_FLAG("strict", options, strict, 1,
 	    "a unit that cannot be built is an error (exit 3)\n"
 	    "instead of a unit reported as not sized"),
@@ -82,17 +89,18 @@ init(void *opts)
 
 	hl_settings_default(&o->set);
 	o->defaults = o->set;
+	o->largest = NAN;
 }
 
 static int
 check(void *opts)
 {
 	static const char *const names[] = { "type", "fmin", "xp", "cost-a",
-		"cost-b", "cost-c" };
+		"cost-b", "cost-c", "largest" };
 	options *o = opts;
 	size_t i;
 
-	for (i = 0; i < 6; i++)
+	for (i = 0; i < sizeof names / sizeof names[0]; i++)
 		if (hl_cmd_given(&hl_cmd_size, o, names[i]))
 			o->given |= 1u << i;
 	if ((o->given & GIVEN_COST) != 0 && (o->given & GIVEN_COST) !=
@@ -145,16 +153,24 @@ resolve(const hl_unit_spec *u, const options *o, hl_size_row *row)
 
 	memset(row, 0, sizeof *row);
 	row->unit = u;
-	hl_exchanger_spec_settings(s, &o->set);
+	if (u->type < 0 && !(o->given & GIVEN_TYPE))
+		row->assumed |= HL_ASSUMED_TYPE;
+	/* The type first: it chooses the default law and shell limits. */
+	hl_exchanger_spec_type(s, &o->set, u->type >= 0 ?
+	    (hl_exchanger_type)u->type : o->set.exchanger);
+	if (o->given & GIVEN_COST) {
+		s->cost_a = o->set.cost_a;
+		s->cost_b = o->set.cost_b;
+		s->cost_c = o->set.cost_c;
+	}
+	s->largest = pick(u->largest, isnan(o->largest) ? s->largest :
+	    o->largest, o->given, GIVEN_LARGEST, HL_ASSUMED_LARGEST,
+	    &row->assumed);
 	s->hot_in = u->hot_in;
 	s->hot_out = u->hot_out;
 	s->cold_in = u->cold_in;
 	s->cold_out = u->cold_out;
 	s->duty = u->duty;
-	if (u->type >= 0)
-		s->type = (hl_exchanger_type)u->type;
-	else if (!(o->given & GIVEN_TYPE))
-		row->assumed |= HL_ASSUMED_TYPE;
 	s->fmin = pick(u->fmin, o->set.fmin, o->given, GIVEN_FMIN,
 	    HL_ASSUMED_FMIN, &row->assumed);
 	s->xp = pick(u->xp, o->set.xp, o->given, GIVEN_XP, HL_ASSUMED_XP,
@@ -165,9 +181,16 @@ resolve(const hl_unit_spec *u, const options *o, hl_size_row *row)
 		s->cost_c = u->cost_c;
 	} else if (!(o->given & GIVEN_COST))
 		row->assumed |= HL_ASSUMED_COST;
-	if (s->type == HL_EXCH_COUNTERFLOW)
-		row->assumed &= ~(unsigned)(HL_ASSUMED_FMIN | HL_ASSUMED_XP);
+	if (s->type != HL_EXCH_SHELL_TUBE)
+		row->assumed &= ~(unsigned)HL_ASSUMED_XP;
+	if (s->type != HL_EXCH_SHELL_TUBE && s->type != HL_EXCH_AIR_COOLER)
+		row->assumed &= ~(unsigned)HL_ASSUMED_FMIN;
+	if (isinf(s->largest))
+		row->assumed &= ~(unsigned)HL_ASSUMED_LARGEST;
 	resolve_u(u, o, row);
+	if (s->type == HL_EXCH_FIRED_HEATER)
+		row->assumed &= ~(unsigned)(HL_ASSUMED_H_HOT |
+		    HL_ASSUMED_H_COLD);
 }
 
 /* Size one row. HL_ENOSOLUTION leaves the row marked as not sized, with
@@ -182,6 +205,10 @@ size_row(hl_size_row *row, const char *file, hl_error *err)
 	hl_error_clear(&e);
 	st = hl_exchanger_size(s, &row->size, &e);
 	row->status = st;
+	/* A default largest shell is an assumption only where it bites. */
+	if (st == HL_OK && row->size.parallel == 1 &&
+	    (s->type != HL_EXCH_DOUBLE_PIPE || row->size.shells == 1))
+		row->assumed &= ~(unsigned)HL_ASSUMED_LARGEST;
 	if (st == HL_ENOSOLUTION) {
 		snprintf(row->note, sizeof row->note, "%s", e.text);
 		hl_exchanger_pr(s->hot_in, s->hot_out, s->cold_in, s->cold_out,
@@ -298,7 +325,7 @@ const hl_command hl_cmd_size = {
 	"area, area per shell and cost. UNITS.csv has one row per exchanger: name,\n"
 	"hot_in, hot_out, cold_in, cold_out (°C); duty (kW) or hot_cp/cold_cp (kW/K);\n"
 	"u, or h_hot and h_cold (kW/(m²·K)); optional type, fmin, xp, cost_a, cost_b,\n"
-	"cost_c. A row's own values win over the options below.\n",
+	"cost_c, largest. A row's own values win over the options below.\n",
 	NULL, option_rows, sizeof(options),
 	"give one exchanger list (CSV)", "give one exchanger list, not several",
 	init, check, run_size

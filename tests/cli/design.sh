@@ -151,4 +151,45 @@ check_exit 2 hl design "$DATA/good/kemp4.csv" --dtmin 0 -o "$WORK/zero.txt"
 [ -e "$WORK/zero.txt" ] && fail "a failed design wrote its output" || pass
 check_exit 0 hl design --help
 check_grep "screening estimates" "$WORK/stdout"
+
+# Exchanger types per utility and per pair; check prices them again.
+TC="$DATA/good/kemp4-types.xml"
+check_exit 0 hl design "$TC" --format xml -o "$X"
+valid "$X"
+ty() { xpath "string(/results/network/exchanger[@$1]/@$2)" "$X"; }
+[ "$(ty "hot='flue gas'" type)" = fired-heater ] && pass || fail "flue gas unit not a fired heater"
+[ "$(ty "cold='air'" type)" = air-cooler ] && pass || fail "air unit not an air cooler"
+[ "$(ty "hot='H2' and @cold='C1'" type)" = plate ] && pass || fail "H2/C1 not plate"
+check_near "$(ty "hot='flue gas'" area)" 0 0 "fired heater: no area"
+# 80000 + 109000·Q^0.8 at Q = 0.02 MW (the case's law) [formula check].
+check_near "$(ty "hot='flue gas'" cost)" "$(awk 'BEGIN { printf "%.15g", 80000 + 109000*exp(0.8*log(0.02)) }')" 1e-9 "fired heater cost"
+check_near "$(ty "hot='H2' and @cold='C1'" parallel)" 5 0 "plates in parallel beyond 5 m²"
+check_grep "below the smallest plausible" "$X"
+check_exit 0 hl check "$X"
+check_grep "sound, 0 problems" "$WORK/stdout"
+
+
+# Heaters priced apart from process units through the utility table's own
+# cost law (0 + 1200·A^0.6 per shell) [formula check]; the cooler by type.
+check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities-typed.csv" --format xml -o "$X"
+valid "$X"
+A=$(ty "hot='steam'" area-shell)
+check_near "$(ty "hot='steam'" cost)" "$(awk -v a="$A" -v n="$(ty "hot='steam'" shells)" 'BEGIN { printf "%.15g", n*1200*exp(0.6*log(a)) }')" 1e-9 "heater law 1200·A^0.6"
+[ "$(ty "cold='cooling water'" type)" = plate ] && pass || fail "cooler not plate"
+check_exit 0 hl check "$X"
+
+
+# A default type per utility kind: cooler-type makes every cooler without
+# its own type an air cooler; heaters stay shell-and-tube.
+sed 's|<settings dtmin="10">|<settings dtmin="10" cooler-type="air-cooler">|; s| type="air-cooler"/>|/>|; s|<utility name="flue gas"[^>]*/>||' \
+	"$DATA/good/kemp4-types.xml" >"$WORK/kinds.xml"
+check_exit 0 hl design "$WORK/kinds.xml" --format xml -o "$X"
+[ "$(ty "cold='air'" type)" = air-cooler ] && pass || fail "cooler-type not applied"
+[ "$(ty "hot='steam'" type)" = shell-and-tube ] && pass || fail "heater not shell-and-tube"
+check_exit 0 hl check "$X"
+sed 's|<settings dtmin="10">|<settings dtmin="10" heater-type="air-cooler">|' \
+	"$DATA/good/kemp4-types.xml" >"$WORK/kinds-bad.xml"
+check_exit 2 hl design "$WORK/kinds-bad.xml"
+check_grep "heater-type cannot be air-cooler" "$WORK/stderr"
+
 finish

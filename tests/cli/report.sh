@@ -311,13 +311,13 @@ expect n-energy "$(sig "$(x "$N/@energy-cost" "$D")" 3 0) EUR/yr"
 expect n-total "$(sig "$(x "$N/@total-cost" "$D")" 3 0) EUR/yr"
 expect sum-net "$(x "$N/@units" "$D") exchangers, $(fix1 "$(x "$N/@area" "$D")") m²"
 xml_tsv "$D" "$N/exchanger" id hot cold duty hot-in hot-out cold-in cold-out \
-	u lmtd ft shells area cost >"$WORK/exch.tsv"
+	u lmtd ft type shells area cost >"$WORK/exch.tsv"
 html_tsv exchangers >"$WORK/exchangers.tsv"
 compare exchangers "$WORK/exch.tsv" "$WORK/exchangers.tsv" '
 	want = x[1] "|" x[2] "|" x[3] "|" sig(x[4], 3, 1) "|" fix1(x[5]) " → " fix1(x[6]) "|" \
 		fix1(x[7]) " → " fix1(x[8]) "|" sig(x[9], 3, 3) "|" fix1(x[10]) "|" \
-		sprintf("%.3f", x[11]) "|" x[12] "|" fix1(x[13]) "|" sig(x[14], 3, 0)
-	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6 "|" $7 "|" $8 "|" $9 "|" $10 "|" $11 "|" $12
+		sprintf("%.3f", x[11]) "|" x[12] "|" x[13] "|" fix1(x[14]) "|" sig(x[15], 3, 0)
+	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6 "|" $7 "|" $8 "|" $9 "|" $10 "|" $11 "|" $12 "|" $13
 	if (got != want) print "unit " FNR ": " got ", want " want'
 [ "$(wc -l <"$WORK/exchangers.tsv")" -ge 10 ] && pass || fail "the demo network has few exchangers"
 # The layout of the demo adds utility at EMAT = ΔTmin, and the report names
@@ -432,5 +432,16 @@ for bad in below-absolute-zero.csv cp-tol-percent.csv; do
 done
 check_exit 0 hl report --help
 check_grep 'screening estimates' "$WORK/stdout"
+
+
+# Exchanger types: the report names each type's law, marks the built-in
+# ones as illustrative, lists the units by type and warns of a tiny heater.
+check_exit 0 hl report "$DATA/good/kemp4-types.xml" -o "$WORK/types.html"
+check_grep "Cost law, plate" "$WORK/types.html"
+check_grep "Cost law, fired-heater" "$WORK/types.html"
+check_grep "illustrative, not a price" "$WORK/types.html"
+check_grep "<td>air-cooler</td>" "$WORK/types.html"
+check_grep "by duty" "$WORK/types.html"
+check_grep "below the smallest plausible 0.1 MW" "$WORK/types.html"
 
 finish

@@ -981,6 +981,7 @@ test_spec_settings(void **state)
 
 	(void)state;
 	memset(&set, 0, sizeof set);
+	hl_settings_default_laws(&set);
 	set.exchanger = HL_EXCH_COUNTERFLOW;
 	set.fmin = 0.75;
 	set.xp = 0.85;
@@ -992,6 +993,302 @@ test_spec_settings(void **state)
 	assert_true(s.fmin == 0.75 && s.xp == 0.85);
 	assert_true(s.cost_a == 1.0 && s.cost_b == 2.0 && s.cost_c == 0.6);
 	assert_true(s.hot_in == 150.0 && s.duty == 300.0 && s.u == 0.5);
+}
+
+/* Crossflow, both fluids unmixed, by an independent route: the two
+ * temperature fields marched over an n × n grid (trapezoidal rule per
+ * cell), Cmin along rows [derived; converges as 1/n²]. */
+static double
+crossflow_grid(double ntu, double cr, int n)
+{
+	static double tb[2000];
+	double sum = 0.0, na = ntu / n, nb = ntu * cr / n;
+	int i, j;
+
+	for (j = 0; j < n; j++)
+		tb[j] = 0.0;
+	for (i = 0; i < n; i++) {
+		double ta = 1.0;
+
+		for (j = 0; j < n; j++) {
+			double k = (ta - tb[j]) / (1.0 + 0.5 * na + 0.5 * nb);
+
+			ta -= na * k;
+			tb[j] += nb * k;
+		}
+		sum += ta;
+	}
+	return 1.0 - sum / n;
+}
+
+static void
+test_crossflow_eps(void **state)
+{
+	static const double pts[][2] = {
+		{ 1.0, 1.0 }, { 2.5, 0.6 }, { 5.0, 1.0 }, { 2.0, 0.5 },
+		{ 0.3, 0.1 }, { 8.0, 0.25 },
+	};
+	double e;
+	size_t i;
+
+	(void)state;
+	for (i = 0; i < sizeof pts / sizeof pts[0]; i++) {
+		assert_int_equal(hl_exchanger_eps_crossflow(pts[i][0],
+		    pts[i][1], &e, NULL), HL_OK);
+		check_abs(e, crossflow_grid(pts[i][0], pts[i][1], 1500), 2e-5,
+		    "crossflow ε against the grid solution");
+	}
+	/* Kays & London, Compact Heat Exchangers (3rd ed. 1984), crossflow
+	 * both unmixed, Cr = 1, NTU = 1: ε = 0.476 (from memory). */
+	hl_exchanger_eps_crossflow(1.0, 1.0, &e, NULL);
+	check_abs(e, 0.476, 6e-4, "K&L Cr 1 NTU 1");
+	/* Nellis & Klein, Heat Transfer (2009), crossflow both unmixed
+	 * examples: NTU 2.5, Cr 0.6 gives ε 0.7632 and ε 0.61 at Cr 0.6
+	 * needs NTU 1.341 [published, by the approximate formula of
+	 * Incropera & DeWitt, table 11.3, which the exact series lies within
+	 * about 1 % of]. */
+	hl_exchanger_eps_crossflow(2.5, 0.6, &e, NULL);
+	check_rel(e, 0.7632, 0.012, "Nellis & Klein NTU 2.5 Cr 0.6");
+	hl_exchanger_eps_crossflow(1.341, 0.6, &e, NULL);
+	check_abs(e, 0.61, 1e-3, "Nellis & Klein ε 0.61 at NTU 1.341");
+	/* Cr = 0: 1 − e^(−NTU), as for every arrangement (Incropera &
+	 * DeWitt, eq. 11.35a, from memory). */
+	hl_exchanger_eps_crossflow(2.0, 0.0, &e, NULL);
+	check_rel(e, -expm1(-2.0), 1e-14, "Cr 0");
+	assert_int_equal(hl_exchanger_eps_crossflow(-1.0, 0.5, &e, NULL),
+	    HL_EINPUT);
+}
+
+/* F by its definition: the crossflow unit of NTU_cf/F reaches the same P
+ * [derived]; F falls with P and is 1 at P → 0 (common practice, no
+ * source). */
+static void
+test_crossflow_f(void **state)
+{
+	static const double pr[][2] = {
+		{ 0.5, 1.0 }, { 0.4, 2.0 }, { 0.2, 0.5 }, { 0.6, 0.3 },
+	};
+	double f, e, prev = 1.0;
+	size_t i;
+	int n;
+
+	(void)state;
+	for (i = 0; i < sizeof pr / sizeof pr[0]; i++) {
+		double p = pr[i][0], r = pr[i][1];
+		double ntu_c, cr = r <= 1.0 ? r : 1.0 / r;
+
+		assert_int_equal(hl_exchanger_f_crossflow(p, r, &f, NULL),
+		    HL_OK);
+		ntu_c = hl_exchanger_ntu_counterflow(p, r) / f;
+		/* referred to Cmin: the cold side when r <= 1 */
+		e = crossflow_grid(r <= 1.0 ? ntu_c : ntu_c * r, cr, 1500);
+		check_abs(r <= 1.0 ? e : e / r, p, 3e-5, "F round trip");
+	}
+	for (i = 1; i <= 8; i++) {
+		hl_exchanger_f_crossflow(0.1 * (double)i, 1.0, &f, NULL);
+		assert_true(f <= prev && f > 0.0);
+		prev = f;
+	}
+	hl_exchanger_f_crossflow(1e-9, 1.0, &f, NULL);
+	check_abs(f, 1.0, 1e-6, "F at P -> 0");
+	/* A close approach needs sections in series; each raises F. */
+	assert_int_equal(hl_exchanger_sections_crossflow(0.8, 1.0, 0.8, &n,
+	    &f, NULL), HL_OK);
+	assert_true(n > 1 && f >= 0.8);
+}
+
+static hl_exchanger_spec
+typed(hl_exchanger_type t, double hi, double ho, double ci, double co,
+      double duty, double u)
+{
+	hl_settings set;
+	hl_exchanger_spec s;
+
+	hl_settings_default(&set);
+	memset(&s, 0, sizeof s);
+	hl_exchanger_spec_type(&s, &set, t);
+	s.hot_in = hi;
+	s.hot_out = ho;
+	s.cold_in = ci;
+	s.cold_out = co;
+	s.duty = duty;
+	s.u = u;
+	return s;
+}
+
+/* Fired heater: no area, cost by duty. Towler & Sinnott, Chemical
+ * Engineering Design (2nd ed. 2012), table 6.6, cylindrical furnace:
+ * cost = 80000 + 109000·Q^0.8, Q in MW, 0.2 to 60 MW (from memory). */
+static void
+test_fired_heater(void **state)
+{
+	hl_exchanger_spec s = typed(HL_EXCH_FIRED_HEATER, 1000, 250, 200,
+	    360, 10000.0, NAN);
+	hl_exchanger_sizing z;
+
+	(void)state;
+	s.cost_a = 80000.0;
+	s.cost_b = 109000.0;
+	s.cost_c = 0.8;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	check_rel(z.cost, 80000.0 + 109000.0 * pow(10.0, 0.8), 1e-12,
+	    "Towler & Sinnott furnace at 10 MW");
+	assert_true(z.area == 0.0 && z.f == 1.0);
+	assert_int_equal(z.shells, 1);
+	assert_int_equal(z.parallel, 1);
+	check_rel(z.x, 10.0, 1e-15, "X = duty in MW");
+	/* Beyond the largest heater, heaters in parallel share the duty. */
+	s.largest = 6.0;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_int_equal(z.parallel, 2);
+	check_rel(z.cost, 2.0 * (80000.0 + 109000.0 * pow(5.0, 0.8)), 1e-12,
+	    "two heaters of 5 MW");
+	assert_int_equal(z.warn, 0);
+}
+
+/* Each type its own law; shell-and-tube and counterflow take the process
+ * law; a benchmark's 1000·A^0.6 (process) beside 1200·A^0.6 (heaters) is a
+ * type law plus a utility's own (the network applies that one). */
+static void
+test_type_laws(void **state)
+{
+	hl_settings set;
+	hl_exchanger_spec s;
+	hl_exchanger_sizing z, zc;
+
+	(void)state;
+	hl_settings_default(&set);
+	hl_exchanger_spec_type(&s, &set, HL_EXCH_SHELL_TUBE);
+	assert_true(s.cost_a == set.cost_a && s.cost_b == set.cost_b);
+	set.law[HL_EXCH_PLATE].a = 1.0;
+	set.law[HL_EXCH_PLATE].b = 2.0;
+	set.law[HL_EXCH_PLATE].c = 0.5;
+	set.law[HL_EXCH_PLATE].given = HL_LAW_COST;
+	hl_exchanger_spec_type(&s, &set, HL_EXCH_PLATE);
+	assert_true(s.cost_a == 1.0 && s.cost_b == 2.0 && s.cost_c == 0.5);
+	assert_int_equal(hl_exchanger_law_illustrative(&set, HL_EXCH_PLATE), 0);
+	assert_int_equal(hl_exchanger_law_illustrative(&set,
+	    HL_EXCH_AIR_COOLER), 1);
+	/* Plate: counterflow, F = 1: the counterflow area, its own cost. */
+	s = typed(HL_EXCH_PLATE, 150, 90, 30, 80, 300, 0.5);
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	s.type = HL_EXCH_COUNTERFLOW;
+	assert_int_equal(hl_exchanger_size(&s, &zc, NULL), HL_OK);
+	check_rel(z.area, zc.area, 1e-15, "plate = counterflow area");
+	assert_true(z.f == 1.0);
+	s = typed(HL_EXCH_SHELL_TUBE, 150, 90, 30, 80, 300, 0.5);
+	s.cost_a = 0.0;
+	s.cost_b = 1000.0;
+	s.cost_c = 0.6;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	check_rel(z.cost, z.shells * 1000.0 * pow(z.area_shell, 0.6), 1e-13,
+	    "1000·A^0.6 per shell");
+}
+
+/* The largest shell: parallel trains at the same F; hairpins in series. */
+static void
+test_parallel(void **state)
+{
+	hl_exchanger_spec s = typed(HL_EXCH_SHELL_TUBE, 150, 140, 30, 40,
+	    25000.0, 0.1);
+	hl_exchanger_sizing z;
+
+	(void)state;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	/* 25000/(0.1·F·110) ≈ 2276 m², one shell in series, 1000 m² max */
+	check_rel(z.area, 25000.0 / (0.1 * z.f * 110.0), 1e-12, "area");
+	assert_int_equal(z.shells, 1);
+	assert_int_equal(z.parallel, 3);
+	check_rel(z.area_shell, z.area / 3.0, 1e-15, "area per shell");
+	check_rel(z.cost, 3.0 * (10000.0 + 800.0 * pow(z.area / 3.0, 0.8)),
+	    1e-12, "three shells");
+	s = typed(HL_EXCH_DOUBLE_PIPE, 150, 90, 30, 80, 300, 0.5);
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_int_equal(z.parallel, 1);
+	assert_int_equal(z.shells, (int)ceil(z.area / 50.0));
+	s = typed(HL_EXCH_AIR_COOLER, 150, 60, 30, 45, 3000, 0.05);
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_true(z.f >= 0.8 && z.f < 1.0);
+	check_rel(z.area, 3000.0 / (0.05 * z.f * z.lmtd), 1e-12, "AC area");
+}
+
+/* A U typed in W/(m²·K) and a tiny shell are warned, not priced blindly. */
+static void
+test_implausible(void **state)
+{
+	hl_exchanger_spec s = typed(HL_EXCH_SHELL_TUBE, 150, 90, 30, 80, 20,
+	    500.0);
+	hl_exchanger_sizing z;
+	char why[300];
+
+	(void)state;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_true(z.warn & HL_EXCH_WARN_U_HIGH);
+	assert_true(z.warn & HL_EXCH_WARN_SMALL);
+	hl_exchanger_warning(&s, &z, why, sizeof why);
+	assert_non_null(strstr(why, "above the plausible"));
+	assert_non_null(strstr(why, "below the smallest"));
+	s.u = 0.5;
+	s.duty = 2000;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_int_equal(z.warn, 0);
+}
+
+/* Sizing and rating agree for the new types: an air cooler of the sized
+ * area (U·A, its sections) and a plate unit rate back to the duty and
+ * outlets they were sized for [derived: ε-NTU and F·LMTD are one
+ * relation]. */
+static void
+test_rate_types(void **state)
+{
+	hl_exchanger_spec s = typed(HL_EXCH_AIR_COOLER, 150, 60, 30, 45, 3000,
+	    0.05);
+	hl_exchanger_sizing z;
+	hl_exchanger_rating q;
+	double ch = 3000.0 / 90.0, cc = 3000.0 / 15.0;
+
+	(void)state;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_int_equal(hl_exchanger_rate(150, 30, ch, cc, s.u * z.area,
+	    HL_EXCH_AIR_COOLER, z.shells, &q, NULL), HL_OK);
+	check_rel(q.duty, 3000.0, 1e-9, "air cooler rated duty");
+	check_rel(q.hot_out, 60.0, 1e-9, "air cooler hot outlet");
+	s = typed(HL_EXCH_AIR_COOLER, 150, 60, 30, 100, 900, 0.05);
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_true(z.shells > 1);
+	assert_int_equal(hl_exchanger_rate(150, 30, 10.0, 900.0 / 70.0,
+	    s.u * z.area, HL_EXCH_AIR_COOLER, z.shells, &q, NULL), HL_OK);
+	check_rel(q.duty, 900.0, 1e-8, "air cooler sections rated duty");
+	s = typed(HL_EXCH_PLATE, 150, 90, 30, 80, 300, 0.5);
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_int_equal(hl_exchanger_rate(150, 30, 5.0, 6.0, s.u * z.area,
+	    HL_EXCH_PLATE, 1, &q, NULL), HL_OK);
+	check_rel(q.duty, 300.0, 1e-9, "plate rated duty");
+	assert_int_equal(hl_exchanger_rate(150, 30, 5.0, 6.0, 1.0,
+	    HL_EXCH_FIRED_HEATER, 1, &q, NULL), HL_EINPUT);
+}
+
+/* Exactly n shells in series, as an existing unit has: the F of n shells
+ * (Kern 1950, eq. 7.41 at the per-shell P), or no solution when n cannot
+ * do the duty. */
+static void
+test_series_given(void **state)
+{
+	hl_exchanger_spec s = typed(HL_EXCH_SHELL_TUBE, 150, 90, 30, 110,
+	    480, 0.5);
+	hl_exchanger_sizing z;
+	double f3;
+
+	(void)state;
+	s.series = 3;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_OK);
+	assert_int_equal(z.shells, 3);
+	assert_int_equal(hl_exchanger_f_shells(z.p, z.r, 3, &f3, NULL), HL_OK);
+	check_rel(z.f, f3, 1e-15, "F of the given shells");
+	s.series = 1;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_ENOSOLUTION);
+	s.series = -1;
+	assert_int_equal(hl_exchanger_size(&s, &z, NULL), HL_EINPUT);
 }
 
 int
@@ -1023,6 +1320,14 @@ main(void)
 		cmocka_unit_test(test_size_errors),
 		cmocka_unit_test(test_function_errors),
 		cmocka_unit_test(test_spec_settings),
+		cmocka_unit_test(test_crossflow_eps),
+		cmocka_unit_test(test_crossflow_f),
+		cmocka_unit_test(test_fired_heater),
+		cmocka_unit_test(test_type_laws),
+		cmocka_unit_test(test_parallel),
+		cmocka_unit_test(test_implausible),
+		cmocka_unit_test(test_rate_types),
+		cmocka_unit_test(test_series_given),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);

@@ -325,7 +325,7 @@ totals(const hl_case *c, hl_existing *net)
 		if (isnan(u->area))
 			continue;
 		net->area += u->area;
-		net->shells += u->shells;
+		net->shells += u->shells * (u->parallel > 1 ? u->parallel : 1);
 		net->nestimated += (size_t)u->area_estimated;
 		if (u->role == HL_ROLE_RECOVERY)
 			net->area_recovery += u->area;

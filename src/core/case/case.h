@@ -19,6 +19,42 @@
 
 #include "status.h"
 
+/* Exchanger types. The numbers are stable (tables index by them). */
+typedef enum {
+	HL_EXCH_SHELL_TUBE = 0,  /* 1 shell pass, 2, 4, … tube passes per shell */
+	HL_EXCH_COUNTERFLOW = 1, /* pure counterflow, F = 1 (ideal) */
+	HL_EXCH_PLATE = 2,       /* gasketed plate unit, counterflow, F = 1 */
+	HL_EXCH_DOUBLE_PIPE = 3, /* hairpins in series, counterflow, F = 1 */
+	HL_EXCH_AIR_COOLER = 4,  /* crossflow, both fluids unmixed, per bay */
+	HL_EXCH_FIRED_HEATER = 5,/* sized and costed by duty, not by area */
+	HL_EXCH_NTYPES = 6
+} hl_exchanger_type;
+
+/* Name of a type as inputs and outputs spell it ("shell-and-tube",
+ * "counterflow", "plate", "double-pipe", "air-cooler", "fired-heater"). */
+const char *hl_exchanger_type_name(hl_exchanger_type t);
+/* The type named s; -1 when s names none. */
+int hl_exchanger_type_parse(const char *s);
+/* The names, '|'-separated, for messages and choice lists. */
+#define HL_EXCH_TYPE_CHOICES \
+	"shell-and-tube|counterflow|plate|double-pipe|air-cooler|fired-heater"
+
+/* Cost law and size limits of one exchanger type (illustrative defaults
+ * in hl_settings_default). X is the area of one shell, plate unit, hairpin
+ * or bay in m², or a fired heater's duty in MW. */
+#define HL_LAW_COST 1u     /* given bits: the case set a, b, c */
+#define HL_LAW_LARGEST 2u  /* the case set largest */
+#define HL_LAW_SMALLEST 4u /* the case set smallest */
+typedef struct {
+	double a, b, c;   /* cost of one shell (unit) a + b·X^c; NaN a: the
+			     settings' cost_a, cost_b, cost_c (process law) */
+	double largest;   /* X of the largest shell; beyond it shells go in
+			     parallel (double pipe: more hairpins in series);
+			     +infinity: no limit */
+	double smallest;  /* X below which a shell is implausible (warning) */
+	unsigned given;   /* HL_LAW_* the case set */
+} hl_exchanger_law;
+
 typedef enum { HL_HOT = 0, HL_COLD = 1 } hl_kind;
 
 /* Unset optional numbers are NaN (test with isnan). */
@@ -54,18 +90,13 @@ typedef struct {
 	double h;          /* kW/(m²·K), NaN when not given */
 	double max_load;   /* kW, NaN = unlimited */
 	double dt_contrib; /* K, NaN = ΔTmin/2 */
+	int type_given;    /* 1: type below was given; 0: the case's exchanger */
+	int type;          /* hl_exchanger_type of the units on this utility */
+	int cost_given;    /* 1: the units on this utility cost */
+	double cost_a, cost_b, cost_c; /* a + b·X^c each (X as the type's law) */
 	char *file;
 	long line;
 } hl_utility;
-
-typedef enum {
-	HL_EXCH_SHELL_TUBE = 0, /* one shell pass, 2, 4, … tube passes per shell */
-	HL_EXCH_COUNTERFLOW = 1 /* pure counterflow, F = 1 */
-} hl_exchanger_type;
-
-/* Name of an exchanger type as files and reports spell it
- * ("shell-and-tube", "counterflow"). */
-const char *hl_exchanger_type_name(hl_exchanger_type t);
 
 /* A constraint on which hot/cold pairs may be matched (matches stage).
  * hot or cold may be "*" for any stream or utility of that side. */
@@ -74,6 +105,16 @@ typedef enum {
 	HL_RULE_REQUIRE = 1,  /* the pair must exchange heat */
 	HL_RULE_MAX_DUTY = 2  /* the pair may exchange at most max_duty kW */
 } hl_rule_kind;
+
+/* The exchanger type the engineer fixes for a pair (hot or cold may be
+ * "*"); kept apart from the match rules, which the match stage reads. */
+typedef struct {
+	char *hot;
+	char *cold;
+	hl_exchanger_type type;
+	char *file;
+	long line;
+} hl_type_rule;
 
 typedef struct {
 	hl_rule_kind kind;
@@ -103,6 +144,8 @@ typedef struct {
 	double cold_in, cold_out;     /* °C, NaN when not given */
 	double area;                  /* m², NaN when not given */
 	int shells;                   /* 0 when not given */
+	int type_given;               /* 1: type below was given */
+	int type;                     /* hl_exchanger_type */
 	char *file;
 	long line;
 } hl_unit;
@@ -115,7 +158,9 @@ typedef struct {
 	double h_default;    /* kW/(m²·K) for streams without h, 0.5 */
 	double fmin;         /* F floor, 0.80 */
 	double xp;           /* fraction of the maximum P per shell, 0.9 */
-	double cost_a;       /* exchanger cost per shell: a + b·A^c (currency, m²) */
+	double cost_a;       /* process units' cost per shell: a + b·A^c
+				(currency, m²); shell-and-tube and
+				counterflow laws default to it */
 	double cost_b;
 	double cost_c;
 	double interest;     /* per year, 0.10 */
@@ -123,7 +168,11 @@ typedef struct {
 	double cp_tol;       /* default relative cp uncertainty, 0.05 */
 	double t_tol;        /* default temperature uncertainty, K, 1.0 */
 	double time_limit;   /* s per MILP subnetwork, 10 */
-	hl_exchanger_type exchanger;
+	hl_exchanger_type exchanger; /* process units and utilities without one */
+	hl_exchanger_law law[HL_EXCH_NTYPES]; /* per type */
+	int kind_type[2];    /* default type of the units on a utility of
+				each kind (HL_HOT: heaters, HL_COLD:
+				coolers) that names none; -1: exchanger */
 	hl_area_policy area_policy; /* HL_AREAS_ALLOW */
 	double area_penalty; /* units per cross-area match, 1 */
 	char *currency;      /* label only, "EUR" by default */
@@ -139,10 +188,14 @@ typedef struct {
 	hl_match_rule *rule;
 	size_t nunit, unit_cap;
 	hl_unit *unit;           /* existing network, empty when none */
+	size_t ntyped, typed_cap;
+	hl_type_rule *typed;     /* exchanger type per pair, empty when none */
 	char *source;        /* the file the case came from */
 } hl_case;
 
 void hl_settings_default(hl_settings *set);
+/* Only the per-type laws (set->law) to their illustrative defaults. */
+void hl_settings_default_laws(hl_settings *set);
 
 hl_case *hl_case_create(void);
 void hl_case_free(hl_case *c);
@@ -154,6 +207,21 @@ hl_status hl_case_add_utility(hl_case *c, const hl_utility *u, hl_error *err);
 
 /* Append a match rule (deep copy). */
 hl_status hl_case_add_rule(hl_case *c, const hl_match_rule *r, hl_error *err);
+/* The type of the units on utility u: its own, else its kind's default
+ * (set->kind_type), else -1 (the settings' exchanger). */
+int hl_utility_type(const hl_settings *set, const hl_utility *u);
+
+/* Append an exchanger type rule (deep copy). */
+hl_status hl_case_add_type_rule(hl_case *c, const hl_type_rule *r,
+				hl_error *err);
+
+/* Exchanger type of a unit between hot and cold (names of streams or
+ * utilities): the first type rule naming both, else the first naming one
+ * with "*" for the other, else the utility's type (a utility side), else
+ * the case's exchanger setting. */
+hl_exchanger_type hl_case_pair_type(const hl_case *c, const char *hot,
+				    const char *cold);
+
 /* Append a unit of the existing network (deep copy). */
 hl_status hl_case_add_unit(hl_case *c, const hl_unit *u, hl_error *err);
 

@@ -47,6 +47,7 @@ hl_network_free(hl_network *net)
 	free(net->party);
 	free(net->unit);
 	free(net->note);
+	free(net->typed);
 	free(net->set.currency);
 	free(net->source);
 	free(net);
@@ -149,6 +150,54 @@ side_of(const hl_network *net, const hl_network_party *p, double t_in,
 	s->h = p->utility && !isnan(p->h) ? p->h : net->set.h_default;
 }
 
+hl_exchanger_type
+hl_network_unit_type(const hl_network *net, size_t hot, size_t cold)
+{
+	const hl_network_party *h = &net->party[hot], *c = &net->party[cold];
+	size_t i;
+	int pass;
+
+	/* Pass 0: pairs named on both sides; pass 1: with a wildcard. */
+	for (pass = 0; pass < 2; pass++)
+		for (i = 0; i < net->ntyped; i++) {
+			const hl_network_typed *t = &net->typed[i];
+
+			if ((t->hot < 0 || t->cold < 0) == pass &&
+			    (t->hot < 0 || (size_t)t->hot == hot) &&
+			    (t->cold < 0 || (size_t)t->cold == cold))
+				return t->type;
+		}
+	if (h->utility && h->type_given)
+		return (hl_exchanger_type)h->type;
+	if (c->utility && c->type_given)
+		return (hl_exchanger_type)c->type;
+	return net->set.exchanger;
+}
+
+/* The spec of unit u: its type's law, or its utility's own cost law. */
+static void
+unit_spec(const hl_network *net, const hl_network_unit *u,
+	  hl_exchanger_spec *spec)
+{
+	const hl_network_party *h = &net->party[u->hot];
+	const hl_network_party *c = &net->party[u->cold];
+	const hl_network_party *util = h->utility && h->cost_given ? h :
+	    c->utility && c->cost_given ? c : NULL;
+
+	hl_exchanger_spec_type(spec, &net->set, u->type);
+	if (util != NULL) {
+		spec->cost_a = util->cost_a;
+		spec->cost_b = util->cost_b;
+		spec->cost_c = util->cost_c;
+	}
+	spec->hot_in = u->hot_in;
+	spec->hot_out = u->hot_out;
+	spec->cold_in = u->cold_in;
+	spec->cold_out = u->cold_out;
+	spec->duty = u->duty;
+	spec->u = u->u;
+}
+
 /* Sizing through hl_exchanger_size; a unit whose sides change cp inside it
  * takes the piecewise counterflow mean and U of hl_profile_unit_eval with
  * the F and shells of its terminal temperatures. */
@@ -177,36 +226,44 @@ hl_network_size_unit(const hl_network *net, hl_network_unit *u,
 	st = hl_exchanger_u(pu.h_hot, pu.h_cold, &u->u, err);
 	if (st != HL_OK)
 		return st;
-	hl_exchanger_spec_settings(&spec, &net->set);
-	spec.type = u->type;
-	spec.hot_in = u->hot_in;
-	spec.hot_out = u->hot_out;
-	spec.cold_in = u->cold_in;
-	spec.cold_out = u->cold_out;
-	spec.duty = u->duty;
-	spec.u = u->u;
+	unit_spec(net, u, &spec);
 	st = hl_exchanger_size(&spec, &z, err);
 	if (st != HL_OK)
 		return st;
-	if (pu.pieces > 1) {
+	if (pu.pieces > 1 && u->type != HL_EXCH_FIRED_HEATER) {
 		if (!(pu.lmtd > 0.0 && pu.u > 0.0))
 			return hl_error_set(err, HL_EINPUT, NULL, 0,
 			    "the hot side falls to the cold side inside the "
 			    "unit (approach %.6g K)", pu.approach);
-		u->u = pu.u;
+		u->u = spec.u = pu.u;
 		z.lmtd = pu.lmtd;
 		z.area = u->duty / (u->u * z.f * z.lmtd);
-		z.area_shell = z.area / z.shells;
-		z.cost = z.shells * (spec.cost_a +
-		    spec.cost_b * pow(z.area_shell, spec.cost_c));
+		hl_exchanger_price(&spec, &z);
 	}
 	u->lmtd = z.lmtd;
 	u->ft = z.f;
 	u->shells = z.shells;
+	u->parallel = z.parallel;
 	u->area = z.area;
 	u->area_shell = z.area_shell;
 	u->cost = z.cost;
+	u->warn = z.warn;
 	return HL_OK;
+}
+
+void
+hl_network_unit_warning(const hl_network *net, const hl_network_unit *u,
+			char *buf, size_t n)
+{
+	hl_exchanger_spec spec;
+	hl_exchanger_sizing z;
+
+	unit_spec(net, u, &spec);
+	memset(&z, 0, sizeof z);
+	z.warn = u->warn;
+	z.x = u->type == HL_EXCH_FIRED_HEATER ? u->duty / 1000.0 /
+	    (u->parallel > 0 ? u->parallel : 1) : u->area_shell;
+	hl_exchanger_warning(&spec, &z, buf, n);
 }
 
 void

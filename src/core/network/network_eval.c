@@ -450,7 +450,7 @@ unit_objective(hl_net_place *P, size_t k)
 	hl_status st;
 	double w = 1.0;
 
-	u.type = net->set.exchanger;
+	u.type = hl_network_unit_type(net, u.hot, u.cold);
 	u.note = NULL;
 	st = hl_network_size_unit(net, &u, NULL);
 	if (st == HL_ENOSOLUTION) {

@@ -363,15 +363,20 @@ finish(hl_network *net, const hl_network_input *in, hl_error *err)
 		hl_network_unit *u = &net->unit[i];
 
 		snprintf(u->id, sizeof u->id, "E%u", (unsigned)(++ne % 100000000u));
-		u->type = net->set.exchanger;
+		u->type = hl_network_unit_type(net, u->hot, u->cold);
 		st = hl_network_size_unit(net, u, err);
 		if (st == HL_ENOSOLUTION) {
+			char why[160];
+
+			snprintf(why, sizeof why, "would need more %s in "
+			    "series than a %s sensibly has: sized as pure "
+			    "counterflow (double pipe or plate)",
+			    u->type == HL_EXCH_AIR_COOLER ? "sections" :
+			    "shells", hl_exchanger_type_name(u->type));
 			u->type = HL_EXCH_COUNTERFLOW;
 			st = hl_network_size_unit(net, u, err);
 			free(u->note);
-			u->note = strdup("would need more shells in series "
-			    "than a shell-and-tube unit sensibly has: sized as "
-			    "pure counterflow (double pipe or plate)");
+			u->note = strdup(why);
 			if (u->note == NULL)
 				return hl_error_nomem(err);
 		}
@@ -408,7 +413,13 @@ hl_net_attempt(const hl_network_input *in, hl_network **out, long *worst,
 	net->set = *in->set;
 	net->set.currency = strdup(in->set->currency != NULL ?
 	    in->set->currency : "EUR");
-	if (net->set.currency == NULL) {
+	if (in->ntyped > 0 && (net->typed = malloc(in->ntyped *
+	    sizeof *net->typed)) != NULL) {
+		memcpy(net->typed, in->typed, in->ntyped * sizeof *net->typed);
+		net->ntyped = in->ntyped;
+	}
+	if (net->set.currency == NULL || (in->ntyped > 0 &&
+	    net->typed == NULL)) {
 		hl_network_free(net);
 		return hl_error_nomem(err);
 	}

@@ -165,8 +165,9 @@ static const hl_xattr settings_attrs[] = {
 	{ "h-default", HL_XATTR_AMOUNT, 0, U_H, NULL },
 	{ "fmin", HL_XATTR_AMOUNT, 0, NULL, NULL },
 	{ "xp", HL_XATTR_AMOUNT, 0, NULL, NULL },
-	{ "exchanger", HL_XATTR_CHOICE, 0, NULL,
-	  "shell-and-tube|counterflow" },
+	{ "exchanger", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
+	{ "heater-type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
+	{ "cooler-type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
 	{ "interest", HL_XATTR_AMOUNT, 0, NULL, NULL },
 	{ "life", HL_XATTR_AMOUNT, 0, "years", NULL },
 	{ "cp-tol", HL_XATTR_AMOUNT, 0, NULL, NULL },
@@ -217,6 +218,56 @@ read_cost(walk *w, xmlNodePtr n)
 	return HL_OK;
 }
 
+/* <equipment type=… a b c largest smallest>: one type's law and limits. */
+static hl_status
+read_equipment(walk *w, xmlNodePtr n)
+{
+	static const hl_xattr attrs[] = {
+		{ "type", HL_XATTR_CHOICE, 1, NULL, HL_EXCH_TYPE_CHOICES },
+		{ "a", HL_XATTR_AMOUNT, 0, "currency", NULL },
+		{ "b", HL_XATTR_AMOUNT, 0, NULL, NULL },
+		{ "c", HL_XATTR_AMOUNT, 0, NULL, NULL },
+		{ "largest", HL_XATTR_AMOUNT, 0, NULL, NULL },
+		{ "smallest", HL_XATTR_AMOUNT, 0, NULL, NULL },
+	};
+	hl_exchanger_law *l;
+	double a, b, c;
+	int ncost;
+	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
+
+	if (st != HL_OK)
+		return st;
+	l = &w->c->set.law[hl_exchanger_type_parse(hl_xattr_text(n, "type"))];
+	if (l->given != 0)
+		return fail(w, n, HL_EINPUT, "a second <equipment type=\"%s\">"
+			"; give each type once", hl_xattr_text(n, "type"));
+	a = num(n, "a");
+	b = num(n, "b");
+	c = num(n, "c");
+	ncost = !isnan(a) + !isnan(b) + !isnan(c);
+	if (ncost != 0 && ncost != 3)
+		return fail(w, n, HL_EINPUT, "give all three of a, b, c (cost "
+			"of one shell a + b·X^c) or none");
+	if (ncost == 3) {
+		l->a = a;
+		l->b = b;
+		l->c = c;
+		l->given |= HL_LAW_COST;
+	}
+	if (!isnan(num(n, "largest"))) {
+		l->largest = num(n, "largest");
+		l->given |= HL_LAW_LARGEST;
+	}
+	if (!isnan(num(n, "smallest"))) {
+		l->smallest = num(n, "smallest");
+		l->given |= HL_LAW_SMALLEST;
+	}
+	if (!(l->largest > l->smallest) || (ncost == 3 && !(c > 0.0)))
+		return fail(w, n, HL_EINPUT, "largest must be above smallest "
+			"and c > 0");
+	return HL_OK;
+}
+
 static hl_status
 read_plant_areas(walk *w, xmlNodePtr n)
 {
@@ -259,8 +310,13 @@ settings_values(walk *w, xmlNodePtr n)
 			*(double *)((char *)s + settings_numbers[i].off) = v;
 	}
 	if (ex != NULL)
-		s->exchanger = strcmp(ex, "counterflow") == 0 ?
-			       HL_EXCH_COUNTERFLOW : HL_EXCH_SHELL_TUBE;
+		s->exchanger = (hl_exchanger_type)hl_exchanger_type_parse(ex);
+	if (hl_xattr_text(n, "heater-type") != NULL)
+		s->kind_type[HL_HOT] = hl_exchanger_type_parse(
+			hl_xattr_text(n, "heater-type"));
+	if (hl_xattr_text(n, "cooler-type") != NULL)
+		s->kind_type[HL_COLD] = hl_exchanger_type_parse(
+			hl_xattr_text(n, "cooler-type"));
 	if (cur != NULL) {
 		char *d = strdup(cur);
 
@@ -294,13 +350,17 @@ read_settings(walk *w, xmlNodePtr n)
 
 		if (ch->type != XML_ELEMENT_NODE)
 			continue;
+		if (is_elem(ch, "equipment")) {
+			st = read_equipment(w, ch);
+			continue;
+		}
 		if (is_elem(ch, "cost"))
 			seen = &seen_cost;
 		else if (is_elem(ch, "plant-areas"))
 			seen = &seen_areas;
 		else
-			return unknown_child(w, n, ch,
-				"<cost> and <plant-areas>, besides attributes");
+			return unknown_child(w, n, ch, "<cost>, <equipment> "
+				"and <plant-areas>, besides attributes");
 		if (*seen)
 			return fail(w, ch, HL_EINPUT, "a second <%s> in "
 				"<settings>; give it once", name_of(ch));
@@ -487,8 +547,13 @@ read_utility(walk *w, xmlNodePtr n)
 		{ "h", HL_XATTR_AMOUNT, 0, U_H, NULL },
 		{ "max-load", HL_XATTR_AMOUNT, 0, "kW", NULL },
 		{ "dt-contrib", HL_XATTR_AMOUNT, 0, "K", NULL },
+		{ "type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
+		{ "cost-a", HL_XATTR_AMOUNT, 0, "currency", NULL },
+		{ "cost-b", HL_XATTR_AMOUNT, 0, NULL, NULL },
+		{ "cost-c", HL_XATTR_AMOUNT, 0, NULL, NULL },
 	};
 	hl_utility u;
+	int ncost;
 	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
 
 	if (st != HL_OK)
@@ -503,6 +568,16 @@ read_utility(walk *w, xmlNodePtr n)
 	u.h = num(n, "h");
 	u.max_load = num(n, "max-load");
 	u.dt_contrib = num(n, "dt-contrib");
+	u.type = hl_exchanger_type_parse(hl_xattr_text(n, "type"));
+	u.type_given = u.type >= 0;
+	u.cost_a = num(n, "cost-a");
+	u.cost_b = num(n, "cost-b");
+	u.cost_c = num(n, "cost-c");
+	ncost = !isnan(u.cost_a) + !isnan(u.cost_b) + !isnan(u.cost_c);
+	if (ncost != 0 && ncost != 3)
+		return fail(w, n, HL_EINPUT, "utility '%s': give all three of "
+			"cost-a, cost-b, cost-c or none", u.name);
+	u.cost_given = ncost == 3;
 	u.file = (char *)w->o->file;
 	u.line = hl_xattr_line(n);
 	hl_doubt_htc(u.file, u.line, "h", u.h);
@@ -541,6 +616,31 @@ read_rule(walk *w, xmlNodePtr n, hl_rule_kind kind)
 	return hl_case_add_rule(w->c, &r, w->err);
 }
 
+/* <exchanger hot cold type>: the type the engineer fixes for a pair. */
+static hl_status
+read_type_rule(walk *w, xmlNodePtr n)
+{
+	static const hl_xattr attrs[] = {
+		{ "hot", HL_XATTR_LABEL, 1, NULL, NULL },
+		{ "cold", HL_XATTR_LABEL, 1, NULL, NULL },
+		{ "type", HL_XATTR_CHOICE, 1, NULL, HL_EXCH_TYPE_CHOICES },
+		{ "reason", HL_XATTR_TEXT, 0, NULL, NULL },
+	};
+	hl_type_rule r;
+	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
+
+	if (st != HL_OK)
+		return st;
+	memset(&r, 0, sizeof r);
+	r.hot = (char *)hl_xattr_text(n, "hot");
+	r.cold = (char *)hl_xattr_text(n, "cold");
+	r.type = (hl_exchanger_type)hl_exchanger_type_parse(
+		hl_xattr_text(n, "type"));
+	r.file = (char *)w->o->file;
+	r.line = hl_xattr_line(n);
+	return hl_case_add_type_rule(w->c, &r, w->err);
+}
+
 static hl_status
 read_matches(walk *w, xmlNodePtr n)
 {
@@ -558,9 +658,11 @@ read_matches(walk *w, xmlNodePtr n)
 			st = read_rule(w, ch, HL_RULE_REQUIRE);
 		else if (is_elem(ch, "limit"))
 			st = read_rule(w, ch, HL_RULE_MAX_DUTY);
+		else if (is_elem(ch, "exchanger"))
+			st = read_type_rule(w, ch);
 		else
 			st = unknown_child(w, n, ch, "<forbid>, <require> and "
-				"<limit> rules");
+				"<limit> rules and <exchanger> types");
 	}
 	return st;
 }
@@ -581,6 +683,7 @@ read_unit(walk *w, xmlNodePtr n)
 		{ "cold-out", HL_XATTR_NUMBER, 0, U_T, NULL },
 		{ "area", HL_XATTR_AMOUNT, 0, "m²", NULL },
 		{ "shells", HL_XATTR_COUNT, 0, NULL, NULL },
+		{ "type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
 	};
 	hl_unit u;
 	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
@@ -598,6 +701,8 @@ read_unit(walk *w, xmlNodePtr n)
 	u.cold_out = num(n, "cold-out");
 	u.area = num(n, "area");
 	u.shells = isnan(num(n, "shells")) ? 0 : (int)num(n, "shells");
+	u.type = hl_exchanger_type_parse(hl_xattr_text(n, "type"));
+	u.type_given = u.type >= 0;
 	u.file = (char *)w->o->file;
 	u.line = hl_xattr_line(n);
 	if (!(u.duty > 0.0))

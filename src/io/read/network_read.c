@@ -19,7 +19,7 @@
 static const hl_xattr network_attr[] = {
 	{ "dtmin", HL_XATTR_AMOUNT, 1, "K", NULL },
 	{ "emat", HL_XATTR_AMOUNT, 1, "K", NULL },
-	{ "exchanger", HL_XATTR_CHOICE, 1, NULL, "shell-and-tube|counterflow" },
+	{ "exchanger", HL_XATTR_CHOICE, 1, NULL, HL_EXCH_TYPE_CHOICES },
 	{ "fmin", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "xp", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "h-default", HL_XATTR_AMOUNT, 1, "kW/(m²·K)", NULL },
@@ -75,13 +75,17 @@ static const hl_xattr utility_attr[] = {
 	{ "max-load", HL_XATTR_AMOUNT, 0, "kW", NULL },
 	{ "dt-contrib", HL_XATTR_AMOUNT, 0, "K", NULL },
 	{ "implicit", HL_XATTR_CHOICE, 0, NULL, "yes|no" },
+	{ "type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
+	{ "cost-a", HL_XATTR_AMOUNT, 0, NULL, NULL },
+	{ "cost-b", HL_XATTR_AMOUNT, 0, NULL, NULL },
+	{ "cost-c", HL_XATTR_AMOUNT, 0, NULL, NULL },
 };
 
 static const hl_xattr unit_attr[] = {
 	{ "id", HL_XATTR_LABEL, 1, NULL, NULL },
 	{ "hot", HL_XATTR_LABEL, 1, NULL, NULL },
 	{ "cold", HL_XATTR_LABEL, 1, NULL, NULL },
-	{ "type", HL_XATTR_CHOICE, 1, NULL, "shell-and-tube|counterflow" },
+	{ "type", HL_XATTR_CHOICE, 1, NULL, HL_EXCH_TYPE_CHOICES },
 	{ "duty", HL_XATTR_NUMBER, 1, "kW", NULL },
 	{ "hot-in", HL_XATTR_NUMBER, 1, "°C", NULL },
 	{ "hot-out", HL_XATTR_NUMBER, 1, "°C", NULL },
@@ -93,6 +97,7 @@ static const hl_xattr unit_attr[] = {
 	{ "lmtd", HL_XATTR_NUMBER, 1, "K", NULL },
 	{ "ft", HL_XATTR_NUMBER, 1, NULL, NULL },
 	{ "shells", HL_XATTR_COUNT, 1, NULL, NULL },
+	{ "parallel", HL_XATTR_COUNT, 0, NULL, NULL },
 	{ "area", HL_XATTR_NUMBER, 1, "m²", NULL },
 	{ "area-shell", HL_XATTR_NUMBER, 1, "m²", NULL },
 	{ "cost", HL_XATTR_NUMBER, 1, NULL, NULL },
@@ -103,6 +108,18 @@ static const hl_xattr unit_attr[] = {
 	{ "match", HL_XATTR_COUNT, 0, NULL, NULL },
 	{ "assumed", HL_XATTR_TEXT, 0, NULL, NULL },
 	{ "note", HL_XATTR_TEXT, 0, NULL, NULL },
+	{ "warning", HL_XATTR_TEXT, 0, NULL, NULL },
+};
+
+static const hl_xattr law_attr[] = {
+	{ "type", HL_XATTR_CHOICE, 1, NULL, HL_EXCH_TYPE_CHOICES },
+	{ "a", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "b", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "c", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "x", HL_XATTR_CHOICE, 1, NULL, "area|duty" },
+	{ "largest", HL_XATTR_AMOUNT, 0, NULL, NULL },
+	{ "smallest", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "source", HL_XATTR_CHOICE, 1, NULL, "case|illustrative" },
 };
 
 static int
@@ -131,8 +148,9 @@ read_settings(hl_network *net, xmlNodePtr n, const char *file,
 		return st;
 	s->dtmin = num(n, "dtmin");
 	s->emat = num(n, "emat");
-	s->exchanger = strcmp(hl_xattr_text(n, "exchanger"),
-	    "counterflow") == 0 ? HL_EXCH_COUNTERFLOW : HL_EXCH_SHELL_TUBE;
+	s->exchanger = (hl_exchanger_type)hl_exchanger_type_parse(
+	    hl_xattr_text(n, "exchanger"));
+	hl_settings_default_laws(s);
 	s->fmin = num(n, "fmin");
 	s->xp = num(n, "xp");
 	s->h_default = num(n, "h-default");
@@ -286,6 +304,15 @@ read_utility(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 	p.h = num(n, "h");
 	p.max_load = num(n, "max-load");
 	p.dt_contrib = num(n, "dt-contrib");
+	p.type = hl_exchanger_type_parse(hl_xattr_text(n, "type"));
+	p.type_given = p.type >= 0;
+	if (!p.type_given)
+		p.type = HL_EXCH_SHELL_TUBE;
+	p.cost_a = num(n, "cost-a");
+	p.cost_b = num(n, "cost-b");
+	p.cost_c = num(n, "cost-c");
+	p.cost_given = !isnan(p.cost_a) && !isnan(p.cost_b) &&
+	    !isnan(p.cost_c);
 	p.line = hl_xattr_line(n);
 	if (p.kind == HL_HOT ? p.target > p.supply : p.target < p.supply)
 		return hl_error_set(err, HL_EINPUT, file, p.line, "utility "
@@ -332,8 +359,9 @@ read_unit(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 		    hl_xattr_text(n, "hot") : hl_xattr_text(n, "cold"));
 	u.hot = (size_t)h;
 	u.cold = (size_t)c;
-	u.type = strcmp(hl_xattr_text(n, "type"), "counterflow") == 0 ?
-	    HL_EXCH_COUNTERFLOW : HL_EXCH_SHELL_TUBE;
+	u.type = (hl_exchanger_type)hl_exchanger_type_parse(
+	    hl_xattr_text(n, "type"));
+	u.parallel = isnan(num(n, "parallel")) ? 1 : (int)num(n, "parallel");
 	u.duty = num(n, "duty");
 	u.hot_in = num(n, "hot-in");
 	u.hot_out = num(n, "hot-out");
@@ -370,6 +398,30 @@ read_unit(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 	return hl_network_add_unit(net, &u, err);
 }
 
+/* The law of one type, as the design used it. */
+static hl_status
+read_law(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
+{
+	hl_exchanger_law *l;
+	hl_status st = hl_xattr_check(n, law_attr, N(law_attr), file, err);
+
+	if (st != HL_OK)
+		return st;
+	l = &net->set.law[hl_exchanger_type_parse(hl_xattr_text(n, "type"))];
+	l->a = num(n, "a");
+	l->b = num(n, "b");
+	l->c = num(n, "c");
+	l->largest = isnan(num(n, "largest")) ? HUGE_VAL : num(n, "largest");
+	l->smallest = num(n, "smallest");
+	l->given = strcmp(hl_xattr_text(n, "source"), "case") == 0 ?
+	    HL_LAW_COST | HL_LAW_LARGEST | HL_LAW_SMALLEST : 0;
+	if (!(l->c > 0.0 && l->largest > l->smallest))
+		return hl_error_set(err, HL_EINPUT, file, hl_xattr_line(n),
+		    "<law type=\"%s\">: c must be > 0 and largest above "
+		    "smallest", hl_xattr_text(n, "type"));
+	return HL_OK;
+}
+
 static hl_status
 read_network(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 {
@@ -385,6 +437,8 @@ read_network(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 			st = read_utility(net, c, file, err);
 		else if (is(c, "exchanger"))
 			st = read_unit(net, c, file, err);
+		else if (is(c, "law"))
+			st = read_law(net, c, file, err);
 		else if (is(c, "note")) {
 			xmlChar *t = xmlNodeGetContent(c);
 
@@ -393,7 +447,7 @@ read_network(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 			xmlFree(t);
 		} else
 			st = hl_error_set(err, HL_EINPUT, file,
-			    hl_xattr_line(c), "<network> holds <stream>, "
+			    hl_xattr_line(c), "<network> holds <law>, <stream>, "
 			    "<utility>, <exchanger> and <note>, not <%s>",
 			    (const char *)c->name);
 	}

@@ -4,6 +4,7 @@
  * exchanger module's own test (hl_exchanger_pr), so the reader and the
  * sizing can never disagree about what a counterflow unit could do.
  */
+#include <ctype.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdio.h>
@@ -19,19 +20,21 @@
 
 enum { C_NAME, C_HOT_IN, C_HOT_OUT, C_COLD_IN, C_COLD_OUT, C_DUTY, C_HOT_CP,
        C_COLD_CP, C_U, C_H_HOT, C_H_COLD, C_TYPE, C_FMIN, C_XP, C_COST_A,
-       C_COST_B, C_COST_C, C_COUNT };
+       C_COST_B, C_COST_C, C_LARGEST, C_COUNT };
 
 static const char *const columns[C_COUNT] = {
 	"name", "hot_in", "hot_out", "cold_in", "cold_out", "duty", "hot_cp",
 	"cold_cp", "u", "h_hot", "h_cold", "type", "fmin", "xp", "cost_a",
-	"cost_b", "cost_c"
+	"cost_b", "cost_c", "largest"
 };
 
 static const hl_qty qty[C_COUNT] = {
 	HL_QTY_NONE, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_TEMP,
 	HL_QTY_POWER, HL_QTY_CP, HL_QTY_CP, HL_QTY_HTC, HL_QTY_HTC,
 	HL_QTY_HTC, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE,
-	HL_QTY_NONE, HL_QTY_NONE
+	HL_QTY_NONE, HL_QTY_NONE,
+	/* largest: m² per shell or MW per fired heater, by the type */
+	HL_QTY_NONE
 };
 
 /* The row being checked: where it is and what it is called. */
@@ -130,13 +133,19 @@ parse_type(const ctx *c, int *type, hl_error *err)
 	*type = -1;
 	if (s[0] == '\0')
 		return HL_OK;
-	if (strcasecmp(s, "shell-and-tube") == 0)
-		*type = HL_EXCH_SHELL_TUBE;
-	else if (strcasecmp(s, "counterflow") == 0)
-		*type = HL_EXCH_COUNTERFLOW;
-	else
+	{
+		char low[48];
+		size_t i;
+
+		for (i = 0; s[i] != '\0' && i + 1 < sizeof low; i++)
+			low[i] = (char)tolower((unsigned char)s[i]);
+		low[i] = '\0';
+		*type = hl_exchanger_type_parse(low);
+	}
+	if (*type < 0)
 		return fail(c, err, "type '%.40s' is unknown; give "
-		    "shell-and-tube or counterflow", s);
+		    "shell-and-tube, counterflow, plate, double-pipe, "
+		    "air-cooler or fired-heater", s);
 	return HL_OK;
 }
 
@@ -273,7 +282,9 @@ resolve_u(const ctx *c, const double *v, hl_unit_spec *u, hl_error *err)
 		st = check_coefficient(c, "h_cold", u->h_cold, err);
 	if (st != HL_OK)
 		return st;
-	if (isnan(u->u) && isnan(u->h_hot) && isnan(u->h_cold))
+	/* A fired heater is sized by duty: no coefficient needed. */
+	if (isnan(u->u) && isnan(u->h_hot) && isnan(u->h_cold) &&
+	    u->type != HL_EXCH_FIRED_HEATER)
 		return fail(c, err, "no heat transfer coefficient: give u, or "
 		    "h_hot and h_cold (kW/(m²·K), fouling included)");
 	if (isnan(u->u))
@@ -304,6 +315,10 @@ resolve_rules(const ctx *c, const double *v, hl_unit_spec *u, hl_error *err)
 	u->cost_a = v[C_COST_A];
 	u->cost_b = v[C_COST_B];
 	u->cost_c = v[C_COST_C];
+	u->largest = v[C_LARGEST];
+	if (!isnan(u->largest) && !(u->largest > 0.0))
+		return fail(c, err, "largest %g must be > 0 (m² per shell, MW "
+		    "per fired heater)", u->largest);
 	if (!isnan(u->fmin) && !(u->fmin >= 0.0 && u->fmin < 1.0))
 		return fail(c, err, "fmin %g is outside [0, 1): a usual F "
 		    "floor is 0.80", u->fmin);

@@ -10,17 +10,53 @@
 #include "tables.h"
 
 enum { U_NAME, U_KIND, U_SUPPLY, U_TARGET, U_PRICE, U_H, U_MAX, U_DTC,
-       U_COUNT };
+       U_TYPE, U_COST_A, U_COST_B, U_COST_C, U_COUNT };
 
 static const char *const columns[U_COUNT] = {
 	"name", "kind", "supply", "target", "price", "h", "max_load",
-	"dt_contrib"
+	"dt_contrib", "type", "cost_a", "cost_b", "cost_c"
 };
 
 static const hl_qty qty[U_COUNT] = {
 	HL_QTY_NONE, HL_QTY_NONE, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_PRICE,
-	HL_QTY_HTC, HL_QTY_POWER, HL_QTY_DTEMP
+	HL_QTY_HTC, HL_QTY_POWER, HL_QTY_DTEMP, HL_QTY_NONE, HL_QTY_NONE,
+	HL_QTY_NONE, HL_QTY_NONE
 };
+
+/* The optional exchanger type and cost law of the units on a utility. */
+static hl_status
+read_equipment(hl_table *t, hl_utility *u, hl_error *err)
+{
+	const char *ty = hl_table_text(t, U_TYPE);
+	double *dst[] = { &u->cost_a, &u->cost_b, &u->cost_c };
+	int given = 0;
+	size_t i;
+	hl_status st = HL_OK;
+
+	if (ty[0] != '\0') {
+		u->type = hl_exchanger_type_parse(ty);
+		if (u->type < 0)
+			return hl_error_set(err, HL_EINPUT, u->file, u->line,
+				"utility '%s': type '%.40s' is not one of "
+				"shell-and-tube, counterflow, plate, "
+				"double-pipe, air-cooler, fired-heater",
+				u->name, ty);
+		u->type_given = 1;
+	}
+	for (i = 0; st == HL_OK && i < 3; i++) {
+		st = hl_table_number(t, U_COST_A + i, dst[i], err);
+		given += st == HL_OK && !isnan(*dst[i]);
+	}
+	if (st != HL_OK)
+		return st;
+	if (given != 0 && given != 3)
+		return hl_error_set(err, HL_EINPUT, u->file, u->line,
+			"utility '%s': give all three of cost_a, cost_b, "
+			"cost_c (cost a + b·X^c of each unit on it) or none",
+			u->name);
+	u->cost_given = given == 3;
+	return HL_OK;
+}
 
 static hl_status
 read_kind(hl_table *t, hl_utility *u, hl_error *err)
@@ -49,6 +85,7 @@ read_utility(hl_table *t, hl_utility *u, hl_error *err)
 	size_t i;
 	hl_status st;
 
+	memset(u, 0, sizeof *u);
 	u->name = (char *)hl_table_text(t, U_NAME);
 	u->file = (char *)hl_table_file(t);
 	u->line = hl_table_line(t);
@@ -71,7 +108,7 @@ read_utility(hl_table *t, hl_utility *u, hl_error *err)
 			"for a free utility)", u->name);
 	hl_doubt_htc(u->file, u->line, "h", u->h);
 	hl_doubt_duty(u->file, u->line, "max_load", u->max_load);
-	return HL_OK;
+	return read_equipment(t, u, err);
 }
 
 /* A price header's currency word ("price [USD/MMBtu]") labels the case's

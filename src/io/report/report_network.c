@@ -134,10 +134,17 @@ unit_row(hl_report *r, const hl_network_unit *u)
 	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_dt(u->lmtd),
 			   1));
 	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, u->ft, 3));
-	snprintf(v, B, "%d", u->shells);
+	hl_report_cell(r, hl_exchanger_type_name(u->type));
+	if (u->parallel > 1)
+		snprintf(v, B, "%d × %d", u->shells, u->parallel);
+	else
+		snprintf(v, B, "%d", u->shells);
 	hl_report_cell_num(r, v);
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_a(u->area),
-			   1));
+	if (u->type == HL_EXCH_FIRED_HEATER)
+		hl_report_cell_num(r, "by duty");
+	else
+		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+		    hl_show_a(u->area), 1));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->cost, 3, 0));
 	hl_report_row_end(r);
 }
@@ -147,10 +154,11 @@ unit_table(hl_report *r)
 {
 	static const char *const head[] = { "Unit", "Hot side", "Cold side",
 		"Duty", "Hot in → out", "Cold in → out", "U", "LMTD", "F",
-		"Shells", "Area", "Cost" };
+		"Type", "Shells", "Area", "Cost" };
 	const char *unit[] = { "", "", "", "kW", "°C", "°C", "kW/(m²·K)", "K",
-		"", "", "m²", hl_report_currency(r->d->c) };
-	static const int num[] = { 0, 0, 0, 1, 1, 1, 1, 1, 1, 1, 1, 1 };
+		"", "", "series × parallel", "m²",
+		hl_report_currency(r->d->c) };
+	static const int num[] = { 0, 0, 0, 1, 1, 1, 1, 1, 1, 0, 1, 1, 1 };
 	const hl_network *n = r->d->net;
 	size_t i;
 
@@ -158,8 +166,11 @@ unit_table(hl_report *r)
 			      "terminal temperatures, overall coefficient U "
 			      "from the film coefficients, counterflow mean "
 			      "temperature difference, F of all shells, "
-			      "shells in series, area and installed cost.",
-			      12, head, unit, num);
+			      "exchanger type, shells in series (× trains in "
+			      "parallel beyond the largest shell), area (a "
+			      "fired heater is sized by duty) and installed "
+			      "cost by the type's law.",
+			      13, head, unit, num);
 	for (i = 0; i < n->nunit; i++)
 		unit_row(r, &n->unit[i]);
 	hl_report_table_end(r);
@@ -173,7 +184,8 @@ notes(hl_report *r)
 	size_t i, k = n->nnote;
 
 	for (i = 0; i < n->nunit; i++)
-		k += n->unit[i].note != NULL || n->unit[i].assumed != 0;
+		k += n->unit[i].note != NULL || n->unit[i].assumed != 0 ||
+		    n->unit[i].warn != 0;
 	if (k == 0)
 		return;
 	hl_html_start(r->h, "ul", "network-notes");
@@ -185,6 +197,13 @@ notes(hl_report *r)
 		if (u->note != NULL)
 			hl_html_elemf(r->h, "li", NULL, "%s: %s", u->id,
 				      u->note);
+		if (u->warn != 0) {
+			char why[300];
+
+			hl_network_unit_warning(n, u, why, sizeof why);
+			hl_html_elemf(r->h, "li", NULL, "%s: check: %s.",
+				      u->id, why);
+		}
 		if (u->assumed != 0)
 			hl_html_elemf(r->h, "li", NULL, "%s: no film "
 				      "coefficient given for the %s side; U "

@@ -40,6 +40,73 @@ setting(hl_report *r, const char *name, const char *value,
 	hl_report_row_end(r);
 }
 
+/* Whether the case uses type t anywhere (settings, utilities, rules,
+ * today's units) or sets its law. */
+static int
+type_used(const hl_case *c, hl_exchanger_type t)
+{
+	size_t i;
+
+	if (c->set.exchanger == t || c->set.law[t].given != 0 ||
+	    c->set.kind_type[HL_HOT] == (int)t ||
+	    c->set.kind_type[HL_COLD] == (int)t)
+		return 1;
+	for (i = 0; i < c->nutil; i++)
+		if (hl_utility_type(&c->set, &c->util[i]) == (int)t)
+			return 1;
+	for (i = 0; i < c->ntyped; i++)
+		if (c->typed[i].type == t)
+			return 1;
+	for (i = 0; i < c->nunit; i++)
+		if (c->unit[i].type_given && c->unit[i].type == (int)t)
+			return 1;
+	return 0;
+}
+
+/* A row per exchanger type the case uses beyond shell-and-tube, and per
+ * utility with its own cost law. */
+static void
+type_laws(hl_report *r, const hl_settings *s)
+{
+	const hl_case *c = r->d->c;
+	char v[300], name[B];
+	size_t i;
+	int t;
+
+	for (t = HL_EXCH_COUNTERFLOW; t < HL_EXCH_NTYPES; t++) {
+		if (!type_used(c, (hl_exchanger_type)t))
+			continue;
+		hl_exchanger_law_text(s, (hl_exchanger_type)t, v, sizeof v);
+		/* The source column says where the law comes from. */
+		if (strrchr(v, '(') != NULL && strrchr(v, '(') > v)
+			strrchr(v, '(')[-1] = '\0';
+		snprintf(name, B, "Cost law, %s",
+			 hl_exchanger_type_name((hl_exchanger_type)t));
+		setting(r, name, strchr(v, ':') != NULL ? strchr(v, ':') + 2 :
+			v, hl_exchanger_law_illustrative(s,
+			(hl_exchanger_type)t) ? "built-in default: "
+			"illustrative, not a price" : CASE_TEXT);
+	}
+	for (i = 0; i < c->nutil; i++) {
+		const hl_utility *u = &c->util[i];
+
+		if (!u->cost_given && hl_utility_type(s, u) < 0)
+			continue;
+		snprintf(name, B, "Units on %s", u->name);
+		if (u->cost_given)
+			snprintf(v, sizeof v, "%s, %g + %g·X^%g each",
+				 hl_exchanger_type_name(hl_utility_type(s, u) >=
+				 0 ? (hl_exchanger_type)hl_utility_type(s, u) :
+				 s->exchanger),
+				 u->cost_a, u->cost_b, u->cost_c);
+		else
+			snprintf(v, sizeof v, "%s",
+				 hl_exchanger_type_name((hl_exchanger_type)
+				 hl_utility_type(s, u)));
+		setting(r, name, v, CASE_TEXT);
+	}
+}
+
 static void
 settings_rows(hl_report *r, const hl_settings *s, const hl_settings *def)
 {
@@ -64,7 +131,8 @@ settings_rows(hl_report *r, const hl_settings *s, const hl_settings *def)
 		source_of(s->h_default == def->h_default));
 	setting(r, "Exchanger type", s->exchanger == HL_EXCH_SHELL_TUBE ?
 		"shell-and-tube, one shell pass, 2, 4, … tube passes" :
-		"counterflow", source_of(s->exchanger == def->exchanger));
+		hl_exchanger_type_name(s->exchanger),
+		source_of(s->exchanger == def->exchanger));
 	snprintf(v, B, "%.2f", s->fmin);
 	setting(r, "F floor per shell", v, source_of(s->fmin == def->fmin));
 	snprintf(v, B, "%.2f of the maximum P", s->xp);
@@ -73,6 +141,7 @@ settings_rows(hl_report *r, const hl_settings *s, const hl_settings *def)
 		 s->cost_b, s->cost_c, cur);
 	setting(r, "Exchanger cost law", v, cost_default ?
 		"built-in default: illustrative, not a price" : CASE_TEXT);
+	type_laws(r, s);
 	snprintf(v, B, "%g %% a year", 100.0 * s->interest);
 	setting(r, "Interest rate", v, source_of(s->interest == def->interest));
 	snprintf(v, B, "%g years", s->life);

@@ -89,6 +89,9 @@ exchanger(xmlTextWriterPtr w, const hl_case *c, const hl_audit *a, size_t i)
 		rc |= hl_xml_num(w, "ft", u->f);
 		rc |= hl_xml_int(w, "shells", u->shells);
 		rc |= hl_xml_num(w, "approach", u->approach);
+		rc |= hl_xml_str(w, "type", hl_exchanger_type_name(u->type));
+		if (u->parallel > 1)
+			rc |= hl_xml_int(w, "parallel", u->parallel);
 	}
 	if (!isnan(u->area)) {
 		rc |= hl_xml_num(w, "area", u->area);

@@ -194,9 +194,13 @@ unit_row(FILE *fp, const hl_case *c, const hl_audit *a, size_t i, int w)
 		fprintf(fp, " %9.1f%s %2d", hl_show_a(u->area),
 			u->area_estimated ? "*" : " ", u->shells);
 	if (isnan(a->unit_alpha[i]))
-		fprintf(fp, "     -\n");
+		fprintf(fp, "     -");
 	else
-		fprintf(fp, "  %5.2f\n", a->unit_alpha[i]);
+		fprintf(fp, "  %5.2f", a->unit_alpha[i]);
+	/* A type other than shell-and-tube is named after the row. */
+	if (!isnan(u->lmtd) && u->type != HL_EXCH_SHELL_TUBE)
+		fprintf(fp, "  %s", hl_exchanger_type_name(u->type));
+	fputc('\n', fp);
 }
 
 static void

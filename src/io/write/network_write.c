@@ -11,6 +11,17 @@
 #include "profile.h"
 #include "result_xml.h"
 
+/* Short tag of a type after the shell count in the text table. */
+static const char *
+type_tag(hl_exchanger_type t)
+{
+	static const char *const tag[HL_EXCH_NTYPES] = {
+		"", " CF", " PL", " DP", " AC", " FH"
+	};
+
+	return (int)t >= 0 && t < HL_EXCH_NTYPES ? tag[t] : "";
+}
+
 #define NCOL 16
 #define CELL 96
 
@@ -56,9 +67,15 @@ cells(const hl_network *net, const hl_network_unit *u, char c[NCOL][CELL])
 	    u->assumed ? "*" : "");
 	snprintf(c[11], CELL, "%.2f", hl_show_dt(u->lmtd));
 	snprintf(c[12], CELL, "%.3f", u->ft);
-	snprintf(c[13], CELL, "%d%s", u->shells,
-	    u->type == HL_EXCH_COUNTERFLOW ? " CF" : "");
-	snprintf(c[14], CELL, "%.2f", hl_show_a(u->area));
+	if (u->parallel > 1)
+		snprintf(c[13], CELL, "%d×%d%s", u->shells, u->parallel,
+		    type_tag(u->type));
+	else
+		snprintf(c[13], CELL, "%d%s", u->shells, type_tag(u->type));
+	if (u->type == HL_EXCH_FIRED_HEATER)
+		snprintf(c[14], CELL, "by duty");
+	else
+		snprintf(c[14], CELL, "%.2f", hl_show_a(u->area));
 	snprintf(c[15], CELL, "%.0f", u->cost);
 }
 
@@ -212,7 +229,9 @@ text_summary(FILE *fp, const hl_network *net)
 		fprintf(fp, "shell-and-tube units, F floor %.2f, Xp %.2f\n",
 		    set->fmin, set->xp);
 	else
-		fprintf(fp, "counterflow units (F = 1)\n");
+		fprintf(fp, "%s units%s\n", hl_exchanger_type_name(
+		    set->exchanger), set->exchanger == HL_EXCH_AIR_COOLER ?
+		    "" : " (F = 1)");
 	fprintf(fp, "Hot utility        %10.*f %s (target %.*f %s)\n",
 	    HL_DIG_Q(1), hl_show_q(net->qh), HL_SYM_Q, HL_DIG_Q(1),
 	    hl_show_q(net->qh_target), HL_SYM_Q);
@@ -264,6 +283,45 @@ text_notes(FILE *fp, const hl_network *net)
 }
 
 /* Which parties lent h_default to the U of some unit. */
+/* The cost law of every type the network uses. */
+static void
+text_laws(FILE *fp, const hl_network *net)
+{
+	char buf[400];
+	int t;
+	size_t i;
+
+	for (i = 0; i < net->nunit; i++)
+		if (net->unit[i].warn != 0) {
+			char why[300];
+
+			hl_network_unit_warning(net, &net->unit[i], why,
+			    sizeof why);
+			snprintf(buf, sizeof buf, "Warning: %s: %s",
+			    net->unit[i].id, why);
+			hl_text_wrap(fp, buf, "", "  ", 78);
+		}
+	fprintf(fp, "Cost laws:\n");
+	for (t = 0; t < HL_EXCH_NTYPES; t++) {
+		for (i = 0; i < net->nunit; i++)
+			if ((int)net->unit[i].type == t)
+				break;
+		if (i == net->nunit)
+			continue;
+		hl_exchanger_law_text(&net->set, (hl_exchanger_type)t, buf,
+		    sizeof buf);
+		hl_text_wrap(fp, buf, "  ", "    ", 78);
+	}
+	for (i = 0; i < net->nparty; i++)
+		if (net->party[i].utility && net->party[i].cost_given) {
+			snprintf(buf, sizeof buf, "units on %s: %.6g + "
+			    "%.6g·X^%.3g each (set by the case)",
+			    net->party[i].name, net->party[i].cost_a,
+			    net->party[i].cost_b, net->party[i].cost_c);
+			hl_text_wrap(fp, buf, "  ", "    ", 78);
+		}
+}
+
 static void
 text_assumed(FILE *fp, const hl_network *net)
 {
@@ -296,14 +354,15 @@ text_assumed(FILE *fp, const hl_network *net)
 		    buf);
 		hl_text_wrap(fp, line, "", "  ", 78);
 	}
-	snprintf(buf, sizeof buf, "Cost per shell %.6g + %.6g·A^%.3g (A in "
-	    "m², the setting cost a, b, c; the built-in law is illustrative, "
-	    "not a price). Shells: the fewest in series with F at or above "
-	    "the floor and each shell's P within Xp of its maximum (Ahmad, "
-	    "Linnhoff & Smith 1988); CF: pure counterflow. Shares: the "
-	    "fraction of a stream's flow through the unit (1 unless the "
-	    "stream is split).", net->set.cost_a, net->set.cost_b,
-	    net->set.cost_c);
+	text_laws(fp, net);
+	snprintf(buf, sizeof buf, "Shells: in series the fewest with F at or "
+	    "above the floor and each shell's P within Xp of its maximum "
+	    "(Ahmad, Linnhoff & Smith 1988); s×p: s in series, p such trains "
+	    "in parallel where one shell would pass the largest. Tags: CF "
+	    "counterflow, PL plate, DP double pipe (hairpins), AC air cooler "
+	    "(crossflow sections), FH fired heater (sized by duty). Shares: "
+	    "the fraction of a stream's flow through the unit (1 unless the "
+	    "stream is split).");
 	hl_text_wrap(fp, buf, "", "", 78);
 }
 
@@ -357,6 +416,14 @@ xml_party(xmlTextWriterPtr w, const hl_network_party *p)
 	rc |= xml_opt(w, "dt-contrib", p->dt_contrib);
 	if (p->utility && p->implicit)
 		rc |= hl_xml_str(w, "implicit", "yes");
+	if (p->utility && p->type_given)
+		rc |= hl_xml_str(w, "type",
+		    hl_exchanger_type_name((hl_exchanger_type)p->type));
+	if (p->utility && p->cost_given) {
+		rc |= hl_xml_num(w, "cost-a", p->cost_a);
+		rc |= hl_xml_num(w, "cost-b", p->cost_b);
+		rc |= hl_xml_num(w, "cost-c", p->cost_c);
+	}
 	for (k = 0; !p->utility && p->nseg > 1 && k < p->nseg; k++) {
 		rc |= xmlTextWriterStartElement(w, BAD_CAST "segment");
 		rc |= hl_xml_num(w, "supply", p->seg[k].supply);
@@ -390,9 +457,17 @@ xml_unit(xmlTextWriterPtr w, const hl_network *net, const hl_network_unit *u)
 	rc |= hl_xml_num(w, "lmtd", u->lmtd);
 	rc |= hl_xml_num(w, "ft", u->ft);
 	rc |= hl_xml_int(w, "shells", u->shells);
+	if (u->parallel > 1)
+		rc |= hl_xml_int(w, "parallel", u->parallel);
 	rc |= hl_xml_num(w, "area", u->area);
 	rc |= hl_xml_num(w, "area-shell", u->area_shell);
 	rc |= hl_xml_num(w, "cost", u->cost);
+	if (u->warn != 0) {
+		char why[400];
+
+		hl_network_unit_warning(net, u, why, sizeof why);
+		rc |= hl_xml_str(w, "warning", why);
+	}
 	if (u->hot_stage > 0)
 		rc |= hl_xml_int(w, "hot-stage", u->hot_stage);
 	if (u->cold_stage > 0)
@@ -411,12 +486,35 @@ xml_unit(xmlTextWriterPtr w, const hl_network *net, const hl_network_unit *u)
 	return rc;
 }
 
+/* The law of type t as used (for `check` to price the units again). */
+static int
+xml_law(xmlTextWriterPtr w, const hl_settings *set, hl_exchanger_type t)
+{
+	double a, b, c;
+	int rc = 0;
+
+	hl_exchanger_law_of(set, t, &a, &b, &c);
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "law");
+	rc |= hl_xml_str(w, "type", hl_exchanger_type_name(t));
+	rc |= hl_xml_num(w, "a", a);
+	rc |= hl_xml_num(w, "b", b);
+	rc |= hl_xml_num(w, "c", c);
+	rc |= hl_xml_str(w, "x", t == HL_EXCH_FIRED_HEATER ? "duty" : "area");
+	if (isfinite(set->law[t].largest))
+		rc |= hl_xml_num(w, "largest", set->law[t].largest);
+	rc |= hl_xml_num(w, "smallest", set->law[t].smallest);
+	rc |= hl_xml_str(w, "source", hl_exchanger_law_illustrative(set, t) ?
+	    "illustrative" : "case");
+	rc |= xmlTextWriterEndElement(w);
+	return rc;
+}
+
 int
 hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 {
 	const hl_settings *set = &net->set;
 	size_t i;
-	int rc = 0;
+	int rc = 0, t;
 
 	rc |= xmlTextWriterStartElement(w, BAD_CAST "network");
 	rc |= hl_xml_num(w, "dtmin", set->dtmin);
@@ -448,6 +546,8 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 	rc |= hl_xml_num(w, "annual-capital-cost", net->capital_annual);
 	rc |= hl_xml_num(w, "energy-cost", net->energy_cost);
 	rc |= hl_xml_num(w, "total-cost", net->total_cost);
+	for (t = 0; t < HL_EXCH_NTYPES && rc >= 0; t++)
+		rc |= xml_law(w, set, (hl_exchanger_type)t);
 	for (i = 0; i < net->nparty && rc >= 0; i++)
 		if (!net->party[i].utility)
 			rc |= xml_party(w, &net->party[i]);
@@ -468,13 +568,13 @@ hl_network_csv(FILE *fp, const hl_network *net)
 {
 	static const char *const name[] = { "duty", "hot_in", "hot_out",
 		"cold_in", "cold_out", "hot_share", "cold_share", "hot_stage",
-		"cold_stage", "u", "lmtd", "f", "shells", "area", "area_shell",
-		"cost", "approach", "required" };
+		"cold_stage", "u", "lmtd", "f", "shells", "parallel", "area",
+		"area_shell", "cost", "approach", "required" };
 	static const hl_qty qty[] = { HL_QTY_POWER, HL_QTY_TEMP, HL_QTY_TEMP,
 		HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_NONE, HL_QTY_NONE,
 		HL_QTY_NONE, HL_QTY_NONE, HL_QTY_HTC, HL_QTY_DTEMP,
-		HL_QTY_NONE, HL_QTY_NONE, HL_QTY_AREA, HL_QTY_AREA,
-		HL_QTY_NONE, HL_QTY_DTEMP, HL_QTY_DTEMP };
+		HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_AREA,
+		HL_QTY_AREA, HL_QTY_NONE, HL_QTY_DTEMP, HL_QTY_DTEMP };
 	char h[64];
 	size_t i;
 
@@ -506,6 +606,7 @@ hl_network_csv(FILE *fp, const hl_network *net)
 		hl_csv_num(fp, hl_show_dt(u->lmtd));
 		hl_csv_num(fp, u->ft);
 		hl_csv_num(fp, u->shells);
+		hl_csv_num(fp, u->parallel > 0 ? u->parallel : 1);
 		hl_csv_num(fp, hl_show_a(u->area));
 		hl_csv_num(fp, hl_show_a(u->area_shell));
 		hl_csv_num(fp, u->cost);

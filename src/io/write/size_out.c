@@ -15,11 +15,24 @@
 #include "text_out.h"
 #include "utf8.h"
 
-/* Whether the unit's cold outlet is above its hot outlet. */
+/* Short tag of a type for the text table. */
+static const char *
+type_tag(hl_exchanger_type t)
+{
+	static const char *const tag[HL_EXCH_NTYPES] = {
+		"S&T", "CF", "PL", "DP", "AC", "FH"
+	};
+
+	return (int)t >= 0 && t < HL_EXCH_NTYPES ? tag[t] : "?";
+}
+
+/* Whether the unit's cold outlet is above its hot outlet; a fired heater
+ * has no cross to speak of: it is sized by duty. */
 static int
 row_cross(const hl_size_row *row)
 {
-	return row->spec.cold_out > row->spec.hot_out;
+	return row->spec.type != HL_EXCH_FIRED_HEATER &&
+	    row->spec.cold_out > row->spec.hot_out;
 }
 
 /* A line that holds back its spaces until something follows them, so that
@@ -121,16 +134,29 @@ sized_cells(const hl_size_row *row, cells *c)
 		return;
 	}
 	number(c->text[K_F], 3, z->f);
-	snprintf(c->text[K_SHELLS], CELL, "%d", z->shells);
-	if (st && (row->assumed & (HL_ASSUMED_FMIN | HL_ASSUMED_XP)))
+	if (z->parallel > 1)
+		snprintf(c->text[K_SHELLS], CELL, "%d×%d", z->shells,
+		    z->parallel);
+	else
+		snprintf(c->text[K_SHELLS], CELL, "%d", z->shells);
+	if ((st && (row->assumed & (HL_ASSUMED_FMIN | HL_ASSUMED_XP))) ||
+	    (row->assumed & HL_ASSUMED_LARGEST))
 		c->mark[K_SHELLS] = '*';
-	number(c->text[K_AREA], 2, hl_show_a(z->area));
-	number(c->text[K_ASHELL], 2, hl_show_a(z->area_shell));
+	if (row->spec.type == HL_EXCH_FIRED_HEATER) {
+		snprintf(c->text[K_AREA], CELL, "by duty");
+		snprintf(c->text[K_ASHELL], CELL, "—");
+	} else {
+		number(c->text[K_AREA], 2, hl_show_a(z->area));
+		number(c->text[K_ASHELL], 2,
+		    hl_show_a(z->area_shell));
+	}
 	number(c->text[K_COST], 0, z->cost);
 	if (row->assumed & HL_ASSUMED_COST)
 		c->mark[K_COST] = '*';
-	snprintf(c->text[K_NOTE], CELL, "%s",
-	    row_cross(row) ? "cross" : "");
+	snprintf(c->text[K_NOTE], CELL, "%s%s%s",
+	    row_cross(row) ? "cross" : "",
+	    row_cross(row) && z->warn ? ", " : "",
+	    z->warn ? "CHECK" : "");
 }
 
 static void
@@ -142,8 +168,7 @@ row_cells(const hl_size_row *row, cells *c)
 
 	for (k = 0; k < K_COUNT; k++)
 		c->mark[k] = ' ';
-	snprintf(c->text[K_TYPE], CELL, "%s",
-	    s->type == HL_EXCH_COUNTERFLOW ? "CF" : "S&T");
+	snprintf(c->text[K_TYPE], CELL, "%s", type_tag(s->type));
 	if (row->assumed & HL_ASSUMED_TYPE)
 		c->mark[K_TYPE] = '*';
 	number(c->text[K_DUTY], HL_DIG_Q(1), hl_show_q(s->duty));
@@ -151,7 +176,10 @@ row_cells(const hl_size_row *row, cells *c)
 	number(c->text[K_HOUT], 1, hl_show_t(s->hot_out));
 	number(c->text[K_CIN], 1, hl_show_t(s->cold_in));
 	number(c->text[K_COUT], 1, hl_show_t(s->cold_out));
-	number(c->text[K_U], HL_DIG_H(3), hl_show_h(s->u));
+	if (s->type == HL_EXCH_FIRED_HEATER)
+		snprintf(c->text[K_U], CELL, "—");
+	else
+		number(c->text[K_U], HL_DIG_H(3), hl_show_h(s->u));
 	if (row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD))
 		c->mark[K_U] = '*';
 	number(c->text[K_LMTD], 2, hl_show_dt(z->lmtd));
@@ -253,7 +281,8 @@ text_totals(FILE *fp, const hl_size_result *r)
 		if (r->row[i].status != HL_OK)
 			continue;
 		sized++;
-		shells += r->row[i].size.shells;
+		shells += (long)r->row[i].size.shells *
+		    r->row[i].size.parallel;
 		area += r->row[i].size.area;
 		cost += r->row[i].size.cost;
 	}
@@ -292,7 +321,7 @@ note_cross(FILE *fp, const hl_size_row *row)
 
 	if (!row_cross(row))
 		return;
-	if (s->type == HL_EXCH_COUNTERFLOW)
+	if (s->type != HL_EXCH_SHELL_TUBE && s->type != HL_EXCH_AIR_COOLER)
 		snprintf(tail, sizeof tail, "; a counterflow unit can do it");
 	else if (row->status == HL_OK)
 		snprintf(tail, sizeof tail, "; %d shell%s in series",
@@ -343,10 +372,23 @@ note_h(FILE *fp, const hl_size_row *row, const hl_settings *d)
 	    hl_show_h(d->h_default), HL_SYM_H);
 }
 
+/* An implausible U or shell size (hl_exchanger_warning). */
+static void
+note_warn(FILE *fp, const hl_size_row *row)
+{
+	char why[300];
+
+	if (row->status != HL_OK || row->size.warn == 0)
+		return;
+	hl_exchanger_warning(&row->spec, &row->size, why, sizeof why);
+	note(fp, row, "CHECK: %s", why);
+}
+
 static int
 has_note(const hl_size_row *row)
 {
 	return row->status != HL_OK || row_cross(row) ||
+	    (row->status == HL_OK && row->size.warn != 0) ||
 	    (row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)) ||
 	    balance_differs(row);
 }
@@ -368,6 +410,7 @@ text_notes(FILE *fp, const hl_size_result *r)
 		if (row->status != HL_OK)
 			note(fp, row, "NOT SIZED: %s", row->note);
 		note_cross(fp, row);
+		note_warn(fp, row);
 		note_balance(fp, row);
 		note_h(fp, row, r->defaults);
 	}
@@ -382,6 +425,29 @@ assumed_all(const hl_size_result *r)
 	for (i = 0; i < r->n; i++)
 		a |= r->row[i].assumed;
 	return a;
+}
+
+/* The illustrative law of each type a row took by default. */
+static void
+text_laws(FILE *fp, const hl_size_result *r)
+{
+	char buf[300];
+	unsigned done = 0;
+	size_t i;
+
+	for (i = 0; i < r->n; i++) {
+		const hl_size_row *row = &r->row[i];
+
+		if (!(row->assumed & HL_ASSUMED_COST) ||
+		    (done & (1u << row->spec.type)))
+			continue;
+		done |= 1u << row->spec.type;
+		hl_exchanger_law_text(r->defaults, row->spec.type, buf,
+		    sizeof buf);
+		hl_text_wrap(fp, buf, "  cost ", "    ", NOTE_WIDTH);
+	}
+	hl_text_wrap(fp, "(give your own: columns cost_a, cost_b, cost_c; "
+	    "--cost-a, --cost-b, --cost-c)", "  ", "    ", NOTE_WIDTH);
 }
 
 static void
@@ -404,13 +470,13 @@ text_assumed(FILE *fp, const hl_size_result *r)
 		    "--xp)", d->fmin, d->xp);
 		hl_text_wrap(fp, buf, "  ", "    ", NOTE_WIDTH);
 	}
-	if (a & HL_ASSUMED_COST) {
-		snprintf(buf, sizeof buf, "cost per shell %g + %g·A^%g, A in "
-		    "m²: an illustrative law, not a price; give your own "
-		    "(columns cost_a, cost_b, cost_c; --cost-a, --cost-b, "
-		    "--cost-c)", d->cost_a, d->cost_b, d->cost_c);
-		hl_text_wrap(fp, buf, "  ", "    ", NOTE_WIDTH);
-	}
+	if (a & HL_ASSUMED_COST)
+		text_laws(fp, r);
+	if (a & HL_ASSUMED_LARGEST)
+		hl_text_wrap(fp, "largest shell: the type's illustrative default "
+		    "(column largest, --largest); beyond it shells go in "
+		    "parallel (s×p: s in series, p trains in parallel)", "  ",
+		    "    ", NOTE_WIDTH);
 	if (a & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)) {
 		snprintf(buf, sizeof buf, "U from one given film coefficient "
 		    "and %g kW/(m²·K) for the other (see the notes)",
@@ -421,12 +487,17 @@ text_assumed(FILE *fp, const hl_size_result *r)
 
 static const char legend[] =
 "\nS&T: shell-and-tube, 1 shell pass and 2, 4, … tube passes per shell,\n"
-"shells in series; CF: pure counterflow (F = 1). P = (t2 − t1)/(T1 − t1),\n"
+"shells in series; CF: pure counterflow (F = 1); PL: plate (F = 1); DP:\n"
+"double pipe, hairpins in series (F = 1); AC: air cooler, crossflow with\n"
+"both fluids unmixed, sections in series; FH: fired heater, sized and\n"
+"costed by duty (Q in MW). s×p: s in series, p trains in parallel where\n"
+"one shell would pass the largest. CHECK: an implausible U or shell size\n"
+"(see the notes). P = (t2 − t1)/(T1 − t1),\n"
 "R = (T1 − T2)/(t2 − t1), hot side T, cold side t. F: LMTD correction of\n"
 "Bowman, Mueller & Nagle (1940); shells: the fewest with F at or above the\n"
 "floor and each shell's P within Xp of its maximum (Ahmad, Linnhoff & Smith\n"
-"1988). Area = duty/(U·F·LMTD), equal over the shells; cost a + b·A^c per\n"
-"shell, in the cost law's currency.\n";
+"1988). Area = duty/(U·F·LMTD), equal over the shells; cost a + b·X^c per\n"
+"shell (X its area, or a fired heater's duty), in the law's currency.\n";
 
 void
 hl_size_text(FILE *fp, const hl_size_result *r)
@@ -452,7 +523,8 @@ assumed_list(unsigned a, int shell_tube, char *buf, size_t size)
 	} names[] = {
 		{ HL_ASSUMED_TYPE, "type" }, { HL_ASSUMED_FMIN, "fmin" },
 		{ HL_ASSUMED_XP, "xp" }, { HL_ASSUMED_COST, "cost" },
-		{ HL_ASSUMED_H_HOT, "h-hot" }, { HL_ASSUMED_H_COLD, "h-cold" }
+		{ HL_ASSUMED_H_HOT, "h-hot" }, { HL_ASSUMED_H_COLD, "h-cold" },
+		{ HL_ASSUMED_LARGEST, "largest" }
 	};
 	size_t i;
 
@@ -501,9 +573,17 @@ xml_sizing(xmlTextWriterPtr w, const hl_size_row *row)
 	if (row->status == HL_OK) {
 		rc |= hl_xml_num(w, "ft", z->f);
 		rc |= hl_xml_int(w, "shells", z->shells);
+		if (z->parallel > 1)
+			rc |= hl_xml_int(w, "parallel", z->parallel);
 		rc |= hl_xml_num(w, "area", z->area);
 		rc |= hl_xml_num(w, "area-shell", z->area_shell);
 		rc |= hl_xml_num(w, "cost", z->cost);
+		if (z->warn != 0) {
+			char why[300];
+
+			hl_exchanger_warning(s, z, why, sizeof why);
+			rc |= hl_xml_str(w, "warning", why);
+		}
 	}
 	if (s->type == HL_EXCH_SHELL_TUBE) {
 		rc |= hl_xml_num(w, "fmin", s->fmin);
@@ -512,13 +592,16 @@ xml_sizing(xmlTextWriterPtr w, const hl_size_row *row)
 	rc |= hl_xml_num(w, "cost-a", s->cost_a);
 	rc |= hl_xml_num(w, "cost-b", s->cost_b);
 	rc |= hl_xml_num(w, "cost-c", s->cost_c);
+	if (isfinite(s->largest) && s->largest > 0.0)
+		rc |= hl_xml_num(w, "largest", s->largest);
+	rc |= hl_xml_num(w, "smallest", s->smallest);
 	return rc;
 }
 
 static int
 xml_row(xmlTextWriterPtr w, const hl_size_row *row)
 {
-	char assumed[64];
+	char assumed[96];
 	int rc = 0;
 
 	rc |= xmlTextWriterStartElement(w, BAD_CAST "exchanger");
@@ -562,7 +645,7 @@ csv_row(FILE *fp, const hl_size_row *row)
 	const hl_exchanger_spec *s = &row->spec;
 	const hl_exchanger_sizing *z = &row->size;
 	int ok = row->status == HL_OK;
-	char assumed[64];
+	char assumed[96], why[300] = "";
 
 	hl_csv_text(fp, row->unit->name);
 	fprintf(fp, ",%ld,%s", row->unit->line, hl_exchanger_type_name(s->type));
@@ -577,6 +660,7 @@ csv_row(FILE *fp, const hl_size_row *row)
 	hl_csv_num(fp, z->r);
 	hl_csv_num(fp, ok ? z->f : NAN);
 	hl_csv_num(fp, ok ? z->shells : NAN);
+	hl_csv_num(fp, ok ? z->parallel : NAN);
 	hl_csv_num(fp, ok ? hl_show_a(z->area) : NAN);
 	hl_csv_num(fp, ok ? hl_show_a(z->area_shell) : NAN);
 	hl_csv_num(fp, ok ? z->cost : NAN);
@@ -586,7 +670,9 @@ csv_row(FILE *fp, const hl_size_row *row)
 	    sizeof assumed);
 	fputs(assumed, fp);
 	fputc(',', fp);
-	hl_csv_text(fp, ok ? "" : row->note);
+	if (ok && z->warn != 0)
+		hl_exchanger_warning(s, z, why, sizeof why);
+	hl_csv_text(fp, ok ? why : row->note);
 	fputc('\n', fp);
 }
 
@@ -604,7 +690,7 @@ hl_size_csv(FILE *fp, const hl_size_result *r)
 	for (i = 0; i < sizeof qty / sizeof qty[0]; i++)
 		fprintf(fp, "%s,", hl_show_header(h[0], sizeof h[0], name[i],
 						  qty[i]));
-	fprintf(fp, "p,r,f,shells,%s,%s,cost,status,cross,assumed,note\n",
+	fprintf(fp, "p,r,f,shells,parallel,%s,%s,cost,status,cross,assumed,note\n",
 	    hl_show_header(h[0], sizeof h[0], "area", HL_QTY_AREA),
 	    hl_show_header(h[1], sizeof h[1], "area_shell", HL_QTY_AREA));
 	for (i = 0; i < r->n; i++)

@@ -21,7 +21,8 @@ enum {
 	HL_ASSUMED_XP = 1u << 2,
 	HL_ASSUMED_COST = 1u << 3,
 	HL_ASSUMED_H_HOT = 1u << 4,
-	HL_ASSUMED_H_COLD = 1u << 5
+	HL_ASSUMED_H_COLD = 1u << 5,
+	HL_ASSUMED_LARGEST = 1u << 6
 };
 
 /* One exchanger of the list and what became of it. */
