@@ -28,6 +28,7 @@ static const hl_option option_rows[] = {
 	HL_ROW_DTMIN("ΔTmin of the targets (default: the case's, or 10)"),
 	HL_ROW_UTILITIES,
 	HL_ROW_FORMAT("text (default), xml, or csv (the retrofit curve)"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
 	HL_ROW_TEXT("svg", "FILE", audit_opts, svg,
 	    "chart of area against energy: the targets, today's\n"

@@ -10,12 +10,15 @@
 #include <string.h>
 
 #include "cmd.h"
+#include "display.h"
 #include "netcheck.h"
 #include "network_read.h"
 #include "output.h"
 
 static const hl_option option_rows[] = {
 	HL_ROW_QUIET("no summary on standard output"),
+	HL_ROW_UNITS(HL_UNITS_HELP
+	    "\n(the summary; the problems stay in SI units)"),
 	HL_ROW_HELP,
 	HL_ROW_END
 };
@@ -60,10 +63,12 @@ run_check(void *opts, hl_error *err)
 	report(o->input, r);
 	if (!o->quiet)
 		printf("%s: %zu exchangers, %zu streams, %zu utilities: "
-		    "%s%zu problem%s (targets from the streams: %.1f kW "
-		    "hot, %.1f kW cold)\n", o->input, net->nunit, nstream,
+		    "%s%zu problem%s (targets from the streams: %.*f %s "
+		    "hot, %.*f %s cold)\n", o->input, net->nunit, nstream,
 		    net->nparty - nstream, r->n == 0 ? "sound, " : "",
-		    r->n, r->n == 1 ? "" : "s", r->qh_min, r->qc_min);
+		    r->n, r->n == 1 ? "" : "s", HL_DIG_Q(1),
+		    hl_show_q(r->qh_min), HL_SYM_Q, HL_DIG_Q(1),
+		    hl_show_q(r->qc_min), HL_SYM_Q);
 	st = r->n == 0 ? HL_OK : HL_EINPUT;
 	hl_netcheck_free(r);
 	hl_network_free(net);

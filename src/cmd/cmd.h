@@ -22,6 +22,7 @@ typedef enum {
 	HL_ARG_TEXT,    /* a file name or a text: stores the const char * */
 	HL_ARG_NUMBER,  /* a number from lo to hi: stores a double */
 	HL_ARG_FORMAT,  /* text, xml or csv: stores an hl_format */
+	HL_ARG_UNITS,   /* si or us: sets the display units (display.h) */
 	HL_ARG_CALL,    /* the command's own parser, call */
 	HL_ARG_HELP     /* prints the help; the command ends with exit 0 */
 } hl_arg_kind;
@@ -63,6 +64,11 @@ typedef struct {
 	offsetof(hl_common, output), 0, 0, NULL }
 #define HL_ROW_VERBOSE(text) HL_ROW_FLAG("verbose", hl_common, verbose, 1, text)
 #define HL_ROW_QUIET(text) HL_ROW_FLAG("quiet", hl_common, quiet, 1, text)
+/* --units si|us: sets the display units (display.h) at once. */
+#define HL_UNITS_HELP "si (default) or us: text, CSV, SVG and the report " \
+	"in\n°F, Btu/h, Btu/(h·°F), ft², Btu/(h·ft²·°F); XML stays SI"
+#define HL_ROW_UNITS(text) { "units", 0, "SYS", text, HL_ARG_UNITS, 0, 0, 0, \
+	NULL }
 #define HL_ROW_HELP { "help", 'h', NULL, "show this help", HL_ARG_HELP, \
 	0, 0, 0, NULL }
 #define HL_ROW_END { NULL, 0, NULL, NULL, HL_ARG_FLAG, 0, 0, 0, NULL }
@@ -128,6 +134,9 @@ int hl_cmd_main(const hl_command *cmd, int argc, char **argv);
 int hl_cmd_check_grid(const char *cmd, double from, double to, double step);
 /* Whether the option called name was given on the command line. */
 int hl_cmd_given(const hl_command *cmd, const void *opts, const char *name);
+
+/* Parse --units and set the display units; 0 on success. */
+int hl_cmd_parse_units(const char *cmd, const char *arg);
 
 /* Parse a number option value; 0 on success. */
 int hl_cmd_parse_double(const char *cmd, const char *opt, const char *arg,

@@ -7,6 +7,7 @@
 
 #include "case_load.h"
 #include "cmd.h"
+#include "display.h"
 #include "number.h"
 #include "output.h"
 
@@ -20,6 +21,7 @@ void
 hl_common_init(hl_common *o)
 {
 	memset(o, 0, sizeof *o);
+	hl_display_set(HL_UNITS_SI);
 	o->format = HL_FMT_TEXT;
 	o->dtmin = NAN;
 }
@@ -104,6 +106,18 @@ hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err)
 		*out = NULL;
 	}
 	return st;
+}
+
+int
+hl_cmd_parse_units(const char *cmd, const char *arg)
+{
+	hl_unit_system s;
+
+	if (hl_display_parse(arg, &s) != 0)
+		return hl_cmd_usage(cmd, "--units wants si or us, not '%s'",
+				    arg);
+	hl_display_set(s);
+	return 0;
 }
 
 int

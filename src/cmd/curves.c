@@ -24,6 +24,7 @@ HL_COMMON_FIRST(options);
 static const hl_option option_rows[] = {
 	HL_ROW_DTMIN("minimum approach temperature (default: the case's, or 10)"),
 	HL_ROW_UTILITIES,
+	HL_ROW_UNITS(HL_UNITS_HELP),
 	HL_ROW_OUTPUT("DIR", "the folder to write into (required)"),
 	HL_ROW_VERBOSE("show the LP solver's messages on standard error"),
 	HL_ROW_HELP,

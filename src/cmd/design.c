@@ -44,6 +44,7 @@ static const hl_option option_rows[] = {
 	    "the case's, or ΔTmin)"),
 	HL_ROW_UTILITIES,
 	HL_ROW_FORMAT("text (default), xml (what `heatloom check` reads), csv"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
 	HL_ROW_TEXT("svg", "FILE", options, svg,
 	    "also draw the grid diagram into FILE (SVG)"),

@@ -26,6 +26,7 @@ static const hl_option option_rows[] = {
 	HL_ROW_DTMIN("minimum approach temperature (default: the case's, or 10)"),
 	HL_ROW_UTILITIES,
 	HL_ROW_FORMAT("text (default), xml, or csv (the match table)"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
 	HL_ROW_NUMBER("time-limit", "S", options, time_limit, 0.0, 1e6,
 	    "solver time per subnetwork in s (default: the case's,\n"

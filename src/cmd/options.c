@@ -87,6 +87,8 @@ apply(const hl_command *cmd, size_t i, const char *arg, void *opts)
 		return hl_cmd_parse_format(cmd->name, arg,
 		    HL_FMT_BIT(HL_FMT_TEXT) | HL_FMT_BIT(HL_FMT_XML) |
 		    HL_FMT_BIT(HL_FMT_CSV), (hl_format *)at) != 0;
+	case HL_ARG_UNITS:
+		return hl_cmd_parse_units(cmd->name, arg) != 0;
 	case HL_ARG_CALL:
 		return r->call(opts, arg);
 	default:

@@ -66,6 +66,7 @@ static const hl_option option_rows[] = {
 	TEXT("author", "TEXT", author, "name shown as \"prepared by\""),
 	TEXT("date", "TEXT", date, "date shown (default: today, or "
 	     "SOURCE_DATE_EPOCH)"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
 	HL_ROW_VERBOSE("show the LP solver's messages on standard error"),
 	HL_ROW_HELP,

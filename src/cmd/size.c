@@ -74,6 +74,7 @@ static const hl_option option_rows[] = {
 	    "a unit that cannot be built is an error (exit 3)\n"
 	    "instead of a unit reported as not sized"),
 	HL_ROW_FORMAT("text (default), xml, or csv"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
 	HL_ROW_HELP,
 	HL_ROW_END

@@ -25,6 +25,7 @@ static const hl_option option_rows[] = {
 	    "grid step (default 1)"),
 	HL_ROW_UTILITIES,
 	HL_ROW_FORMAT("text (default), xml, or csv"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
 	HL_ROW_TEXT("cost-svg", "FILE", sweep_opts, cost_svg,
 	    "chart of annual cost against ΔTmin"),

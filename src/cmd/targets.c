@@ -33,6 +33,7 @@ static const hl_option option_rows[] = {
 	HL_ROW_FLAG("supertargets", options, super, 1,
 	    "also the area, units, shells and cost targets at this\n"
 	    "ΔTmin (text and xml)"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
 	HL_ROW_VERBOSE("show the LP solver's messages on standard error"),
 	HL_ROW_HELP,

@@ -14,6 +14,7 @@
 #include <string.h>
 
 #include "case_tree.h"
+#include "plausible.h"
 #include "tables.h"
 #include "xml_attr.h"
 
@@ -435,6 +436,11 @@ read_ends(walk *w, xmlNodePtr n, const char *name, double h, hl_segment *g)
 			"is %g kW, but duty says %g kW; give one of them or make "
 			"them agree", name, cp, span, cp * span, duty);
 	g->cp = cp;
+	hl_doubt_htc(w->o->file, g->line, "h", g->h);
+	if (g->by_duty)
+		hl_doubt_duty(w->o->file, g->line, "duty", duty);
+	else
+		hl_doubt_cp(w->o->file, g->line, "cp", cp, span);
 	return HL_OK;
 }
 
@@ -578,6 +584,8 @@ read_utility(walk *w, xmlNodePtr n)
 	u.cost_given = ncost == 3;
 	u.file = (char *)w->o->file;
 	u.line = hl_xattr_line(n);
+	hl_doubt_htc(u.file, u.line, "h", u.h);
+	hl_doubt_duty(u.file, u.line, "max-load", u.max_load);
 	return hl_case_add_utility(w->c, &u, w->err);
 }
 

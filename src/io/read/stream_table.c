@@ -5,6 +5,8 @@
 #include <string.h>
 #include <strings.h>
 
+#include "plausible.h"
+#include "read_warn.h"
 #include "table.h"
 #include "tables.h"
 
@@ -14,6 +16,12 @@ enum { C_NAME, C_SUPPLY, C_TARGET, C_CP, C_DUTY, C_H, C_DTC, C_KIND, C_AREA,
 static const char *const columns[C_COUNT] = {
 	"name", "supply", "target", "cp", "duty", "h", "dt_contrib", "kind",
 	"area", "cp_tol", "t_tol"
+};
+
+static const hl_qty qty[C_COUNT] = {
+	HL_QTY_NONE, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_CP, HL_QTY_POWER,
+	HL_QTY_HTC, HL_QTY_DTEMP, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE,
+	HL_QTY_DTEMP
 };
 
 /* One row as read, before it joins a stream. */
@@ -102,6 +110,35 @@ row_cp(hl_table *t, const char *name, row *r, hl_error *err)
 	return HL_OK;
 }
 
+/* Values that look like another unit (plausible.h). */
+static void
+row_doubts(const hl_table *t, const row *r)
+{
+	const char *f = hl_table_file(t);
+	long l = hl_table_line(t);
+
+	hl_doubt_htc(f, l, "h", r->h);
+	if (r->by_duty)
+		hl_doubt_duty(f, l, "duty", r->duty);
+	else
+		hl_doubt_cp(f, l, "cp", r->cp, fabs(r->supply - r->target));
+}
+
+/* Every temperature at or above HL_DOUBT_KELVIN with no unit in the
+ * header: kelvin written as °C? */
+static void
+kelvin_doubt(const hl_table *t, double coolest, double hottest)
+{
+	if (coolest < HL_DOUBT_KELVIN || hottest > HL_T_MAX ||
+	    hl_table_unit(t, C_SUPPLY) != NULL ||
+	    hl_table_unit(t, C_TARGET) != NULL)
+		return;
+	hl_read_warn(hl_table_file(t), t->header_line, "every supply and "
+		"target temperature is %g or above (the coolest is %g): in "
+		"kelvin? °C is assumed; write the unit in the header, "
+		"'supply [K]' and 'target [K]'", HL_DOUBT_KELVIN, coolest);
+}
+
 static hl_status
 read_row(hl_table *t, row *r, hl_error *err)
 {
@@ -115,6 +152,8 @@ read_row(hl_table *t, row *r, hl_error *err)
 		st = parse_kind(t, &r->kind, err);
 	if (st == HL_OK)
 		st = row_cp(t, hl_table_text(t, C_NAME), r, err);
+	if (st == HL_OK)
+		row_doubts(t, r);
 	return st;
 }
 
@@ -217,6 +256,7 @@ read_rows(hl_case *c, hl_table *t, hl_error *err)
 	builder b;
 	hl_status st = HL_OK;
 	int rc, rows = 0;
+	double coolest = INFINITY, hottest = -INFINITY;
 
 	memset(&b, 0, sizeof b);
 	b.s.file = (char *)hl_table_file(t);
@@ -227,6 +267,8 @@ read_rows(hl_case *c, hl_table *t, hl_error *err)
 		st = read_row(t, &r, err);
 		if (st != HL_OK)
 			break;
+		coolest = fmin(coolest, fmin(r.supply, r.target));
+		hottest = fmax(hottest, fmax(r.supply, r.target));
 		if (b.open && strcmp(b.name, hl_table_text(t, C_NAME)) == 0) {
 			st = builder_continue(&b, t, &r, err);
 		} else {
@@ -247,6 +289,8 @@ read_rows(hl_case *c, hl_table *t, hl_error *err)
 			"streams");
 	if (st == HL_OK)
 		st = builder_flush(c, &b, err);
+	if (st == HL_OK)
+		kelvin_doubt(t, coolest, hottest);
 	free(b.s.seg);
 	return st;
 }
@@ -276,7 +320,8 @@ hl_stream_table_read(hl_case *c, const char *path, hl_error *err)
 	hl_table t;
 	hl_status st;
 
-	st = hl_table_open(&t, path, "stream table", columns, C_COUNT, err);
+	st = hl_table_open(&t, path, "stream table", columns, qty, C_COUNT,
+			   err);
 	if (st != HL_OK)
 		return st;
 	return read_table(c, &t, err);
@@ -290,7 +335,7 @@ hl_stream_table_read_mem(hl_case *c, const char *name, const char *data,
 	hl_status st;
 
 	st = hl_table_open_mem(&t, name, data, len, "stream table", columns,
-			       C_COUNT, err);
+			       qty, C_COUNT, err);
 	if (st != HL_OK)
 		return st;
 	return read_table(c, &t, err);

@@ -14,6 +14,7 @@
 
 #include "case.h"
 #include "exchanger.h"
+#include "plausible.h"
 #include "table.h"
 #include "units_table.h"
 
@@ -25,6 +26,15 @@ static const char *const columns[C_COUNT] = {
 	"name", "hot_in", "hot_out", "cold_in", "cold_out", "duty", "hot_cp",
 	"cold_cp", "u", "h_hot", "h_cold", "type", "fmin", "xp", "cost_a",
 	"cost_b", "cost_c", "largest"
+};
+
+static const hl_qty qty[C_COUNT] = {
+	HL_QTY_NONE, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_TEMP,
+	HL_QTY_POWER, HL_QTY_CP, HL_QTY_CP, HL_QTY_HTC, HL_QTY_HTC,
+	HL_QTY_HTC, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE,
+	HL_QTY_NONE, HL_QTY_NONE,
+	/* largest: m² per shell or MW per fired heater, by the type */
+	HL_QTY_NONE
 };
 
 /* The row being checked: where it is and what it is called. */
@@ -325,6 +335,23 @@ resolve_rules(const ctx *c, const double *v, hl_unit_spec *u, hl_error *err)
 	return HL_OK;
 }
 
+/* Values that look like another unit (plausible.h). */
+static void
+row_doubts(const hl_table *t, const double *v)
+{
+	const char *f = hl_table_file(t);
+	long l = hl_table_line(t);
+	size_t k;
+
+	for (k = C_U; k <= C_H_COLD; k++)
+		hl_doubt_htc(f, l, columns[k], v[k]);
+	hl_doubt_duty(f, l, "duty", v[C_DUTY]);
+	hl_doubt_cp(f, l, "hot_cp", v[C_HOT_CP], fabs(v[C_HOT_IN] -
+	    v[C_HOT_OUT]));
+	hl_doubt_cp(f, l, "cold_cp", v[C_COLD_CP], fabs(v[C_COLD_OUT] -
+	    v[C_COLD_IN]));
+}
+
 static hl_status
 read_row(hl_table *t, hl_unit_spec *u, hl_error *err)
 {
@@ -337,6 +364,8 @@ read_row(hl_table *t, hl_unit_spec *u, hl_error *err)
 		    hl_table_line(t), "exchanger without a name; give each "
 		    "row a name");
 	st = read_numbers(&c, v, err);
+	if (st == HL_OK)
+		row_doubts(t, v);
 	if (st == HL_OK)
 		st = check_temperatures(&c, v, err);
 	if (st == HL_OK)
@@ -491,7 +520,7 @@ hl_units_table_read(const char *path, hl_units_table **out, hl_error *err)
 	hl_table t;
 
 	return finish(&t, hl_table_open(&t, path, "exchanger list", columns,
-	    C_COUNT, err), out, err);
+	    qty, C_COUNT, err), out, err);
 }
 
 hl_status
@@ -501,7 +530,7 @@ hl_units_table_read_mem(const char *name, const char *data, size_t len,
 	hl_table t;
 
 	return finish(&t, hl_table_open_mem(&t, name, data, len,
-	    "exchanger list", columns, C_COUNT, err), out, err);
+	    "exchanger list", columns, qty, C_COUNT, err), out, err);
 }
 
 void

@@ -1,8 +1,11 @@
 /* utility_table.c - reading utility levels from a CSV table. */
 #include <math.h>
+#include <stdlib.h>
 #include <string.h>
 #include <strings.h>
 
+#include "plausible.h"
+#include "read_warn.h"
 #include "table.h"
 #include "tables.h"
 
@@ -12,6 +15,12 @@ enum { U_NAME, U_KIND, U_SUPPLY, U_TARGET, U_PRICE, U_H, U_MAX, U_DTC,
 static const char *const columns[U_COUNT] = {
 	"name", "kind", "supply", "target", "price", "h", "max_load",
 	"dt_contrib", "type", "cost_a", "cost_b", "cost_c"
+};
+
+static const hl_qty qty[U_COUNT] = {
+	HL_QTY_NONE, HL_QTY_NONE, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_PRICE,
+	HL_QTY_HTC, HL_QTY_POWER, HL_QTY_DTEMP, HL_QTY_NONE, HL_QTY_NONE,
+	HL_QTY_NONE, HL_QTY_NONE
 };
 
 /* The optional exchanger type and cost law of the units on a utility. */
@@ -97,7 +106,33 @@ read_utility(hl_table *t, hl_utility *u, hl_error *err)
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
 			"utility '%s': price is missing (currency per MWh; 0 "
 			"for a free utility)", u->name);
+	hl_doubt_htc(u->file, u->line, "h", u->h);
+	hl_doubt_duty(u->file, u->line, "max_load", u->max_load);
 	return read_equipment(t, u, err);
+}
+
+/* A price header's currency word ("price [USD/MMBtu]") labels the case's
+ * money. It replaces the default label; beside another label the case set,
+ * the table wins with a warning, since its prices are in its currency. */
+static hl_status
+take_currency(hl_case *c, const hl_table *t, hl_error *err)
+{
+	const char *now = c->set.currency;
+	char *d;
+
+	if (t->currency[0] == '\0' ||
+	    (now != NULL && strcmp(now, t->currency) == 0))
+		return HL_OK;
+	if (now != NULL && strcmp(now, "EUR") != 0)
+		hl_read_warn(hl_table_file(t), t->header_line, "prices are in "
+			"%s but the case's currency is %s: money is shown in "
+			"%s", t->currency, now, t->currency);
+	d = strdup(t->currency);
+	if (d == NULL)
+		return hl_error_nomem(err);
+	free(c->set.currency);
+	c->set.currency = d;
+	return HL_OK;
 }
 
 static hl_status
@@ -111,6 +146,8 @@ read_table(hl_case *c, hl_table *t, hl_error *err)
 
 	for (i = 0; i < 5 && st == HL_OK; i++)
 		st = hl_table_require(t, (size_t)required[i], err);
+	if (st == HL_OK)
+		st = take_currency(c, t, err);
 	while (st == HL_OK && (rc = hl_table_next(t, err)) != 0) {
 		hl_utility u;
 
@@ -137,7 +174,8 @@ hl_utility_table_read(hl_case *c, const char *path, hl_error *err)
 	hl_table t;
 	hl_status st;
 
-	st = hl_table_open(&t, path, "utility table", columns, U_COUNT, err);
+	st = hl_table_open(&t, path, "utility table", columns, qty, U_COUNT,
+			   err);
 	if (st != HL_OK)
 		return st;
 	return read_table(c, &t, err);
@@ -151,7 +189,7 @@ hl_utility_table_read_mem(hl_case *c, const char *name, const char *data,
 	hl_status st;
 
 	st = hl_table_open_mem(&t, name, data, len, "utility table", columns,
-			       U_COUNT, err);
+			       qty, U_COUNT, err);
 	if (st != HL_OK)
 		return st;
 	return read_table(c, &t, err);

@@ -6,6 +6,7 @@
 #include <stdio.h>
 
 #include "audit_out.h"
+#include "display.h"
 #include "report_sec.h"
 
 #define B 64
@@ -49,8 +50,8 @@ energy_table(hl_report *r)
 		hl_html_attr(r->h, "id", id[i]);
 		hl_report_cell(r, name[i]);
 		for (k = 0; k < 3; k++)
-			hl_report_cell_num(r, hl_report_fmt_sig(s, B, v[i][k],
-					   3, 1));
+			hl_report_cell_num(r, hl_report_fmt_sig(s, B,
+					   hl_show_q(v[i][k]), 3, 1));
 		hl_report_row_end(r);
 	}
 	hl_report_table_end(r);
@@ -101,7 +102,8 @@ culprit_row(hl_report *r, const hl_violation *vi, size_t rank)
 	hl_html_elemf(r->h, "span", "action", ": %s",
 		      hl_audit_action(vi->kind));
 	hl_html_end(r->h);
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, vi->duty, 3, 1));
+	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(vi->duty), 3,
+			   1));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, vi->saving, 3, 0));
 	hl_report_row_end(r);
 }
@@ -147,7 +149,8 @@ side_temps(char *buf, size_t size, const hl_side *s)
 	char a[B / 2], b[B / 2];
 
 	snprintf(buf, size, "%s → %s", hl_report_fmt_fixed(a, sizeof a,
-		 s->t_in, 1), hl_report_fmt_fixed(b, sizeof b, s->t_out, 1));
+		 hl_show_t(s->t_in), 1), hl_report_fmt_fixed(b, sizeof b,
+		 hl_show_t(s->t_out), 1));
 }
 
 static void
@@ -162,7 +165,8 @@ unit_row(hl_report *r, size_t i)
 	hl_report_cell(r, u->implied ? "(gap)" : u->name);
 	hl_report_cell(r, hl_existing_side_name(c, &u->hot));
 	hl_report_cell(r, hl_existing_side_name(c, &u->cold));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->duty, 3, 1));
+	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(u->duty), 3,
+			   1));
 	side_temps(v, sizeof v, &u->hot);
 	hl_report_cell_num(r, v);
 	side_temps(v, sizeof v, &u->cold);
@@ -171,7 +175,7 @@ unit_row(hl_report *r, size_t i)
 		v[0] = '\0';
 	else
 		snprintf(v, sizeof v, "%s%s", u->area_estimated ? "*" : "",
-			 hl_report_fmt_fixed(ar, B, u->area, 1));
+			 hl_report_fmt_fixed(ar, B, hl_show_a(u->area), 1));
 	hl_report_cell_num(r, v);
 	snprintf(v, B, "%d", u->shells);
 	hl_report_cell_num(r, v);
@@ -239,10 +243,14 @@ retrofit_row(hl_report *r, const hl_retrofit_point *p, size_t i, size_t n)
 	char v[B];
 
 	hl_report_row_start(r, i == 0 ? "chosen" : i + 1 == n ? "best" : NULL);
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->hot_utility, 3, 1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, p->dtmin, 1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, p->area_retrofit, 1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, p->new_area, 1));
+	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(p->hot_utility),
+			   3, 1));
+	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_dt(p->dtmin),
+			   1));
+	hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+			   hl_show_a(p->area_retrofit), 1));
+	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_a(p->new_area),
+			   1));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->investment, 3, 0));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->saving, 3, 0));
 	if (isnan(p->payback))

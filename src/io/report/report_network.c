@@ -4,6 +4,7 @@
 #include <stdio.h>
 
 #include "grid_svg.h"
+#include "display.h"
 #include "report_sec.h"
 
 #define B 64
@@ -123,13 +124,15 @@ unit_row(hl_report *r, const hl_network_unit *u)
 	hl_report_cell(r, u->id);
 	hl_report_cell(r, party_name(n, u->hot));
 	hl_report_cell(r, party_name(n, u->cold));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->duty, 3, 1));
+	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(u->duty), 3,
+			   1));
 	hl_report_range(v, B, u->hot_in, u->hot_out);
 	hl_report_cell_num(r, v);
 	hl_report_range(v, B, u->cold_in, u->cold_out);
 	hl_report_cell_num(r, v);
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->u, 3, 3));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, u->lmtd, 1));
+	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_h(u->u), 3, 3));
+	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_dt(u->lmtd),
+			   1));
 	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, u->ft, 3));
 	hl_report_cell(r, hl_exchanger_type_name(u->type));
 	if (u->parallel > 1)
@@ -140,7 +143,8 @@ unit_row(hl_report *r, const hl_network_unit *u)
 	if (u->type == HL_EXCH_FIRED_HEATER)
 		hl_report_cell_num(r, "by duty");
 	else
-		hl_report_cell_num(r, hl_report_fmt_fixed(v, B, u->area, 1));
+		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+		    hl_show_a(u->area), 1));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->cost, 3, 0));
 	hl_report_row_end(r);
 }

@@ -4,6 +4,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "display.h"
 #include "report_sec.h"
 
 #define B 96
@@ -125,7 +126,7 @@ settings_rows(hl_report *r, const hl_settings *s, const hl_settings *def)
 			hl_report_fmt_dt(v, B, s->emat), CASE_TEXT);
 	snprintf(v, B, "%g h/yr", s->hours);
 	setting(r, "Operating hours", v, source_of(s->hours == def->hours));
-	snprintf(v, B, "%g kW/(m²·K)", s->h_default);
+	snprintf(v, B, "%.4g %s", hl_show_h(s->h_default), HL_SYM_H);
 	setting(r, "Film coefficient where none is given", v,
 		source_of(s->h_default == def->h_default));
 	setting(r, "Exchanger type", s->exchanger == HL_EXCH_SHELL_TUBE ?
@@ -193,10 +194,11 @@ write_assumptions(hl_report *r)
 	if (nh > 0) {
 		hl_html_start(r->h, "p", NULL);
 		hl_html_textf(r->h, "%zu stream%s or utilit%s give%s no film "
-			      "coefficient; the area targets use %g kW/(m²·K) "
+			      "coefficient; the area targets use %.4g %s "
 			      "for %s.", nh, nh == 1 ? "" : "s",
 			      nh == 1 ? "y" : "ies", nh == 1 ? "s" : "",
-			      c->set.h_default, nh == 1 ? "it" : "them");
+			      hl_show_h(c->set.h_default), HL_SYM_H,
+			      nh == 1 ? "it" : "them");
 		hl_html_end(r->h);
 	}
 	hl_html_elem(r->h, "h3", NULL, "Assumptions of the methods");

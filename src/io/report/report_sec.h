@@ -79,6 +79,9 @@ void hl_report_figure(hl_report *r, hl_svg_chart *chart, const char *subtitle,
 /* "245.0 → 158.0": a temperature range at 0.1 K, without its unit (the
  * column heading gives it). */
 char *hl_report_range(char *buf, size_t size, double from, double to);
+/* A table column's SI unit label ("°C", "kW", "EUR/MWh") in the display
+ * units (display.h); the cells must be converted alike. */
+const char *hl_report_unit(char *buf, size_t size, const char *si);
 
 /* A numbered figure of another kind (the grid diagram): _open starts its
  * <div class="figure" id> and returns the id it chose ("figN", in id);

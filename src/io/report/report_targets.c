@@ -3,6 +3,7 @@
 #include <math.h>
 #include <stdio.h>
 
+#include "display.h"
 #include "report_sec.h"
 
 #define B 64
@@ -111,16 +112,20 @@ cascade_table(hl_report *r)
 		int pinch = cas->flow[k] == 0.0 && k > 0 && k + 1 < cas->nb;
 
 		hl_report_row_start(r, pinch ? "pinch" : NULL);
-		hl_report_cell_num(r, hl_report_fmt_fixed(v, B, cas->t[k], 1));
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-				   hl_cascade_hot_temp(cas, cas->t[k]), 1));
+				   hl_show_t(cas->t[k]), 1));
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-				   hl_cascade_cold_temp(cas, cas->t[k]), 1));
+				   hl_show_t(hl_cascade_hot_temp(cas, cas->t[k])),
+				   1));
+		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+				   hl_show_t(hl_cascade_cold_temp(cas,
+				   cas->t[k])), 1));
 		hl_report_cell_num(r, k + 1 < cas->nb ? hl_report_fmt_fixed(v,
-				   B, cas->netcp[k], 2) : "");
+				   B, hl_show_cp(cas->netcp[k]), HL_DIG_CP(2)) :
+				   "");
 		hl_report_cell_num(r, k + 1 < cas->nb ? hl_report_fmt_sig(v,
-				   B, cas->dh[k], 3, 1) : "");
-		hl_report_fmt_sig(v, B, cas->flow[k], 3, 1);
+				   B, hl_show_q(cas->dh[k]), 3, 1) : "");
+		hl_report_fmt_sig(v, B, hl_show_q(cas->flow[k]), 3, 1);
 		hl_report_cell_num(r, v);
 		hl_report_row_end(r);
 	}
@@ -218,12 +223,13 @@ choice_table(hl_report *r)
 		hl_report_cell(r, c->util[i].name);
 		hl_report_cell(r, c->util[i].kind == HL_HOT ? "hot" : "cold");
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-				   c->util[i].supply, 1));
+				   hl_show_t(c->util[i].supply), 1));
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-				   c->util[i].target, 1));
-		snprintf(v, B, "%.2f", c->util[i].price);
+				   hl_show_t(c->util[i].target), 1));
+		snprintf(v, B, "%.2f", hl_show_p(c->util[i].price));
 		hl_report_cell_num(r, v);
-		hl_report_cell_num(r, hl_report_fmt_sig(v, B, l->load, 3, 1));
+		hl_report_cell_num(r, hl_report_fmt_sig(v, B,
+				   hl_show_q(l->load), 3, 1));
 		hl_report_cell_num(r, hl_report_fmt_sig(v, B, l->cost, 3, 0));
 		hl_report_cell(r, hl_utility_use_name(l->use));
 		hl_report_row_end(r);

@@ -4,6 +4,7 @@
 #include <math.h>
 #include <stdio.h>
 
+#include "display.h"
 #include "report_sec.h"
 #include "sweep_out.h"
 
@@ -133,7 +134,8 @@ point_row(hl_report *r, size_t i)
 
 	hl_report_row_start(r, i == d->sw->best ? "best" : chosen ? "chosen" :
 			    NULL);
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, p->st.dtmin, 1));
+	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_dt(p->st.dtmin),
+			   1));
 	if (!p->ok) {
 		hl_html_start(r->h, "td", "why");
 		hl_html_attr(r->h, "colspan", "8");
@@ -142,11 +144,14 @@ point_row(hl_report *r, size_t i)
 		hl_report_row_end(r);
 		return;
 	}
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->st.hot_utility, 3,
+	hl_report_cell_num(r, hl_report_fmt_sig(v, B,
+			   hl_show_q(p->st.hot_utility), 3,
 			   1));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->st.cold_utility, 3,
+	hl_report_cell_num(r, hl_report_fmt_sig(v, B,
+			   hl_show_q(p->st.cold_utility), 3,
 			   1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, area_of(d->c, &p->st),
+	hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+			   hl_show_a(area_of(d->c, &p->st)),
 			   1));
 	snprintf(v, B, "%d", p->st.units);
 	hl_report_cell_num(r, v);

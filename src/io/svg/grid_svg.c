@@ -13,6 +13,7 @@
 
 #include <libxml/xmlwriter.h>
 
+#include "display.h"
 #include "grid_int.h"
 #include "profile.h"
 #include "svg.h"
@@ -117,10 +118,27 @@ text(W w, double x, double y, double fs, const char *anchor, int bold,
 	return rc | end(w);
 }
 
-/* A temperature without a needless decimal. */
+/* A duty as the grid shows it: whole kW, or MMBtu/h to 0.01. */
+static void
+duty(char *b, size_t n, double q)
+{
+	if (hl_display_get() == HL_UNITS_SI)
+		snprintf(b, n, "%.0f", q);
+	else
+		snprintf(b, n, "%.2f", hl_show_q(q) * 1e-6);
+}
+
+static const char *
+duty_unit(void)
+{
+	return hl_display_get() == HL_UNITS_SI ? "kW" : "MMBtu/h";
+}
+
+/* A temperature in the display unit without a needless decimal. */
 static void
 temp(char *b, size_t n, double t)
 {
+	t = hl_show_t(t);
 	if (fabs(t - nearbyint(t)) < 0.05)
 		snprintf(b, n, "%.0f", t);
 	else
@@ -165,9 +183,11 @@ draw_header(W w, const hl_network *net, const hl_grid_opts *o)
 	if (o != NULL && o->subtitle != NULL)
 		snprintf(sub, sizeof sub, "%s", o->subtitle);
 	else
-		snprintf(sub, sizeof sub, "ΔTmin %g K · hot utility %.1f kW · "
-		    "cold utility %.1f kW · %zu units, %zu split%s",
-		    net->set.dtmin, net->qh, net->qc, net->nunit, net->nsplit,
+		snprintf(sub, sizeof sub, "ΔTmin %g %s · hot utility %.*f %s · "
+		    "cold utility %.*f %s · %zu units, %zu split%s",
+		    hl_show_dt(net->set.dtmin), HL_SYM_DT, HL_DIG_Q(1),
+		    hl_show_q(net->qh), HL_SYM_Q, HL_DIG_Q(1),
+		    hl_show_q(net->qc), HL_SYM_Q, net->nunit, net->nsplit,
 		    net->nsplit == 1 ? "" : "s");
 	rc |= text(w, 24, 45, FS_SUB, "start", 0, 0, INK_SOFT, "%s", sub);
 	return rc;
@@ -189,7 +209,8 @@ draw_pinches(W w, const hl_grid_layout *L, const hl_network *net,
 			continue;
 		temp(h, sizeof h, o->pinch[i] + half);
 		temp(c, sizeof c, o->pinch[i] - half);
-		snprintf(label, sizeof label, "pinch %s / %s °C", h, c);
+		snprintf(label, sizeof label, "pinch %s / %s %s", h, c,
+		    HL_SYM_T);
 		wd = hl_grid_text_width(label, FS_T);
 		/* A label that would touch the one before it goes a row up. */
 		up = x - 0.5 * wd < last_end + 6.0 ? !up : 0;
@@ -326,10 +347,10 @@ draw_stream(W w, const hl_network *net, const hl_grid_layout *L, size_t p)
 	}
 	temp(t, sizeof t, s->supply);
 	rc |= text(w, hot ? L->left + 3 : L->right - 3, y - 6, FS_T,
-	    hot ? "start" : "end", 1, 1, col, "%s °C", t);
+	    hot ? "start" : "end", 1, 1, col, "%s %s", t, HL_SYM_T);
 	temp(t, sizeof t, s->target);
 	rc |= text(w, hot ? L->right - 3 : L->left + 3, y - 6, FS_T,
-	    hot ? "end" : "start", 1, 1, col, "%s °C", t);
+	    hot ? "end" : "start", 1, 1, col, "%s %s", t, HL_SYM_T);
 	for (g = 1; g <= last; g++) {
 		double lo, hi, out;
 		size_t count;
@@ -420,6 +441,7 @@ draw_unit(W w, const hl_network *net, const hl_grid_layout *L, size_t i)
 {
 	const hl_network_unit *u = &net->unit[i];
 	double x = L->x[i], yh = L->yh[i], yc = L->yc[i], y;
+	char d[32];
 	int rc = 0;
 
 	if (changed(u)) {
@@ -434,8 +456,8 @@ draw_unit(W w, const hl_network *net, const hl_grid_layout *L, size_t i)
 		rc |= circle(w, x, yc, "#ffffff");
 		rc |= text(w, x, yh - 11, FS_ID, "middle", 1, 1, INK, "%s",
 		    u->id);
-		rc |= text(w, x, yc + 19, FS_T, "middle", 0, 1, INK, "%.0f",
-		    u->duty);
+		duty(d, sizeof d, u->duty);
+		rc |= text(w, x, yc + 19, FS_T, "middle", 0, 1, INK, "%s", d);
 		return rc;
 	}
 	/* Id over duty below the line: two short lines fit between close
@@ -443,7 +465,8 @@ draw_unit(W w, const hl_network *net, const hl_grid_layout *L, size_t i)
 	y = isnan(yh) ? yc : yh;
 	rc |= square(w, x, y, hex(isnan(yh) ? HL_SVG_ORANGE : HL_SVG_SKY));
 	rc |= text(w, x, y + 20, FS_ID, "middle", 1, 1, INK, "%s", u->id);
-	rc |= text(w, x, y + 31, FS_T, "middle", 0, 1, INK, "%.0f", u->duty);
+	duty(d, sizeof d, u->duty);
+	rc |= text(w, x, y + 31, FS_T, "middle", 0, 1, INK, "%s", d);
 	return rc;
 }
 
@@ -453,11 +476,13 @@ static int
 draw_key(W w, const hl_network *net, const hl_grid_layout *L,
 	 const hl_grid_opts *o, double *bottom)
 {
-	static const char what[] = "exchanger (id above, duty in kW below)";
+	char what[64];
 	double y = L->key_top, x = 30.0, col_w = (L->width - 48.0) / 2.0;
 	size_t i, k = 0;
 	int rc = 0;
 
+	snprintf(what, sizeof what, "exchanger (id above, duty in %s below)",
+	    duty_unit());
 	rc |= line(w, x, y, x + 26, y, INK, 1.3, NULL);
 	rc |= circle(w, x, y, "#ffffff");
 	rc |= circle(w, x + 26, y, "#ffffff");
@@ -481,8 +506,9 @@ draw_key(W w, const hl_network *net, const hl_grid_layout *L,
 	}
 	y += KEY_ROW;
 	rc |= text(w, 24, y + 4, FS_T, "start", 0, 0, INK_SOFT, "Hot streams "
-	    "run left to right, cold streams right to left (°C between "
-	    "stages); split branches: share and outlet °C.");
+	    "run left to right, cold streams right to left (%s between "
+	    "stages); split branches: share and outlet %s.", HL_SYM_T,
+	    HL_SYM_T);
 	y += KEY_ROW;
 	for (i = 0; i < net->nunit; i++) {
 		const hl_network_unit *u = &net->unit[i];
@@ -492,9 +518,10 @@ draw_key(W w, const hl_network *net, const hl_grid_layout *L,
 		if (!h->utility && !c->utility)
 			continue;
 		rc |= text(w, 24 + (double)(k % 2) * col_w, y + 4, FS_T,
-		    "start", 0, 0, INK, "%s: %s %s %s, %.1f kW", u->id,
+		    "start", 0, 0, INK, "%s: %s %s %s, %.*f %s", u->id,
 		    h->utility ? h->name : c->name, h->utility ? "heats" :
-		    "cools", h->utility ? c->name : h->name, u->duty);
+		    "cools", h->utility ? c->name : h->name, HL_DIG_Q(1),
+		    hl_show_q(u->duty), HL_SYM_Q);
 		if (k++ % 2 == 1)
 			y += KEY_ROW - 2;
 	}

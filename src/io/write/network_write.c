@@ -4,6 +4,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "display.h"
 #include "network_write.h"
 #include "text_out.h"
 #include "utf8.h"
@@ -32,21 +33,39 @@ static const char *const head[2][NCOL] = {
 	  "kW/(m²K)", "K", "", "", "m²", "" }
 };
 
+/* The quantity of each column, for display units other than SI. */
+static const hl_qty head_qty[NCOL] = {
+	HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_POWER, HL_QTY_TEMP,
+	HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_NONE, HL_QTY_NONE,
+	HL_QTY_HTC, HL_QTY_DTEMP, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_AREA,
+	HL_QTY_NONE
+};
+
+static const char *
+head_text(size_t k, size_t j)
+{
+	if (k == 0 || hl_display_get() == HL_UNITS_SI ||
+	    head_qty[j] == HL_QTY_NONE)
+		return head[k][j];
+	return hl_show_unit(head_qty[j]);
+}
+
 static void
 cells(const hl_network *net, const hl_network_unit *u, char c[NCOL][CELL])
 {
 	snprintf(c[0], CELL, "%s", u->id);
 	snprintf(c[1], CELL, "%s", net->party[u->hot].name);
 	snprintf(c[2], CELL, "%s", net->party[u->cold].name);
-	snprintf(c[3], CELL, "%.1f", u->duty);
-	snprintf(c[4], CELL, "%.1f", u->hot_in);
-	snprintf(c[5], CELL, "%.1f", u->hot_out);
-	snprintf(c[6], CELL, "%.1f", u->cold_in);
-	snprintf(c[7], CELL, "%.1f", u->cold_out);
+	snprintf(c[3], CELL, "%.*f", HL_DIG_Q(1), hl_show_q(u->duty));
+	snprintf(c[4], CELL, "%.1f", hl_show_t(u->hot_in));
+	snprintf(c[5], CELL, "%.1f", hl_show_t(u->hot_out));
+	snprintf(c[6], CELL, "%.1f", hl_show_t(u->cold_in));
+	snprintf(c[7], CELL, "%.1f", hl_show_t(u->cold_out));
 	snprintf(c[8], CELL, "%.3f", u->hot_share);
 	snprintf(c[9], CELL, "%.3f", u->cold_share);
-	snprintf(c[10], CELL, "%.3f%s", u->u, u->assumed ? "*" : "");
-	snprintf(c[11], CELL, "%.2f", u->lmtd);
+	snprintf(c[10], CELL, "%.*f%s", HL_DIG_H(3), hl_show_h(u->u),
+	    u->assumed ? "*" : "");
+	snprintf(c[11], CELL, "%.2f", hl_show_dt(u->lmtd));
 	snprintf(c[12], CELL, "%.3f", u->ft);
 	if (u->parallel > 1)
 		snprintf(c[13], CELL, "%d×%d%s", u->shells, u->parallel,
@@ -56,7 +75,7 @@ cells(const hl_network *net, const hl_network_unit *u, char c[NCOL][CELL])
 	if (u->type == HL_EXCH_FIRED_HEATER)
 		snprintf(c[14], CELL, "by duty");
 	else
-		snprintf(c[14], CELL, "%.2f", u->area);
+		snprintf(c[14], CELL, "%.2f", hl_show_a(u->area));
 	snprintf(c[15], CELL, "%.0f", u->cost);
 }
 
@@ -93,9 +112,12 @@ text_table(FILE *fp, const hl_network *net)
 	char c[NCOL][CELL];
 	size_t w[NCOL], i, k;
 
-	for (k = 0; k < NCOL; k++)
-		w[k] = hl_utf8_chars(head[0][k]) > hl_utf8_chars(head[1][k]) ?
-		    hl_utf8_chars(head[0][k]) : hl_utf8_chars(head[1][k]);
+	for (k = 0; k < NCOL; k++) {
+		size_t top = hl_utf8_chars(head[0][k]);
+		size_t unit = hl_utf8_chars(head_text(1, k));
+
+		w[k] = top > unit ? top : unit;
+	}
 	for (i = 0; i < net->nunit; i++) {
 		cells(net, &net->unit[i], c);
 		for (k = 0; k < NCOL; k++)
@@ -107,7 +129,7 @@ text_table(FILE *fp, const hl_network *net)
 		size_t j;
 
 		for (j = 0; j < NCOL; j++)
-			snprintf(h[j], CELL, "%s", head[k][j]);
+			snprintf(h[j], CELL, "%s", head_text(k, j));
 		row(fp, h, w);
 	}
 	for (i = 0; i < net->nunit; i++) {
@@ -134,7 +156,7 @@ text_chain(FILE *fp, const hl_network *net, size_t p)
 		if (g > last)
 			last = g;
 	}
-	n = (size_t)snprintf(buf, sizeof buf, "%.1f", s->supply);
+	n = (size_t)snprintf(buf, sizeof buf, "%.1f", hl_show_t(s->supply));
 	for (stage = 1; stage <= last && n < sizeof buf; stage++) {
 		size_t count = 0;
 		double out = s->supply;
@@ -185,7 +207,7 @@ text_chain(FILE *fp, const hl_network *net, size_t p)
 		}
 		if (n < sizeof buf && !isnan(out))
 			n += (size_t)snprintf(buf + n, sizeof buf - n,
-			    " → %.1f", out);
+			    " → %.1f", hl_show_t(out));
 	}
 	fprintf(fp, "  %s (%s): ", s->name, s->kind == HL_HOT ? "hot" :
 	    "cold");
@@ -201,7 +223,8 @@ text_summary(FILE *fp, const hl_network *net)
 
 	fprintf(fp, "Heat exchanger network: %s\n\n", net->source != NULL ?
 	    net->source : "");
-	fprintf(fp, "ΔTmin %.1f K, EMAT %.1f K; ", set->dtmin, emat);
+	fprintf(fp, "ΔTmin %.1f %s, EMAT %.1f %s; ", hl_show_dt(set->dtmin),
+	    HL_SYM_DT, hl_show_dt(emat), HL_SYM_DT);
 	if (set->exchanger == HL_EXCH_SHELL_TUBE)
 		fprintf(fp, "shell-and-tube units, F floor %.2f, Xp %.2f\n",
 		    set->fmin, set->xp);
@@ -209,20 +232,24 @@ text_summary(FILE *fp, const hl_network *net)
 		fprintf(fp, "%s units%s\n", hl_exchanger_type_name(
 		    set->exchanger), set->exchanger == HL_EXCH_AIR_COOLER ?
 		    "" : " (F = 1)");
-	fprintf(fp, "Hot utility        %10.1f kW (target %.1f kW)\n", net->qh,
-	    net->qh_target);
-	fprintf(fp, "Cold utility       %10.1f kW (target %.1f kW)\n", net->qc,
-	    net->qc_target);
+	fprintf(fp, "Hot utility        %10.*f %s (target %.*f %s)\n",
+	    HL_DIG_Q(1), hl_show_q(net->qh), HL_SYM_Q, HL_DIG_Q(1),
+	    hl_show_q(net->qh_target), HL_SYM_Q);
+	fprintf(fp, "Cold utility       %10.*f %s (target %.*f %s)\n",
+	    HL_DIG_Q(1), hl_show_q(net->qc), HL_SYM_Q, HL_DIG_Q(1),
+	    hl_show_q(net->qc_target), HL_SYM_Q);
 	if (net->restriction > 0.0)
-		fprintf(fp, "Match rules add    %10.1f kW to each\n",
-		    net->restriction);
+		fprintf(fp, "Match rules add    %10.*f %s to each\n",
+		    HL_DIG_Q(1), hl_show_q(net->restriction), HL_SYM_Q);
 	if (net->penalty > 0.0)
-		fprintf(fp, "Placement adds     %10.1f kW to each (see the "
-		    "notes)\n", net->penalty);
+		fprintf(fp, "Placement adds     %10.*f %s to each (see the "
+		    "notes)\n", HL_DIG_Q(1), hl_show_q(net->penalty),
+		    HL_SYM_Q);
 	fprintf(fp, "Units              %10zu for %zu matches, %zu stream "
 	    "split%s\n", net->nunit, net->nmatch, net->nsplit,
 	    net->nsplit == 1 ? "" : "s");
-	fprintf(fp, "Area               %10.1f m²\n", net->area);
+	fprintf(fp, "Area               %10.1f %s\n", hl_show_a(net->area),
+	    HL_SYM_A);
 	fprintf(fp, "Capital            %10.0f %s (annualised %.0f %s/year, "
 	    "CRF %.4f: %.3g %% over %.3g years)\n", net->capital, cur,
 	    net->capital_annual, cur, net->crf, 100.0 * set->interest,
@@ -319,10 +346,12 @@ text_assumed(FILE *fp, const hl_network *net)
 	if (n > 0) {
 		char line[1200];
 
-		snprintf(line, sizeof line, "* U assumes h = %.3g kW/(m²K) "
+		snprintf(line, sizeof line, "* U assumes h = %.3g %s "
 		    "(the setting h_default) for: %s. Give each stream its "
 		    "h (film coefficient with fouling) for a better "
-		    "estimate.", net->set.h_default, buf);
+		    "estimate.", hl_show_h(net->set.h_default),
+		    hl_display_get() == HL_UNITS_SI ? "kW/(m²K)" : HL_SYM_H,
+		    buf);
 		hl_text_wrap(fp, line, "", "  ", 78);
 	}
 	text_laws(fp, net);
@@ -344,7 +373,8 @@ hl_network_text(FILE *fp, const hl_network *net, const char *caution)
 
 	text_summary(fp, net);
 	text_table(fp, net);
-	fprintf(fp, "\nStreams, stage by stage from the supply end (°C)\n");
+	fprintf(fp, "\nStreams, stage by stage from the supply end (%s)\n",
+	    HL_SYM_T);
 	for (i = 0; i < net->nparty; i++)
 		if (!net->party[i].utility)
 			text_chain(fp, net, i);
@@ -544,12 +574,23 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 void
 hl_network_csv(FILE *fp, const hl_network *net)
 {
+	static const char *const name[] = { "duty", "hot_in", "hot_out",
+		"cold_in", "cold_out", "hot_share", "cold_share", "hot_stage",
+		"cold_stage", "u", "lmtd", "f", "shells", "parallel", "area",
+		"area_shell", "cost", "approach", "required" };
+	static const hl_qty qty[] = { HL_QTY_POWER, HL_QTY_TEMP, HL_QTY_TEMP,
+		HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_NONE, HL_QTY_NONE,
+		HL_QTY_NONE, HL_QTY_NONE, HL_QTY_HTC, HL_QTY_DTEMP,
+		HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_AREA,
+		HL_QTY_AREA, HL_QTY_NONE, HL_QTY_DTEMP, HL_QTY_DTEMP };
+	char h[64];
 	size_t i;
 
-	fputs("id,hot,cold,type,duty,hot_in,hot_out,cold_in,cold_out,"
-	    "hot_share,cold_share,hot_stage,cold_stage,u,lmtd,f,shells,"
-	    "parallel,area,area_shell,cost,approach,required,assumed,note\n",
-	    fp);
+	fputs("id,hot,cold,type,", fp);
+	for (i = 0; i < sizeof qty / sizeof qty[0]; i++)
+		fprintf(fp, "%s,", hl_show_header(h, sizeof h, name[i],
+						  qty[i]));
+	fputs("assumed,note\n", fp);
 	for (i = 0; i < net->nunit; i++) {
 		const hl_network_unit *u = &net->unit[i];
 
@@ -560,25 +601,25 @@ hl_network_csv(FILE *fp, const hl_network *net)
 		hl_csv_text(fp, net->party[u->cold].name);
 		fputc(',', fp);
 		hl_csv_text(fp, hl_exchanger_type_name(u->type));
-		hl_csv_num(fp, u->duty);
-		hl_csv_num(fp, u->hot_in);
-		hl_csv_num(fp, u->hot_out);
-		hl_csv_num(fp, u->cold_in);
-		hl_csv_num(fp, u->cold_out);
+		hl_csv_num(fp, hl_show_q(u->duty));
+		hl_csv_num(fp, hl_show_t(u->hot_in));
+		hl_csv_num(fp, hl_show_t(u->hot_out));
+		hl_csv_num(fp, hl_show_t(u->cold_in));
+		hl_csv_num(fp, hl_show_t(u->cold_out));
 		hl_csv_num(fp, u->hot_share);
 		hl_csv_num(fp, u->cold_share);
 		hl_csv_num(fp, u->hot_stage > 0 ? u->hot_stage : NAN);
 		hl_csv_num(fp, u->cold_stage > 0 ? u->cold_stage : NAN);
-		hl_csv_num(fp, u->u);
-		hl_csv_num(fp, u->lmtd);
+		hl_csv_num(fp, hl_show_h(u->u));
+		hl_csv_num(fp, hl_show_dt(u->lmtd));
 		hl_csv_num(fp, u->ft);
 		hl_csv_num(fp, u->shells);
 		hl_csv_num(fp, u->parallel > 0 ? u->parallel : 1);
-		hl_csv_num(fp, u->area);
-		hl_csv_num(fp, u->area_shell);
+		hl_csv_num(fp, hl_show_a(u->area));
+		hl_csv_num(fp, hl_show_a(u->area_shell));
 		hl_csv_num(fp, u->cost);
-		hl_csv_num(fp, u->approach);
-		hl_csv_num(fp, u->required);
+		hl_csv_num(fp, hl_show_dt(u->approach));
+		hl_csv_num(fp, hl_show_dt(u->required));
 		fputc(',', fp);
 		hl_csv_text(fp, u->assumed == 0 ? "" : u->assumed ==
 		    (HL_NETWORK_H_HOT | HL_NETWORK_H_COLD) ? "h-hot h-cold" :

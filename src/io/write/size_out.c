@@ -10,6 +10,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "display.h"
 #include "size_out.h"
 #include "text_out.h"
 #include "utf8.h"
@@ -74,14 +75,26 @@ enum { K_TYPE, K_DUTY, K_HIN, K_HOUT, K_CIN, K_COUT, K_U, K_LMTD, K_P, K_R,
 
 static const struct {
 	const char *head;
-	const char *unit;
+	const char *unit;  /* in SI */
+	hl_qty qty;        /* for the other display units */
 } column[K_COUNT] = {
-	{ "type", "" }, { "duty", "kW" }, { "hot in", "°C" },
-	{ "hot out", "°C" }, { "cold in", "°C" }, { "cold out", "°C" },
-	{ "U", "kW/(m²K)" }, { "LMTD", "K" }, { "P", "" }, { "R", "" },
-	{ "F", "" }, { "shells", "" }, { "area", "m²" },
-	{ "per shell", "m²" }, { "cost", "" }, { "note", "" }
+	{ "type", "", HL_QTY_NONE }, { "duty", "kW", HL_QTY_POWER },
+	{ "hot in", "°C", HL_QTY_TEMP }, { "hot out", "°C", HL_QTY_TEMP },
+	{ "cold in", "°C", HL_QTY_TEMP }, { "cold out", "°C", HL_QTY_TEMP },
+	{ "U", "kW/(m²K)", HL_QTY_HTC }, { "LMTD", "K", HL_QTY_DTEMP },
+	{ "P", "", HL_QTY_NONE }, { "R", "", HL_QTY_NONE },
+	{ "F", "", HL_QTY_NONE }, { "shells", "", HL_QTY_NONE },
+	{ "area", "m²", HL_QTY_AREA }, { "per shell", "m²", HL_QTY_AREA },
+	{ "cost", "", HL_QTY_NONE }, { "note", "", HL_QTY_NONE }
 };
+
+static const char *
+unit_text(size_t k)
+{
+	if (hl_display_get() == HL_UNITS_SI || column[k].qty == HL_QTY_NONE)
+		return column[k].unit;
+	return hl_show_unit(column[k].qty);
+}
 
 /* Left-aligned columns; the others are numbers, right-aligned. */
 static int
@@ -133,8 +146,9 @@ sized_cells(const hl_size_row *row, cells *c)
 		snprintf(c->text[K_AREA], CELL, "by duty");
 		snprintf(c->text[K_ASHELL], CELL, "—");
 	} else {
-		number(c->text[K_AREA], 2, z->area);
-		number(c->text[K_ASHELL], 2, z->area_shell);
+		number(c->text[K_AREA], 2, hl_show_a(z->area));
+		number(c->text[K_ASHELL], 2,
+		    hl_show_a(z->area_shell));
 	}
 	number(c->text[K_COST], 0, z->cost);
 	if (row->assumed & HL_ASSUMED_COST)
@@ -157,18 +171,18 @@ row_cells(const hl_size_row *row, cells *c)
 	snprintf(c->text[K_TYPE], CELL, "%s", type_tag(s->type));
 	if (row->assumed & HL_ASSUMED_TYPE)
 		c->mark[K_TYPE] = '*';
-	number(c->text[K_DUTY], 1, s->duty);
-	number(c->text[K_HIN], 1, s->hot_in);
-	number(c->text[K_HOUT], 1, s->hot_out);
-	number(c->text[K_CIN], 1, s->cold_in);
-	number(c->text[K_COUT], 1, s->cold_out);
+	number(c->text[K_DUTY], HL_DIG_Q(1), hl_show_q(s->duty));
+	number(c->text[K_HIN], 1, hl_show_t(s->hot_in));
+	number(c->text[K_HOUT], 1, hl_show_t(s->hot_out));
+	number(c->text[K_CIN], 1, hl_show_t(s->cold_in));
+	number(c->text[K_COUT], 1, hl_show_t(s->cold_out));
 	if (s->type == HL_EXCH_FIRED_HEATER)
 		snprintf(c->text[K_U], CELL, "—");
 	else
-		number(c->text[K_U], 3, s->u);
+		number(c->text[K_U], HL_DIG_H(3), hl_show_h(s->u));
 	if (row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD))
 		c->mark[K_U] = '*';
-	number(c->text[K_LMTD], 2, z->lmtd);
+	number(c->text[K_LMTD], 2, hl_show_dt(z->lmtd));
 	number(c->text[K_P], 3, z->p);
 	if (isinf(z->r))
 		snprintf(c->text[K_R], CELL, "∞");
@@ -198,7 +212,7 @@ measure(const hl_size_result *r, widths *w)
 
 	w->name = hl_utf8_chars("unit");
 	for (k = 0; k < K_COUNT; k++)
-		w->col[k] = wider(hl_utf8_chars(column[k].head), column[k].unit);
+		w->col[k] = wider(hl_utf8_chars(column[k].head), unit_text(k));
 	for (i = 0; i < r->n; i++) {
 		w->name = wider(w->name, r->row[i].unit->name);
 		row_cells(&r->row[i], &c);
@@ -245,7 +259,7 @@ text_table(FILE *fp, const hl_size_result *r)
 	end_line(&l);
 	put_name(&l, "", w.name);
 	for (k = 0; k < K_COUNT; k++)
-		put_cell(&l, k, w.col[k], column[k].unit, ' ');
+		put_cell(&l, k, w.col[k], unit_text(k), ' ');
 	end_line(&l);
 	for (i = 0; i < r->n; i++) {
 		row_cells(&r->row[i], &c);
@@ -273,7 +287,8 @@ text_totals(FILE *fp, const hl_size_result *r)
 		cost += r->row[i].size.cost;
 	}
 	fprintf(fp, "\nTotal: %zu of %zu exchangers sized, %ld shells, "
-	    "%.2f m², cost %.0f%s\n", sized, r->n, shells, area, cost,
+	    "%.2f %s, cost %.0f%s\n", sized, r->n, shells, hl_show_a(area),
+	    HL_SYM_A, cost,
 	    sized < r->n ? " (of the sized ones)" : "");
 }
 
@@ -311,9 +326,10 @@ note_cross(FILE *fp, const hl_size_row *row)
 	else if (row->status == HL_OK)
 		snprintf(tail, sizeof tail, "; %d shell%s in series",
 		    row->size.shells, row->size.shells == 1 ? "" : "s");
-	note(fp, row, "temperature cross: the cold outlet %.1f °C is %.1f K "
-	    "above the hot outlet %.1f °C%s", s->cold_out,
-	    s->cold_out - s->hot_out, s->hot_out, tail);
+	note(fp, row, "temperature cross: the cold outlet %.1f %s is %.1f %s "
+	    "above the hot outlet %.1f %s%s", hl_show_t(s->cold_out),
+	    HL_SYM_T, hl_show_dt(s->cold_out - s->hot_out), HL_SYM_DT,
+	    hl_show_t(s->hot_out), HL_SYM_T, tail);
 }
 
 /* Whether a side's cp gives a duty other than the one sized for (within
@@ -336,12 +352,14 @@ note_balance(FILE *fp, const hl_size_row *row)
 	if (!balance_differs(row))
 		return;
 	if (!isnan(u->duty_hot))
-		snprintf(hot, sizeof hot, " hot side %.1f kW", u->duty_hot);
+		snprintf(hot, sizeof hot, " hot side %.*f %s", HL_DIG_Q(1),
+		    hl_show_q(u->duty_hot), HL_SYM_Q);
 	if (!isnan(u->duty_cold))
-		snprintf(cold, sizeof cold, "%s cold side %.1f kW",
-		    hot[0] ? "," : "", u->duty_cold);
-	note(fp, row, "heat balance:%s%s; sized for %.1f kW", hot, cold,
-	    row->spec.duty);
+		snprintf(cold, sizeof cold, "%s cold side %.*f %s",
+		    hot[0] ? "," : "", HL_DIG_Q(1), hl_show_q(u->duty_cold),
+		    HL_SYM_Q);
+	note(fp, row, "heat balance:%s%s; sized for %.*f %s", hot, cold,
+	    HL_DIG_Q(1), hl_show_q(row->spec.duty), HL_SYM_Q);
 }
 
 static void
@@ -349,9 +367,9 @@ note_h(FILE *fp, const hl_size_row *row, const hl_settings *d)
 {
 	if (!(row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)))
 		return;
-	note(fp, row, "no %s given: assumed %g kW/(m²·K)",
+	note(fp, row, "no %s given: assumed %g %s",
 	    (row->assumed & HL_ASSUMED_H_HOT) ? "h_hot" : "h_cold",
-	    d->h_default);
+	    hl_show_h(d->h_default), HL_SYM_H);
 }
 
 /* An implausible U or shell size (hl_exchanger_warning). */
@@ -631,20 +649,20 @@ csv_row(FILE *fp, const hl_size_row *row)
 
 	hl_csv_text(fp, row->unit->name);
 	fprintf(fp, ",%ld,%s", row->unit->line, hl_exchanger_type_name(s->type));
-	hl_csv_num(fp, s->duty);
-	hl_csv_num(fp, s->hot_in);
-	hl_csv_num(fp, s->hot_out);
-	hl_csv_num(fp, s->cold_in);
-	hl_csv_num(fp, s->cold_out);
-	hl_csv_num(fp, s->u);
-	hl_csv_num(fp, z->lmtd);
+	hl_csv_num(fp, hl_show_q(s->duty));
+	hl_csv_num(fp, hl_show_t(s->hot_in));
+	hl_csv_num(fp, hl_show_t(s->hot_out));
+	hl_csv_num(fp, hl_show_t(s->cold_in));
+	hl_csv_num(fp, hl_show_t(s->cold_out));
+	hl_csv_num(fp, hl_show_h(s->u));
+	hl_csv_num(fp, hl_show_dt(z->lmtd));
 	hl_csv_num(fp, z->p);
 	hl_csv_num(fp, z->r);
 	hl_csv_num(fp, ok ? z->f : NAN);
 	hl_csv_num(fp, ok ? z->shells : NAN);
 	hl_csv_num(fp, ok ? z->parallel : NAN);
-	hl_csv_num(fp, ok ? z->area : NAN);
-	hl_csv_num(fp, ok ? z->area_shell : NAN);
+	hl_csv_num(fp, ok ? hl_show_a(z->area) : NAN);
+	hl_csv_num(fp, ok ? hl_show_a(z->area_shell) : NAN);
 	hl_csv_num(fp, ok ? z->cost : NAN);
 	fprintf(fp, ",%s,%d,", ok ? "sized" : "too-many-shells",
 	    row_cross(row));
@@ -661,11 +679,20 @@ csv_row(FILE *fp, const hl_size_row *row)
 void
 hl_size_csv(FILE *fp, const hl_size_result *r)
 {
+	static const char *const name[] = { "duty", "hot_in", "hot_out",
+		"cold_in", "cold_out", "u", "lmtd" };
+	static const hl_qty qty[] = { HL_QTY_POWER, HL_QTY_TEMP, HL_QTY_TEMP,
+		HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_HTC, HL_QTY_DTEMP };
+	char h[2][64];
 	size_t i;
 
-	fprintf(fp, "name,line,type,duty,hot_in,hot_out,cold_in,cold_out,u,"
-	    "lmtd,p,r,f,shells,parallel,area,area_shell,cost,status,cross,"
-	    "assumed,note\n");
+	fprintf(fp, "name,line,type,");
+	for (i = 0; i < sizeof qty / sizeof qty[0]; i++)
+		fprintf(fp, "%s,", hl_show_header(h[0], sizeof h[0], name[i],
+						  qty[i]));
+	fprintf(fp, "p,r,f,shells,parallel,%s,%s,cost,status,cross,assumed,note\n",
+	    hl_show_header(h[0], sizeof h[0], "area", HL_QTY_AREA),
+	    hl_show_header(h[1], sizeof h[1], "area_shell", HL_QTY_AREA));
 	for (i = 0; i < r->n; i++)
 		csv_row(fp, &r->row[i]);
 }

@@ -2,6 +2,7 @@
 #include <math.h>
 #include <string.h>
 
+#include "display.h"
 #include "result_xml.h"
 #include "text_out.h"
 #include "utility_out.h"
@@ -48,9 +49,10 @@ text_rows(FILE *fp, const hl_case *c, const hl_utility_lp *lp, int w)
 
 		fprintf(fp, "  ");
 		hl_text_pad(fp, u->name, w);
-		fprintf(fp, "  %-4s  %7.1f  %7.1f  %8.2f  %10.1f  ",
-			u->kind == HL_HOT ? "hot" : "cold", u->supply,
-			u->target, u->price, l->load);
+		fprintf(fp, "  %-4s  %7.1f  %7.1f  %8.2f  %10.*f  ",
+			u->kind == HL_HOT ? "hot" : "cold", hl_show_t(u->supply),
+			hl_show_t(u->target), hl_show_p(u->price), HL_DIG_Q(1),
+			hl_show_q(l->load));
 		if (l->use == HL_UTIL_USED) {
 			money(m, sizeof m, l->cost);
 			fprintf(fp, "%12s\n", m);
@@ -70,8 +72,10 @@ text_pinches(FILE *fp, const hl_case *c, const hl_utility_lp *lp)
 	for (i = 0; i < lp->npinch; i++) {
 		const hl_utility_pinch *p = &lp->pinch[i];
 
-		fprintf(fp, "Utility pinch          %.1f °C hot / %.1f °C cold "
-			"(%.1f °C shifted", p->hot, p->cold, p->shifted);
+		fprintf(fp, "Utility pinch          %.1f %s hot / %.1f %s cold "
+			"(%.1f %s shifted", hl_show_t(p->hot), HL_SYM_T,
+			hl_show_t(p->cold), HL_SYM_T, hl_show_t(p->shifted),
+			HL_SYM_T);
 		if (p->util >= 0)
 			fprintf(fp, "; the %s level", c->util[p->util].name);
 		fprintf(fp, ")\n");
@@ -91,11 +95,14 @@ hl_utility_lp_text(FILE *fp, const hl_case *c, const hl_utility_lp *lp)
 		"kind", "supply", "target", "price", "load", "cost");
 	/* "°C" is two characters in three bytes: widths count bytes. */
 	fprintf(fp, "  %-*s  %-4s  %8s  %8s  %8s  %10s  %7.7s/year\n", w, "",
-		"", "°C", "°C", "per MWh", "kW", cur);
+		"", HL_SYM_T, HL_SYM_T, hl_display_get() == HL_UNITS_US ?
+		"/MMBtu" : HL_SYM_P, HL_SYM_Q, cur);
 	text_rows(fp, c, lp, w);
 	money(m, sizeof m, lp->cost);
-	fprintf(fp, "\nHot utility            %.1f kW\n", lp->hot_load);
-	fprintf(fp, "Cold utility           %.1f kW\n", lp->cold_load);
+	fprintf(fp, "\nHot utility            %.*f %s\n", HL_DIG_Q(1),
+		hl_show_q(lp->hot_load), HL_SYM_Q);
+	fprintf(fp, "Cold utility           %.*f %s\n", HL_DIG_Q(1),
+		hl_show_q(lp->cold_load), HL_SYM_Q);
 	fprintf(fp, "Utility cost           %s %s per year\n", m, cur);
 	text_pinches(fp, c, lp);
 	fprintf(fp, "Solver                 GLPK simplex, %s\n", lp->optimal ?
