@@ -362,7 +362,8 @@ static hl_status
 check_targets(hl_netcheck *r, const hl_network *net)
 {
 	hl_case *c = NULL;
-	double qh = 0.0, qc = 0.0, extra = net->restriction + net->penalty;
+	double qh = 0.0, qc = 0.0, extra = net->restriction + net->penalty +
+	    net->range_rise;
 	size_t i;
 	hl_status st;
 

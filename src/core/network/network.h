@@ -106,6 +106,9 @@ typedef struct {
 	double restriction;       /* kW of hot utility the match rules added */
 	size_t ntyped;            /* exchanger types fixed per pair, */
 	const hl_network_typed *typed; /* first match wins; NULL: none */
+	double range_rise;        /* kW above the target the utility loads
+				     carry (a ranged utility exchanging heat
+				     across the pinch) */
 } hl_network_input;
 
 /* assumed h flags of a unit */
@@ -149,6 +152,7 @@ typedef struct {
 	double qh, qc;             /* kW of hot and cold utility used */
 	double qh_target, qc_target;
 	double restriction;        /* kW above the targets from match rules */
+	double range_rise;         /* kW above them from utility ranges */
 	double penalty;            /* kW above them from the placement */
 	size_t nsplit;             /* split stages */
 	double area, capital;      /* m², currency */

@@ -393,6 +393,7 @@ finish(hl_network *net, const hl_network_input *in, hl_error *err)
 	net->qh_target = in->qh_target;
 	net->qc_target = in->qc_target;
 	net->restriction = in->restriction;
+	net->range_rise = in->range_rise;
 	hl_network_totals(net);
 	return HL_OK;
 }

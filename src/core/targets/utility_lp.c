@@ -666,6 +666,8 @@ find_pinches(const model *m, hl_utility_lp *r)
 		if (b + 1 < m->nb)
 			s += m->dh[b];
 	}
+	r->qh_min = -smin;
+	r->qc_min = s - smin;
 	for (b = 1; b + 1 < m->nb; b++) {
 		int inside = m->t[b] < m->pmax && m->t[b] > m->pmin;
 		int ppinch = pf[b] - smin <= m->tol;
@@ -707,6 +709,48 @@ classify(const model *m, hl_utility_lp *r, const double *load)
 	}
 }
 
+/* Heat of utility u on the far side of shifted temperature ts: below it
+ * for a hot utility, above it for a cold one. */
+static double
+beyond(const model *m, size_t u, double load, double ts)
+{
+	double f;
+
+	if (m->hi[u] == m->lo[u])
+		return is_hot(m, u) ? (m->hi[u] <= ts ? load : 0.0)
+				    : (m->lo[u] >= ts ? load : 0.0);
+	f = (fmin(m->hi[u], ts) - m->lo[u]) / (m->hi[u] - m->lo[u]);
+	f = fmin(1.0, fmax(0.0, f));
+	return load * (is_hot(m, u) ? f : 1.0 - f);
+}
+
+/* What each utility exchanges across the process pinch (the hottest for a
+ * hot utility, the coldest for a cold one), and the rise of the hot
+ * utility above the process target it causes. */
+static void
+find_across(const model *m, hl_utility_lp *r)
+{
+	double top, bottom, rise = 0.0;
+	size_t u;
+
+	if (r->nproc == 0) {
+		rise = r->hot_load - r->qh_min;
+		r->range_rise = rise > m->tol ? rise : 0.0;
+		return;
+	}
+	top = r->proc[0].shifted;
+	bottom = r->proc[r->nproc - 1].shifted;
+	for (u = 0; u < m->nu; u++) {
+		hl_utility_load *l = &r->util[u];
+		double a = beyond(m, u, l->load, is_hot(m, u) ? top : bottom);
+
+		l->across = a > m->tol ? a : 0.0;
+		if (is_hot(m, u))
+			rise += l->across;
+	}
+	r->range_rise = rise;
+}
+
 static hl_status
 make_result(const model *m, const double *load, hl_utility_lp **out,
 	    hl_error *err)
@@ -732,6 +776,7 @@ make_result(const model *m, const double *load, hl_utility_lp **out,
 	}
 	memcpy(r->t, m->t, m->nb * sizeof *r->t);
 	classify(m, r, load);
+	find_across(m, r);
 	*out = r;
 	return HL_OK;
 }

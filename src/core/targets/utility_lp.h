@@ -55,6 +55,11 @@ typedef struct {
 	double cost;        /* currency per year: price × load × hours / 1000 */
 	hl_utility_use use;
 	double t_hi, t_lo;  /* shifted temperatures of its ends, °C */
+	double across;      /* kW of the load a hot utility gives below the
+			       process pinch (a cold one takes above it):
+			       a utility with a range must exchange over all
+			       of it, so a flue gas with a stack temperature
+			       below the pinch heats the process below it too */
 } hl_utility_load;
 
 /* A boundary where no heat flows down. */
@@ -72,6 +77,10 @@ typedef struct {
 	double hot_load;        /* Σ hot utility loads, kW */
 	double cold_load;       /* Σ cold utility loads, kW */
 	double cost;            /* Σ yearly costs */
+	double qh_min, qc_min;  /* kW, the process targets (problem table) */
+	double range_rise;      /* kW: hot_load − qh_min owed to utility
+				   ranges (Σ across of the hot utilities when
+				   the process has a pinch), 0 when none */
 	size_t nb;
 	double *t;              /* boundaries, shifted °C, falling */
 	double *flow;           /* R_b with the chosen loads, kW (>= 0) */

@@ -36,6 +36,7 @@ static const hl_xattr network_attr[] = {
 	{ "cold-utility", HL_XATTR_AMOUNT, 1, "kW", NULL },
 	{ "rule-penalty", HL_XATTR_AMOUNT, 1, "kW", NULL },
 	{ "energy-penalty", HL_XATTR_AMOUNT, 1, "kW", NULL },
+	{ "range-rise", HL_XATTR_AMOUNT, 0, "kW", NULL },
 	{ "matches", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "units", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "splits", HL_XATTR_AMOUNT, 1, NULL, NULL },
@@ -70,7 +71,7 @@ static const hl_xattr utility_attr[] = {
 	{ "supply", HL_XATTR_NUMBER, 1, "°C", NULL },
 	{ "target", HL_XATTR_NUMBER, 1, "°C", NULL },
 	{ "load", HL_XATTR_AMOUNT, 1, "kW", NULL },
-	{ "price", HL_XATTR_AMOUNT, 0, "per MWh", NULL },
+	{ "price", HL_XATTR_NUMBER, 0, "per MWh", NULL },
 	{ "h", HL_XATTR_AMOUNT, 0, "kW/(m²·K)", NULL },
 	{ "max-load", HL_XATTR_AMOUNT, 0, "kW", NULL },
 	{ "dt-contrib", HL_XATTR_AMOUNT, 0, "K", NULL },
@@ -171,6 +172,9 @@ read_settings(hl_network *net, xmlNodePtr n, const char *file,
 	net->qc = num(n, "cold-utility");
 	net->restriction = num(n, "rule-penalty");
 	net->penalty = num(n, "energy-penalty");
+	net->range_rise = num(n, "range-rise");
+	if (isnan(net->range_rise))
+		net->range_rise = 0.0;
 	net->nmatch = (size_t)num(n, "matches");
 	net->nsplit = (size_t)num(n, "splits");
 	net->area = num(n, "area");

@@ -82,6 +82,40 @@ text_pinches(FILE *fp, const hl_case *c, const hl_utility_lp *lp)
 	}
 }
 
+/* Why the loads exceed the process targets when a utility with a range
+ * must exchange heat across the pinch (a flue gas cooled to its stack). */
+static void
+text_range_rise(FILE *fp, const hl_case *c, const hl_utility_lp *lp)
+{
+	size_t i;
+
+	if (lp->range_rise <= 0.0)
+		return;
+	fprintf(fp, "Above the targets      %.*f %s more hot and cold utility "
+		"than the minimum (%.*f / %.*f %s):\n", HL_DIG_Q(1),
+		hl_show_q(lp->range_rise), HL_SYM_Q, HL_DIG_Q(1),
+		hl_show_q(lp->qh_min), HL_DIG_Q(1), hl_show_q(lp->qc_min),
+		HL_SYM_Q);
+	for (i = 0; i < c->nutil; i++) {
+		const hl_utility *u = &c->util[i];
+		int hot = u->kind == HL_HOT;
+
+		if (lp->util[i].across <= 0.0)
+			continue;
+		fprintf(fp, "                       %s %s %.*f %s %s the pinch: "
+			"it must %s %.1f %s, the end of its range%s\n", u->name,
+			hot ? "gives" : "takes", HL_DIG_Q(1),
+			hl_show_q(lp->util[i].across), HL_SYM_Q,
+			hot ? "below" : "above", hot ? "cool to" : "heat to",
+			hl_show_t(hot ? fmin(u->supply, u->target) :
+				  fmax(u->supply, u->target)), HL_SYM_T,
+			hot ? " (a stack temperature)" : "");
+	}
+	if (lp->nproc == 0)
+		fprintf(fp, "                       (no process pinch: the "
+			"utility ranges and prices set the loads)\n");
+}
+
 void
 hl_utility_lp_text(FILE *fp, const hl_case *c, const hl_utility_lp *lp)
 {
@@ -103,6 +137,7 @@ hl_utility_lp_text(FILE *fp, const hl_case *c, const hl_utility_lp *lp)
 		hl_show_q(lp->hot_load), HL_SYM_Q);
 	fprintf(fp, "Cold utility           %.*f %s\n", HL_DIG_Q(1),
 		hl_show_q(lp->cold_load), HL_SYM_Q);
+	text_range_rise(fp, c, lp);
 	fprintf(fp, "Utility cost           %s %s per year\n", m, cur);
 	text_pinches(fp, c, lp);
 	fprintf(fp, "Solver                 GLPK simplex, %s\n", lp->optimal ?
@@ -121,6 +156,8 @@ xml_utility(xmlTextWriterPtr w, const hl_utility *u, const hl_utility_load *l)
 	rc |= hl_xml_num(w, "price", u->price);
 	rc |= hl_xml_num(w, "load", l->load);
 	rc |= hl_xml_num(w, "cost", l->cost);
+	if (l->across > 0.0)
+		rc |= hl_xml_num(w, "across-pinch", l->across);
 	if (l->use == HL_UTIL_IDLE)
 		rc |= hl_xml_str(w, "use", "unused");
 	else if (l->use == HL_UTIL_REACH)
@@ -141,6 +178,7 @@ hl_utility_lp_xml(xmlTextWriterPtr w, const hl_case *c,
 	rc |= hl_xml_num(w, "hours", lp->hours);
 	rc |= hl_xml_str(w, "optimal", lp->optimal ? "true" : "false");
 	rc |= hl_xml_num(w, "gap", lp->gap);
+	rc |= hl_xml_num(w, "range-rise", lp->range_rise);
 	rc |= xmlTextWriterEndElement(w);
 	for (i = 0; i < c->nutil; i++)
 		rc |= xml_utility(w, &c->util[i], &lp->util[i]);
