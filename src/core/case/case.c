@@ -554,10 +554,10 @@ validate_utility(const hl_utility *u, hl_error *err)
 			"cold utility '%s' cools from %g to %g °C; a cold "
 			"utility warms up (or boils at one temperature)",
 			u->name, u->supply, u->target);
-	if (!isfinite(u->price) || u->price < 0.0)
+	if (!isfinite(u->price))
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
-			"utility '%s': price must be a number >= 0 (per MWh)",
-			u->name);
+			"utility '%s': price must be a number (per MWh; "
+			"negative for a credit)", u->name);
 	if (!isnan(u->max_load) && (!isfinite(u->max_load) || u->max_load < 0.0))
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
 			"utility '%s': maximum load must be >= 0 kW", u->name);

@@ -168,6 +168,11 @@ typedef struct {
 hl_network *hl_network_create(void);
 void hl_network_free(hl_network *net);
 
+/* 1 when a utility with a negative price (a credit) carries load: the rise
+ * above the targets (range_rise) is then hot utility bought because the
+ * credit pays for the process heat it frees, not only utility ranges. */
+int hl_network_has_credit(const hl_network *net);
+
 /* Copy a party into the network (deep copy). */
 hl_status hl_network_add_party(hl_network *net, const hl_network_party *p,
 			       hl_error *err);

@@ -24,7 +24,10 @@
  *
  *	R_k + Σ hot heat into k + surplus_k = R_{k+1} + Σ cold heat out of k
  *
- * The objective is Σ price_u · Q_u. Among answers of equal cost (within 1e-9
+ * The objective is Σ price_u · Q_u. A negative price is a credit (steam
+ * raised, heat sold); then the heat is split by origin (utility_credit.c)
+ * so that a credit utility takes only heat the process gives, or gives
+ * only heat the process takes, and the LP stays bounded. Among answers of equal cost (within 1e-9
  * relative) a second solve picks, deterministically, the one of least
  * weighted utility use, weighting each kW by 1 + its level's rank: the
  * colder hot utility and the hotter cold utility are preferred (the cheaper
@@ -81,6 +84,11 @@ typedef struct {
 	double range_rise;      /* kW: hot_load − qh_min owed to utility
 				   ranges (Σ across of the hot utilities when
 				   the process has a pinch), 0 when none */
+	double credit_rise;     /* kW of hot utility bought beyond that
+				   because a credit pays for it (it frees
+				   process heat for a credit cold utility) */
+	double credit;          /* currency per year the credits earn (>= 0;
+				   cost is net of it) */
 	size_t nb;
 	double *t;              /* boundaries, shifted °C, falling */
 	double *flow;           /* R_b with the chosen loads, kW (>= 0) */

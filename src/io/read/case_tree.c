@@ -543,7 +543,7 @@ read_utility(walk *w, xmlNodePtr n)
 		{ "kind", HL_XATTR_CHOICE, 1, NULL, "hot|cold" },
 		{ "supply", HL_XATTR_NUMBER, 1, U_T, NULL },
 		{ "target", HL_XATTR_NUMBER, 1, U_T, NULL },
-		{ "price", HL_XATTR_AMOUNT, 1, "currency per MWh", NULL },
+		{ "price", HL_XATTR_NUMBER, 1, "currency per MWh", NULL },
 		{ "h", HL_XATTR_AMOUNT, 0, U_H, NULL },
 		{ "max-load", HL_XATTR_AMOUNT, 0, "kW", NULL },
 		{ "dt-contrib", HL_XATTR_AMOUNT, 0, "K", NULL },

@@ -44,8 +44,8 @@ static const hl_xattr network_attr[] = {
 	{ "capital-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "crf", HL_XATTR_AMOUNT, 1, "1/year", NULL },
 	{ "annual-capital-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
-	{ "energy-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
-	{ "total-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "energy-cost", HL_XATTR_NUMBER, 1, NULL, NULL },
+	{ "total-cost", HL_XATTR_NUMBER, 1, NULL, NULL },
 };
 
 static const hl_xattr stream_attr[] = {

@@ -40,7 +40,12 @@ hl_report_rise_text(hl_report *r, const hl_network *n)
 		      hl_report_fmt_duty(a, B, n->qh),
 		      hl_report_fmt_duty(b, B, rise),
 		      hl_report_fmt_duty(c, B, n->qh_target));
-	if (n->range_rise > 0.0 && ++k)
+	if (n->range_rise > 0.0 && hl_network_has_credit(n) && ++k)
+		hl_html_textf(r->h, "%s of hot utility bought because a credit "
+			      "(a utility with a negative price) pays more for "
+			      "the process heat it frees",
+			      hl_report_fmt_duty(a, B, n->range_rise));
+	else if (n->range_rise > 0.0 && ++k)
 		hl_html_textf(r->h, "%s because a hot utility's range ends "
 			      "below the pinch (a flue gas must give heat "
 			      "below it to reach its stack temperature)",

@@ -258,8 +258,18 @@ choice_facts(hl_report *r)
 		       lp->hot_load), "u-hot");
 	hl_report_fact(r, "Cold utility", hl_report_fmt_duty(v, B,
 		       lp->cold_load), "u-cold");
-	hl_report_fact(r, "Utility cost", hl_report_fmt_money(v, B, lp->cost,
+	hl_report_fact(r, lp->credit > 0.0 ? "Utility cost, net of credits" :
+		       "Utility cost", hl_report_fmt_money(v, B, lp->cost,
 		       hl_report_currency(c), 1), "u-cost");
+	if (lp->credit > 0.0)
+		hl_report_fact(r, "Credits", hl_report_fmt_money(v, B,
+			       lp->credit, hl_report_currency(c), 1), "u-credit");
+	if (lp->credit_rise > 0.0) {
+		snprintf(v, sizeof v, "%s of hot utility beyond the minimum: "
+			 "it frees process heat that a credit pays more for",
+			 hl_report_fmt_duty(a, B, lp->credit_rise));
+		hl_report_fact(r, "Bought for credits", v, NULL);
+	}
 	for (i = 0; i < c->nutil; i++) {
 		const hl_utility *u = &c->util[i];
 
