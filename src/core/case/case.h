@@ -7,7 +7,10 @@
  *
  * A process stream is a chain of one or more segments from its supply end to
  * its target end; each segment has its own constant cp (a segmented stream
- * approximates a curved temperature-enthalpy line).
+ * approximates a curved temperature-enthalpy line). A segment whose supply
+ * equals its target is latent heat (condensing, boiling): its heat, given as
+ * a duty, is all at one temperature and its cp is infinite; it is stored as
+ * latent (kW) with cp 0, and hl_segment_duty gives the heat of any segment.
  *
  * Ownership: hl_case_free() frees everything reachable from the case; strings
  * and arrays inside it belong to it. Adders copy what they are given.
@@ -60,12 +63,15 @@ typedef enum { HL_HOT = 0, HL_COLD = 1 } hl_kind;
 /* Unset optional numbers are NaN (test with isnan). */
 typedef struct {
 	double supply;  /* °C, inlet end of this segment */
-	double target;  /* °C, outlet end of this segment */
-	double cp;      /* kW/K, > 0 */
+	double target;  /* °C, outlet end of this segment; equal to supply
+			   for latent heat (condensing, boiling) */
+	double cp;      /* kW/K, > 0; 0 for a latent segment */
 	double h;       /* kW/(m²·K) including fouling, NaN when not given */
 	long line;      /* source line, 0 when none */
 	int by_duty;    /* 1 when the input gave the duty only and cp was
 			   derived from it (the duty is the measured datum) */
+	double latent;  /* kW, > 0 for a latent segment (supply = target:
+			   all its heat at one temperature), else 0 */
 } hl_segment;
 
 typedef struct {
@@ -231,6 +237,23 @@ void hl_case_clear_units(hl_case *c);
 /* Check the whole case: names unique across streams and utilities, numbers in
  * range, segments chained. Errors name the file and line of the offender. */
 hl_status hl_case_validate(const hl_case *c, hl_error *err);
+
+/* Heat of one segment, kW: its latent heat, or cp times its span. */
+double hl_segment_duty(const hl_segment *g);
+/* 1 when the segment is latent heat at one temperature. */
+int hl_segment_latent(const hl_segment *g);
+/* 1 when some stream of c has a latent segment. */
+int hl_case_has_latent(const hl_case *c);
+
+/* A copy of c in which every latent segment is spread over span K (hot:
+ * from T down to T − span; cold: from T up to T + span) with cp =
+ * latent / span, so that a stage that works in temperatures (matches,
+ * placement, sizing, supertargets, sensitivity, the audit) can take it.
+ * The spread errs on the safe side: a condensing stream gives its heat a
+ * little colder, a boiling one takes it a little hotter. NULL when out of
+ * memory. */
+hl_case *hl_case_spread_latent(const hl_case *c, double span);
+#define HL_LATENT_SPAN 1e-3  /* K: far below any reported precision */
 
 /* Totals over a stream: duty (kW, > 0), first supply, last target. */
 double hl_stream_duty(const hl_stream *s);

@@ -177,7 +177,7 @@ gather(const hl_case *c, hl_kind kind, double dtmin, int shifted,
 
 			p[n].t_hi = fmax(g->supply, g->target) + sh;
 			p[n].t_lo = fmin(g->supply, g->target) + sh;
-			p[n].q = g->cp * (p[n].t_hi - p[n].t_lo);
+			p[n].q = hl_segment_duty(g);
 			n++;
 		}
 	}

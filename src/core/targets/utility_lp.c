@@ -51,6 +51,46 @@ utility_ends(const hl_utility *u, double dtmin, double *hi, double *lo)
 	*lo = fmin(u->supply, u->target) + sh;
 }
 
+/* Latent heat is a zero-width interval between two copies of its boundary
+ * (as in the problem table, cascade.h): give each such boundary twice. */
+static int
+double_latent(model *m)
+{
+	const hl_case *c = m->c;
+	size_t i, j, k, n = m->nb, extra = 0;
+	char *mark = calloc(m->nb, 1);
+	double *t;
+
+	if (mark == NULL)
+		return 0;
+	for (i = 0; i < c->nstream; i++)
+		for (j = 0; j < c->stream[i].nseg; j++)
+			if (hl_segment_latent(&c->stream[i].seg[j]))
+				mark[hl_sorted_find_desc(m->t, m->nb,
+				     c->stream[i].seg[j].supply +
+				     stream_sign_shift(&c->stream[i],
+						       m->dtmin))] = 1;
+	for (k = 0; k < n; k++)
+		extra += (size_t)mark[k];
+	t = extra ? malloc((n + extra) * sizeof *t) : NULL;
+	if (extra && t == NULL) {
+		free(mark);
+		return 0;
+	}
+	for (k = 0, i = 0; extra && k < n; k++) {
+		if (mark[k])
+			t[i++] = m->t[k];
+		t[i++] = m->t[k];
+	}
+	if (extra) {
+		free(m->t);
+		m->t = t;
+		m->nb = n + extra;
+	}
+	free(mark);
+	return 1;
+}
+
 /* Every shifted end temperature, sorted and unique; the process span. */
 static int
 build_boundaries(model *m)
@@ -81,6 +121,12 @@ build_boundaries(model *m)
 				m->hot_max = fmax(m->hot_max, fmax(a, b));
 			else
 				m->cold_min = fmin(m->cold_min, fmin(a, b));
+			if (hl_segment_latent(&s->seg[j]) && s->kind == HL_HOT &&
+			    a >= m->hot_max)
+				m->hot_latent_max = 1;
+			if (hl_segment_latent(&s->seg[j]) && s->kind == HL_COLD &&
+			    a <= m->cold_min)
+				m->cold_latent_min = 1;
 		}
 	}
 	for (u = 0; u < m->nu; u++) {
@@ -88,7 +134,29 @@ build_boundaries(model *m)
 		m->t[n++] = m->lo[u];
 	}
 	m->nb = hl_sorted_unique_desc(m->t, n);
-	return 1;
+	return double_latent(m);
+}
+
+/* Latent heat of each zero-width interval (the first copy of its boundary,
+ * see double_latent): lat[2k] hot, lat[2k+1] cold, kW. */
+static void
+latent_steps(const model *m, double *lat)
+{
+	const hl_case *c = m->c;
+	size_t i, j, b;
+
+	for (i = 0; i < c->nstream; i++) {
+		const hl_stream *s = &c->stream[i];
+
+		for (j = 0; j < s->nseg; j++) {
+			if (!hl_segment_latent(&s->seg[j]))
+				continue;
+			b = hl_sorted_find_desc(m->t, m->nb, s->seg[j].supply +
+						stream_sign_shift(s, m->dtmin));
+			lat[2 * b + (s->kind == HL_HOT ? 0 : 1)] +=
+				s->seg[j].latent;
+		}
+	}
 }
 
 /* Surplus of every interval: net cp by a difference array over boundary
@@ -98,13 +166,16 @@ build_surplus(model *m)
 {
 	const hl_case *c = m->c;
 	size_t i, j, k;
-	double run = 0.0, runh = 0.0, runc = 0.0, scale = 0.0;
+	double run = 0.0, runh = 0.0, runc = 0.0, scale = 0.0, *lat;
 
 	m->dh = calloc(m->nb, sizeof *m->dh);
 	m->hk = calloc(m->nb, sizeof *m->hk);
 	m->ck = calloc(m->nb, sizeof *m->ck);
-	if (m->dh == NULL || m->hk == NULL || m->ck == NULL)
+	lat = calloc(2 * m->nb, sizeof *lat);
+	if (m->dh == NULL || m->hk == NULL || m->ck == NULL || lat == NULL) {
+		free(lat);
 		return 0;
+	}
 	for (i = 0; i < c->nstream; i++) {
 		const hl_stream *s = &c->stream[i];
 		double sh = stream_sign_shift(s, m->dtmin);
@@ -125,17 +196,19 @@ build_surplus(model *m)
 			side[b] -= g->cp;
 		}
 	}
+	latent_steps(m, lat);
 	for (k = 0; k + 1 < m->nb; k++) {
 		double w = m->t[k] - m->t[k + 1];
 
 		run += m->dh[k];
-		m->dh[k] = run * w;
 		runh += m->hk[k];
 		runc += m->ck[k];
-		m->hk[k] = runh * w;
-		m->ck[k] = runc * w;
+		m->dh[k] = run * w + lat[2 * k] - lat[2 * k + 1];
+		m->hk[k] = runh * w + lat[2 * k];
+		m->ck[k] = runc * w + lat[2 * k + 1];
 		scale += fabs(m->dh[k]);
 	}
+	free(lat);
 	m->dh[m->nb - 1] = m->hk[m->nb - 1] = m->ck[m->nb - 1] = 0.0;
 	m->tol = 1e-9 * (scale > 0.0 ? scale : 1.0);
 	return 1;
@@ -171,6 +244,12 @@ locate_utilities(model *m)
 	for (u = 0; u < m->nu; u++) {
 		m->bhi[u] = hl_sorted_find_desc(m->t, m->nb, m->hi[u]);
 		m->blo[u] = hl_sorted_find_desc(m->t, m->nb, m->lo[u]);
+		/* an isothermal cold utility takes from the interval above its
+		 * level: at a latent step, the step itself (the last copy) */
+		if (m->hi[u] == m->lo[u] && !is_hot(m, u))
+			while (m->bhi[u] + 1 < m->nb &&
+			       m->t[m->bhi[u] + 1] == m->t[m->bhi[u]])
+				m->blo[u] = ++m->bhi[u];
 	}
 }
 
@@ -717,8 +796,10 @@ classify(const model *m, hl_utility_lp *r, const double *load)
 		l->cost = x->price * l->load * r->hours / 1000.0;
 		if (l->load > 0.0)
 			l->use = HL_UTIL_USED;
-		else if (is_hot(m, u) ? m->cold_min >= m->hi[u]
-				      : m->hot_max <= m->lo[u])
+		else if (is_hot(m, u) ? m->cold_min > m->hi[u] ||
+				(m->cold_min == m->hi[u] && !m->cold_latent_min)
+				      : m->hot_max < m->lo[u] ||
+				(m->hot_max == m->lo[u] && !m->hot_latent_max))
 			l->use = HL_UTIL_REACH;
 		else
 			l->use = HL_UTIL_IDLE;

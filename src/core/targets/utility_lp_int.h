@@ -25,6 +25,9 @@ typedef struct {
 	double pmax, pmin;       /* span of the process, shifted */
 	double cold_min;         /* lowest shifted cold-stream temperature */
 	double hot_max;          /* highest shifted hot-stream temperature */
+	int hot_latent_max;      /* latent heat at hot_max (a cold utility
+				    there can take it), likewise at */
+	int cold_latent_min;     /* cold_min for a hot utility */
 	double tol;
 } model;
 

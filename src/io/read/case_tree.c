@@ -412,10 +412,18 @@ read_ends(walk *w, xmlNodePtr n, const char *name, double h, hl_segment *g)
 		return fail(w, n, HL_EINPUT, "stream '%s' needs supply and "
 			"target (" U_T "), or <segment> children", name);
 	span = fabs(g->supply - g->target);
-	if (span == 0.0)
+	if (span == 0.0 && !isnan(cp))
 		return fail(w, n, HL_EINPUT, "stream '%s': supply equals target "
-			"(%g " U_T "); a process stream must change temperature",
+			"(%g " U_T "), so cp would be infinite; give the latent "
+			"heat as a duty (kW) instead of cp", name, g->supply);
+	if (span == 0.0 && !(duty > 0.0))
+		return fail(w, n, HL_EINPUT, "stream '%s': supply equals target "
+			"(%g " U_T "): give the latent heat as a duty (kW, > 0)",
 			name, g->supply);
+	if (span == 0.0) {
+		g->latent = duty;
+		return HL_OK;
+	}
 	if (!isnan(duty) && !(duty > 0.0))
 		return fail(w, n, HL_EINPUT, "stream '%s': duty must be > 0 kW",
 			    name);
@@ -488,8 +496,22 @@ stream_kind(walk *w, xmlNodePtr n, hl_stream *s)
 {
 	const char *k = hl_xattr_text(n, "kind");
 	const hl_segment *g = &s->seg[0];
+	size_t i;
 
 	s->kind = g->supply > g->target ? HL_HOT : HL_COLD;
+	/* A stream of latent heat only takes its kind from the attribute;
+	 * one that starts latent from its first sensible segment. */
+	for (i = 0; i < s->nseg && hl_segment_latent(&s->seg[i]); i++)
+		;
+	if (i < s->nseg)
+		s->kind = s->seg[i].supply > s->seg[i].target ? HL_HOT :
+			  HL_COLD;
+	else if (k == NULL)
+		return fail(w, n, HL_EINPUT, "stream '%s' is latent heat at "
+			"%g " U_T ": give its kind (hot: condensing, cold: "
+			"boiling)", s->name, g->supply);
+	else
+		s->kind = strcmp(k, "hot") == 0 ? HL_HOT : HL_COLD;
 	if (k == NULL || strcmp(k, s->kind == HL_HOT ? "hot" : "cold") == 0)
 		return HL_OK;
 	return fail(w, n, HL_EINPUT, "stream '%s' is marked %s but runs from "
