@@ -118,8 +118,13 @@ run_targets(void *opts, hl_error *err)
 	hl_output out;
 	hl_status st;
 
+	hl_common exact = *o;
+
+	/* Latent heat as steps; the sensitivity and the supertargets work
+	 * along temperatures and take it spread (case.h). */
+	exact.exact_latent = !oo->sensitivity && !oo->super;
 	hl_error_clear(&why);
-	st = hl_cmd_load_case(o, &c, err);
+	st = hl_cmd_load_case(&exact, &c, err);
 	if (st == HL_OK)
 		st = hl_output_check(o->output, err);
 	if (st == HL_OK)

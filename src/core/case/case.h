@@ -72,6 +72,8 @@ typedef struct {
 			   derived from it (the duty is the measured datum) */
 	double latent;  /* kW, > 0 for a latent segment (supply = target:
 			   all its heat at one temperature), else 0 */
+	int spread;     /* 1: latent heat spread over HL_LATENT_SPAN by
+			   hl_case_spread_latent (cp = heat / span) */
 } hl_segment;
 
 typedef struct {
@@ -245,15 +247,17 @@ int hl_segment_latent(const hl_segment *g);
 /* 1 when some stream of c has a latent segment. */
 int hl_case_has_latent(const hl_case *c);
 
-/* A copy of c in which every latent segment is spread over span K (hot:
- * from T down to T − span; cold: from T up to T + span) with cp =
- * latent / span, so that a stage that works in temperatures (matches,
+/* A copy of c in which every latent segment at T is spread over span K
+ * towards the stream's supply end (hot: T + span → T; cold: T − span → T)
+ * with cp = latent / span, the segment before it giving up that span and
+ * keeping its heat, so that a stage that works along temperatures (matches,
  * placement, sizing, supertargets, sensitivity, the audit) can take it.
- * The spread errs on the safe side: a condensing stream gives its heat a
- * little colder, a boiling one takes it a little hotter. NULL when out of
- * memory. */
+ * Heat on the target side of T does not move: a pinch at a latent
+ * temperature stays where it is. NULL when out of memory. */
 hl_case *hl_case_spread_latent(const hl_case *c, double span);
-#define HL_LATENT_SPAN 1e-3  /* K: far below any reported precision */
+#define HL_LATENT_SPAN 1e-2  /* K: below any reported precision, and
+				 cp = latent / span stays within the
+				 accuracy of the placement's temperatures */
 
 /* Totals over a stream: duty (kW, > 0), first supply, last target. */
 double hl_stream_duty(const hl_stream *s);

@@ -44,24 +44,38 @@ copy_settings(hl_case *d, const hl_case *c)
 	return 1;
 }
 
-/* A latent segment at T becomes T → T ∓ span, and its neighbours move
- * with it so that the chain stays joined (a hot stream ends span lower). */
+/* A latent segment at T becomes a segment from T ± span (towards the
+ * stream's supply end: hotter for a condensing stream, colder for a boiling
+ * one) to T with cp = latent / span. The segment before it gives up that
+ * span and keeps its heat. Heat on the target side of T stays where it was,
+ * so a pinch at a latent temperature (a common place for one) is kept
+ * exactly; only within span of T is the heat a little early. */
 static void
 spread(hl_stream *s, double span)
 {
-	double d = s->kind == HL_HOT ? -1.0 : 1.0, shift = 0.0;
+	double d = s->kind == HL_HOT ? 1.0 : -1.0;
 	size_t j;
 
 	for (j = 0; j < s->nseg; j++) {
-		hl_segment *g = &s->seg[j];
+		hl_segment *g = &s->seg[j], *p = j > 0 ? &s->seg[j - 1] : NULL;
+		double t = g->supply;
 
-		g->supply += shift;
-		if (hl_segment_latent(g)) {
-			g->cp = g->latent / span;
-			g->latent = 0.0;
-			shift += d * span;
+		if (!hl_segment_latent(g))
+			continue;
+		if (p != NULL && !p->spread &&
+		    fabs(p->supply - p->target) > 2.0 * span) {
+			double q = hl_segment_duty(p);
+
+			p->target = t + d * span;
+			p->cp = q / fabs(p->supply - p->target);
+		} else if (p != NULL) {
+			continue;  /* too short to give up the span: left as
+				      it was (its heat already at T) */
 		}
-		g->target += shift;
+		g->supply = t + d * span;
+		g->cp = g->latent / span;
+		g->latent = 0.0;
+		g->spread = 1;
 	}
 }
 

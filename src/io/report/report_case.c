@@ -63,10 +63,14 @@ stream_rows(hl_report *r, const hl_stream *s)
 			       "cold") : "");
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
 				   hl_show_t(g->supply), 1));
+		/* latent heat: one temperature, no cp (case.h) */
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-				   hl_show_t(g->target), 1));
-		hl_report_cell_num(r, cp_text(v, B, g->cp));
-		hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(g->cp * fabs(g->supply - g->target))));
+				   hl_show_t(g->spread ? g->supply : g->target),
+				   1));
+		hl_report_cell_num(r, g->spread ? "latent" : cp_text(v, B,
+				   g->cp));
+		hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(g->cp *
+				   fabs(g->supply - g->target))));
 		hl_report_cell(r, g->by_duty ? "duty" : "cp");
 		hl_report_cell_num(r, h_text(v, B, g->h, set->h_default));
 		hl_report_cell_num(r, k == 0 ? contrib_text(v, B,
