@@ -277,6 +277,33 @@ retrofit_sentence(hl_report *r)
 	hl_html_end(r->h);
 }
 
+/* Why the area targets here are not those of the trade-off section at the
+ * same ΔTmin: the mix of utility levels. */
+static void
+sweep_gap_note(hl_report *r, const hl_retrofit *rf)
+{
+	const hl_retrofit_point *w = NULL;
+	char a[B], b[B], t[B], v[8 * B];
+	size_t i;
+
+	for (i = 0; i < rf->n; i++)
+		if (!isnan(rf->pt[i].area_sweep) && (w == NULL ||
+		    fabs(rf->pt[i].area_target - rf->pt[i].area_sweep) >
+		    fabs(w->area_target - w->area_sweep)))
+			w = &rf->pt[i];
+	if (w == NULL || fabs(w->area_target - w->area_sweep) < 0.05)
+		return;
+	snprintf(v, sizeof v, "The area targets of this curve keep today's mix "
+		 "of utility levels, moving linearly to the least-cost mix at "
+		 "the targets; the ΔTmin sweep takes the least-cost mix at "
+		 "every ΔTmin, so its area target differs at the same ΔTmin "
+		 "(largest gap: %s here, %s there, at %s).",
+		 hl_report_fmt_area(a, B, w->area_target),
+		 hl_report_fmt_area(b, B, w->area_sweep),
+		 hl_report_fmt_dt(t, B, w->dtmin));
+	hl_report_note(r, v);
+}
+
 static void
 retrofit(hl_report *r)
 {
@@ -312,6 +339,7 @@ retrofit(hl_report *r)
 	for (i = 0; i < rf->n; i++)
 		retrofit_row(r, &rf->pt[i], i, rf->n);
 	hl_report_table_end(r);
+	sweep_gap_note(r, rf);
 	hl_report_note(r, "Which units to re-pipe, where new shells go, "
 		       "pressure drop, layout and plant constraints are not in "
 		       "these figures: they are for a detailed retrofit "
