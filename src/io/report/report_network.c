@@ -137,7 +137,7 @@ grid(hl_report *r)
 {
 	const hl_report_data *d = r->d;
 	hl_grid_opts go = { "Heat exchanger network", NULL, NULL,
-			    d->net_npinch, d->net_pinch };
+			    d->net_npinch, d->net_pinch, d->cas };
 	char id[32];
 
 	hl_report_figure_open(r, id, sizeof id);
@@ -148,7 +148,8 @@ grid(hl_report *r)
 			       "above, cold below, temperature falling from "
 			       "left to right; each exchanger a linked pair of "
 			       "marks, heaters and coolers square marks; "
-			       "dashed lines at the pinches.");
+			       "dashed lines at the pinches (dotted, orange: "
+			       "utility pinches).");
 }
 
 static void
