@@ -184,7 +184,20 @@ typedef struct {
 	hl_area_policy area_policy; /* HL_AREAS_ALLOW */
 	double area_penalty; /* units per cross-area match, 1 */
 	char *currency;      /* label only, "EUR" by default */
+	unsigned given;      /* HL_GIVEN_* bits: what the case file sets (a
+				value it sets may equal the default) */
 } hl_settings;
+
+/* Bits of hl_settings.given, one per setting a case file can give. */
+enum {
+	HL_GIVEN_DTMIN = 1u << 0, HL_GIVEN_EMAT = 1u << 1,
+	HL_GIVEN_HOURS = 1u << 2, HL_GIVEN_H_DEFAULT = 1u << 3,
+	HL_GIVEN_FMIN = 1u << 4, HL_GIVEN_XP = 1u << 5,
+	HL_GIVEN_INTEREST = 1u << 6, HL_GIVEN_LIFE = 1u << 7,
+	HL_GIVEN_CP_TOL = 1u << 8, HL_GIVEN_T_TOL = 1u << 9,
+	HL_GIVEN_TIME_LIMIT = 1u << 10, HL_GIVEN_EXCHANGER = 1u << 11,
+	HL_GIVEN_CURRENCY = 1u << 12, HL_GIVEN_COST = 1u << 13
+};
 
 typedef struct {
 	hl_settings set;

@@ -179,18 +179,20 @@ static const hl_xattr settings_attrs[] = {
 static const struct {
 	const char *name;
 	size_t off;
+	unsigned bit;
 } settings_numbers[] = {
-	{ "dtmin", offsetof(hl_settings, dtmin) },
-	{ "emat", offsetof(hl_settings, emat) },
-	{ "hours", offsetof(hl_settings, hours) },
-	{ "h-default", offsetof(hl_settings, h_default) },
-	{ "fmin", offsetof(hl_settings, fmin) },
-	{ "xp", offsetof(hl_settings, xp) },
-	{ "interest", offsetof(hl_settings, interest) },
-	{ "life", offsetof(hl_settings, life) },
-	{ "cp-tol", offsetof(hl_settings, cp_tol) },
-	{ "t-tol", offsetof(hl_settings, t_tol) },
-	{ "time-limit", offsetof(hl_settings, time_limit) },
+	{ "dtmin", offsetof(hl_settings, dtmin), HL_GIVEN_DTMIN },
+	{ "emat", offsetof(hl_settings, emat), HL_GIVEN_EMAT },
+	{ "hours", offsetof(hl_settings, hours), HL_GIVEN_HOURS },
+	{ "h-default", offsetof(hl_settings, h_default), HL_GIVEN_H_DEFAULT },
+	{ "fmin", offsetof(hl_settings, fmin), HL_GIVEN_FMIN },
+	{ "xp", offsetof(hl_settings, xp), HL_GIVEN_XP },
+	{ "interest", offsetof(hl_settings, interest), HL_GIVEN_INTEREST },
+	{ "life", offsetof(hl_settings, life), HL_GIVEN_LIFE },
+	{ "cp-tol", offsetof(hl_settings, cp_tol), HL_GIVEN_CP_TOL },
+	{ "t-tol", offsetof(hl_settings, t_tol), HL_GIVEN_T_TOL },
+	{ "time-limit", offsetof(hl_settings, time_limit),
+	  HL_GIVEN_TIME_LIMIT },
 };
 
 static hl_status
@@ -206,6 +208,7 @@ read_cost(walk *w, xmlNodePtr n)
 
 	if (st != HL_OK)
 		return st;
+	s->given |= HL_GIVEN_COST;
 	if (!isnan(num(n, "a")))
 		s->cost_a = num(n, "a");
 	if (!isnan(num(n, "b")))
@@ -306,9 +309,13 @@ settings_values(walk *w, xmlNodePtr n)
 	for (i = 0; i < NELEM(settings_numbers); i++) {
 		double v = num(n, settings_numbers[i].name);
 
-		if (!isnan(v))
-			*(double *)((char *)s + settings_numbers[i].off) = v;
+		if (isnan(v))
+			continue;
+		*(double *)((char *)s + settings_numbers[i].off) = v;
+		s->given |= settings_numbers[i].bit;
 	}
+	s->given |= (ex != NULL ? HL_GIVEN_EXCHANGER : 0u) |
+		    (cur != NULL ? HL_GIVEN_CURRENCY : 0u);
 	if (ex != NULL)
 		s->exchanger = (hl_exchanger_type)hl_exchanger_type_parse(ex);
 	if (hl_xattr_text(n, "heater-type") != NULL)
