@@ -346,7 +346,8 @@ write_sensitivity(hl_report *r)
 		hl_report_note(r, "∞: the datum sits at the edge of what the "
 			       "utilities can reach; a step that way, however "
 			       "small, leaves no utility able to serve the "
-			       "process. Check it first.");
+			       "process, so no finite cost can be given and "
+			       "the ranking puts it first. Check it first.");
 }
 
 const hl_report_section hl_report_sec_sensitivity = {
