@@ -424,6 +424,9 @@ check_grep 'no heating utility' "$R"
 
 # --- Defaults named as defaults; the caution; bad use. --------------------
 check_grep 'built-in default' "$WORK/r.html"
+# demo.xml sets hours="8000", the default value: named as set for this case.
+check_exit 0 hl report "$CASES/demo.xml" -o "$WORK/set.html"
+check_grep 'Operating hours</td><td>8000 h/yr</td><td>set for this case (the same as the built-in default)' "$WORK/set.html"
 check_grep 'qualified engineers under local codes' "$WORK/r.html"
 check_exit 1 hl report
 check_exit 1 hl report "$CASES/demo.xml" --from 20 --to 10
