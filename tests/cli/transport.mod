@@ -1,7 +1,8 @@
 /* transport.mod - least-cost utility loads as a transportation problem
  * (Cerda, Westerberg, Mason & Linnhoff 1983, "Minimum utility usage in heat
  * exchanger network synthesis: a transportation problem", Chem. Eng. Sci.
- * 38, 373-387), in GNU MathProg for glpsol. An independent check of
+ * 38, 373-387; citation from memory), in GNU MathProg for glpsol. An
+ * independent check of
  * heatloom's cascade (transshipment) LP: heat moves from a hot party in one
  * shifted interval straight to a cold party in the same or a colder
  * interval; no cascade, no residual flows.
