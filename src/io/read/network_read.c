@@ -231,6 +231,7 @@ read_stream(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 	hl_status st = hl_xattr_check(n, stream_attr, N(stream_attr), file,
 	    err);
 
+	memset(seg, 0, sizeof seg);   /* latent and spread: 0, sensible */
 	if (st != HL_OK)
 		return st;
 	memset(&p, 0, sizeof p);

@@ -248,6 +248,7 @@ builder_add(builder *b, hl_table *t, const row *r, hl_error *err)
 	g->line = hl_table_line(t);
 	g->by_duty = r->by_duty;
 	g->latent = r->latent;
+	g->spread = 0;
 	return HL_OK;
 }
 
