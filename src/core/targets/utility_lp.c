@@ -91,6 +91,30 @@ double_latent(model *m)
 	return 1;
 }
 
+/* Whether latent heat lies at the hottest hot or the coldest cold shifted
+ * temperature (a utility exactly there can still take or give it). */
+static void
+latent_ends(model *m)
+{
+	const hl_case *c = m->c;
+	size_t i, j;
+
+	for (i = 0; i < c->nstream; i++) {
+		const hl_stream *s = &c->stream[i];
+		double t;
+
+		for (j = 0; j < s->nseg; j++) {
+			if (!hl_segment_latent(&s->seg[j]))
+				continue;
+			t = s->seg[j].supply + stream_sign_shift(s, m->dtmin);
+			if (s->kind == HL_HOT && t == m->hot_max)
+				m->hot_latent_max = 1;
+			if (s->kind == HL_COLD && t == m->cold_min)
+				m->cold_latent_min = 1;
+		}
+	}
+}
+
 /* Every shifted end temperature, sorted and unique; the process span. */
 static int
 build_boundaries(model *m)
@@ -121,14 +145,9 @@ build_boundaries(model *m)
 				m->hot_max = fmax(m->hot_max, fmax(a, b));
 			else
 				m->cold_min = fmin(m->cold_min, fmin(a, b));
-			if (hl_segment_latent(&s->seg[j]) && s->kind == HL_HOT &&
-			    a >= m->hot_max)
-				m->hot_latent_max = 1;
-			if (hl_segment_latent(&s->seg[j]) && s->kind == HL_COLD &&
-			    a <= m->cold_min)
-				m->cold_latent_min = 1;
 		}
 	}
+	latent_ends(m);
 	for (u = 0; u < m->nu; u++) {
 		m->t[n++] = m->hi[u];
 		m->t[n++] = m->lo[u];

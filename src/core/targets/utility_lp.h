@@ -27,8 +27,8 @@
  * The objective is Σ price_u · Q_u. A negative price is a credit (steam
  * raised, heat sold); then the heat is split by origin (utility_credit.c)
  * so that a credit utility takes only heat the process gives, or gives
- * only heat the process takes, and the LP stays bounded. Among answers of equal cost (within 1e-9
- * relative) a second solve picks, deterministically, the one of least
+ * only heat the process takes, and the LP stays bounded. Among answers of
+ * equal cost (within 1e-9 relative) a second solve picks, deterministically, the one of least
  * weighted utility use, weighting each kW by 1 + its level's rank: the
  * colder hot utility and the hotter cold utility are preferred (the cheaper
  * level in exergy; LP steam before HP steam at the same price).

@@ -138,16 +138,19 @@ settings_rows(hl_report *r, const hl_settings *s, const hl_settings *def)
 		s->hours == def->hours));
 	snprintf(v, B, "%.4g %s", hl_show_h(s->h_default), HL_SYM_H);
 	setting(r, "Film coefficient where none is given", v,
-		source_of(s, HL_GIVEN_H_DEFAULT, s->h_default == def->h_default));
+		source_of(s, HL_GIVEN_H_DEFAULT,
+			  s->h_default == def->h_default));
 	setting(r, "Exchanger type", s->exchanger == HL_EXCH_SHELL_TUBE ?
 		"shell-and-tube, one shell pass, 2, 4, … tube passes" :
 		hl_exchanger_type_name(s->exchanger),
 		source_of(s, HL_GIVEN_EXCHANGER,
 		s->exchanger == def->exchanger));
 	snprintf(v, B, "%.2f", s->fmin);
-	setting(r, "F floor per shell", v, source_of(s, HL_GIVEN_FMIN, s->fmin == def->fmin));
+	setting(r, "F floor per shell", v, source_of(s, HL_GIVEN_FMIN,
+		s->fmin == def->fmin));
 	snprintf(v, B, "%.2f of the maximum P", s->xp);
-	setting(r, "Xp rule", v, source_of(s, HL_GIVEN_XP, s->xp == def->xp));
+	setting(r, "Xp rule", v, source_of(s, HL_GIVEN_XP,
+		s->xp == def->xp));
 	snprintf(v, B, "%g + %g·A^%g %s per shell, A in m²", s->cost_a,
 		 s->cost_b, s->cost_c, cur);
 	setting(r, "Exchanger cost law", v, s->given & HL_GIVEN_COST ?
@@ -155,9 +158,11 @@ settings_rows(hl_report *r, const hl_settings *s, const hl_settings *def)
 		"built-in default: illustrative, not a price" : CASE_TEXT);
 	type_laws(r, s);
 	snprintf(v, B, "%g %% a year", 100.0 * s->interest);
-	setting(r, "Interest rate", v, source_of(s, HL_GIVEN_INTEREST, s->interest == def->interest));
+	setting(r, "Interest rate", v, source_of(s, HL_GIVEN_INTEREST,
+		s->interest == def->interest));
 	snprintf(v, B, "%g years", s->life);
-	setting(r, "Plant life", v, source_of(s, HL_GIVEN_LIFE, s->life == def->life));
+	setting(r, "Plant life", v, source_of(s, HL_GIVEN_LIFE,
+		s->life == def->life));
 	snprintf(v, B, "±%g %%", 100.0 * s->cp_tol);
 	setting(r, "cp and duty tolerance", v,
 		source_of(s, HL_GIVEN_CP_TOL, s->cp_tol == def->cp_tol));

@@ -263,7 +263,8 @@ choice_facts(hl_report *r)
 		       hl_report_currency(c), 1), "u-cost");
 	if (lp->credit > 0.0)
 		hl_report_fact(r, "Credits", hl_report_fmt_money(v, B,
-			       lp->credit, hl_report_currency(c), 1), "u-credit");
+			       lp->credit, hl_report_currency(c), 1),
+			       "u-credit");
 	if (lp->credit_rise > 0.0) {
 		snprintf(v, sizeof v, "%s of hot utility beyond the minimum: "
 			 "it frees process heat that a credit pays more for",

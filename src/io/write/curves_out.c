@@ -361,7 +361,8 @@ hl_svg_chart *
 hl_curves_chart_grand(const hl_case *c, const hl_cascade *cas,
 		      const hl_curves *cv, const hl_utility_lp *lp)
 {
-	heat_scale s = scale_for(fmax(max_h(&cv->grand), max_h(&cv->grand_util)));
+	heat_scale s = scale_for(fmax(max_h(&cv->grand),
+				      max_h(&cv->grand_util)));
 	hl_svg_chart *ch;
 	char sub[512], a[64], yl[64];
 	int rc = 0;
