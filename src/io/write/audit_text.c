@@ -307,9 +307,10 @@ sweep_gap(FILE *fp, const hl_retrofit *r)
 	fprintf(fp, "  The target area keeps today's mix of utility levels, "
 		"moving linearly to the\n  least-cost mix at the targets; "
 		"`sweep` takes the least-cost mix at every ΔTmin,\n  so its "
-		"area target differs: at ΔTmin %.2f K %.1f m² here, %.1f m² "
-		"in `sweep`\n  (the largest gap on the curve).\n", w->dtmin,
-		w->area_target, w->area_sweep);
+		"area target differs: at ΔTmin %.2f %s %.1f %s here, %.1f %s "
+		"in `sweep`\n  (the largest gap on the curve).\n",
+		hl_show_dt(w->dtmin), HL_SYM_DT, hl_show_a(w->area_target),
+		HL_SYM_A, hl_show_a(w->area_sweep), HL_SYM_A);
 }
 
 static void

@@ -264,9 +264,10 @@ text_pinch_kinds(FILE *fp, const hl_match_result *r, const hl_cascade *cas)
 		for (k = 0; k < cas->npinch; k++)
 			proc |= fabs(cas->t[cas->pinch[k]] - t) <= 1e-9 *
 				(1.0 + fabs(t));
-		fprintf(fp, "%s  pinch %zu at %.1f °C shifted: %s\n", s ? "" :
-			"\n", s + 1, t, proc ? "process pinch" : "utility pinch "
-			"(a utility level used to its limit there)");
+		fprintf(fp, "%s  pinch %zu at %.1f %s shifted: %s\n", s ? "" :
+			"\n", s + 1, hl_show_t(t), HL_SYM_T, proc ?
+			"process pinch" : "utility pinch (a utility level used "
+			"to its limit there)");
 	}
 }
 
