@@ -6,6 +6,7 @@
  * one line on stderr naming the file, the line and the exchanger (or
  * stream); the run exits 0 when there is none and 2 when there is any.
  */
+#include <math.h>
 #include <stdio.h>
 #include <string.h>
 
@@ -40,6 +41,49 @@ report(const char *file, const hl_netcheck *r)
 	}
 }
 
+/* A heat rate in the display unit: "12.3 kW" or "42 000 Btu/h". */
+static void
+put_q(const char *before, double kw)
+{
+	printf("%s%.*f %s", before, HL_DIG_Q(1), hl_show_q(kw), HL_SYM_Q);
+}
+
+/* Sound is not the same as at target: say how far the utilities are above
+ * the targets, and what the network itself declares as the reason. */
+static void
+above_targets(const hl_network *net, const hl_netcheck *r)
+{
+	double qh = 0.0, qc = 0.0, over;
+	size_t i;
+
+	for (i = 0; i < net->nparty; i++)
+		if (net->party[i].utility && net->party[i].kind == HL_HOT)
+			qh += net->party[i].load;
+		else if (net->party[i].utility)
+			qc += net->party[i].load;
+	over = qh - r->qh_min;
+	put_q("Utilities: ", qh);
+	put_q(" hot, ", qc);
+	printf(" cold");
+	if (over <= 1e-6 * fmax(1.0, r->qh_min)) {
+		printf(", at the targets\n");
+		return;
+	}
+	put_q(", ", over);
+	put_q(" hot and ", qc - r->qc_min);
+	printf(" cold above the targets");
+	if (r->qh_min > 0.0)
+		printf(" (%.1f %% hot)", 100.0 * over / r->qh_min);
+	if (net->range_rise > 0.0)
+		put_q(hl_network_has_credit(net) ? "; utility choice (credits, "
+		    "ranges) " : "; utility ranges ", net->range_rise);
+	if (net->restriction > 0.0)
+		put_q("; match rules ", net->restriction);
+	if (net->penalty > 0.0)
+		put_q("; placement ", net->penalty);
+	printf("\n");
+}
+
 /* HL_EINPUT with err clear when the network has problems: they are on
  * stderr already. */
 static hl_status
@@ -61,7 +105,7 @@ run_check(void *opts, hl_error *err)
 	for (i = 0; i < net->nparty; i++)
 		nstream += !net->party[i].utility;
 	report(o->input, r);
-	if (!o->quiet)
+	if (!o->quiet) {
 		printf("%s: %zu exchangers, %zu streams, %zu utilities: "
 		    "%s%zu problem%s (targets from the streams: %.*f %s "
 		    "hot, %.*f %s cold)\n", o->input, net->nunit, nstream,
@@ -69,6 +113,8 @@ run_check(void *opts, hl_error *err)
 		    r->n, r->n == 1 ? "" : "s", HL_DIG_Q(1),
 		    hl_show_q(r->qh_min), HL_SYM_Q, HL_DIG_Q(1),
 		    hl_show_q(r->qc_min), HL_SYM_Q);
+		above_targets(net, r);
+	}
 	st = r->n == 0 ? HL_OK : HL_EINPUT;
 	hl_netcheck_free(r);
 	hl_network_free(net);

@@ -116,6 +116,8 @@ typedef struct {
 	int verbose;
 	int quiet;
 	unsigned long long given;  /* bit i: the table's row i was given */
+	int exact_latent;   /* keep latent heat as steps (targets, curves);
+			       else it is spread over HL_LATENT_SPAN */
 } hl_common;
 
 void hl_common_init(hl_common *o);

@@ -101,6 +101,14 @@ hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err)
 	if (!isnan(o->dtmin))
 		(*out)->set.dtmin = o->dtmin;
 	st = hl_case_validate(*out, err);
+	if (st == HL_OK && !o->exact_latent && hl_case_has_latent(*out)) {
+		hl_case *spread = hl_case_spread_latent(*out, HL_LATENT_SPAN);
+
+		hl_case_free(*out);
+		*out = spread;
+		if (spread == NULL)
+			st = hl_error_nomem(err);
+	}
 	if (st != HL_OK) {
 		hl_case_free(*out);
 		*out = NULL;

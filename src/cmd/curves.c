@@ -73,8 +73,11 @@ compute(const hl_common *o, study *s, hl_error *err)
 	hl_status st;
 	size_t i;
 
+	hl_common exact = *o;
+
 	memset(s, 0, sizeof *s);
-	st = hl_cmd_load_case(o, &s->c, err);
+	exact.exact_latent = 1;   /* the curves show latent heat as steps */
+	st = hl_cmd_load_case(&exact, &s->c, err);
 	if (st == HL_OK)
 		st = hl_cascade_compute(s->c, s->c->set.dtmin, &s->cas, err);
 	if (st == HL_OK && s->c->nutil > 0)

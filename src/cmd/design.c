@@ -234,12 +234,13 @@ static hl_status
 write_svg(const options *o, const run_state *s, hl_error *err)
 {
 	double pin[64];
-	hl_grid_opts go = { NULL, NULL, hl_caution, 0, pin };
+	hl_grid_opts go = { NULL, NULL, hl_caution, 0, pin, NULL };
 	char title[300];
 	hl_output out;
 	hl_status st;
 
 	go.npinch = hl_network_pinches(s->cas, s->lp, pin, 64);
+	go.cas = s->cas;
 	snprintf(title, sizeof title, "Heat exchanger network: %s",
 	    s->c->source != NULL ? s->c->source : o->c.input);
 	go.title = title;

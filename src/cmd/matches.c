@@ -6,6 +6,7 @@
 #include <string.h>
 #include <unistd.h>
 
+#include "cascade.h"
 #include "cmd.h"
 #include "glpk_guard.h"
 #include "match_milp.h"
@@ -125,7 +126,13 @@ write_result(const options *o, const hl_case *c, const hl_match_result *r,
 	} else if (o->c.format == HL_FMT_CSV) {
 		hl_matches_csv(out.fp, r);
 	} else {
-		hl_matches_text(out.fp, c, r, c->set.dtmin);
+		hl_cascade *cas = NULL;
+
+		/* the process pinches, to tell them from utility pinches */
+		if (hl_cascade_compute(c, c->set.dtmin, &cas, NULL) != HL_OK)
+			cas = NULL;
+		hl_matches_text(out.fp, c, r, c->set.dtmin, cas);
+		hl_cascade_free(cas);
 	}
 	st = st == HL_OK ? hl_output_commit(&out, err) : st;
 	hl_output_abort(&out);

@@ -379,6 +379,9 @@ dtmin_from(const report_opts *o, const hl_case *c)
 	if (!isnan(o->c.dtmin))
 		return "the command line, --dtmin";
 	hl_settings_default(&def);
+	if (c->set.given & HL_GIVEN_DTMIN)
+		return c->set.dtmin == def.dtmin ? "set for this case (the "
+		       "same as the built-in default)" : "set for this case";
 	return c->set.dtmin == def.dtmin ? "built-in default" :
 	       "differs from the default: set for this case";
 }

@@ -234,7 +234,7 @@ write_svg(const options *o, const run_state *s, hl_error *err)
 {
 	const hl_network *net = s->r->nproposal > 0 ? s->r->p[0].net :
 	    s->r->today;
-	hl_grid_opts go = { NULL, NULL, hl_caution, 0, NULL };
+	hl_grid_opts go = { .footnote = hl_caution };
 	char title[300], sub[300];
 	hl_output out;
 	hl_status st;

@@ -29,7 +29,8 @@ static const hl_option option_rows[] = {
 	HL_ROW_FLAG("sensitivity", options, sensitivity, 1,
 	    "how far each stream datum and ΔTmin move the targets,\n"
 	    "ranked, with the band from the cp_tol and t_tol\n"
-	    "tolerances (csv: one row per datum)"),
+	    "tolerances (csv: one row per datum); with\n"
+	    "--supertargets the supertargets follow it"),
 	HL_ROW_FLAG("supertargets", options, super, 1,
 	    "also the area, units, shells and cost targets at this\n"
 	    "ΔTmin (text and xml)"),
@@ -63,18 +64,42 @@ write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	return st;
 }
 
+/* The process targets need no utility: when the utilities cannot serve,
+ * they are still printed, with the reason (the command then exits 3). */
+static void
+text_no_utility(FILE *fp, const hl_error *why)
+{
+	char buf[HL_ERROR_TEXT + HL_ERROR_FILE + 32];
+
+	hl_error_format(why, buf, sizeof buf);
+	fprintf(fp, "\nUtility levels         none: the utilities cannot "
+		"serve the process.\n                       %s\n", buf);
+}
+
 static void
 write_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	   const hl_threshold *th, const hl_utility_lp *lp,
-	   const hl_supertargets *sup)
+	   const hl_supertargets *sup, const hl_error *why)
 {
 	hl_targets_text_summary(fp, c, cas, th);
 	if (lp != NULL)
 		hl_utility_lp_text(fp, c, lp);
+	else if (why != NULL)
+		text_no_utility(fp, why);
 	if (sup != NULL)
 		hl_supertargets_text(fp, c, sup);
 	hl_targets_text_table(fp, cas);
 	hl_targets_text_caution(fp);
+}
+
+/* --sensitivity text, followed by the supertargets when both are asked. */
+static void
+sens_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
+	  const hl_sensitivity *sv, const hl_supertargets *sup)
+{
+	hl_sensitivity_text(fp, c, cas, sv);
+	if (sup != NULL)
+		hl_supertargets_text(fp, c, sup);
 }
 
 static hl_status
@@ -89,10 +114,17 @@ run_targets(void *opts, hl_error *err)
 	hl_sensitivity *sv = NULL;
 	hl_threshold th = { 0, HUGE_VAL };
 	hl_supertargets sup;
+	hl_error why;
 	hl_output out;
 	hl_status st;
 
-	st = hl_cmd_load_case(o, &c, err);
+	hl_common exact = *o;
+
+	/* Latent heat as steps; the sensitivity and the supertargets work
+	 * along temperatures and take it spread (case.h). */
+	exact.exact_latent = !oo->sensitivity && !oo->super;
+	hl_error_clear(&why);
+	st = hl_cmd_load_case(&exact, &c, err);
 	if (st == HL_OK)
 		st = hl_output_check(o->output, err);
 	if (st == HL_OK)
@@ -101,29 +133,40 @@ run_targets(void *opts, hl_error *err)
 		th.kind = hl_cascade_threshold_kind(cas);
 		st = hl_cascade_threshold_dtmin(c, cas, &th.dtmin, err);
 	}
-	if (st == HL_OK && c->nutil > 0)
+	if (st == HL_OK && c->nutil > 0) {
 		st = hl_utility_lp_solve(c, c->set.dtmin, &lo, &lp, err);
+		if (st == HL_ENOSOLUTION) {
+			why = *err;
+			st = HL_OK;
+		}
+	}
 	if (st == HL_OK && oo->sensitivity)
 		st = hl_sensitivity_compute(c, cas, &sv, err);
-	if (st == HL_OK && oo->super)
+	if (st == HL_OK && oo->super && why.status == HL_OK)
 		st = hl_sweep_point_from(c, cas, lp, &sup, err);
 	if (st == HL_OK)
 		st = hl_output_open(&out, o->output, err);
 	if (st == HL_OK) {
+		const hl_supertargets *ps = oo->super && why.status == HL_OK ?
+					    &sup : NULL;
+
 		if (o->format == HL_FMT_XML)
-			st = write_xml(out.fp, c, cas, &th, lp, sv,
-				       oo->super ? &sup : NULL, err);
+			st = write_xml(out.fp, c, cas, &th, lp, sv, ps, err);
 		else if (sv != NULL && o->format == HL_FMT_CSV)
 			hl_sensitivity_csv(out.fp, c, sv);
 		else if (sv != NULL)
-			hl_sensitivity_text(out.fp, c, cas, sv);
+			sens_text(out.fp, c, cas, sv, ps);
 		else if (o->format == HL_FMT_CSV)
 			hl_targets_csv(out.fp, cas);
 		else
-			write_text(out.fp, c, cas, &th, lp,
-				   oo->super ? &sup : NULL);
+			write_text(out.fp, c, cas, &th, lp, ps,
+				   why.status != HL_OK ? &why : NULL);
 		st = st == HL_OK ? hl_output_commit(&out, err) : st;
 		hl_output_abort(&out);
+	}
+	if (st == HL_OK && why.status != HL_OK) {
+		*err = why;
+		st = why.status;
 	}
 	hl_sensitivity_free(sv);
 	hl_utility_lp_free(lp);
@@ -138,8 +181,10 @@ const hl_command hl_cmd_targets = {
 	"Minimum hot and cold utility, pinch temperatures and the heat cascade of\n"
 	"the process streams (problem table algorithm). When the case has utilities,\n"
 	"also the load and yearly cost of each utility level at least total cost\n"
-	"(transshipment LP) and the utility pinches. CASE is an XML case file or a\n"
-	"stream table (CSV).\n",
+	"(transshipment LP) and the utility pinches; when the utilities cannot\n"
+	"serve the process, the process targets still print, then the reason,\n"
+	"and the exit status is 3. CASE is an XML case file or a stream table\n"
+	"(CSV).\n",
 	NULL, option_rows, sizeof(options),
 	"give one CASE file", "give one CASE file, not several",
 	NULL, NULL, run_targets

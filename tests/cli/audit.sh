@@ -162,4 +162,17 @@ sed 's/^E1,H1,C2,240,170,90,80,140,31.5,2,$/E1,H1,C2,240,170,90,80,140,31.5,2,fi
 check_exit 2 hl audit "$K4" --utilities "$U4" --network "$WORK/bad-type.csv"
 check_grep "unit 'E1': a fired-heater needs a hot utility" "$WORK/stderr"
 
+# The retrofit curve's area target keeps today's mix of utility levels;
+# `sweep` takes the least-cost mix: the output says so, and the figure it
+# quotes for `sweep` is sweep's own at that ΔTmin.
+check_exit 0 hl audit "$CASES/demo.xml" --network "$CASES/demo-network.csv"
+check_grep "The target area keeps today's mix of utility levels" "$WORK/stdout"
+check_grep "so its area target differs: at ΔTmin" "$WORK/stdout"
+if [ -n "${XMLLINT:-}" ]; then
+	check_exit 0 hl audit "$CASES/demo.xml" --network "$CASES/demo-network.csv" --format xml -o "$WORK/gap.xml"
+	dt=$(xpath 'string(//retrofit/point[4]/@dtmin)' "$WORK/gap.xml")
+	as=$(xpath 'string(//retrofit/point[4]/@area-sweep)' "$WORK/gap.xml")
+	check_exit 0 hl sweep "$CASES/demo.xml" --from "$dt" --to "$dt" --format xml -o "$WORK/one.xml"
+	check_near "$as" "$(xpath 'string(//sweep/point/@area-shell-and-tube)' "$WORK/one.xml")" 1e-9 "area-sweep is sweep's"
+fi
 finish

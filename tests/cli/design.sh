@@ -131,6 +131,19 @@ check_exit 0 hl check "$X"
 check_near "$(net hot-utility)" "$(awk -v t="$(net hot-target)" -v r="$(net rule-penalty)" -v p="$(net energy-penalty)" 'BEGIN { printf "%.15g", t + r + p }')" 1e-9 "demo hot utility"
 "$XMLLINT" --noout "$WORK/grid.svg" && pass || fail "grid.svg is not XML"
 check_grep "<svg" "$WORK/grid.svg"
+# The demo's LP steam level makes a utility pinch at 160 / 150 °C beside the
+# process pinch at 158 / 148 °C: the diagram names it apart.
+check_grep ">utility pinch 160 / 150 °C<" "$WORK/grid.svg"
+check_grep ">pinch 158 / 148 °C<" "$WORK/grid.svg"
+check_grep ">utility pinch<" "$WORK/grid.svg"
+# A cooler's duty (below its line) stays clear of the next line's end
+# temperature (above that line): at least 12 units apart at 10.5-unit text.
+awk '
+	/<text/ && />[0-9]+<\/text>/ { match($0, /y="[0-9.]+"/); y = substr($0, RSTART + 3, RLENGTH - 4)
+		match($0, /x="[0-9.]+"/); x = substr($0, RSTART + 3, RLENGTH - 4); if (x > 900) d[++n] = y }
+	/<text/ && /°C<\/text>/ && /text-anchor="end"/ { match($0, /y="[0-9.]+"/); e[++m] = substr($0, RSTART + 3, RLENGTH - 4) }
+	END { bad = 0; for (i = 1; i <= n; i++) for (j = 1; j <= m; j++) { g = e[j] - d[i]; if (g > 0 && g < 12) bad = 1 } exit bad }
+' "$WORK/grid.svg" && pass || fail "a cooler duty runs into an end temperature in grid.svg"
 if [ -n "${RSVG_CONVERT:-}" ]; then
 	check_exit 0 "$RSVG_CONVERT" -o "$WORK/grid.png" "$WORK/grid.svg"
 	[ "$(head -c 8 "$WORK/grid.png" | od -An -tx1 | tr -d ' \n')" = 89504e470d0a1a0a ] \

@@ -200,4 +200,9 @@ check_grep "screening estimates" "$WORK/stdout"
 check_exit 1 hl matches
 check_exit 1 hl matches "$K4" --format svg
 check_exit 1 hl matches "$K4" --bogus
+# The demo's subnetworks are split at its process pinch (153 °C shifted)
+# and at two utility pinches; the text tells them apart.
+check_exit 0 hl matches "$CASES/demo.xml"
+check_grep "pinch 2 at 153.0 °C shifted: process pinch" "$WORK/stdout"
+check_grep "pinch 1 at 155.0 °C shifted: utility pinch" "$WORK/stdout"
 finish

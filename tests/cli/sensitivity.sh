@@ -137,4 +137,11 @@ check_grep "chilled water  supply     5.0 °C ±1.0 K         +inf/0          0|
 check_grep "and the utility cost " "$WORK/stdout"
 check_exit 0 hl help targets
 check_grep "--sensitivity" "$WORK/stdout"
+# The ranking says why a row with an infinite cost move stands first.
+check_exit 0 hl targets "$CASES/demo.xml" --sensitivity
+check_grep "A row whose cost moves by +inf or -inf ranks first: a step of its tolerance that" "$WORK/stdout"
+# --supertargets beside --sensitivity: both, the supertargets after.
+check_exit 0 hl targets "$CASES/demo.xml" --sensitivity --supertargets
+check_grep "Every datum, largest effect first" "$WORK/stdout"
+check_grep "Supertargets" "$WORK/stdout"
 finish

@@ -134,7 +134,7 @@ static void
 test_stream_heat(void **state)
 {
 	hl_segment seg[2] = {
-		{ 200, 100, 2.0, NAN, 0, 0 }, { 100, 50, 4.0, NAN, 0, 0 }
+		{ 200, 100, 2.0, NAN, 0, 0, 0.0, 0 }, { 100, 50, 4.0, NAN, 0, 0, 0.0, 0 }
 	};
 	hl_stream s;
 	double t[] = { 210, 200, 150, 100, 75, 50, 40 };

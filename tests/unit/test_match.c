@@ -355,7 +355,7 @@ test_forbid_all_of_cold(void **state)
 			assert_false(r->party[i].isolated);
 		}
 	fp = open_memstream(&text, &len);
-	hl_matches_text(fp, c, r, 10.0);
+	hl_matches_text(fp, c, r, 10.0, NULL);
 	fclose(fp);
 	assert_non_null(strstr(text, "cold stream 'C1' may not be matched with "
 			       "any hot process stream: its whole duty, 230.0 "

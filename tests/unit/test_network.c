@@ -97,8 +97,8 @@ assert_ends(const hl_network_unit *u, double hi, double ho, double ci,
 static void
 test_profile(void **state)
 {
-	hl_segment s[2] = { { 135, 115, 60, 1.5, 0, 0 },
-			    { 115, 45, 8, NAN, 0, 0 } };
+	hl_segment s[2] = { { 135, 115, 60, 1.5, 0, 0, 0.0, 0 },
+			    { 115, 45, 8, NAN, 0, 0, 0.0, 0 } };
 	hl_profile_side hot = { s, 2, HL_HOT, 135, 105, 2.0 };
 	hl_profile_side cold = { NULL, 0, HL_COLD, 20, 30, 2.5 };
 	hl_profile_unit pu;

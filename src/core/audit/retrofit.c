@@ -46,11 +46,15 @@ target_curve(const hl_case *c, const hl_audit *a, hl_retrofit *r,
 			s = hl_sweep_point_eval(c, dt, &st, NULL);
 		else if ((s = hl_cascade_targets(c, dt, &qh, &qc, NULL)) ==
 			 HL_OK)
-			s = hl_audit_area_at(c, a, qh, dt, &st, NULL);
+			s = hl_audit_area_at(c, a, qh + a->range_rise, dt, &st,
+					     NULL);
 
 		if (s == HL_EIO)
 			return hl_error_nomem(err);
-		if (s != HL_OK)
+		/* One accounting: hot utility never falls as ΔTmin rises
+		 * (a point that would double back is left out). */
+		if (s != HL_OK || (r->ncurve > 0 && st.hot_utility <
+		    r->curve[r->ncurve - 1].hot_utility))
 			continue;
 		r->curve[r->ncurve].dtmin = dt;
 		r->curve[r->ncurve].hot_utility = st.hot_utility;
@@ -98,7 +102,7 @@ static hl_status
 point(const hl_case *c, const hl_audit *a, hl_retrofit *r, double e,
       double dt, hl_retrofit_point *p, hl_error *err)
 {
-	hl_supertargets st;
+	hl_supertargets st, sw;
 	hl_status s = hl_audit_area_at(c, a, e, dt, &st, err);
 	double saved = a->net->hot_now - e;
 
@@ -108,6 +112,8 @@ point(const hl_case *c, const hl_audit *a, hl_retrofit *r, double e,
 	p->cold_utility = a->net->cold_now - saved;
 	p->dtmin = dt;
 	p->area_target = hl_audit_area_basis(c, &st);
+	p->area_sweep = hl_sweep_point_eval(c, dt, &sw, NULL) == HL_OK ?
+			hl_audit_area_basis(c, &sw) : NAN;
 	p->area_retrofit = p->area_target / r->alpha;
 	p->new_area = fmax(0.0, p->area_retrofit - a->area_existing);
 	shell_at(c, r, &st, p->area_target, p);
@@ -138,7 +144,7 @@ curve(const hl_case *c, const hl_audit *a, hl_retrofit *r, size_t npoints,
 		if (i + 1 == npoints)
 			dt = a->dtmin;
 		else if (i > 0)
-			s = hl_audit_dtmin_at(c, e, &dt, err);
+			s = hl_audit_dtmin_at(c, e - a->range_rise, &dt, err);
 		if (s == HL_OK)
 			s = point(c, a, r, e, dt, &r->pt[i], err);
 		if (s == HL_OK)

@@ -45,6 +45,11 @@ typedef struct {
 	double cold_utility;   /* kW */
 	double dtmin;          /* K at which the targets equal E */
 	double area_target;    /* m², A_target(E), exchanger-setting basis */
+	double area_sweep;     /* m², the area target `sweep` gives at this
+				  ΔTmin: the least-cost mix of utility
+				  levels there, where area_target keeps
+				  today's mix moving to the least-cost mix
+				  at the targets (NaN: no answer) */
 	double area_retrofit;  /* m², A_target(E)/α */
 	double new_area;       /* m², >= 0 */
 	double shell_area;     /* m², the size new area is bought in */

@@ -368,8 +368,33 @@ hl_stream_duty(const hl_stream *s)
 	size_t i;
 
 	for (i = 0; i < s->nseg; i++)
-		q += s->seg[i].cp * fabs(s->seg[i].supply - s->seg[i].target);
+		q += hl_segment_duty(&s->seg[i]);
 	return q;
+}
+
+double
+hl_segment_duty(const hl_segment *g)
+{
+	return g->latent > 0.0 ? g->latent : g->cp * fabs(g->supply -
+							   g->target);
+}
+
+int
+hl_segment_latent(const hl_segment *g)
+{
+	return g->latent > 0.0;
+}
+
+int
+hl_case_has_latent(const hl_case *c)
+{
+	size_t i, j;
+
+	for (i = 0; i < c->nstream; i++)
+		for (j = 0; j < c->stream[i].nseg; j++)
+			if (hl_segment_latent(&c->stream[i].seg[j]))
+				return 1;
+	return 0;
 }
 
 /* Direction of a stream's temperature from its supply end: +1 warms. */
@@ -385,11 +410,17 @@ hl_stream_heat_at(const hl_stream *s, double t)
 	double d = stream_dir(s), q = 0.0;
 	size_t i;
 
+	/* A latent segment is a step: at its temperature the heat counts
+	 * from the segment's start (the stream's heat before it). */
 	if (d * (t - s->seg[0].supply) <= 0.0)
 		return s->seg[0].cp * d * (t - s->seg[0].supply);
 	for (i = 0; i < s->nseg; i++) {
 		const hl_segment *g = &s->seg[i];
 
+		if (hl_segment_latent(g)) {
+			q += g->latent;
+			continue;
+		}
 		if (d * (t - g->target) <= 0.0 || i + 1 == s->nseg)
 			return q + g->cp * d * (t - g->supply);
 		q += g->cp * d * (g->target - g->supply);
@@ -405,8 +436,11 @@ hl_stream_temp_at(const hl_stream *s, double q)
 
 	for (i = 0; i < s->nseg; i++) {
 		const hl_segment *g = &s->seg[i];
-		double span = g->cp * fabs(g->target - g->supply);
+		double span = hl_segment_duty(g);
 
+		if (hl_segment_latent(g) && (q <= at + span ||
+					    i + 1 == s->nseg))
+			return g->supply;
 		if (q <= at + span || i + 1 == s->nseg)
 			return g->supply + d * (q - at) / g->cp;
 		at += span;
@@ -464,6 +498,26 @@ temp_ok(double t)
 	return isfinite(t) && t >= HL_T_MIN && t <= HL_T_MAX;
 }
 
+/* Latent heat at one temperature: a duty, no cp (it would be infinite). */
+static hl_status
+validate_latent(const hl_stream *s, const hl_segment *g, hl_error *err)
+{
+	if (!isfinite(g->latent) || g->latent <= 0.0)
+		return hl_error_set(err, HL_EINPUT, s->file, g->line,
+			"stream '%s': supply equals target (%g °C): give the "
+			"latent heat as a duty (kW) and the kind (hot: "
+			"condensing, cold: boiling)", s->name, g->supply);
+	if (g->latent > HL_CP_MAX * HL_T_MAX)
+		return hl_error_set(err, HL_EINPUT, s->file, g->line,
+			"stream '%s': duty %g kW is beyond any process stream; "
+			"duty is in kW", s->name, g->latent);
+	if (!isnan(g->h) && (!isfinite(g->h) || g->h <= 0.0 || g->h > HL_H_MAX))
+		return hl_error_set(err, HL_EINPUT, s->file, g->line,
+			"stream '%s': h must be > 0 and at most %g kW/(m²·K)",
+			s->name, HL_H_MAX);
+	return HL_OK;
+}
+
 static hl_status
 validate_segment(const hl_stream *s, const hl_segment *g, hl_error *err)
 {
@@ -476,9 +530,7 @@ validate_segment(const hl_stream *s, const hl_segment *g, hl_error *err)
 			temp_ok(g->supply) ? g->target : g->supply, HL_T_MIN,
 			HL_T_MAX);
 	if (g->supply == g->target)
-		return hl_error_set(err, HL_EINPUT, f, g->line,
-			"stream '%s': supply equals target (%g °C); a process "
-			"stream must change temperature", s->name, g->supply);
+		return validate_latent(s, g, err);
 	if ((s->kind == HL_HOT) != (g->supply > g->target))
 		return hl_error_set(err, HL_EINPUT, f, g->line,
 			"stream '%s': segment runs %g -> %g °C but the stream "
@@ -556,10 +608,10 @@ validate_utility(const hl_utility *u, hl_error *err)
 			"cold utility '%s' cools from %g to %g °C; a cold "
 			"utility warms up (or boils at one temperature)",
 			u->name, u->supply, u->target);
-	if (!isfinite(u->price) || u->price < 0.0)
+	if (!isfinite(u->price))
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
-			"utility '%s': price must be a number >= 0 (per MWh)",
-			u->name);
+			"utility '%s': price must be a number (per MWh; "
+			"negative for a credit)", u->name);
 	if (!isnan(u->max_load) && (!isfinite(u->max_load) || u->max_load < 0.0))
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
 			"utility '%s': maximum load must be >= 0 kW", u->name);

@@ -7,7 +7,10 @@
  *
  * A process stream is a chain of one or more segments from its supply end to
  * its target end; each segment has its own constant cp (a segmented stream
- * approximates a curved temperature-enthalpy line).
+ * approximates a curved temperature-enthalpy line). A segment whose supply
+ * equals its target is latent heat (condensing, boiling): its heat, given as
+ * a duty, is all at one temperature and its cp is infinite; it is stored as
+ * latent (kW) with cp 0, and hl_segment_duty gives the heat of any segment.
  *
  * Ownership: hl_case_free() frees everything reachable from the case; strings
  * and arrays inside it belong to it. Adders copy what they are given.
@@ -60,12 +63,17 @@ typedef enum { HL_HOT = 0, HL_COLD = 1 } hl_kind;
 /* Unset optional numbers are NaN (test with isnan). */
 typedef struct {
 	double supply;  /* °C, inlet end of this segment */
-	double target;  /* °C, outlet end of this segment */
-	double cp;      /* kW/K, > 0 */
+	double target;  /* °C, outlet end of this segment; equal to supply
+			   for latent heat (condensing, boiling) */
+	double cp;      /* kW/K, > 0; 0 for a latent segment */
 	double h;       /* kW/(m²·K) including fouling, NaN when not given */
 	long line;      /* source line, 0 when none */
 	int by_duty;    /* 1 when the input gave the duty only and cp was
 			   derived from it (the duty is the measured datum) */
+	double latent;  /* kW, > 0 for a latent segment (supply = target:
+			   all its heat at one temperature), else 0 */
+	int spread;     /* 1: latent heat spread over HL_LATENT_SPAN by
+			   hl_case_spread_latent (cp = heat / span) */
 } hl_segment;
 
 typedef struct {
@@ -180,7 +188,20 @@ typedef struct {
 	hl_area_policy area_policy; /* HL_AREAS_ALLOW */
 	double area_penalty; /* units per cross-area match, 1 */
 	char *currency;      /* label only, "EUR" by default */
+	unsigned given;      /* HL_GIVEN_* bits: what the case file sets (a
+				value it sets may equal the default) */
 } hl_settings;
+
+/* Bits of hl_settings.given, one per setting a case file can give. */
+enum {
+	HL_GIVEN_DTMIN = 1u << 0, HL_GIVEN_EMAT = 1u << 1,
+	HL_GIVEN_HOURS = 1u << 2, HL_GIVEN_H_DEFAULT = 1u << 3,
+	HL_GIVEN_FMIN = 1u << 4, HL_GIVEN_XP = 1u << 5,
+	HL_GIVEN_INTEREST = 1u << 6, HL_GIVEN_LIFE = 1u << 7,
+	HL_GIVEN_CP_TOL = 1u << 8, HL_GIVEN_T_TOL = 1u << 9,
+	HL_GIVEN_TIME_LIMIT = 1u << 10, HL_GIVEN_EXCHANGER = 1u << 11,
+	HL_GIVEN_CURRENCY = 1u << 12, HL_GIVEN_COST = 1u << 13
+};
 
 typedef struct {
 	hl_settings set;
@@ -235,6 +256,25 @@ void hl_case_clear_units(hl_case *c);
 /* Check the whole case: names unique across streams and utilities, numbers in
  * range, segments chained. Errors name the file and line of the offender. */
 hl_status hl_case_validate(const hl_case *c, hl_error *err);
+
+/* Heat of one segment, kW: its latent heat, or cp times its span. */
+double hl_segment_duty(const hl_segment *g);
+/* 1 when the segment is latent heat at one temperature. */
+int hl_segment_latent(const hl_segment *g);
+/* 1 when some stream of c has a latent segment. */
+int hl_case_has_latent(const hl_case *c);
+
+/* A copy of c in which every latent segment at T is spread over span K
+ * towards the stream's supply end (hot: T + span → T; cold: T − span → T)
+ * with cp = latent / span, the segment before it giving up that span and
+ * keeping its heat, so that a stage that works along temperatures (matches,
+ * placement, sizing, supertargets, sensitivity, the audit) can take it.
+ * Heat on the target side of T does not move: a pinch at a latent
+ * temperature stays where it is. NULL when out of memory. */
+hl_case *hl_case_spread_latent(const hl_case *c, double span);
+#define HL_LATENT_SPAN 1e-2  /* K: below any reported precision, and
+				 cp = latent / span stays within the
+				 accuracy of the placement's temperatures */
 
 /* Totals over a stream: duty (kW, > 0), first supply, last target. */
 double hl_stream_duty(const hl_stream *s);

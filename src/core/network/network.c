@@ -31,6 +31,18 @@ hl_network_party_free(hl_network_party *p)
 	p->seg = NULL;
 }
 
+int
+hl_network_has_credit(const hl_network *net)
+{
+	size_t i;
+
+	for (i = 0; i < net->nparty; i++)
+		if (net->party[i].utility && net->party[i].price < 0.0 &&
+		    net->party[i].load > 0.0)
+			return 1;
+	return 0;
+}
+
 void
 hl_network_free(hl_network *net)
 {

@@ -106,6 +106,9 @@ typedef struct {
 	double restriction;       /* kW of hot utility the match rules added */
 	size_t ntyped;            /* exchanger types fixed per pair, */
 	const hl_network_typed *typed; /* first match wins; NULL: none */
+	double range_rise;        /* kW above the target the utility loads
+				     carry (a ranged utility exchanging heat
+				     across the pinch) */
 } hl_network_input;
 
 /* assumed h flags of a unit */
@@ -159,6 +162,7 @@ typedef struct {
 	double qh, qc;             /* kW of hot and cold utility used */
 	double qh_target, qc_target;
 	double restriction;        /* kW above the targets from match rules */
+	double range_rise;         /* kW above them from utility ranges */
 	double penalty;            /* kW above them from the placement */
 	size_t nsplit;             /* split stages */
 	double area, capital;      /* m², currency */
@@ -173,6 +177,11 @@ typedef struct {
 
 hl_network *hl_network_create(void);
 void hl_network_free(hl_network *net);
+
+/* 1 when a utility with a negative price (a credit) carries load: the rise
+ * above the targets (range_rise) is then hot utility bought because the
+ * credit pays for the process heat it frees, not only utility ranges. */
+int hl_network_has_credit(const hl_network *net);
 
 /* Copy a party into the network (deep copy). */
 hl_status hl_network_add_party(hl_network *net, const hl_network_party *p,

@@ -159,7 +159,12 @@ hl_network_from_matches(const hl_case *c, const hl_match_result *r,
 	f.in.t = r->t;
 	f.in.qh_target = qh_min;
 	f.in.qc_target = qc_min;
-	f.in.restriction = fmax(0.0, r->qh - qh_min);
+	/* Loads above the target come from utility ranges (the loads given
+	 * already exceed it) or from the rules (they raise the loads). */
+	f.in.range_rise = fmax(0.0, r->qh0 - qh_min);
+	if (f.in.range_rise <= 1e-6 * fmax(1.0, qh_min))
+		f.in.range_rise = 0.0;
+	f.in.restriction = fmax(0.0, r->qh - qh_min - f.in.range_rise);
 	if (f.in.restriction <= 1e-6 * fmax(1.0, qh_min))
 		f.in.restriction = 0.0;
 	*out = f;

@@ -138,8 +138,8 @@ hl_net_check_input(const hl_network_input *in, hl_error *err)
 		if (!q->utility && fabs(sum[i] - q->load) >
 		    1e-6 * fmax(1.0, q->load)) {
 			hl_error_set(err, HL_EINPUT, NULL, 0,
-			    "the matches give stream '%s' %.10g kW, but it "
-			    "exchanges %.10g kW: every stream's heat must be "
+			    "the matches give stream '%s' %.6g kW, but it "
+			    "exchanges %.6g kW: every stream's heat must be "
 			    "matched", q->name, sum[i], q->load);
 			free(sum);
 			return HL_EINPUT;
@@ -150,8 +150,8 @@ hl_net_check_input(const hl_network_input *in, hl_error *err)
 	    fmax(1.0, in->qh_target) || qc < in->qc_target - 1e-6 *
 	    fmax(1.0, in->qc_target)))
 		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "the matches use %.10g kW of hot and %.10g kW of cold "
-		    "utility, below the targets %.10g / %.10g kW: no network "
+		    "the matches use %.6g kW of hot and %.6g kW of cold "
+		    "utility, below the targets %.6g / %.6g kW: no network "
 		    "can exchange that much heat at this ΔTmin", qh, qc,
 		    in->qh_target, in->qc_target);
 	return HL_OK;
@@ -393,6 +393,7 @@ finish(hl_network *net, const hl_network_input *in, hl_error *err)
 	net->qh_target = in->qh_target;
 	net->qc_target = in->qc_target;
 	net->restriction = in->restriction;
+	net->range_rise = in->range_rise;
 	hl_network_totals(net);
 	return HL_OK;
 }

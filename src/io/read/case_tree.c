@@ -179,18 +179,20 @@ static const hl_xattr settings_attrs[] = {
 static const struct {
 	const char *name;
 	size_t off;
+	unsigned bit;
 } settings_numbers[] = {
-	{ "dtmin", offsetof(hl_settings, dtmin) },
-	{ "emat", offsetof(hl_settings, emat) },
-	{ "hours", offsetof(hl_settings, hours) },
-	{ "h-default", offsetof(hl_settings, h_default) },
-	{ "fmin", offsetof(hl_settings, fmin) },
-	{ "xp", offsetof(hl_settings, xp) },
-	{ "interest", offsetof(hl_settings, interest) },
-	{ "life", offsetof(hl_settings, life) },
-	{ "cp-tol", offsetof(hl_settings, cp_tol) },
-	{ "t-tol", offsetof(hl_settings, t_tol) },
-	{ "time-limit", offsetof(hl_settings, time_limit) },
+	{ "dtmin", offsetof(hl_settings, dtmin), HL_GIVEN_DTMIN },
+	{ "emat", offsetof(hl_settings, emat), HL_GIVEN_EMAT },
+	{ "hours", offsetof(hl_settings, hours), HL_GIVEN_HOURS },
+	{ "h-default", offsetof(hl_settings, h_default), HL_GIVEN_H_DEFAULT },
+	{ "fmin", offsetof(hl_settings, fmin), HL_GIVEN_FMIN },
+	{ "xp", offsetof(hl_settings, xp), HL_GIVEN_XP },
+	{ "interest", offsetof(hl_settings, interest), HL_GIVEN_INTEREST },
+	{ "life", offsetof(hl_settings, life), HL_GIVEN_LIFE },
+	{ "cp-tol", offsetof(hl_settings, cp_tol), HL_GIVEN_CP_TOL },
+	{ "t-tol", offsetof(hl_settings, t_tol), HL_GIVEN_T_TOL },
+	{ "time-limit", offsetof(hl_settings, time_limit),
+	  HL_GIVEN_TIME_LIMIT },
 };
 
 static hl_status
@@ -208,6 +210,7 @@ read_cost(walk *w, xmlNodePtr n)
 
 	if (st != HL_OK)
 		return st;
+	s->given |= HL_GIVEN_COST;
 	if (!isnan(num(n, "a")))
 		s->cost_a = num(n, "a");
 	if (!isnan(num(n, "b")))
@@ -310,9 +313,13 @@ settings_values(walk *w, xmlNodePtr n)
 	for (i = 0; i < NELEM(settings_numbers); i++) {
 		double v = num(n, settings_numbers[i].name);
 
-		if (!isnan(v))
-			*(double *)((char *)s + settings_numbers[i].off) = v;
+		if (isnan(v))
+			continue;
+		*(double *)((char *)s + settings_numbers[i].off) = v;
+		s->given |= settings_numbers[i].bit;
 	}
+	s->given |= (ex != NULL ? HL_GIVEN_EXCHANGER : 0u) |
+		    (cur != NULL ? HL_GIVEN_CURRENCY : 0u);
 	if (ex != NULL)
 		s->exchanger = (hl_exchanger_type)hl_exchanger_type_parse(ex);
 	if (hl_xattr_text(n, "heater-type") != NULL)
@@ -416,10 +423,18 @@ read_ends(walk *w, xmlNodePtr n, const char *name, double h, hl_segment *g)
 		return fail(w, n, HL_EINPUT, "stream '%s' needs supply and "
 			"target (" U_T "), or <segment> children", name);
 	span = fabs(g->supply - g->target);
-	if (span == 0.0)
+	if (span == 0.0 && !isnan(cp))
 		return fail(w, n, HL_EINPUT, "stream '%s': supply equals target "
-			"(%g " U_T "); a process stream must change temperature",
+			"(%g " U_T "), so cp would be infinite; give the latent "
+			"heat as a duty (kW) instead of cp", name, g->supply);
+	if (span == 0.0 && !(duty > 0.0))
+		return fail(w, n, HL_EINPUT, "stream '%s': supply equals target "
+			"(%g " U_T "): give the latent heat as a duty (kW, > 0)",
 			name, g->supply);
+	if (span == 0.0) {
+		g->latent = duty;
+		return HL_OK;
+	}
 	if (!isnan(duty) && !(duty > 0.0))
 		return fail(w, n, HL_EINPUT, "stream '%s': duty must be > 0 kW",
 			    name);
@@ -492,8 +507,22 @@ stream_kind(walk *w, xmlNodePtr n, hl_stream *s)
 {
 	const char *k = hl_xattr_text(n, "kind");
 	const hl_segment *g = &s->seg[0];
+	size_t i;
 
 	s->kind = g->supply > g->target ? HL_HOT : HL_COLD;
+	/* A stream of latent heat only takes its kind from the attribute;
+	 * one that starts latent from its first sensible segment. */
+	for (i = 0; i < s->nseg && hl_segment_latent(&s->seg[i]); i++)
+		;
+	if (i < s->nseg)
+		s->kind = s->seg[i].supply > s->seg[i].target ? HL_HOT :
+			  HL_COLD;
+	else if (k == NULL)
+		return fail(w, n, HL_EINPUT, "stream '%s' is latent heat at "
+			"%g " U_T ": give its kind (hot: condensing, cold: "
+			"boiling)", s->name, g->supply);
+	else
+		s->kind = strcmp(k, "hot") == 0 ? HL_HOT : HL_COLD;
 	if (k == NULL || strcmp(k, s->kind == HL_HOT ? "hot" : "cold") == 0)
 		return HL_OK;
 	return fail(w, n, HL_EINPUT, "stream '%s' is marked %s but runs from "
@@ -547,7 +576,7 @@ read_utility(walk *w, xmlNodePtr n)
 		{ "kind", HL_XATTR_CHOICE, 1, NULL, "hot|cold" },
 		{ "supply", HL_XATTR_NUMBER, 1, U_T, NULL },
 		{ "target", HL_XATTR_NUMBER, 1, U_T, NULL },
-		{ "price", HL_XATTR_AMOUNT, 1, "currency per MWh", NULL },
+		{ "price", HL_XATTR_NUMBER, 1, "currency per MWh", NULL },
 		{ "h", HL_XATTR_AMOUNT, 0, U_H, NULL },
 		{ "max-load", HL_XATTR_AMOUNT, 0, "kW", NULL },
 		{ "dt-contrib", HL_XATTR_AMOUNT, 0, "K", NULL },

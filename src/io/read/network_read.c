@@ -36,6 +36,7 @@ static const hl_xattr network_attr[] = {
 	{ "cold-utility", HL_XATTR_AMOUNT, 1, "kW", NULL },
 	{ "rule-penalty", HL_XATTR_AMOUNT, 1, "kW", NULL },
 	{ "energy-penalty", HL_XATTR_AMOUNT, 1, "kW", NULL },
+	{ "range-rise", HL_XATTR_AMOUNT, 0, "kW", NULL },
 	{ "matches", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "units", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "splits", HL_XATTR_AMOUNT, 1, NULL, NULL },
@@ -43,8 +44,8 @@ static const hl_xattr network_attr[] = {
 	{ "capital-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "crf", HL_XATTR_AMOUNT, 1, "1/year", NULL },
 	{ "annual-capital-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
-	{ "energy-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
-	{ "total-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "energy-cost", HL_XATTR_NUMBER, 1, NULL, NULL },
+	{ "total-cost", HL_XATTR_NUMBER, 1, NULL, NULL },
 };
 
 static const hl_xattr stream_attr[] = {
@@ -70,7 +71,7 @@ static const hl_xattr utility_attr[] = {
 	{ "supply", HL_XATTR_NUMBER, 1, "°C", NULL },
 	{ "target", HL_XATTR_NUMBER, 1, "°C", NULL },
 	{ "load", HL_XATTR_AMOUNT, 1, "kW", NULL },
-	{ "price", HL_XATTR_AMOUNT, 0, "per MWh", NULL },
+	{ "price", HL_XATTR_NUMBER, 0, "per MWh", NULL },
 	{ "h", HL_XATTR_AMOUNT, 0, "kW/(m²·K)", NULL },
 	{ "max-load", HL_XATTR_AMOUNT, 0, "kW", NULL },
 	{ "dt-contrib", HL_XATTR_AMOUNT, 0, "K", NULL },
@@ -175,6 +176,9 @@ read_settings(hl_network *net, xmlNodePtr n, const char *file,
 	net->qc = num(n, "cold-utility");
 	net->restriction = num(n, "rule-penalty");
 	net->penalty = num(n, "energy-penalty");
+	net->range_rise = num(n, "range-rise");
+	if (isnan(net->range_rise))
+		net->range_rise = 0.0;
 	net->nmatch = (size_t)num(n, "matches");
 	net->nsplit = (size_t)num(n, "splits");
 	net->area = num(n, "area");
@@ -231,6 +235,7 @@ read_stream(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 	hl_status st = hl_xattr_check(n, stream_attr, N(stream_attr), file,
 	    err);
 
+	memset(seg, 0, sizeof seg);   /* latent and spread: 0, sensible */
 	if (st != HL_OK)
 		return st;
 	memset(&p, 0, sizeof p);

@@ -29,6 +29,7 @@ typedef struct {
 	double supply, target, cp, duty, h, dtc, cptol, ttol;
 	int kind; /* -1 not given */
 	int by_duty; /* cp derived from the duty */
+	double latent; /* kW at one temperature (supply = target), else 0 */
 } row;
 
 static hl_status
@@ -74,6 +75,25 @@ parse_kind(hl_table *t, int *kind, hl_error *err)
 	return HL_OK;
 }
 
+/* Latent heat (supply = target): a duty, no cp (it would be infinite). */
+static hl_status
+row_latent(const char *f, long l, const char *name, row *r, hl_error *err)
+{
+	if (!isnan(r->cp))
+		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': supply "
+			"equals target (%g °C), so cp would be infinite; give "
+			"the latent heat as a duty (kW) instead of cp", name,
+			r->supply);
+	if (!(r->duty > 0.0))
+		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': supply "
+			"equals target (%g °C): give the latent heat as a duty "
+			"(kW, > 0)", name, r->supply);
+	r->latent = r->duty;
+	r->cp = 0.0;
+	r->by_duty = 1;
+	return HL_OK;
+}
+
 /* cp from the row: cp, or duty over the temperature change; both must agree. */
 static hl_status
 row_cp(hl_table *t, const char *name, row *r, hl_error *err)
@@ -82,13 +102,12 @@ row_cp(hl_table *t, const char *name, row *r, hl_error *err)
 	const char *f = hl_table_file(t);
 	long l = hl_table_line(t);
 
+	r->latent = 0.0;
 	if (isnan(r->supply) || isnan(r->target))
 		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': supply "
 			"and target temperatures are both required", name);
 	if (span == 0.0)
-		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': supply "
-			"equals target (%g °C); a process stream must change "
-			"temperature", name, r->supply);
+		return row_latent(f, l, name, r, err);
 	if (!isnan(r->duty) && !(r->duty > 0.0))
 		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': duty "
 			"must be > 0 kW", name);
@@ -187,6 +206,13 @@ builder_start(builder *b, hl_table *t, const row *r, hl_error *err)
 	b->s.name = b->name;
 	b->s.area = b->area[0] ? b->area : NULL;
 	b->s.kind = r->supply > r->target ? HL_HOT : HL_COLD;
+	if (r->supply == r->target && r->kind < 0)
+		return hl_error_set(err, HL_EINPUT, hl_table_file(t),
+			hl_table_line(t), "stream '%s' starts with latent heat "
+			"at %g °C: give its kind (hot: condensing, cold: "
+			"boiling)", b->name, r->supply);
+	if (r->supply == r->target)
+		b->s.kind = (hl_kind)r->kind;
 	if (r->kind >= 0 && r->kind != (int)b->s.kind)
 		return hl_error_set(err, HL_EINPUT, hl_table_file(t),
 			hl_table_line(t), "stream '%s' is marked %s but runs "
@@ -221,6 +247,8 @@ builder_add(builder *b, hl_table *t, const row *r, hl_error *err)
 	g->h = r->h;
 	g->line = hl_table_line(t);
 	g->by_duty = r->by_duty;
+	g->latent = r->latent;
+	g->spread = 0;
 	return HL_OK;
 }
 
@@ -234,6 +262,8 @@ builder_continue(builder *b, hl_table *t, const row *r, hl_error *err)
 	long l = hl_table_line(t);
 	int kind = r->supply > r->target ? HL_HOT : HL_COLD;
 
+	if (r->supply == r->target)
+		kind = (int)b->s.kind;
 	if (r->supply != last->target)
 		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s' appears "
 			"again but does not chain: this row starts at %g °C, "

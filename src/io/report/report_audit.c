@@ -50,8 +50,7 @@ energy_table(hl_report *r)
 		hl_html_attr(r->h, "id", id[i]);
 		hl_report_cell(r, name[i]);
 		for (k = 0; k < 3; k++)
-			hl_report_cell_num(r, hl_report_fmt_sig(s, B,
-					   hl_show_q(v[i][k]), 3, 1));
+			hl_report_cell_num(r, hl_report_fmt_qty(s, B, hl_show_q(v[i][k])));
 		hl_report_row_end(r);
 	}
 	hl_report_table_end(r);
@@ -102,8 +101,7 @@ culprit_row(hl_report *r, const hl_violation *vi, size_t rank)
 	hl_html_elemf(r->h, "span", "action", ": %s",
 		      hl_audit_action(vi->kind));
 	hl_html_end(r->h);
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(vi->duty), 3,
-			   1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(vi->duty)));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, vi->saving, 3, 0));
 	hl_report_row_end(r);
 }
@@ -165,8 +163,7 @@ unit_row(hl_report *r, size_t i)
 	hl_report_cell(r, u->implied ? "(gap)" : u->name);
 	hl_report_cell(r, hl_existing_side_name(c, &u->hot));
 	hl_report_cell(r, hl_existing_side_name(c, &u->cold));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(u->duty), 3,
-			   1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(u->duty)));
 	side_temps(v, sizeof v, &u->hot);
 	hl_report_cell_num(r, v);
 	side_temps(v, sizeof v, &u->cold);
@@ -175,7 +172,7 @@ unit_row(hl_report *r, size_t i)
 		v[0] = '\0';
 	else
 		snprintf(v, sizeof v, "%s%s", u->area_estimated ? "*" : "",
-			 hl_report_fmt_fixed(ar, B, hl_show_a(u->area), 1));
+			 hl_report_fmt_qty(ar, B, hl_show_a(u->area)));
 	hl_report_cell_num(r, v);
 	snprintf(v, B, "%d", u->shells);
 	hl_report_cell_num(r, v);
@@ -243,14 +240,11 @@ retrofit_row(hl_report *r, const hl_retrofit_point *p, size_t i, size_t n)
 	char v[B];
 
 	hl_report_row_start(r, i == 0 ? "chosen" : i + 1 == n ? "best" : NULL);
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(p->hot_utility),
-			   3, 1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(p->hot_utility)));
 	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_dt(p->dtmin),
 			   1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-			   hl_show_a(p->area_retrofit), 1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_a(p->new_area),
-			   1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_a(p->area_retrofit)));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_a(p->new_area)));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->investment, 3, 0));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->saving, 3, 0));
 	if (isnan(p->payback))
@@ -281,6 +275,33 @@ retrofit_sentence(hl_report *r)
 	hl_html_end(r->h);
 	hl_html_text(r->h, ".");
 	hl_html_end(r->h);
+}
+
+/* Why the area targets here are not those of the trade-off section at the
+ * same ΔTmin: the mix of utility levels. */
+static void
+sweep_gap_note(hl_report *r, const hl_retrofit *rf)
+{
+	const hl_retrofit_point *w = NULL;
+	char a[B], b[B], t[B], v[8 * B];
+	size_t i;
+
+	for (i = 0; i < rf->n; i++)
+		if (!isnan(rf->pt[i].area_sweep) && (w == NULL ||
+		    fabs(rf->pt[i].area_target - rf->pt[i].area_sweep) >
+		    fabs(w->area_target - w->area_sweep)))
+			w = &rf->pt[i];
+	if (w == NULL || fabs(w->area_target - w->area_sweep) < 0.05)
+		return;
+	snprintf(v, sizeof v, "The area targets of this curve keep today's mix "
+		 "of utility levels, moving linearly to the least-cost mix at "
+		 "the targets; the ΔTmin sweep takes the least-cost mix at "
+		 "every ΔTmin, so its area target differs at the same ΔTmin "
+		 "(largest gap: %s here, %s there, at %s).",
+		 hl_report_fmt_area(a, B, w->area_target),
+		 hl_report_fmt_area(b, B, w->area_sweep),
+		 hl_report_fmt_dt(t, B, w->dtmin));
+	hl_report_note(r, v);
 }
 
 static void
@@ -318,6 +339,7 @@ retrofit(hl_report *r)
 	for (i = 0; i < rf->n; i++)
 		retrofit_row(r, &rf->pt[i], i, rf->n);
 	hl_report_table_end(r);
+	sweep_gap_note(r, rf);
 	hl_report_note(r, "Which units to re-pipe, where new shells go, "
 		       "pressure drop, layout and plant constraints are not in "
 		       "these figures: they are for a detailed retrofit "

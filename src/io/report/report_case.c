@@ -63,11 +63,14 @@ stream_rows(hl_report *r, const hl_stream *s)
 			       "cold") : "");
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
 				   hl_show_t(g->supply), 1));
+		/* latent heat: one temperature, no cp (case.h) */
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-				   hl_show_t(g->target), 1));
-		hl_report_cell_num(r, cp_text(v, B, g->cp));
-		hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(g->cp *
-				   fabs(g->supply - g->target)), 3, 1));
+				   hl_show_t(g->spread ? g->supply : g->target),
+				   1));
+		hl_report_cell_num(r, g->spread ? "latent" : cp_text(v, B,
+				   g->cp));
+		hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(g->cp *
+				   fabs(g->supply - g->target))));
 		hl_report_cell(r, g->by_duty ? "duty" : "cp");
 		hl_report_cell_num(r, h_text(v, B, g->h, set->h_default));
 		hl_report_cell_num(r, k == 0 ? contrib_text(v, B,
@@ -121,7 +124,7 @@ max_text(char *buf, size_t size, double max_load)
 	if (isnan(max_load))
 		snprintf(buf, size, "unlimited");
 	else
-		hl_report_fmt_sig(buf, size, hl_show_q(max_load), 3, 1);
+		hl_report_fmt_qty(buf, size, hl_show_q(max_load));
 	return buf;
 }
 
@@ -192,8 +195,7 @@ rule_table(hl_report *r)
 		hl_report_cell(r, m->hot);
 		hl_report_cell(r, m->cold);
 		hl_report_cell_num(r, m->kind == HL_RULE_MAX_DUTY ?
-				   hl_report_fmt_sig(v, B, hl_show_q(m->max_duty),
-				   3, 1) :
+				   hl_report_fmt_qty(v, B, hl_show_q(m->max_duty)) :
 				   "");
 		hl_report_cell(r, m->reason ? m->reason : "");
 		hl_report_row_end(r);

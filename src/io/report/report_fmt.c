@@ -85,6 +85,16 @@ with_unit(char *buf, size_t size, const char *unit)
 	return buf;
 }
 
+/* Duties and areas alike: 3 significant figures and at most one decimal,
+ * but whole digits are never rounded away (12 165 stays 12 165). */
+char *
+hl_report_fmt_qty(char *buf, size_t size, double v)
+{
+	if (fabs(v) >= 1000.0)
+		return hl_report_fmt_fixed(buf, size, v, 0);
+	return hl_report_fmt_sig(buf, size, v, 3, 1);
+}
+
 char *
 hl_report_fmt_temp(char *buf, size_t size, double celsius)
 {
@@ -102,14 +112,14 @@ hl_report_fmt_dt(char *buf, size_t size, double kelvin)
 char *
 hl_report_fmt_duty(char *buf, size_t size, double kw)
 {
-	hl_report_fmt_sig(buf, size, hl_show_q(kw), 3, 1);
+	hl_report_fmt_qty(buf, size, hl_show_q(kw));
 	return with_unit(buf, size, HL_SYM_Q);
 }
 
 char *
 hl_report_fmt_area(char *buf, size_t size, double m2)
 {
-	hl_report_fmt_fixed(buf, size, hl_show_a(m2), 1);
+	hl_report_fmt_qty(buf, size, hl_show_a(m2));
 	return with_unit(buf, size, HL_SYM_A);
 }
 

@@ -100,8 +100,7 @@ match_table(hl_report *r)
 		hl_report_cell_num(r, v);
 		hl_report_cell(r, m->party[x->hot].name);
 		hl_report_cell(r, m->party[x->cold].name);
-		hl_report_cell_num(r, hl_report_fmt_sig(v, B,
-				   hl_show_q(x->duty), 3, 1));
+		hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(x->duty)));
 		hl_report_cell(r, m->sub[x->sub].label);
 		hl_report_range(v, B, x->hot_from, x->hot_to);
 		hl_report_cell_num(r, v);

@@ -101,7 +101,7 @@ modifications(hl_report *r, const hl_rfit_proposal *p)
 static void
 grid(hl_report *r, const hl_rfit_proposal *p)
 {
-	hl_grid_opts go = { "Best retrofit proposal", NULL, NULL, 0, NULL };
+	hl_grid_opts go = { .title = "Best retrofit proposal" };
 	char id[32];
 
 	hl_report_figure_open(r, id, sizeof id);

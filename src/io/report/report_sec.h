@@ -102,6 +102,10 @@ void hl_report_sens_cost_range(double minus, double plus, double tol,
 /* The ranked data as bars (report_sens_chart.c): the first top of them. */
 void hl_report_sens_chart(hl_report *r, size_t top);
 
+/* The network's hot utility above the minimum and its causes (ranges,
+ * rules, layout), as part of a sentence. */
+void hl_report_rise_text(hl_report *r, const hl_network *n);
+
 /* The sections (one file each). */
 extern const hl_report_section hl_report_sec_summary;
 extern const hl_report_section hl_report_sec_streams;

@@ -77,8 +77,8 @@ move_text(char *buf, size_t size, double down, double up)
 		snprintf(buf, size, "none");
 		return;
 	}
-	hl_report_fmt_sig(a, sizeof a, hl_show_q(down), 3, 1);
-	hl_report_fmt_sig(b, sizeof b, hl_show_q(up), 3, 1);
+	hl_report_fmt_qty(a, sizeof a, hl_show_q(down));
+	hl_report_fmt_qty(b, sizeof b, hl_show_q(up));
 	if (strcmp(a, b) == 0)
 		snprintf(buf, size, "±%s", a);
 	else
@@ -278,11 +278,9 @@ band_row(hl_report *r, const char *name, const hl_sens_band *b,
 	hl_html_start(r->h, "tr", NULL);
 	hl_html_attr(r->h, "id", id);
 	hl_report_cell(r, name);
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(b->nominal), 3,
-			   1));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(b->low), 3, 1));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_q(b->high), 3,
-			   1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(b->nominal)));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(b->low)));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(b->high)));
 	deriv_text(v, B, minus, plus, kink);
 	hl_report_cell_num(r, v);
 	hl_report_row_end(r);
@@ -348,7 +346,8 @@ write_sensitivity(hl_report *r)
 		hl_report_note(r, "∞: the datum sits at the edge of what the "
 			       "utilities can reach; a step that way, however "
 			       "small, leaves no utility able to serve the "
-			       "process. Check it first.");
+			       "process, so no finite cost can be given and "
+			       "the ranking puts it first. Check it first.");
 }
 
 const hl_report_section hl_report_sec_sensitivity = {

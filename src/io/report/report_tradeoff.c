@@ -144,15 +144,9 @@ point_row(hl_report *r, size_t i)
 		hl_report_row_end(r);
 		return;
 	}
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B,
-			   hl_show_q(p->st.hot_utility), 3,
-			   1));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B,
-			   hl_show_q(p->st.cold_utility), 3,
-			   1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-			   hl_show_a(area_of(d->c, &p->st)),
-			   1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(p->st.hot_utility)));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(p->st.cold_utility)));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_a(area_of(d->c, &p->st))));
 	snprintf(v, B, "%d", p->st.units);
 	hl_report_cell_num(r, v);
 	snprintf(v, B, "%d", p->st.shells);

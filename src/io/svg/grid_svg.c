@@ -193,6 +193,33 @@ draw_header(W w, const hl_network *net, const hl_grid_opts *o)
 	return rc;
 }
 
+static int utility_pinch(const hl_grid_opts *o, double t);
+
+static int
+any_utility_pinch(const hl_grid_opts *o)
+{
+	size_t i;
+
+	for (i = 0; i < o->npinch; i++)
+		if (utility_pinch(o, o->pinch[i]))
+			return 1;
+	return 0;
+}
+
+/* A pinch that the process alone does not have: a utility level's. */
+static int
+utility_pinch(const hl_grid_opts *o, double t)
+{
+	size_t i;
+
+	if (o->cas == NULL)
+		return 0;
+	for (i = 0; i < o->cas->npinch; i++)
+		if (fabs(o->cas->t[o->cas->pinch[i]] - t) <= 1e-9)
+			return 0;
+	return 1;
+}
+
 static int
 draw_pinches(W w, const hl_grid_layout *L, const hl_network *net,
 	     const hl_grid_opts *o)
@@ -207,16 +234,19 @@ draw_pinches(W w, const hl_grid_layout *L, const hl_network *net,
 
 		if (isnan(x))
 			continue;
+		int util = utility_pinch(o, o->pinch[i]);
+
 		temp(h, sizeof h, o->pinch[i] + half);
 		temp(c, sizeof c, o->pinch[i] - half);
-		snprintf(label, sizeof label, "pinch %s / %s %s", h, c,
-		    HL_SYM_T);
+		snprintf(label, sizeof label, "%spinch %s / %s %s", util ?
+		    "utility " : "", h, c, HL_SYM_T);
 		wd = hl_grid_text_width(label, FS_T);
 		/* A label that would touch the one before it goes a row up. */
 		up = x - 0.5 * wd < last_end + 6.0 ? !up : 0;
 		last_end = x + 0.5 * wd;
 		rc |= line(w, x, L->top - (up ? 38 : 26), x, L->bottom + 14,
-		    hex(HL_SVG_GREY), 1.4, "6 4");
+		    hex(util ? HL_SVG_ORANGE : HL_SVG_GREY), 1.4,
+		    util ? "2 3" : "6 4");
 		rc |= text(w, x, L->top - (up ? 42 : 30), FS_T, "middle", 0, 1,
 		    INK_SOFT, "%s", label);
 	}
@@ -496,10 +526,17 @@ draw_key(W w, const hl_network *net, const hl_grid_layout *L,
 	x += 13 + hl_grid_text_width("cooler", FS_T) + 30;
 	rc |= line(w, x, y - 8, x, y + 8, hex(HL_SVG_GREY), 1.4, "6 4");
 	rc |= text(w, x + 8, y + 4, FS_T, "start", 0, 0, INK, "pinch");
+	if (any_utility_pinch(o)) {
+		x += 8 + hl_grid_text_width("pinch", FS_T) + 30;
+		rc |= line(w, x, y - 8, x, y + 8, hex(HL_SVG_ORANGE), 1.4,
+		    "2 3");
+		rc |= text(w, x + 8, y + 4, FS_T, "start", 0, 0, INK,
+		    "utility pinch");
+	}
 	for (i = 0; i < net->nunit && !changed(&net->unit[i]); i++)
 		;
 	if (i < net->nunit) {
-		x += 8 + hl_grid_text_width("pinch", FS_T) + 30;
+		x += 8 + hl_grid_text_width(any_utility_pinch(o) ? "utility pinch" : "pinch", FS_T) + 30;
 		rc |= ring(w, x, y);
 		rc |= text(w, x + 16, y + 4, FS_T, "start", 0, 0, INK,
 		    "new or changed");

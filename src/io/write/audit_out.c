@@ -138,6 +138,8 @@ retrofit(xmlTextWriterPtr w, const hl_retrofit *r)
 		rc |= hl_xml_num(w, "cold-utility", p->cold_utility);
 		rc |= hl_xml_num(w, "dtmin", p->dtmin);
 		rc |= hl_xml_num(w, "area-target", p->area_target);
+		if (!isnan(p->area_sweep))
+			rc |= hl_xml_num(w, "area-sweep", p->area_sweep);
 		rc |= hl_xml_num(w, "area-retrofit", p->area_retrofit);
 		rc |= hl_xml_num(w, "new-area", p->new_area);
 		rc |= num_opt(w, "shell-area", p->shell_area);

@@ -286,6 +286,33 @@ best_payback(FILE *fp, const hl_case *c, const hl_retrofit *r)
 			money(m2, sizeof m2, b->saving), cur(c));
 }
 
+/* Why this curve's area target is not `sweep`'s at the same ΔTmin: the
+ * utility mix. Said at the point of the largest gap. */
+static void
+sweep_gap(FILE *fp, const hl_retrofit *r)
+{
+	const hl_retrofit_point *w = NULL;
+	size_t i;
+
+	for (i = 0; i < r->n; i++) {
+		const hl_retrofit_point *p = &r->pt[i];
+
+		if (!isnan(p->area_sweep) && (w == NULL ||
+		    fabs(p->area_target - p->area_sweep) >
+		    fabs(w->area_target - w->area_sweep)))
+			w = p;
+	}
+	if (w == NULL || fabs(w->area_target - w->area_sweep) < 0.05)
+		return;
+	fprintf(fp, "  The target area keeps today's mix of utility levels, "
+		"moving linearly to the\n  least-cost mix at the targets; "
+		"`sweep` takes the least-cost mix at every ΔTmin,\n  so its "
+		"area target differs: at ΔTmin %.2f %s %.1f %s here, %.1f %s "
+		"in `sweep`\n  (the largest gap on the curve).\n",
+		hl_show_dt(w->dtmin), HL_SYM_DT, hl_show_a(w->area_target),
+		HL_SYM_A, hl_show_a(w->area_sweep), HL_SYM_A);
+}
+
 static void
 retrofit(FILE *fp, const hl_case *c, const hl_audit *a,
 	 const hl_retrofit *r)
@@ -335,6 +362,7 @@ retrofit(FILE *fp, const hl_case *c, const hl_audit *a,
 		"today's prices.\n", hl_show_a(r->n > 0 ? r->pt[r->n - 1].shell_area :
 		NAN), HL_SYM_A, money(m1, sizeof m1, r->n > 0 ? r->pt[r->n - 1].shell_cost :
 		NAN), cur(c), hl_show_a(r->shell_area), HL_SYM_A);
+	sweep_gap(fp, r);
 	best_payback(fp, c, r);
 	fprintf(fp, "The curve assumes the retrofit keeps today's area "
 		"efficiency. Which units to re-pipe,\nwhere new shells go, "

@@ -361,7 +361,8 @@ hl_svg_chart *
 hl_curves_chart_grand(const hl_case *c, const hl_cascade *cas,
 		      const hl_curves *cv, const hl_utility_lp *lp)
 {
-	heat_scale s = scale_for(max_h(&cv->grand));
+	heat_scale s = scale_for(fmax(max_h(&cv->grand),
+				      max_h(&cv->grand_util)));
 	hl_svg_chart *ch;
 	char sub[512], a[64], yl[64];
 	int rc = 0;
@@ -385,6 +386,10 @@ hl_curves_chart_grand(const hl_case *c, const hl_cascade *cas,
 	rc |= hl_svg_chart_set_id(ch, "grand");
 	rc |= add_curve(ch, "Grand composite curve", &cv->grand, s,
 			HL_SVG_BLACK, HL_SVG_SOLID, 2.6);
+	if (lp != NULL && cv->grand_util.n > 0)
+		rc |= add_curve(ch, "With the heat utility ranges give across "
+				"the pinch", &cv->grand_util, s, HL_SVG_GREY,
+				HL_SVG_DOTTED, 2.2);
 	if (lp != NULL && cv->hot_util.n > 0)
 		rc |= add_curve(ch, "Hot utilities", &cv->hot_util, s,
 				HL_SVG_VERMILION, HL_SVG_DASHED, 2.2);
@@ -431,7 +436,7 @@ balanced_pinches(hl_svg_chart *ch, const hl_case *c, const hl_curves *cv,
 				 hl_show_t(p->hot), hl_show_t(p->cold),
 				 HL_SYM_T);
 		rc |= hl_svg_chart_add_vline(ch, h * s.f, b, HL_SVG_ORANGE,
-					     HL_SVG_DOTTED);
+					     HL_SVG_DASHED);
 	}
 	return rc;
 }
@@ -503,6 +508,7 @@ hl_curves_csv_grand(FILE *fp, const hl_curves *cv)
 		HL_QTY_POWER), hl_show_header(b, sizeof b, "shifted",
 		HL_QTY_TEMP));
 	csv_curve(fp, "grand", &cv->grand);
+	csv_curve(fp, "grand-with-utility-ranges", &cv->grand_util);
 	csv_curve(fp, "hot-utilities", &cv->hot_util);
 	csv_curve(fp, "cold-utilities", &cv->cold_util);
 }

@@ -248,9 +248,32 @@ text_isolated(FILE *fp, const hl_match_result *r)
 	}
 }
 
+/* Which of the splits between subnetworks are process pinches and which
+ * utility pinches (the labels number them alike). */
+static void
+text_pinch_kinds(FILE *fp, const hl_match_result *r, const hl_cascade *cas)
+{
+	size_t s, k;
+
+	if (cas == NULL || r->nsub < 2)
+		return;
+	for (s = 0; s + 1 < r->nsub; s++) {
+		double t = r->sub[s].bottom;
+		int proc = 0;
+
+		for (k = 0; k < cas->npinch; k++)
+			proc |= fabs(cas->t[cas->pinch[k]] - t) <= 1e-9 *
+				(1.0 + fabs(t));
+		fprintf(fp, "%s  pinch %zu at %.1f %s shifted: %s\n", s ? "" :
+			"\n", s + 1, hl_show_t(t), HL_SYM_T, proc ?
+			"process pinch" : "utility pinch (a utility level used "
+			"to its limit there)");
+	}
+}
+
 void
 hl_matches_text(FILE *fp, const hl_case *c, const hl_match_result *r,
-		double dtmin)
+		double dtmin, const hl_cascade *cas)
 {
 	fprintf(fp, "Matches for %s (fewest units: transshipment MILP)\n\n",
 		c->source ? c->source : "");
@@ -259,6 +282,7 @@ hl_matches_text(FILE *fp, const hl_case *c, const hl_match_result *r,
 	text_utilities(fp, c, r);
 	text_status(fp, r);
 	text_subs(fp, r);
+	text_pinch_kinds(fp, r, cas);
 	text_matches(fp, r);
 	text_rules(fp, c, r);
 	text_isolated(fp, r);

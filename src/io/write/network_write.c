@@ -238,6 +238,15 @@ text_summary(FILE *fp, const hl_network *net)
 	fprintf(fp, "Cold utility       %10.*f %s (target %.*f %s)\n",
 	    HL_DIG_Q(1), hl_show_q(net->qc), HL_SYM_Q, HL_DIG_Q(1),
 	    hl_show_q(net->qc_target), HL_SYM_Q);
+	if (net->range_rise > 0.0 && hl_network_has_credit(net))
+		fprintf(fp, "Utility choice adds %9.*f %s to each (hot utility "
+		    "bought frees process heat for a credit, or a utility's "
+		    "range crosses the pinch)\n", HL_DIG_Q(1),
+		    hl_show_q(net->range_rise), HL_SYM_Q);
+	else if (net->range_rise > 0.0)
+		fprintf(fp, "Utility ranges add %10.*f %s to each (a hot "
+		    "utility's range ends below the pinch)\n", HL_DIG_Q(1),
+		    hl_show_q(net->range_rise), HL_SYM_Q);
 	if (net->restriction > 0.0)
 		fprintf(fp, "Match rules add    %10.*f %s to each\n",
 		    HL_DIG_Q(1), hl_show_q(net->restriction), HL_SYM_Q);
@@ -545,6 +554,8 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 	rc |= hl_xml_num(w, "cold-utility", net->qc);
 	rc |= hl_xml_num(w, "rule-penalty", net->restriction);
 	rc |= hl_xml_num(w, "energy-penalty", net->penalty);
+	if (net->range_rise > 0.0)
+		rc |= hl_xml_num(w, "range-rise", net->range_rise);
 	rc |= hl_xml_int(w, "matches", (long)net->nmatch);
 	rc |= hl_xml_int(w, "units", (long)net->nunit);
 	rc |= hl_xml_int(w, "splits", (long)net->nsplit);

@@ -365,6 +365,8 @@ text_row(FILE *fp, const hl_case *c, const hl_sensitivity *sv, size_t rank,
 	fputc('\n', fp);
 }
 
+static size_t count_infinite(const hl_sensitivity *sv);
+
 static void
 text_table(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 {
@@ -379,6 +381,11 @@ text_table(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 		fprintf(fp, " The last column: how far the utility cost\nmoves "
 			"(%s a year, first order), at +tol/-tol when the two "
 			"differ.", currency(c));
+	if (count_infinite(sv) > 0)
+		fprintf(fp, "\nA row whose cost moves by +inf or -inf ranks "
+			"first: a step of its tolerance that\nway leaves no "
+			"utility able to serve the process, so no finite cost "
+			"can be given\nand the datum is the first to check.");
 	fputs("\n\n", fp);
 	fprintf(fp, "%4s  ", "rank");
 	put_padded(fp, "stream", nw);

@@ -97,7 +97,10 @@ hl_targets_text_table(FILE *fp, const hl_cascade *cas)
 			HL_DIG_Q(1), hl_show_q(cas->flow[k]),
 			cas->flow[k] == 0.0 && k > 0 &&
 			k + 1 < cas->nb ? "  pinch" : "");
-		if (k + 1 < cas->nb)
+		if (k + 1 < cas->nb && cas->t[k] == cas->t[k + 1])
+			fprintf(fp, "  %9s %9s %9s %11s %11.*f\n", "", "", "",
+				"latent", HL_DIG_Q(1), hl_show_q(cas->dh[k]));
+		else if (k + 1 < cas->nb)
 			fprintf(fp, "  %9s %9s %9s %11.*f %11.*f\n", "", "", "",
 				HL_DIG_CP(3), hl_show_cp(cas->netcp[k]),
 				HL_DIG_Q(1), hl_show_q(cas->dh[k]));
