@@ -15,6 +15,7 @@ static const hl_command *const commands[] = {
 	&hl_cmd_curves,
 	&hl_cmd_sweep,
 	&hl_cmd_audit,
+	&hl_cmd_retrofit,
 	&hl_cmd_matches,
 	&hl_cmd_design,
 	&hl_cmd_check,
@@ -74,7 +75,7 @@ help_command(int argc, char **argv)
 			"'heatloom --help')\n", argv[1]);
 		return 1;
 	}
-	c->help(stdout);
+	hl_cmd_help(c, stdout);
 	return 0;
 }
 
@@ -105,7 +106,7 @@ main(int argc, char **argv)
 		return 1;
 	}
 	hl_output_install_signals();
-	rc = c->run(argc - 1, argv + 1);
+	rc = hl_cmd_main(c, argc - 1, argv + 1);
 	xmlCleanupParser();
 	return rc;
 }

@@ -6,64 +6,23 @@
  * one line on stderr naming the file, the line and the exchanger (or
  * stream); the run exits 0 when there is none and 2 when there is any.
  */
-#include <getopt.h>
+#include <math.h>
 #include <stdio.h>
 #include <string.h>
 
 #include "cmd.h"
+#include "display.h"
 #include "netcheck.h"
-#include "network_xml.h"
+#include "network_read.h"
 #include "output.h"
 
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom check NETWORK.xml [--quiet]\n"
-"\n"
-"Verify a heat exchanger network on its own, whoever made it: the heat\n"
-"balance of every exchanger and stream, the order and splits along each\n"
-"stream, the minimum approach (EMAT) at both ends of every exchanger and\n"
-"inside it where a stream's cp changes, the utilities used against the\n"
-"targets recomputed from the streams in the file, and the sizing (U, LMTD,\n"
-"F, shells, area, cost). NETWORK.xml is what `heatloom design --format xml`\n"
-"writes (doc/results.md, \"Network\").\n"
-"\n"
-"Each problem is reported on standard error as FILE:LINE: EXCHANGER: what is\n"
-"wrong. Exit status 0: the network is sound; 2: it is not (or the file\n"
-"cannot be read as a network).\n"
-"\n"
-"Options:\n"
-"  --quiet            no summary on standard output\n"
-"  -h, --help         show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
-
-static int
-parse(int argc, char **argv, hl_common *o)
-{
-	static const struct option opts[] = {
-		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	int ch, rc;
-
-	hl_common_init(o);
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":h", opts, NULL)) != -1)
-		if (hl_cmd_common_opt("check", ch, argv, 0, help, o, &rc) &&
-		    rc != 0)
-			return rc;
-	if (optind != argc - 1)
-		return hl_cmd_usage("check", optind >= argc ?
-		    "give one network file (XML)" :
-		    "give one network file, not several");
-	o->input = argv[optind];
-	return 0;
-}
+static const hl_option option_rows[] = {
+	HL_ROW_QUIET("no summary on standard output"),
+	HL_ROW_UNITS(HL_UNITS_HELP
+	    "\n(the summary; the problems stay in SI units)"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
 
 static void
 report(const char *file, const hl_netcheck *r)
@@ -82,43 +41,101 @@ report(const char *file, const hl_netcheck *r)
 	}
 }
 
-static int
-run(int argc, char **argv)
+/* A heat rate in the display unit: "12.3 kW" or "42 000 Btu/h". */
+static void
+put_q(const char *before, double kw)
 {
+	printf("%s%.*f %s", before, HL_DIG_Q(1), hl_show_q(kw), HL_SYM_Q);
+}
+
+/* Sound is not the same as at target: say how far the utilities are above
+ * the targets, and what the network itself declares as the reason. */
+static void
+above_targets(const hl_network *net, const hl_netcheck *r)
+{
+	double qh = 0.0, qc = 0.0, over;
+	size_t i;
+
+	for (i = 0; i < net->nparty; i++)
+		if (net->party[i].utility && net->party[i].kind == HL_HOT)
+			qh += net->party[i].load;
+		else if (net->party[i].utility)
+			qc += net->party[i].load;
+	over = qh - r->qh_min;
+	put_q("Utilities: ", qh);
+	put_q(" hot, ", qc);
+	printf(" cold");
+	if (over <= 1e-6 * fmax(1.0, r->qh_min)) {
+		printf(", at the targets\n");
+		return;
+	}
+	put_q(", ", over);
+	put_q(" hot and ", qc - r->qc_min);
+	printf(" cold above the targets");
+	if (r->qh_min > 0.0)
+		printf(" (%.1f %% hot)", 100.0 * over / r->qh_min);
+	if (net->range_rise > 0.0)
+		put_q(hl_network_has_credit(net) ? "; utility choice (credits, "
+		    "ranges) " : "; utility ranges ", net->range_rise);
+	if (net->restriction > 0.0)
+		put_q("; match rules ", net->restriction);
+	if (net->penalty > 0.0)
+		put_q("; placement ", net->penalty);
+	printf("\n");
+}
+
+/* HL_EINPUT with err clear when the network has problems: they are on
+ * stderr already. */
+static hl_status
+run_check(void *opts, hl_error *err)
+{
+	const hl_common *o = opts;
 	hl_network *net = NULL;
 	hl_netcheck *r = NULL;
-	hl_common o;
-	hl_error err;
 	size_t i, nstream = 0;
-	int rc;
+	hl_status st;
 
-	rc = parse(argc, argv, &o);
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
-	hl_error_clear(&err);
-	if (hl_network_xml_read(o.input, &net, &err) != HL_OK)
-		return hl_cmd_fail(&err);
-	if (hl_netcheck_run(net, &r, &err) != HL_OK) {
+	st = hl_network_xml_read(o->input, &net, err);
+	if (st == HL_OK)
+		st = hl_netcheck_run(net, &r, err);
+	if (st != HL_OK) {
 		hl_network_free(net);
-		return hl_cmd_fail(&err);
+		return st;
 	}
 	for (i = 0; i < net->nparty; i++)
 		nstream += !net->party[i].utility;
-	report(o.input, r);
-	if (!o.quiet)
+	report(o->input, r);
+	if (!o->quiet) {
 		printf("%s: %zu exchangers, %zu streams, %zu utilities: "
-		    "%s%zu problem%s (targets from the streams: %.1f kW "
-		    "hot, %.1f kW cold)\n", o.input, net->nunit, nstream,
+		    "%s%zu problem%s (targets from the streams: %.*f %s "
+		    "hot, %.*f %s cold)\n", o->input, net->nunit, nstream,
 		    net->nparty - nstream, r->n == 0 ? "sound, " : "",
-		    r->n, r->n == 1 ? "" : "s", r->qh_min, r->qc_min);
-	rc = r->n == 0 ? 0 : HL_EINPUT;
+		    r->n, r->n == 1 ? "" : "s", HL_DIG_Q(1),
+		    hl_show_q(r->qh_min), HL_SYM_Q, HL_DIG_Q(1),
+		    hl_show_q(r->qc_min), HL_SYM_Q);
+		above_targets(net, r);
+	}
+	st = r->n == 0 ? HL_OK : HL_EINPUT;
 	hl_netcheck_free(r);
 	hl_network_free(net);
-	return rc;
+	return st;
 }
 
 const hl_command hl_cmd_check = {
 	"check", "NETWORK.xml [--quiet]",
 	"verify a network file: balances, EMAT, utilities, sizing",
-	run, help
+	"Verify a heat exchanger network on its own, whoever made it: the heat\n"
+	"balance of every exchanger and stream, the order and splits along each\n"
+	"stream, the minimum approach (EMAT) at both ends of every exchanger and\n"
+	"inside it where a stream's cp changes, the utilities used against the\n"
+	"targets recomputed from the streams in the file, and the sizing (U, LMTD,\n"
+	"F, shells, area, cost). NETWORK.xml is what `heatloom design --format xml`\n"
+	"writes (doc/results.md, \"Network\").\n"
+	"\n"
+	"Each problem is reported on standard error as FILE:LINE: EXCHANGER: what is\n"
+	"wrong. Exit status 0: the network is sound; 2: it is not (or the file\n"
+	"cannot be read as a network).\n",
+	NULL, option_rows, sizeof(hl_common),
+	"give one network file (XML)", "give one network file, not several",
+	NULL, NULL, run_check
 };

@@ -1,23 +1,95 @@
 /* cmd.h - the command table and what every command shares.
  *
  * Each command lives in its own file and exports one hl_command; main.c lists
- * them. A command parses its own options, calls the stages, picks a writer,
- * and returns the process exit code.
+ * them. A command declares its options in a table (hl_option), calls the
+ * stages and picks a writer; options.c parses, prints the help and turns
+ * the result into the process exit code.
  */
 #ifndef HL_CMD_H
 #define HL_CMD_H
 
+#include <stddef.h>
 #include <stdio.h>
 
 #include "case.h"
+#include "existing.h"
+#include "svg.h"
 #include "status.h"
 
+/* How an option's value is taken and where it goes. */
+typedef enum {
+	HL_ARG_FLAG,    /* no value: stores (int)lo */
+	HL_ARG_TEXT,    /* a file name or a text: stores the const char * */
+	HL_ARG_NUMBER,  /* a number from lo to hi: stores a double */
+	HL_ARG_FORMAT,  /* text, xml or csv: stores an hl_format */
+	HL_ARG_UNITS,   /* si or us: sets the display units (display.h) */
+	HL_ARG_CALL,    /* the command's own parser, call */
+	HL_ARG_HELP     /* prints the help; the command ends with exit 0 */
+} hl_arg_kind;
+
+/* One row of a command's option table: the parser, the help and the test
+ * against the man page (tests/cli/options.sh) all read it. */
+typedef struct {
+	const char *name;   /* long name without the dashes */
+	char letter;        /* short name, or 0 */
+	const char *arg;    /* the value's name in the help ("K"), NULL: none */
+	const char *help;   /* '\n' starts an indented line; NULL: shown on the
+			       line of the next row (options given together) */
+	hl_arg_kind kind;
+	size_t at;          /* offset of the value in the command's options */
+	double lo, hi;      /* NUMBER: the accepted range; FLAG: lo is stored */
+	int (*call)(void *opts, const char *arg);  /* CALL: 0 or exit code */
+} hl_option;
+
+/* Rows of a command's own options: type is its options struct, member the
+ * field the value goes to. */
+#define HL_ROW_NUMBER(name, arg, type, member, lo, hi, text) { name, 0, \
+	arg, text, HL_ARG_NUMBER, offsetof(type, member), lo, hi, NULL }
+#define HL_ROW_TEXT(name, arg, type, member, text) { name, 0, arg, text, \
+	HL_ARG_TEXT, offsetof(type, member), 0, 0, NULL }
+#define HL_ROW_FLAG(name, type, member, value, text) { name, 0, NULL, text, \
+	HL_ARG_FLAG, offsetof(type, member), value, 0, NULL }
+
+/* The options shared by many commands; they live in hl_common, which is the
+ * first member of every command's options (HL_COMMON_FIRST checks it). */
+#define HL_COMMON_FIRST(type) _Static_assert(offsetof(type, c) == 0, \
+	#type " must begin with its hl_common c")
+#define HL_ROW_DTMIN(text) \
+	HL_ROW_NUMBER("dtmin", "K", hl_common, dtmin, 0.0, 500.0, text)
+#define HL_ROW_UTILITIES HL_ROW_TEXT("utilities", "FILE", hl_common, \
+	utilities, "utility table (CSV) to add to the case")
+#define HL_ROW_FORMAT(text) { "format", 0, "FMT", text, HL_ARG_FORMAT, \
+	offsetof(hl_common, format), 0, 0, NULL }
+#define HL_ROW_OUTPUT(arg, text) { "output", 'o', arg, text, HL_ARG_TEXT, \
+	offsetof(hl_common, output), 0, 0, NULL }
+#define HL_ROW_VERBOSE(text) HL_ROW_FLAG("verbose", hl_common, verbose, 1, text)
+#define HL_ROW_QUIET(text) HL_ROW_FLAG("quiet", hl_common, quiet, 1, text)
+/* --units si|us: sets the display units (display.h) at once. */
+#define HL_UNITS_HELP "si (default) or us: text, CSV, SVG and the report " \
+	"in\n°F, Btu/h, Btu/(h·°F), ft², Btu/(h·ft²·°F); XML stays SI"
+#define HL_ROW_UNITS(text) { "units", 0, "SYS", text, HL_ARG_UNITS, 0, 0, 0, \
+	NULL }
+#define HL_ROW_HELP { "help", 'h', NULL, "show this help", HL_ARG_HELP, \
+	0, 0, 0, NULL }
+#define HL_ROW_END { NULL, 0, NULL, NULL, HL_ARG_FLAG, 0, 0, 0, NULL }
+
+/* A command: its option table, its help texts and what it runs. The
+ * parsing, the help and the exit code are shared (options.c). */
 typedef struct {
 	const char *name;
-	const char *synopsis;  /* "CASE [options]" */
+	const char *usage;     /* "CASE [options]", after "heatloom NAME" */
 	const char *summary;   /* one line for heatloom --help */
-	int (*run)(int argc, char **argv);
-	void (*help)(FILE *fp);
+	const char *about;     /* the help before the option list */
+	const char *after;     /* the help after the option list, or NULL */
+	const hl_option *opt;  /* ends with HL_ROW_END */
+	size_t size;           /* of the options; hl_common comes first */
+	const char *missing;   /* usage error without the operand */
+	const char *several;   /* usage error with more than one */
+	void (*init)(void *opts);   /* defaults beyond hl_common's, or NULL */
+	int (*check)(void *opts);   /* after parsing: 0 or exit code; NULL */
+	/* Does the work; a status other than HL_OK with err cleared is an
+	 * exit code whose reason the command has already printed. */
+	hl_status (*run)(void *opts, hl_error *err);
 } hl_command;
 
 extern const hl_command hl_cmd_targets;
@@ -29,11 +101,12 @@ extern const hl_command hl_cmd_matches;
 extern const hl_command hl_cmd_design;
 extern const hl_command hl_cmd_check;
 extern const hl_command hl_cmd_report;
+extern const hl_command hl_cmd_retrofit;
 
 /* Output formats a command may accept. */
 typedef enum { HL_FMT_TEXT, HL_FMT_XML, HL_FMT_CSV } hl_format;
 
-/* Options most commands share; filled by hl_cmd_common_option(). */
+/* Options most commands share (the HL_ROW_ rows below fill them). */
 typedef struct {
 	const char *input;
 	const char *utilities;
@@ -42,6 +115,9 @@ typedef struct {
 	double dtmin;       /* NaN unless --dtmin */
 	int verbose;
 	int quiet;
+	unsigned long long given;  /* bit i: the table's row i was given */
+	int exact_latent;   /* keep latent heat as steps (targets, curves);
+			       else it is spread over HL_LATENT_SPAN */
 } hl_common;
 
 void hl_common_init(hl_common *o);
@@ -52,26 +128,17 @@ int hl_cmd_fail(const hl_error *err);
 int hl_cmd_usage(const char *cmd, const char *fmt, ...)
 	__attribute__((format(printf, 2, 3)));
 
-/* Option codes every command may put in its getopt_long table; the command
- * picks which ones it offers (and its own codes stay below 1000). */
-enum {
-	HL_OPT_DTMIN = 1000,   /* --dtmin K */
-	HL_OPT_UTIL,           /* --utilities FILE */
-	HL_OPT_FORMAT,         /* --format FMT */
-	HL_OPT_VERBOSE,        /* --verbose */
-	HL_OPT_QUIET           /* --quiet */
-};
+/* The help of `heatloom help CMD` and `heatloom CMD --help`. */
+void hl_cmd_help(const hl_command *cmd, FILE *fp);
+/* Parse, check, run and turn the result into the exit code. */
+int hl_cmd_main(const hl_command *cmd, int argc, char **argv);
+/* Usage error unless from <= to with at most 10001 points of step. */
+int hl_cmd_check_grid(const char *cmd, double from, double to, double step);
+/* Whether the option called name was given on the command line. */
+int hl_cmd_given(const hl_command *cmd, const void *opts, const char *name);
 
-/* Handle getopt_long's result ch for the shared options, -o, -h and the
- * two getopt errors. Returns 1 when ch was one of them and has been applied,
- * 0 when ch is the command's own, or the exit code to return now (-1 after
- * --help: exit 0; 1 after a usage error). formats: HL_FMT_BIT set accepted
- * by --format. */
-int hl_cmd_common_opt(const char *cmd, int ch, char **argv, unsigned formats,
-		      void (*help)(FILE *), hl_common *o, int *rc);
-
-/* After the options: exactly one CASE argument. 0, or 1 with a message. */
-int hl_cmd_one_input(const char *cmd, int argc, char **argv, hl_common *o);
+/* Parse --units and set the display units; 0 on success. */
+int hl_cmd_parse_units(const char *cmd, const char *arg);
 
 /* Parse a number option value; 0 on success. */
 int hl_cmd_parse_double(const char *cmd, const char *opt, const char *arg,
@@ -85,6 +152,14 @@ int hl_cmd_parse_format(const char *cmd, const char *arg, unsigned allowed,
  * stream table), add the utility table when given, apply --dtmin, and
  * validate. Protects the inputs from being overwritten by outputs. */
 hl_status hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err);
+
+/* "heatloom: FILE:LINE: warning: text" on stderr for each warning of the
+ * reading of today's network (net may be NULL). */
+void hl_cmd_print_warnings(const hl_existing *net);
+
+/* Write chart ch (NULL: out of memory) to path, whole or not at all. */
+hl_status hl_cmd_write_chart(const char *path, const hl_svg_chart *ch,
+			     hl_error *err);
 
 /* Solver messages (--verbose) to standard error; ctx unused. */
 void hl_cmd_log_stderr(void *ctx, const char *text);

@@ -1,5 +1,4 @@
 /* common.c - option helpers, case loading and error printing. */
-#include <getopt.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdio.h>
@@ -8,7 +7,8 @@
 
 #include "case_load.h"
 #include "cmd.h"
-#include "csv.h"
+#include "display.h"
+#include "number.h"
 #include "output.h"
 
 const char hl_caution[] =
@@ -21,6 +21,7 @@ void
 hl_common_init(hl_common *o)
 {
 	memset(o, 0, sizeof *o);
+	hl_display_set(HL_UNITS_SI);
 	o->format = HL_FMT_TEXT;
 	o->dtmin = NAN;
 }
@@ -100,6 +101,14 @@ hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err)
 	if (!isnan(o->dtmin))
 		(*out)->set.dtmin = o->dtmin;
 	st = hl_case_validate(*out, err);
+	if (st == HL_OK && !o->exact_latent && hl_case_has_latent(*out)) {
+		hl_case *spread = hl_case_spread_latent(*out, HL_LATENT_SPAN);
+
+		hl_case_free(*out);
+		*out = spread;
+		if (spread == NULL)
+			st = hl_error_nomem(err);
+	}
 	if (st != HL_OK) {
 		hl_case_free(*out);
 		*out = NULL;
@@ -108,55 +117,59 @@ hl_cmd_load_case(const hl_common *o, hl_case **out, hl_error *err)
 }
 
 int
-hl_cmd_common_opt(const char *cmd, int ch, char **argv, unsigned formats,
-		  void (*help)(FILE *), hl_common *o, int *rc)
+hl_cmd_parse_units(const char *cmd, const char *arg)
 {
-	*rc = 0;
-	switch (ch) {
-	case HL_OPT_DTMIN:
-		if (hl_cmd_parse_double(cmd, "--dtmin", optarg, 0.0, 500.0,
-					&o->dtmin) != 0)
-			*rc = 1;
-		return 1;
-	case HL_OPT_UTIL:
-		o->utilities = optarg;
-		return 1;
-	case HL_OPT_FORMAT:
-		if (hl_cmd_parse_format(cmd, optarg, formats, &o->format) != 0)
-			*rc = 1;
-		return 1;
-	case HL_OPT_VERBOSE:
-		o->verbose = 1;
-		return 1;
-	case HL_OPT_QUIET:
-		o->quiet = 1;
-		return 1;
-	case 'o':
-		o->output = optarg;
-		return 1;
-	case 'h':
-		help(stdout);
-		*rc = -1;
-		return 1;
-	case ':':
-		*rc = hl_cmd_usage(cmd, "option '%s' needs a value",
-				   argv[optind - 1]);
-		return 1;
-	case '?':
-		*rc = hl_cmd_usage(cmd, "unknown option '%s'",
-				   argv[optind - 1]);
-		return 1;
-	default:
-		return 0;
-	}
+	hl_unit_system s;
+
+	if (hl_display_parse(arg, &s) != 0)
+		return hl_cmd_usage(cmd, "--units wants si or us, not '%s'",
+				    arg);
+	hl_display_set(s);
+	return 0;
 }
 
 int
-hl_cmd_one_input(const char *cmd, int argc, char **argv, hl_common *o)
+hl_cmd_check_grid(const char *cmd, double from, double to, double step)
 {
-	if (optind != argc - 1)
-		return hl_cmd_usage(cmd, optind >= argc ? "give one CASE file" :
-				    "give one CASE file, not several");
-	o->input = argv[optind];
+	if (to < from)
+		return hl_cmd_usage(cmd, "--to %g is below --from %g", to,
+				    from);
+	if ((to - from) / step > 10000.0)
+		return hl_cmd_usage(cmd, "more than 10001 grid points; use a "
+				    "larger --step");
 	return 0;
+}
+
+void
+hl_cmd_print_warnings(const hl_existing *net)
+{
+	size_t i;
+
+	for (i = 0; net != NULL && i < net->nwarn; i++) {
+		const hl_error *w = &net->warn[i];
+
+		fprintf(stderr, "heatloom: ");
+		if (w->file[0] != '\0' && w->line > 0)
+			fprintf(stderr, "%s:%ld: ", w->file, w->line);
+		else if (w->file[0] != '\0')
+			fprintf(stderr, "%s: ", w->file);
+		fprintf(stderr, "warning: %s\n", w->text);
+	}
+}
+
+hl_status
+hl_cmd_write_chart(const char *path, const hl_svg_chart *ch, hl_error *err)
+{
+	hl_output out;
+	hl_status st;
+
+	if (ch == NULL)
+		return hl_error_nomem(err);
+	st = hl_output_open(&out, path, err);
+	if (st == HL_OK)
+		st = hl_svg_chart_write_file(ch, out.fp, err);
+	if (st == HL_OK)
+		st = hl_output_commit(&out, err);
+	hl_output_abort(&out);
+	return st;
 }

@@ -1,7 +1,6 @@
 /* curves.c - `heatloom curves`: the composite, shifted composite, grand
  * composite and balanced composite curves as SVG charts and CSV points. */
 #include <errno.h>
-#include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -16,58 +15,30 @@
 #include "svg.h"
 #include "utility_lp.h"
 
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom curves CASE -o DIR [options]\n"
-"\n"
-"Draw the curves of a pinch study into the folder DIR (made if absent):\n"
-"  composite.svg           hot and cold composite curves\n"
-"  shifted-composite.svg   the same on shifted temperatures\n"
-"  grand-composite.svg     grand composite curve with the least-cost utility\n"
-"                          levels drawn against it\n"
-"  balanced-composite.svg  composites with the utilities at their loads\n"
-"                          (only when the case has utilities)\n"
-"and the points of each as CSV (composite.csv, ...; kW and °C).\n"
-"CASE is an XML case file or a stream table (CSV).\n"
-"\n"
-"Options:\n"
-"  --dtmin K          minimum approach temperature (default: the case's, or 10)\n"
-"  --utilities FILE   utility table (CSV) to add to the case\n"
-"  -o, --output DIR   the folder to write into (required)\n"
-"  --verbose          show the LP solver's messages on standard error\n"
-"  -h, --help         show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
+typedef struct {
+	hl_common c;
+	const char *dir;  /* -o names the folder here */
+} options;
+HL_COMMON_FIRST(options);
+
+static const hl_option option_rows[] = {
+	HL_ROW_DTMIN("minimum approach temperature (default: the case's, or 10)"),
+	HL_ROW_UTILITIES,
+	HL_ROW_UNITS(HL_UNITS_HELP),
+	HL_ROW_OUTPUT("DIR", "the folder to write into (required)"),
+	HL_ROW_VERBOSE("show the LP solver's messages on standard error"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
 
 static int
-parse(int argc, char **argv, hl_common *o, const char **dir)
+check(void *opts)
 {
-	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
-		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
-		{ "output", required_argument, NULL, 'o' },
-		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	int ch, rc;
+	options *o = opts;
 
-	hl_common_init(o);
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1)
-		if (hl_cmd_common_opt("curves", ch, argv, 0, help, o, &rc) &&
-		    rc != 0)
-			return rc;
-	/* -o names the folder here. */
-	*dir = o->output;
-	o->output = NULL;
-	if ((rc = hl_cmd_one_input("curves", argc, argv, o)) != 0)
-		return rc;
-	if (*dir == NULL || **dir == '\0')
+	o->dir = o->c.output;
+	o->c.output = NULL;
+	if (o->dir == NULL || *o->dir == '\0')
 		return hl_cmd_usage("curves", "give the folder to write into "
 				    "with -o DIR");
 	return 0;
@@ -102,8 +73,11 @@ compute(const hl_common *o, study *s, hl_error *err)
 	hl_status st;
 	size_t i;
 
+	hl_common exact = *o;
+
 	memset(s, 0, sizeof *s);
-	st = hl_cmd_load_case(o, &s->c, err);
+	exact.exact_latent = 1;   /* the curves show latent heat as steps */
+	st = hl_cmd_load_case(&exact, &s->c, err);
 	if (st == HL_OK)
 		st = hl_cascade_compute(s->c, s->c->set.dtmin, &s->cas, err);
 	if (st == HL_OK && s->c->nutil > 0)
@@ -174,10 +148,11 @@ write_one(const study *s, const char *dir, size_t which, int kind,
 }
 
 static hl_status
-run_curves(const hl_common *o, const char *dir, hl_error *err)
+run_curves(void *opts, hl_error *err)
 {
+	const char *dir = ((const options *)opts)->dir;
 	study s;
-	hl_status st = compute(o, &s, err);
+	hl_status st = compute(opts, &s, err);
 	size_t i, n = s.lp ? 4 : 3;
 
 	if (st == HL_OK)
@@ -195,24 +170,19 @@ run_curves(const hl_common *o, const char *dir, hl_error *err)
 	return st;
 }
 
-static int
-run(int argc, char **argv)
-{
-	hl_common o;
-	hl_error err;
-	const char *dir;
-	int rc = parse(argc, argv, &o, &dir);
-
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
-	hl_error_clear(&err);
-	if (run_curves(&o, dir, &err) != HL_OK)
-		return hl_cmd_fail(&err);
-	return 0;
-}
-
 const hl_command hl_cmd_curves = {
-	"curves", "CASE -o DIR [--dtmin K] [--utilities FILE] [--verbose]",
+	"curves", "CASE -o DIR [options]",
 	"composite, grand composite and balanced curves as SVG and CSV",
-	run, help
+	"Draw the curves of a pinch study into the folder DIR (made if absent):\n"
+	"  composite.svg           hot and cold composite curves\n"
+	"  shifted-composite.svg   the same on shifted temperatures\n"
+	"  grand-composite.svg     grand composite curve with the least-cost utility\n"
+	"                          levels drawn against it\n"
+	"  balanced-composite.svg  composites with the utilities at their loads\n"
+	"                          (only when the case has utilities)\n"
+	"and the points of each as CSV (composite.csv, ...; kW and °C).\n"
+	"CASE is an XML case file or a stream table (CSV).\n",
+	NULL, option_rows, sizeof(options),
+	"give one CASE file", "give one CASE file, not several",
+	NULL, check, run_curves
 };

@@ -1,13 +1,13 @@
 /* design.c - `heatloom design`: from a case to a sized, checked network.
  *
  * Stages: the problem table (targets, pinches), the utility LP when the
- * case has utilities (their loads), the match MILP (fewest units and the
- * heat of every match), the placement and sizing of the network, then the
- * independent check of the network as written (the XML is read back and
- * verified by netcheck.h): a network that fails it is never written.
+ * case has utilities (their loads), then either the least-cost search
+ * (network_opt.h, the default when the utilities carry prices: it starts
+ * from the fewest-units network or --from) or the fewest-units network
+ * alone (match MILP and placement, study.h), then the independent check of
+ * the network as written (the XML is read back and verified by
+ * netcheck.h): a network that fails it is never written.
  */
-#include <getopt.h>
-#include <stddef.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -24,71 +24,16 @@
 #include "network.h"
 #include "network_match.h"
 #include "network_opt.h"
+#include "network_read.h"
+#include "network_write.h"
 #include "opt_out.h"
-#include "tables.h"
-#include "network_out.h"
-#include "network_xml.h"
 #include "output.h"
 #include "result_xml.h"
+#include "study.h"
+#include "tables.h"
 #include "targets_out.h"
 #include "utility_lp.h"
 #include "utility_out.h"
-
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom design CASE [options]\n"
-"\n"
-"Design a heat exchanger network of least total annual cost: capital by the\n"
-"case's cost law (per shell, annualised) plus energy at the case's prices,\n"
-"over which streams meet, where, the splits, the loads and the energy level.\n"
-"Every unit keeps EMAT; ΔTmin is the reference for the targets. The search\n"
-"starts from the fewest-units network (targets, match MILP, placement) and\n"
-"from other starts, and never returns a network dearer than its start. A\n"
-"case whose utilities carry no prices gets the fewest-units network. The\n"
-"network is checked as `heatloom check` would before it is written. CASE is\n"
-"an XML case file or a stream table (CSV).\n"
-"\n"
-"Options:\n"
-"  --dtmin K          minimum approach temperature for the targets (default:\n"
-"                     the case's, or 10)\n"
-"  --emat K           exchanger minimum approach, at most ΔTmin (default:\n"
-"                     the case's, or ΔTmin)\n"
-"  --utilities FILE   utility table (CSV) to add to the case\n"
-"  --format FMT       text (default), xml (what `heatloom check` reads), csv\n"
-"  -o, --output FILE  write to FILE instead of standard output\n"
-"  --svg FILE         also draw the grid diagram into FILE (SVG)\n"
-"  --time-limit S     seconds for the whole search (default 60); the search\n"
-"                     is sized by evaluations and normally ends before; the\n"
-"                     output says when this cap cut it short\n"
-"  --method M         cost (default): least total annual cost; units: the\n"
-"                     fewest-units network alone (the match MILP's time per\n"
-"                     subnetwork is then --time-limit, or the case's)\n"
-"  --seed N           seed of the search (default 1); the same case, seed\n"
-"                     and options give the same network\n"
-"  --threads N        threads (default 2); the result does not depend on it\n"
-"  --effort X         multiply the search's evaluations by X (default 1)\n"
-"  --no-splits        no stream splits\n"
-"  --no-split NAME    no split of stream NAME (repeat for several)\n"
-"  --max-branches N   at most N branches per split\n"
-"  --min-duty KW      no unit (utility units too) below KW kW\n"
-"  --min-area M2      no unit below M2 m²\n"
-"  --max-shells N     at most N shells in series per unit\n"
-"  --from FILE        start from this network: an XML network as design\n"
-"                     writes it, or a network table (CSV: name, hot, cold,\n"
-"                     duty; temperatures optional)\n"
-"  --keep NAMES       units of --from (comma-separated names) that stay\n"
-"  --quiet            no warnings or progress on standard error\n"
-"  --verbose          the solvers' messages on standard error\n"
-"  -h, --help         show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
-
-enum { OPT_EMAT = 256, OPT_SVG, OPT_TIME, OPT_METHOD, OPT_SEED,
-       OPT_THREADS, OPT_EFFORT, OPT_NOSPLITS, OPT_NOSPLIT, OPT_BRANCHES,
-       OPT_MINDUTY, OPT_MINAREA, OPT_SHELLS, OPT_FROM, OPT_KEEP };
 
 #define MAX_NOSPLIT 64
 
@@ -105,146 +50,119 @@ typedef struct {
 	const char *from;
 	const char *keep;
 } options;
+HL_COMMON_FIRST(options);
 
-/* A count or number option; 0 on success. */
 static int
-number_opt(int ch, options *o)
+parse_method(void *opts, const char *arg)
 {
-	static const struct {
-		int ch;
-		const char *name;
-		double lo, hi;
-		size_t off;
-	} t[] = {
-		{ OPT_SEED, "--seed", 0, 4294967295.0, offsetof(options, seed) },
-		{ OPT_THREADS, "--threads", 1, 16, offsetof(options, threads) },
-		{ OPT_EFFORT, "--effort", 0.01, 1000, offsetof(options,
-		    effort) },
-		{ OPT_BRANCHES, "--max-branches", 2, 1000, offsetof(options,
-		    branches) },
-		{ OPT_MINDUTY, "--min-duty", 0, 1e9, offsetof(options,
-		    min_duty) },
-		{ OPT_MINAREA, "--min-area", 0, 1e7, offsetof(options,
-		    min_area) },
-		{ OPT_SHELLS, "--max-shells", 1, HL_EXCHANGER_MAX_SHELLS,
-		    offsetof(options, shells) },
-	};
-	size_t i;
+	options *o = opts;
 
-	for (i = 0; i < sizeof t / sizeof t[0]; i++) {
-		double *v = (double *)((char *)o + t[i].off);
-
-		if (t[i].ch != ch)
-			continue;
-		if (hl_cmd_parse_double("design", t[i].name, optarg, t[i].lo,
-		    t[i].hi, v) != 0)
-			return 1;
-		if (ch != OPT_EFFORT && ch != OPT_MINDUTY &&
-		    ch != OPT_MINAREA && *v != floor(*v))
-			return hl_cmd_usage("design", "%s wants a whole "
-			    "number, not '%s'", t[i].name, optarg);
-		return 0;
-	}
-	return 1;
+	if (strcmp(arg, "units") != 0 && strcmp(arg, "cost") != 0)
+		return hl_cmd_usage("design", "--method wants cost or units, "
+		    "not '%s'", arg);
+	o->units = strcmp(arg, "units") == 0;
+	return 0;
 }
 
 static int
-other_opt(int ch, options *o)
+add_nosplit(void *opts, const char *arg)
 {
-	switch (ch) {
-	case OPT_METHOD:
-		if (strcmp(optarg, "units") != 0 &&
-		    strcmp(optarg, "cost") != 0)
-			return hl_cmd_usage("design", "--method wants cost or "
-			    "units, not '%s'", optarg);
-		o->units = strcmp(optarg, "units") == 0;
-		return 0;
-	case OPT_NOSPLITS:
-		o->no_splits = 1;
-		return 0;
-	case OPT_NOSPLIT:
-		if (o->nnosplit == MAX_NOSPLIT)
-			return hl_cmd_usage("design", "at most %d --no-split "
-			    "options", MAX_NOSPLIT);
-		o->nosplit[o->nnosplit++] = optarg;
-		return 0;
-	case OPT_FROM:
-		o->from = optarg;
-		return 0;
-	case OPT_KEEP:
-		o->keep = optarg;
-		return 0;
-	default:
-		return number_opt(ch, o);
-	}
+	options *o = opts;
+
+	if (o->nnosplit == MAX_NOSPLIT)
+		return hl_cmd_usage("design", "at most %d --no-split options",
+		    MAX_NOSPLIT);
+	o->nosplit[o->nnosplit++] = arg;
+	return 0;
 }
 
-static int
-parse(int argc, char **argv, options *o)
-{
-	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
-		{ "emat", required_argument, NULL, OPT_EMAT },
-		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
-		{ "format", required_argument, NULL, HL_OPT_FORMAT },
-		{ "svg", required_argument, NULL, OPT_SVG },
-		{ "time-limit", required_argument, NULL, OPT_TIME },
-		{ "method", required_argument, NULL, OPT_METHOD },
-		{ "seed", required_argument, NULL, OPT_SEED },
-		{ "threads", required_argument, NULL, OPT_THREADS },
-		{ "effort", required_argument, NULL, OPT_EFFORT },
-		{ "no-splits", no_argument, NULL, OPT_NOSPLITS },
-		{ "no-split", required_argument, NULL, OPT_NOSPLIT },
-		{ "max-branches", required_argument, NULL, OPT_BRANCHES },
-		{ "min-duty", required_argument, NULL, OPT_MINDUTY },
-		{ "min-area", required_argument, NULL, OPT_MINAREA },
-		{ "max-shells", required_argument, NULL, OPT_SHELLS },
-		{ "from", required_argument, NULL, OPT_FROM },
-		{ "keep", required_argument, NULL, OPT_KEEP },
-		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
-		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
-		{ "output", required_argument, NULL, 'o' },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
-				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
-	int ch, rc;
+static const hl_option option_rows[] = {
+	HL_ROW_DTMIN("minimum approach temperature for the targets (default:\n"
+		     "the case's, or 10)"),
+	HL_ROW_NUMBER("emat", "K", options, emat, 0.0, 500.0,
+	    "exchanger minimum approach, at most ΔTmin (default:\n"
+	    "the case's, or ΔTmin)"),
+	HL_ROW_UTILITIES,
+	HL_ROW_FORMAT("text (default), xml (what `heatloom check` reads), csv"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
+	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
+	HL_ROW_TEXT("svg", "FILE", options, svg,
+	    "also draw the grid diagram into FILE (SVG)"),
+	HL_ROW_NUMBER("time-limit", "S", options, time_limit, 0.0, 86400.0,
+	    "seconds for the whole search (default 60); the search\n"
+	    "is sized by evaluations and normally ends before; the\n"
+	    "output says when this cap cut it short. With --method\n"
+	    "units: seconds per subnetwork for the match MILP\n"
+	    "(default: the case's, or 10)"),
+	{ "method", 0, "M", "cost (default): least total annual cost; units: the\n"
+	  "fewest-units network alone (match MILP and placement)",
+	  HL_ARG_CALL, 0, 0, 0, parse_method },
+	HL_ROW_NUMBER("seed", "N", options, seed, 0.0, 4294967295.0,
+	    "seed of the search (default 1); the same case, seed\n"
+	    "and options give the same network"),
+	HL_ROW_NUMBER("threads", "N", options, threads, 1.0, 16.0,
+	    "threads (default 2); the result does not depend on it"),
+	HL_ROW_NUMBER("effort", "X", options, effort, 0.01, 1000.0,
+	    "multiply the search's evaluations by X (default 1)"),
+	HL_ROW_FLAG("no-splits", options, no_splits, 1, "no stream splits"),
+	{ "no-split", 0, "NAME", "no split of stream NAME (repeat for several)",
+	  HL_ARG_CALL, 0, 0, 0, add_nosplit },
+	HL_ROW_NUMBER("max-branches", "N", options, branches, 2.0, 1000.0,
+	    "at most N branches per split"),
+	HL_ROW_NUMBER("min-duty", "KW", options, min_duty, 0.0, 1e9,
+	    "no unit (utility units too) below KW kW"),
+	HL_ROW_NUMBER("min-area", "M2", options, min_area, 0.0, 1e7,
+	    "no unit below M2 m² (a fired heater has no area)"),
+	HL_ROW_NUMBER("max-shells", "N", options, shells, 1.0,
+	    HL_EXCHANGER_MAX_SHELLS, "at most N shells in series per unit"),
+	HL_ROW_TEXT("from", "FILE", options, from,
+	    "start from this network: an XML network as design\n"
+	    "writes it, or a network table (CSV: name, hot, cold,\n"
+	    "duty; temperatures optional)"),
+	HL_ROW_TEXT("keep", "NAMES", options, keep,
+	    "units of --from (comma-separated names) that stay"),
+	HL_ROW_QUIET("no warnings or progress on standard error"),
+	HL_ROW_VERBOSE("the solvers' messages on standard error"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
 
-	memset(o, 0, sizeof *o);
-	hl_common_init(&o->c);
+static void
+init(void *opts)
+{
+	options *o = opts;
+
 	o->emat = o->time_limit = NAN;
 	o->seed = 1;
 	o->threads = 2;
 	o->effort = 1;
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (hl_cmd_common_opt("design", ch, argv, formats, help, &o->c,
-				      &rc)) {
-			if (rc != 0)
-				return rc;
-			continue;
-		}
-		if (ch == OPT_SVG)
-			o->svg = optarg;
-		else if (ch != OPT_EMAT && ch != OPT_TIME) {
-			if (other_opt(ch, o) != 0)
-				return 1;
-		} else if (hl_cmd_parse_double("design", ch == OPT_EMAT ?
-		    "--emat" : "--time-limit", optarg, 0.0, ch == OPT_EMAT ?
-		    500.0 : 86400.0, ch == OPT_EMAT ? &o->emat :
-		    &o->time_limit) != 0)
-			return 1;
-	}
-	rc = hl_cmd_one_input("design", argc, argv, &o->c);
-	if (rc == 0 && o->keep != NULL && o->from == NULL)
+}
+
+static int
+whole(const char *name, double v)
+{
+	if (v == floor(v))
+		return 0;
+	return hl_cmd_usage("design", "--%s wants a whole number, not %g",
+	    name, v);
+}
+
+static int
+check(void *opts)
+{
+	const options *o = opts;
+
+	if (whole("seed", o->seed) || whole("threads", o->threads) ||
+	    whole("max-branches", o->branches) ||
+	    whole("max-shells", o->shells))
+		return 1;
+	if (o->keep != NULL && o->from == NULL)
 		return hl_cmd_usage("design", "--keep names units of --from");
-	if (rc == 0 && o->svg != NULL && o->c.output != NULL &&
+	if (o->svg != NULL && o->c.output != NULL &&
 	    strcmp(o->svg, o->c.output) == 0)
 		return hl_cmd_usage("design", "--svg and -o name the same "
 		    "file '%s'", o->svg);
-	return rc;
+	return 0;
 }
 
 /* What the stages give, freed together. */
@@ -308,29 +226,26 @@ load(const options *o, run_state *s, hl_error *err)
 	return HL_OK;
 }
 
-/* The fewest-units network: match MILP and placement. time: seconds per
- * MILP subnetwork, NaN for the case's. */
+/* The fewest-units network: match MILP and placement (study.h) at the
+ * targets already in s. time: seconds per MILP subnetwork, NaN for the
+ * case's. */
 static hl_status
-fewest_units(const options *o, run_state *s, const double *util_load,
-	     double time, hl_error *err)
+fewest_units(const options *o, run_state *s, double time, hl_error *err)
 {
-	hl_match_options mo;
+	hl_study_opts so = { o->c.verbose, hl_cmd_log_stderr, 1, time };
+	hl_study y;
 	hl_status st;
 
-	hl_match_options_default(&mo, s->c);
-	if (!isnan(time))
-		mo.time_limit = time;
-	if (o->c.verbose) {
-		mo.log = hl_cmd_log_stderr;
-		mo.ctx = NULL;
-	}
-	st = hl_match_solve(s->c, s->c->set.dtmin, util_load, &mo, &s->mr,
-	    err);
+	memset(&y, 0, sizeof y);
+	y.cas = s->cas;
+	y.lp = s->lp;
+	st = hl_study_matches(s->c, &so, &y, err);
 	if (st == HL_OK)
-		st = hl_network_from_matches(s->c, s->mr, s->cas->qh,
-		    s->cas->qc, &s->feed, err);
-	if (st == HL_OK)
-		st = hl_network_place(&s->feed.in, &s->net, err);
+		st = hl_study_network(s->c, &y, err);
+	/* run_state owns what the stages gave from here (state_free). */
+	s->mr = y.mr;
+	s->feed = y.feed;
+	s->net = y.net;
 	return st;
 }
 
@@ -355,6 +270,52 @@ is_csv(const char *path)
 	    strcmp(path + n - 4, ".CSV") == 0);
 }
 
+/* Unit i of the network table tab or the network file, as a unit to add:
+ * its parties' names into *hn, *cn. */
+static void
+from_unit(const hl_case *tab, const hl_network *file, size_t i,
+	  hl_network_unit *u, const char **hn, const char **cn, long *line)
+{
+	memset(u, 0, sizeof *u);
+	if (tab != NULL) {
+		const hl_unit *t = &tab->unit[i];
+
+		*hn = t->hot;
+		*cn = t->cold;
+		*line = t->line;
+		snprintf(u->id, sizeof u->id, "%s", t->name);
+		u->duty = t->duty;
+		u->hot_in = t->hot_in;
+		u->hot_out = t->hot_out;
+		u->cold_in = t->cold_in;
+		u->cold_out = t->cold_out;
+	} else {
+		*u = file->unit[i];
+		u->note = NULL;
+		*hn = file->party[u->hot].name;
+		*cn = file->party[u->cold].name;
+		*line = u->line;
+	}
+}
+
+/* 1 when the network file's parties and units are net's, in order. */
+static int
+same_parties(const hl_network *file, const hl_network *net)
+{
+	size_t i;
+
+	if (file->nparty != net->nparty || file->nunit != net->nunit)
+		return 0;
+	for (i = 0; i < file->nunit; i++)
+		if (net->unit[i].hot != file->unit[i].hot ||
+		    net->unit[i].cold != file->unit[i].cold)
+			return 0;
+	for (i = 0; i < file->nparty; i++)
+		if (strcmp(file->party[i].name, net->party[i].name) != 0)
+			return 0;
+	return 1;
+}
+
 /* The units of --from on the case's parties. A network file on exactly the
  * case's parties is taken as it is (sized: the result will not cost more);
  * otherwise its units only place the start. */
@@ -363,8 +324,7 @@ read_from(const options *o, run_state *s, hl_error *err)
 {
 	hl_case *tab = NULL;
 	hl_network *file = NULL, *net = NULL;
-	hl_network_party *p = NULL;
-	size_t n = 0, i;
+	size_t n, i;
 	hl_status st;
 
 	if (is_csv(o->from)) {
@@ -374,47 +334,15 @@ read_from(const options *o, run_state *s, hl_error *err)
 	} else {
 		st = hl_network_xml_read(o->from, &file, err);
 	}
-	if (st == HL_OK && (net = hl_network_create()) == NULL)
-		st = hl_error_nomem(err);
-	if (st == HL_OK) {
-		net->set = s->c->set;
-		net->set.currency = strdup(s->c->set.currency != NULL ?
-		    s->c->set.currency : "EUR");
-		net->total_cost = NAN;
-		st = net->set.currency == NULL ? hl_error_nomem(err) :
-		    hl_network_parties_from_case(s->c, NULL, &p, &n, err);
-	}
-	for (i = 0; st == HL_OK && i < n; i++)
-		st = hl_network_add_party(net, &p[i], err);
-	for (i = 0; i < n; i++)
-		hl_network_party_free(&p[i]);
-	free(p);
+	if (st == HL_OK)
+		st = hl_network_of_case(s->c, NULL, &net, err);
 	n = tab != NULL ? tab->nunit : file != NULL ? file->nunit : 0;
 	for (i = 0; st == HL_OK && i < n; i++) {
 		hl_network_unit u;
 		const char *hn, *cn;
 		long hp, cp, line;
 
-		memset(&u, 0, sizeof u);
-		if (tab != NULL) {
-			const hl_unit *t = &tab->unit[i];
-
-			hn = t->hot;
-			cn = t->cold;
-			line = t->line;
-			snprintf(u.id, sizeof u.id, "%s", t->name);
-			u.duty = t->duty;
-			u.hot_in = t->hot_in;
-			u.hot_out = t->hot_out;
-			u.cold_in = t->cold_in;
-			u.cold_out = t->cold_out;
-		} else {
-			u = file->unit[i];
-			u.note = NULL;
-			hn = file->party[u.hot].name;
-			cn = file->party[u.cold].name;
-			line = u.line;
-		}
+		from_unit(tab, file, i, &u, &hn, &cn, &line);
 		hp = case_party(s->c, hn);
 		cp = case_party(s->c, cn);
 		if (hp < 0 || cp < 0)
@@ -427,20 +355,10 @@ read_from(const options *o, run_state *s, hl_error *err)
 			st = hl_network_add_unit(net, &u, err);
 		}
 	}
-	if (st == HL_OK && file != NULL && file->nparty == net->nparty) {
-		int same = 1;
-
-		for (i = 0; i < n && same; i++)
-			same = net->unit[i].hot == file->unit[i].hot &&
-			    net->unit[i].cold == file->unit[i].cold;
-		for (i = 0; i < file->nparty && same; i++)
-			same = strcmp(file->party[i].name,
-			    net->party[i].name) == 0;
-		if (same) {
-			hl_network_free(net);
-			net = file;
-			file = NULL;
-		}
+	if (st == HL_OK && file != NULL && same_parties(file, net)) {
+		hl_network_free(net);
+		net = file;
+		file = NULL;
 	}
 	hl_case_free(tab);
 	hl_network_free(file);
@@ -504,32 +422,18 @@ progress(void *ctx, double done, double best)
 	fflush(stderr);
 }
 
-/* The case's <design> limits, each replaced by its option when given. */
+/* The streams that must not split: the case's <no-split> and --no-split. */
 static hl_status
-opt_options(const options *o, run_state *s, hl_error *err)
+no_split_streams(const options *o, run_state *s, hl_error *err)
 {
-	hl_opt_options *x = &s->oo;
-	const hl_settings *set = &s->c->set;
 	size_t i;
 
-	hl_opt_options_default(x);
-	x->seed = (unsigned long)o->seed;
-	x->threads = (int)o->threads;
-	x->effort = o->effort;
-	x->no_splits = o->no_splits || set->no_splits;
-	x->max_branches = o->branches > 0 ? (int)o->branches :
-	    set->max_branches;
-	x->min_duty = o->min_duty > 0 ? o->min_duty : set->min_duty;
-	x->min_area = o->min_area > 0 ? o->min_area : set->min_area;
-	x->max_shells = o->shells > 0 ? (int)o->shells : set->max_shells;
-	if (!isnan(o->time_limit))
-		x->time_limit = o->time_limit;
-	if (o->nnosplit + s->c->nnosplit > 0) {
-		s->nosplit = calloc(s->c->nstream + 1, 1);
-		if (s->nosplit == NULL)
-			return hl_error_nomem(err);
-		x->no_split = s->nosplit;
-	}
+	if (o->nnosplit + s->c->nnosplit == 0)
+		return HL_OK;
+	s->nosplit = calloc(s->c->nstream + 1, 1);
+	if (s->nosplit == NULL)
+		return hl_error_nomem(err);
+	s->oo.no_split = s->nosplit;
 	for (i = 0; i < s->c->nnosplit; i++) {
 		long k = hl_case_find_stream(s->c, s->c->nosplit[i]);
 
@@ -549,45 +453,78 @@ opt_options(const options *o, run_state *s, hl_error *err)
 			    "case", o->nosplit[i]);
 		s->nosplit[k] = 1;
 	}
+	return HL_OK;
+}
+
+/* The case's <design> limits, each replaced by its option when given. */
+static hl_status
+opt_options(const options *o, run_state *s, hl_error *err)
+{
+	hl_opt_options *x = &s->oo;
+	const hl_settings *set = &s->c->set;
+
+	hl_opt_options_default(x);
+	x->seed = (unsigned long)o->seed;
+	x->threads = (int)o->threads;
+	x->effort = o->effort;
+	x->no_splits = o->no_splits || set->no_splits;
+	x->max_branches = o->branches > 0 ? (int)o->branches :
+	    set->max_branches;
+	x->min_duty = o->min_duty > 0 ? o->min_duty : set->min_duty;
+	x->min_area = o->min_area > 0 ? o->min_area : set->min_area;
+	x->max_shells = o->shells > 0 ? (int)o->shells : set->max_shells;
+	if (!isnan(o->time_limit))
+		x->time_limit = o->time_limit;
 	if (!o->c.quiet && isatty(STDERR_FILENO)) {
 		x->progress = progress;
 		x->ctx = s->c->set.currency != NULL ? s->c->set.currency : "";
 	}
+	return no_split_streams(o, s, err);
+}
+
+/* The fewest-units start in its share of the time; a MILP without an
+ * answer in it leaves the search to start without it. */
+static hl_status
+fewest_units_start(const options *o, run_state *s, hl_error *err)
+{
+	double share = fmin(s->c->set.time_limit, s->oo.time_limit / 6.0);
+	hl_status st;
+	size_t k;
+
+	if (s->oo.progress != NULL)
+		fprintf(stderr, "design: fewest-units start…\r");
+	st = fewest_units(o, s, share, err);
+	if (st == HL_ENOSOLUTION) {
+		s->milp_failed = 1;
+		hl_error_clear(err);
+		hl_network_free(s->net);
+		s->net = NULL;
+		return HL_OK;
+	}
+	if (st != HL_OK)
+		return st;
+	s->start = s->net;
+	s->net = NULL;
+	/* The document must repeat byte for byte: the start's solver times
+	 * are written as 0. */
+	s->mr->seconds = 0.0;
+	for (k = 0; k < s->mr->nsub; k++)
+		s->mr->sub[k].seconds = 0.0;
 	return HL_OK;
 }
 
 /* The least-cost network: a start (--from, or the fewest-units network
  * when the MILP finds one in its share of the time), then the search. */
 static hl_status
-least_cost(const options *o, run_state *s, const double *util_load,
-	   hl_error *err)
+least_cost(const options *o, run_state *s, hl_error *err)
 {
-	double t0 = now(), share;
+	double t0 = now();
 	hl_status st = opt_options(o, s, err);
 
 	if (st == HL_OK && o->from != NULL)
 		st = read_from(o, s, err);
-	else if (st == HL_OK) {
-		share = fmin(s->c->set.time_limit, s->oo.time_limit / 6.0);
-		if (s->oo.progress != NULL)
-			fprintf(stderr, "design: fewest-units start…\r");
-		st = fewest_units(o, s, util_load, share, err);
-		if (st == HL_ENOSOLUTION) {
-			s->milp_failed = 1;
-			hl_error_clear(err);
-			st = HL_OK;
-		} else if (st == HL_OK) {
-			size_t k;
-
-			s->start = s->net;
-			/* The document must repeat byte for byte: the start's
-			 * solver times are written as 0. */
-			s->mr->seconds = 0.0;
-			for (k = 0; k < s->mr->nsub; k++)
-				s->mr->sub[k].seconds = 0.0;
-		}
-		s->net = NULL;
-	}
+	else if (st == HL_OK)
+		st = fewest_units_start(o, s, err);
 	if (st == HL_OK)
 		st = mark_keep(o, s, err);
 	if (st != HL_OK)
@@ -599,55 +536,79 @@ least_cost(const options *o, run_state *s, const double *util_load,
 	st = hl_network_optimise(s->c, &s->oo, &s->opt, err);
 	if (s->oo.progress != NULL)
 		fprintf(stderr, "\r%60s\r", "");
-	if (st == HL_OK) {
-		s->net = s->opt->net;
-		s->opt->net = NULL;
-		if (s->opt->kept_start && s->start != NULL) {
-			hl_network_free(s->net);
-			s->net = s->start;
-		}
-		s->opt->net = s->net;
+	if (st != HL_OK)
+		return st;
+	s->net = s->opt->net;
+	s->opt->net = NULL;
+	if (s->opt->kept_start && s->start != NULL) {
+		hl_network_free(s->net);
+		s->net = s->start;
 	}
-	return st;
+	s->opt->net = s->net;
+	return HL_OK;
 }
 
-/* Targets, utility loads, then the least-cost search or the fewest-units
- * network. */
+/* The energy of a least-cost network above the targets split as the
+ * fewest-units path splits it: the rise the utility ranges force (the
+ * utility LP's, never more than the whole excess) first, the rest the
+ * network's own choice (energy-penalty; negative below the targets, which
+ * EMAT below ΔTmin allows). */
+static void
+split_rise(const run_state *s)
+{
+	hl_network *net = s->net;
+	double rise;
+
+	if (s->opt == NULL || s->lp == NULL || net == s->start)
+		return;
+	rise = fmin(s->lp->range_rise, net->penalty);
+	if (!(rise > 0.0))
+		return;
+	net->range_rise = rise;
+	net->penalty -= rise;
+	if (fabs(net->penalty) < 1e-9 * fmax(1.0, net->qh_target))
+		net->penalty = 0.0;
+}
+
+/* Refused: the limits without the least-cost search. */
+static hl_status
+limits_need_search(const options *o, const run_state *s, hl_error *err)
+{
+	if (!(s->no_prices || o->units) || !(o->no_splits ||
+	    o->nnosplit > 0 || o->branches > 0 || o->min_duty > 0 ||
+	    o->min_area > 0 || o->shells > 0 || o->from != NULL))
+		return HL_OK;
+	return hl_error_set(err, o->units ? HL_EUSAGE : HL_EINPUT,
+	    o->units ? NULL : s->c->source, 0, "%s: the limits and --from "
+	    "belong to the least-cost search, which needs utilities with "
+	    "prices%s", o->units ? "design --method units" : "design",
+	    o->units ? "; drop --method units" : " (give a utility table "
+	    "with a price column)");
+}
+
+/* Targets and utility loads (study.h), then the least-cost search or the
+ * fewest-units network. */
 static hl_status
 solve(const options *o, run_state *s, hl_error *err)
 {
-	hl_utility_lp_opts lo = { o->c.verbose, hl_cmd_log_stderr, NULL, NAN };
-	const double *util_load = NULL;
-	double *loads = NULL;
+	hl_study_opts so = { o->c.verbose, hl_cmd_log_stderr, 1,
+			     o->time_limit };
+	hl_study y;
 	hl_status st;
-	size_t i;
 
-	st = hl_cascade_compute(s->c, s->c->set.dtmin, &s->cas, err);
-	if (st == HL_OK && s->c->nutil > 0) {
-		st = hl_utility_lp_solve(s->c, s->c->set.dtmin, &lo, &s->lp,
-		    err);
-		if (st == HL_OK && (loads = calloc(s->c->nutil,
-		    sizeof *loads)) == NULL)
-			st = hl_error_nomem(err);
-		for (i = 0; st == HL_OK && i < s->c->nutil; i++)
-			loads[i] = s->lp->util[i].load;
-		util_load = loads;
-	}
+	memset(&y, 0, sizeof y);
+	st = hl_study_targets(s->c, &so, &y, err);
+	s->cas = y.cas;
+	s->lp = y.lp;
 	s->no_prices = !o->units && !hl_network_optimise_fits(s->c);
-	if (st == HL_OK && (s->no_prices || o->units) && (o->no_splits ||
-	    o->nnosplit > 0 || o->branches > 0 || o->min_duty > 0 ||
-	    o->min_area > 0 || o->shells > 0 || o->from != NULL))
-		st = hl_error_set(err, o->units ? HL_EUSAGE : HL_EINPUT,
-		    o->units ? NULL : s->c->source, 0, "%s: the limits and "
-		    "--from belong to the least-cost search, which needs "
-		    "utilities with prices%s", o->units ? "design --method "
-		    "units" : "design", o->units ? "; drop --method units" :
-		    " (give a utility table with a price column)");
+	if (st == HL_OK)
+		st = limits_need_search(o, s, err);
 	if (st == HL_OK && (o->units || s->no_prices))
-		st = fewest_units(o, s, util_load, o->time_limit, err);
+		st = fewest_units(o, s, o->time_limit, err);
 	else if (st == HL_OK)
-		st = least_cost(o, s, util_load, err);
-	free(loads);
+		st = least_cost(o, s, err);
+	if (st == HL_OK)
+		split_rise(s);
 	if (st == HL_OK && s->net->source == NULL && (s->net->source =
 	    strdup(s->c->source != NULL ? s->c->source : o->c.input)) == NULL)
 		st = hl_error_nomem(err);
@@ -739,12 +700,13 @@ static hl_status
 write_svg(const options *o, const run_state *s, hl_error *err)
 {
 	double pin[64];
-	hl_grid_opts go = { NULL, NULL, hl_caution, 0, pin };
+	hl_grid_opts go = { NULL, NULL, hl_caution, 0, pin, NULL };
 	char title[300];
 	hl_output out;
 	hl_status st;
 
 	go.npinch = hl_network_pinches(s->cas, s->lp, pin, 64);
+	go.cas = s->cas;
 	snprintf(title, sizeof title, "Heat exchanger network: %s",
 	    s->c->source != NULL ? s->c->source : o->c.input);
 	go.title = title;
@@ -823,44 +785,48 @@ warn(const run_state *s)
 		    "(give --time-limit)\n", s->mr->units, s->mr->lower);
 }
 
-static int
-run(int argc, char **argv)
+static hl_status
+run_design(void *opts, hl_error *err)
 {
+	const options *o = opts;
 	run_state s;
-	options o;
-	hl_error err;
 	hl_status st;
-	int rc = parse(argc, argv, &o);
 
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
 	memset(&s, 0, sizeof s);
-	hl_error_clear(&err);
-	st = load(&o, &s, &err);
+	st = load(o, &s, err);
 	if (st == HL_OK)
-		st = solve(&o, &s, &err);
+		st = solve(o, &s, err);
 	if (st == HL_OK)
-		st = build_xml(&s, &err);
+		st = build_xml(&s, err);
 	if (st == HL_OK)
-		st = self_check(&s, &err);
-	if (st == HL_OK && o.svg != NULL)
-		st = write_svg(&o, &s, &err);
+		st = self_check(&s, err);
+	if (st == HL_OK && o->svg != NULL)
+		st = write_svg(o, &s, err);
 	if (st == HL_OK)
-		st = write_main(&o, &s, &err);
-	if (st == HL_OK && !o.c.quiet)
+		st = write_main(o, &s, err);
+	if (st == HL_OK && !o->c.quiet)
 		warn(&s);
-	rc = st == HL_OK ? 0 : hl_cmd_fail(&err);
 	state_free(&s);
-	return rc;
+	return st;
 }
 
 const hl_command hl_cmd_design = {
-	"design", "CASE [--dtmin K] [--emat K] [--utilities FILE] "
-	"[--format text|xml|csv] [-o FILE] [--svg FILE] [--time-limit S] "
-	"[--method cost|units] [--seed N] [--threads N] [--effort X] "
-	"[--no-splits] [--no-split STREAM] [--max-branches N] [--min-duty KW] "
-	"[--min-area M2] [--max-shells N] [--from FILE [--keep NAMES]] "
-	"[--quiet]",
+	"design", "CASE [options]",
 	"a sized heat exchanger network that meets the targets, checked",
-	run, help
+	"Design a heat exchanger network of least total annual cost: capital by the\n"
+	"case's cost laws (per shell and per exchanger type, annualised) plus energy\n"
+	"at the case's prices, over which streams meet, where, the splits, the loads\n"
+	"and the energy level. Every unit keeps EMAT; ΔTmin is the reference for the\n"
+	"targets. The search starts from the fewest-units network (targets, match\n"
+	"MILP, placement) and from other starts, and never returns a network dearer\n"
+	"than its start. A case whose utilities carry no prices, or --method units,\n"
+	"gets the fewest-units network: the least-cost utility levels, the fewest\n"
+	"units, the placement of every match on its streams in temperature order,\n"
+	"splits where series would break the minimum approach. Each exchanger is\n"
+	"sized (U from the film coefficients, LMTD, F, shells, area, cost). The\n"
+	"network is checked as `heatloom check` would before it is written. CASE is\n"
+	"an XML case file or a stream table (CSV).\n",
+	NULL, option_rows, sizeof(options),
+	"give one CASE file", "give one CASE file, not several",
+	init, check, run_design
 };

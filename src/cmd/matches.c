@@ -1,12 +1,12 @@
 /* matches.c - `heatloom matches`: the fewest exchanger units and their
  * duties. */
-#include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 #include <unistd.h>
 
+#include "cascade.h"
 #include "cmd.h"
 #include "glpk_guard.h"
 #include "match_milp.h"
@@ -16,86 +16,36 @@
 #include "result_xml.h"
 #include "utility_lp.h"
 
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom matches CASE [options]\n"
-"\n"
-"Which hot stream should heat which cold stream, with what duty, using as\n"
-"few exchanger units as possible while meeting the utility targets (the\n"
-"expanded transshipment MILP of Papoulias & Grossmann, 1983, solved with\n"
-"GLPK). The problem is split at every pinch; a pair working on both sides\n"
-"of a pinch counts as two units. With the case's utilities the network meets\n"
-"the least-cost loads of the utility LP (see targets); without, one hot\n"
-"utility above every stream and one cold utility below, at the targets.\n"
-"Match rules and plant areas of an XML case file are obeyed; when they raise\n"
-"the utility targets the report says by how much and because of which rule.\n"
-"CASE is an XML case file or a stream table (CSV).\n"
-"\n"
-"Options:\n"
-"  --dtmin K            minimum approach temperature (default: the case's, or 10)\n"
-"  --utilities FILE     utility table (CSV) to add to the case\n"
-"  --format FMT         text (default), xml, or csv (the match table)\n"
-"  -o, --output FILE    write to FILE instead of standard output\n"
-"  --time-limit S       solver time per subnetwork in s (default: the case's,\n"
-"                       or 10); at the limit the best network found is given\n"
-"                       with its gap to the proven bound; 0: heuristic only\n"
-"  --export-model FILE  also write the MILP (CPLEX LP, or free MPS when FILE\n"
-"                       ends in .mps) to solve it with another solver\n"
-"  --quiet              no progress on the terminal\n"
-"  --verbose            show the solver's own messages on standard error\n"
-"  -h, --help           show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
-
-enum { OPT_TIME = 256, OPT_EXPORT };
-
 typedef struct {
 	hl_common c;
 	double time_limit;  /* NaN unless --time-limit */
 	const char *export_model;
 } options;
+HL_COMMON_FIRST(options);
 
-static int
-parse(int argc, char **argv, options *o)
+static const hl_option option_rows[] = {
+	HL_ROW_DTMIN("minimum approach temperature (default: the case's, or 10)"),
+	HL_ROW_UTILITIES,
+	HL_ROW_FORMAT("text (default), xml, or csv (the match table)"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
+	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
+	HL_ROW_NUMBER("time-limit", "S", options, time_limit, 0.0, 1e6,
+	    "solver time per subnetwork in s (default: the case's,\n"
+	    "or 10); at the limit the best network found is given\n"
+	    "with its gap to the proven bound; 0: heuristic only"),
+	HL_ROW_TEXT("export-model", "FILE", options, export_model,
+	    "also write the MILP (CPLEX LP, or free MPS when FILE\n"
+	    "ends in .mps) to solve it with another solver"),
+	HL_ROW_QUIET("no progress on the terminal"),
+	HL_ROW_VERBOSE("show the solver's own messages on standard error"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
+
+static void
+init(void *opts)
 {
-	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
-		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
-		{ "format", required_argument, NULL, HL_OPT_FORMAT },
-		{ "output", required_argument, NULL, 'o' },
-		{ "time-limit", required_argument, NULL, OPT_TIME },
-		{ "quiet", no_argument, NULL, HL_OPT_QUIET },
-		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
-		{ "export-model", required_argument, NULL, OPT_EXPORT },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
-				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
-	int ch, rc;
-
-	memset(o, 0, sizeof *o);
-	hl_common_init(&o->c);
-	o->time_limit = NAN;
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (hl_cmd_common_opt("matches", ch, argv, formats, help, &o->c,
-				      &rc)) {
-			if (rc != 0)
-				return rc;
-		} else if (ch == OPT_TIME) {
-			if (hl_cmd_parse_double("matches", "--time-limit", optarg,
-						0.0, 1e6, &o->time_limit) != 0)
-				return 1;
-		} else if (ch == OPT_EXPORT) {
-			o->export_model = optarg;
-		}
-	}
-	return hl_cmd_one_input("matches", argc, argv, &o->c);
+	((options *)opts)->time_limit = NAN;
 }
 
 /* ---- terminal feedback ---- */
@@ -176,7 +126,13 @@ write_result(const options *o, const hl_case *c, const hl_match_result *r,
 	} else if (o->c.format == HL_FMT_CSV) {
 		hl_matches_csv(out.fp, r);
 	} else {
-		hl_matches_text(out.fp, c, r, c->set.dtmin);
+		hl_cascade *cas = NULL;
+
+		/* the process pinches, to tell them from utility pinches */
+		if (hl_cascade_compute(c, c->set.dtmin, &cas, NULL) != HL_OK)
+			cas = NULL;
+		hl_matches_text(out.fp, c, r, c->set.dtmin, cas);
+		hl_cascade_free(cas);
 	}
 	st = st == HL_OK ? hl_output_commit(&out, err) : st;
 	hl_output_abort(&out);
@@ -191,16 +147,13 @@ utility_loads(const hl_case *c, const options *o, double **out,
 	hl_utility_lp_opts uo = { o->c.verbose, hl_cmd_log_stderr, NULL, NAN };
 	hl_utility_lp *u = NULL;
 	hl_status st;
-	size_t i;
 
 	*out = NULL;
 	if (c->nutil == 0)
 		return HL_OK;
 	st = hl_utility_lp_solve(c, c->set.dtmin, &uo, &u, err);
-	if (st == HL_OK && (*out = malloc(c->nutil * sizeof **out)) == NULL)
-		st = hl_error_nomem(err);
-	for (i = 0; st == HL_OK && i < c->nutil; i++)
-		(*out)[i] = u->util[i].load;
+	if (st == HL_OK)
+		st = hl_utility_lp_loads(u, out, err);
 	hl_utility_lp_free(u);
 	return st;
 }
@@ -218,8 +171,9 @@ check_outputs(const options *o, hl_error *err)
 }
 
 static hl_status
-run_matches(const options *o, hl_error *err)
+run_matches(void *opts, hl_error *err)
 {
+	const options *o = opts;
 	hl_case *c = NULL;
 	hl_match_problem *p = NULL;
 	hl_match_result *r = NULL;
@@ -263,24 +217,20 @@ run_matches(const options *o, hl_error *err)
 	return st;
 }
 
-static int
-run(int argc, char **argv)
-{
-	options o;
-	hl_error err;
-	int rc = parse(argc, argv, &o);
-
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
-	hl_error_clear(&err);
-	if (run_matches(&o, &err) != HL_OK)
-		return hl_cmd_fail(&err);
-	return 0;
-}
-
 const hl_command hl_cmd_matches = {
-	"matches", "CASE [--dtmin K] [--utilities FILE] [--format text|xml|csv] "
-	"[-o FILE] [--time-limit S] [--quiet] [--verbose] [--export-model FILE]",
+	"matches", "CASE [options]",
 	"fewest exchanger matches and their duties (MILP)",
-	run, help
+	"Which hot stream should heat which cold stream, with what duty, using as\n"
+	"few exchanger units as possible while meeting the utility targets (the\n"
+	"expanded transshipment MILP of Papoulias & Grossmann, 1983, solved with\n"
+	"GLPK). The problem is split at every pinch; a pair working on both sides\n"
+	"of a pinch counts as two units. With the case's utilities the network meets\n"
+	"the least-cost loads of the utility LP (see targets); without, one hot\n"
+	"utility above every stream and one cold utility below, at the targets.\n"
+	"Match rules and plant areas of an XML case file are obeyed; when they raise\n"
+	"the utility targets the report says by how much and because of which rule.\n"
+	"CASE is an XML case file or a stream table (CSV).\n",
+	NULL, option_rows, sizeof(options),
+	"give one CASE file", "give one CASE file, not several",
+	init, NULL, run_matches
 };

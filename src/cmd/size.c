@@ -8,7 +8,6 @@
  * not stop the others: it is reported as not sized, with a warning on
  * stderr, and the run succeeds; --strict makes it an error (exit 3).
  */
-#include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -21,154 +20,93 @@
 #include "size_out.h"
 #include "units_table.h"
 
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom size UNITS.csv [options]\n"
-"\n"
-"Size every exchanger of a list: LMTD, P, R, F correction, shells in series,\n"
-"area, area per shell and cost. UNITS.csv has one row per exchanger: name,\n"
-"hot_in, hot_out, cold_in, cold_out (°C); duty (kW) or hot_cp/cold_cp (kW/K);\n"
-"u, or h_hot and h_cold (kW/(m²·K)); optional type, fmin, xp, cost_a, cost_b,\n"
-"cost_c. A row's own values win over the options below.\n"
-"\n"
-"Options:\n"
-"  --type T           shell-and-tube (default: 1 shell pass, 2, 4, … tube\n"
-"                     passes per shell) or counterflow (F = 1)\n"
-"  --fmin F           F floor for the shell count (default 0.80)\n"
-"  --xp X             largest share of the maximum P per shell (default 0.9)\n"
-"  --cost-a A --cost-b B --cost-c C\n"
-"                     cost per shell A + B·area^C, area in m² (default an\n"
-"                     illustrative 10000 + 800·area^0.8); all three together\n"
-"  --strict           a unit that cannot be built is an error (exit 3)\n"
-"                     instead of a unit reported as not sized\n"
-"  --format FMT       text (default), xml, or csv\n"
-"  -o, --output FILE  write to FILE instead of standard output\n"
-"  -h, --help         show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
-
-enum { OPT_FORMAT = 256, OPT_TYPE, OPT_FMIN, OPT_XP, OPT_COST_A, OPT_COST_B,
-       OPT_COST_C, OPT_STRICT };
-
 /* Which settings the command line gave. */
 enum { GIVEN_TYPE = 1, GIVEN_FMIN = 2, GIVEN_XP = 4, GIVEN_COST_A = 8,
-       GIVEN_COST_B = 16, GIVEN_COST_C = 32 };
+       GIVEN_COST_B = 16, GIVEN_COST_C = 32, GIVEN_LARGEST = 64 };
 #define GIVEN_COST (GIVEN_COST_A | GIVEN_COST_B | GIVEN_COST_C)
 
 typedef struct {
 	hl_common c;
 	hl_settings set;  /* defaults, overridden by the options */
 	hl_settings defaults;
+	double largest;   /* --largest, NaN when not given */
 	unsigned given;
 	int strict;
 } options;
+HL_COMMON_FIRST(options);
 
 static int
-parse_type(const char *arg, hl_exchanger_type *out)
+parse_type(void *opts, const char *arg)
 {
-	if (strcmp(arg, "shell-and-tube") == 0)
-		*out = HL_EXCH_SHELL_TUBE;
-	else if (strcmp(arg, "counterflow") == 0)
-		*out = HL_EXCH_COUNTERFLOW;
-	else
-		return hl_cmd_usage("size", "--type wants shell-and-tube or "
-		    "counterflow, not '%s'", arg);
+	options *o = opts;
+	int t = hl_exchanger_type_parse(arg);
+
+	if (t < 0)
+		return hl_cmd_usage("size", "--type wants shell-and-tube, "
+		    "counterflow, plate, double-pipe, air-cooler or "
+		    "fired-heater, not '%s'", arg);
+	o->set.exchanger = (hl_exchanger_type)t;
 	return 0;
 }
 
-/* One option with a value; 0 when it is fine. */
-static int
-parse_value(options *o, int ch, const char *arg)
+static const hl_option option_rows[] = {
+	{ "type", 0, "T", "shell-and-tube (default: 1 shell pass, 2, 4, … tube\n"
+	  "passes per shell), counterflow (F = 1), plate\n"
+	  "(F = 1), double-pipe (hairpins, F = 1), air-cooler\n"
+	  "(crossflow, both fluids unmixed) or fired-heater\n"
+	  "(sized and costed by duty)", HL_ARG_CALL, 0, 0, 0, parse_type },
+	HL_ROW_NUMBER("fmin", "F", options, set.fmin, 0.0, 0.999,
+	    "F floor for the shell count (default 0.80)"),
+	HL_ROW_NUMBER("xp", "X", options, set.xp, 0.01, 1.0,
+	    "largest share of the maximum P per shell (default 0.9)"),
+	HL_ROW_NUMBER("largest", "X", options, largest, 1e-6, 1e9,
+	    "largest shell: m² (MW for a fired heater); beyond it\n"
+	    "shells go in parallel (default per type, illustrative)"),
+	/* The three cost options share one help line. */
+	HL_ROW_NUMBER("cost-a", "A", options, set.cost_a, 0.0, 1e12, NULL),
+	HL_ROW_NUMBER("cost-b", "B", options, set.cost_b, 0.0, 1e12, NULL),
+	HL_ROW_NUMBER("cost-c", "C", options, set.cost_c, 0.01, 10.0,
+	    "cost per shell A + B·X^C, X the area of one shell in\n"
+	    "m² or a fired heater's duty in MW (default: the type's\n"
+	    "illustrative law, e.g. 10000 + 800·A^0.8 for\n"
+	    "shell-and-tube); all three together"),
+	HL_ROW_FLAG("strict", options, strict, 1,
+	    "a unit that cannot be built is an error (exit 3)\n"
+	    "instead of a unit reported as not sized"),
+	HL_ROW_FORMAT("text (default), xml, or csv"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
+	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
+
+extern const hl_command hl_cmd_size;
+
+static void
+init(void *opts)
 {
-	switch (ch) {
-	case OPT_FORMAT:
-		return hl_cmd_parse_format("size", arg,
-		    HL_FMT_BIT(HL_FMT_TEXT) | HL_FMT_BIT(HL_FMT_XML) |
-		    HL_FMT_BIT(HL_FMT_CSV), &o->c.format) ? 1 : 0;
-	case OPT_TYPE:
-		o->given |= GIVEN_TYPE;
-		return parse_type(arg, &o->set.exchanger);
-	case OPT_FMIN:
-		o->given |= GIVEN_FMIN;
-		return hl_cmd_parse_double("size", "--fmin", arg, 0.0, 0.999,
-		    &o->set.fmin) ? 1 : 0;
-	case OPT_XP:
-		o->given |= GIVEN_XP;
-		return hl_cmd_parse_double("size", "--xp", arg, 0.01, 1.0,
-		    &o->set.xp) ? 1 : 0;
-	case OPT_COST_A:
-		o->given |= GIVEN_COST_A;
-		return hl_cmd_parse_double("size", "--cost-a", arg, 0.0, 1e12,
-		    &o->set.cost_a) ? 1 : 0;
-	case OPT_COST_B:
-		o->given |= GIVEN_COST_B;
-		return hl_cmd_parse_double("size", "--cost-b", arg, 0.0, 1e12,
-		    &o->set.cost_b) ? 1 : 0;
-	default:
-		o->given |= GIVEN_COST_C;
-		return hl_cmd_parse_double("size", "--cost-c", arg, 0.01, 10.0,
-		    &o->set.cost_c) ? 1 : 0;
-	}
+	options *o = opts;
+
+	hl_settings_default(&o->set);
+	o->defaults = o->set;
+	o->largest = NAN;
 }
 
 static int
-parse(int argc, char **argv, options *o)
+check(void *opts)
 {
-	static const struct option opts[] = {
-		{ "format", required_argument, NULL, OPT_FORMAT },
-		{ "type", required_argument, NULL, OPT_TYPE },
-		{ "fmin", required_argument, NULL, OPT_FMIN },
-		{ "xp", required_argument, NULL, OPT_XP },
-		{ "cost-a", required_argument, NULL, OPT_COST_A },
-		{ "cost-b", required_argument, NULL, OPT_COST_B },
-		{ "cost-c", required_argument, NULL, OPT_COST_C },
-		{ "strict", no_argument, NULL, OPT_STRICT },
-		{ "output", required_argument, NULL, 'o' },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	int ch;
+	static const char *const names[] = { "type", "fmin", "xp", "cost-a",
+		"cost-b", "cost-c", "largest" };
+	options *o = opts;
+	size_t i;
 
-	memset(o, 0, sizeof *o);
-	hl_common_init(&o->c);
-	hl_settings_default(&o->set);
-	o->defaults = o->set;
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		switch (ch) {
-		case OPT_STRICT:
-			o->strict = 1;
-			break;
-		case 'o':
-			o->c.output = optarg;
-			break;
-		case 'h':
-			help(stdout);
-			return -1;
-		case ':':
-			return hl_cmd_usage("size", "option '%s' needs a "
-			    "value", argv[optind - 1]);
-		case '?':
-			return hl_cmd_usage("size", "unknown option '%s'",
-			    argv[optind - 1]);
-		default:
-			if (parse_value(o, ch, optarg) != 0)
-				return 1;
-		}
-	}
+	for (i = 0; i < sizeof names / sizeof names[0]; i++)
+		if (hl_cmd_given(&hl_cmd_size, o, names[i]))
+			o->given |= 1u << i;
 	if ((o->given & GIVEN_COST) != 0 && (o->given & GIVEN_COST) !=
 	    GIVEN_COST)
 		return hl_cmd_usage("size", "give --cost-a, --cost-b and "
 		    "--cost-c together (cost per shell a + b·A^c)");
-	if (optind != argc - 1)
-		return hl_cmd_usage("size", optind >= argc ?
-		    "give one exchanger list (CSV)" :
-		    "give one exchanger list, not several");
-	o->c.input = argv[optind];
 	return 0;
 }
 
@@ -215,16 +153,24 @@ resolve(const hl_unit_spec *u, const options *o, hl_size_row *row)
 
 	memset(row, 0, sizeof *row);
 	row->unit = u;
-	hl_exchanger_spec_settings(s, &o->set);
+	if (u->type < 0 && !(o->given & GIVEN_TYPE))
+		row->assumed |= HL_ASSUMED_TYPE;
+	/* The type first: it chooses the default law and shell limits. */
+	hl_exchanger_spec_type(s, &o->set, u->type >= 0 ?
+	    (hl_exchanger_type)u->type : o->set.exchanger);
+	if (o->given & GIVEN_COST) {
+		s->cost_a = o->set.cost_a;
+		s->cost_b = o->set.cost_b;
+		s->cost_c = o->set.cost_c;
+	}
+	s->largest = pick(u->largest, isnan(o->largest) ? s->largest :
+	    o->largest, o->given, GIVEN_LARGEST, HL_ASSUMED_LARGEST,
+	    &row->assumed);
 	s->hot_in = u->hot_in;
 	s->hot_out = u->hot_out;
 	s->cold_in = u->cold_in;
 	s->cold_out = u->cold_out;
 	s->duty = u->duty;
-	if (u->type >= 0)
-		s->type = (hl_exchanger_type)u->type;
-	else if (!(o->given & GIVEN_TYPE))
-		row->assumed |= HL_ASSUMED_TYPE;
 	s->fmin = pick(u->fmin, o->set.fmin, o->given, GIVEN_FMIN,
 	    HL_ASSUMED_FMIN, &row->assumed);
 	s->xp = pick(u->xp, o->set.xp, o->given, GIVEN_XP, HL_ASSUMED_XP,
@@ -235,9 +181,16 @@ resolve(const hl_unit_spec *u, const options *o, hl_size_row *row)
 		s->cost_c = u->cost_c;
 	} else if (!(o->given & GIVEN_COST))
 		row->assumed |= HL_ASSUMED_COST;
-	if (s->type == HL_EXCH_COUNTERFLOW)
-		row->assumed &= ~(unsigned)(HL_ASSUMED_FMIN | HL_ASSUMED_XP);
+	if (s->type != HL_EXCH_SHELL_TUBE)
+		row->assumed &= ~(unsigned)HL_ASSUMED_XP;
+	if (s->type != HL_EXCH_SHELL_TUBE && s->type != HL_EXCH_AIR_COOLER)
+		row->assumed &= ~(unsigned)HL_ASSUMED_FMIN;
+	if (isinf(s->largest))
+		row->assumed &= ~(unsigned)HL_ASSUMED_LARGEST;
 	resolve_u(u, o, row);
+	if (s->type == HL_EXCH_FIRED_HEATER)
+		row->assumed &= ~(unsigned)(HL_ASSUMED_H_HOT |
+		    HL_ASSUMED_H_COLD);
 }
 
 /* Size one row. HL_ENOSOLUTION leaves the row marked as not sized, with
@@ -252,6 +205,10 @@ size_row(hl_size_row *row, const char *file, hl_error *err)
 	hl_error_clear(&e);
 	st = hl_exchanger_size(s, &row->size, &e);
 	row->status = st;
+	/* A default largest shell is an assumption only where it bites. */
+	if (st == HL_OK && row->size.parallel == 1 &&
+	    (s->type != HL_EXCH_DOUBLE_PIPE || row->size.shells == 1))
+		row->assumed &= ~(unsigned)HL_ASSUMED_LARGEST;
 	if (st == HL_ENOSOLUTION) {
 		snprintf(row->note, sizeof row->note, "%s", e.text);
 		hl_exchanger_pr(s->hot_in, s->hot_out, s->cold_in, s->cold_out,
@@ -327,8 +284,9 @@ write_result(const options *o, const hl_size_result *r, hl_error *err)
 }
 
 static hl_status
-run_size(const options *o, hl_error *err)
+run_size(void *opts, hl_error *err)
 {
+	const options *o = opts;
 	hl_units_table *t = NULL;
 	hl_size_row *rows = NULL;
 	hl_size_result r;
@@ -360,24 +318,15 @@ run_size(const options *o, hl_error *err)
 	return st;
 }
 
-static int
-run(int argc, char **argv)
-{
-	options o;
-	hl_error err;
-	int rc = parse(argc, argv, &o);
-
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
-	hl_error_clear(&err);
-	if (run_size(&o, &err) != HL_OK)
-		return hl_cmd_fail(&err);
-	return 0;
-}
-
 const hl_command hl_cmd_size = {
-	"size", "UNITS.csv [--type T] [--fmin F] [--xp X] [--cost-a A "
-	"--cost-b B --cost-c C] [--strict] [--format text|xml|csv] [-o FILE]",
+	"size", "UNITS.csv [options]",
 	"size a list of exchangers: LMTD, F, shells, area, cost",
-	run, help
+	"Size every exchanger of a list: LMTD, P, R, F correction, shells in series,\n"
+	"area, area per shell and cost. UNITS.csv has one row per exchanger: name,\n"
+	"hot_in, hot_out, cold_in, cold_out (°C); duty (kW) or hot_cp/cold_cp (kW/K);\n"
+	"u, or h_hot and h_cold (kW/(m²·K)); optional type, fmin, xp, cost_a, cost_b,\n"
+	"cost_c, largest. A row's own values win over the options below.\n",
+	NULL, option_rows, sizeof(options),
+	"give one exchanger list (CSV)", "give one exchanger list, not several",
+	init, check, run_size
 };

@@ -1,5 +1,4 @@
 /* sweep.c - `heatloom sweep`: energy against capital over ΔTmin. */
-#include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -10,100 +9,48 @@
 #include "sweep.h"
 #include "sweep_out.h"
 
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom sweep CASE [options]\n"
-"\n"
-"Supertargets over a grid of ΔTmin: hot and cold utility, area, units,\n"
-"shells, capital, energy and total annual cost at each value, and the ΔTmin\n"
-"of least total annual cost (grid best refined by golden-section search).\n"
-"Area by the vertical-transfer formula on the balanced composite curves,\n"
-"shells by the Xp rule, capital from the case's cost law annualised over its\n"
-"interest and life, energy from the utility prices and operating hours.\n"
-"\n"
-"Options:\n"
-"  --from K           first ΔTmin (default 2)\n"
-"  --to K             last ΔTmin (default 40)\n"
-"  --step K           grid step (default 1)\n"
-"  --utilities FILE   utility table (CSV) to add to the case\n"
-"  --format FMT       text (default), xml, or csv\n"
-"  -o, --output FILE  write to FILE instead of standard output\n"
-"  --cost-svg FILE    chart of annual cost against ΔTmin\n"
-"  --area-svg FILE    chart of area against hot utility\n"
-"  -h, --help         show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
-
-enum { OPT_FROM = 256, OPT_TO, OPT_STEP, OPT_COST, OPT_AREA };
-
 typedef struct {
-	hl_common o;
+	hl_common c;
 	double from, to, step;
 	const char *cost_svg, *area_svg;
 } sweep_opts;
+HL_COMMON_FIRST(sweep_opts);
 
-static int
-parse_range(int ch, const char *arg, sweep_opts *s)
+static const hl_option option_rows[] = {
+	HL_ROW_NUMBER("from", "K", sweep_opts, from, 0.0, 500.0,
+	    "first ΔTmin (default 2)"),
+	HL_ROW_NUMBER("to", "K", sweep_opts, to, 0.0, 500.0,
+	    "last ΔTmin (default 40)"),
+	HL_ROW_NUMBER("step", "K", sweep_opts, step, 1e-3, 500.0,
+	    "grid step (default 1)"),
+	HL_ROW_UTILITIES,
+	HL_ROW_FORMAT("text (default), xml, or csv"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
+	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
+	HL_ROW_TEXT("cost-svg", "FILE", sweep_opts, cost_svg,
+	    "chart of annual cost against ΔTmin"),
+	HL_ROW_TEXT("area-svg", "FILE", sweep_opts, area_svg,
+	    "chart of area against hot utility"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
+
+static void
+init(void *opts)
 {
-	static const char *const names[] = { "--from", "--to", "--step" };
-	double *dst[] = { &s->from, &s->to, &s->step };
-	int k = ch - OPT_FROM;
+	sweep_opts *s = opts;
 
-	return hl_cmd_parse_double("sweep", names[k], arg, k == 2 ? 1e-3 : 0.0,
-				   500.0, dst[k]);
-}
-
-static int
-parse(int argc, char **argv, sweep_opts *s)
-{
-	static const struct option opts[] = {
-		{ "from", required_argument, NULL, OPT_FROM },
-		{ "to", required_argument, NULL, OPT_TO },
-		{ "step", required_argument, NULL, OPT_STEP },
-		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
-		{ "format", required_argument, NULL, HL_OPT_FORMAT },
-		{ "cost-svg", required_argument, NULL, OPT_COST },
-		{ "area-svg", required_argument, NULL, OPT_AREA },
-		{ "output", required_argument, NULL, 'o' },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
-				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
-	int ch, rc;
-
-	hl_common_init(&s->o);
 	s->from = 2.0;
 	s->to = 40.0;
 	s->step = 1.0;
-	s->cost_svg = s->area_svg = NULL;
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (hl_cmd_common_opt("sweep", ch, argv, formats, help, &s->o,
-				      &rc)) {
-			if (rc != 0)
-				return rc;
-		} else if (ch == OPT_COST) {
-			s->cost_svg = optarg;
-		} else if (ch == OPT_AREA) {
-			s->area_svg = optarg;
-		} else if (parse_range(ch, optarg, s) != 0) {
-			return 1;
-		}
-	}
-	if ((rc = hl_cmd_one_input("sweep", argc, argv, &s->o)) != 0)
-		return rc;
-	if (s->to < s->from)
-		return hl_cmd_usage("sweep", "--to %g is below --from %g",
-				    s->to, s->from);
-	if ((s->to - s->from) / s->step > 10000.0)
-		return hl_cmd_usage("sweep", "more than 10001 grid points; "
-				    "use a larger --step");
-	return 0;
+}
+
+static int
+check(void *opts)
+{
+	const sweep_opts *s = opts;
+
+	return hl_cmd_check_grid("sweep", s->from, s->to, s->step);
 }
 
 static hl_status
@@ -111,14 +58,14 @@ write_main(const sweep_opts *s, const hl_case *c, const hl_sweep *sw,
 	   hl_error *err)
 {
 	hl_output out;
-	hl_status st = hl_output_open(&out, s->o.output, err);
+	hl_status st = hl_output_open(&out, s->c.output, err);
 	hl_xml_out *x = NULL;
 
 	if (st != HL_OK)
 		return st;
-	if (s->o.format == HL_FMT_CSV) {
+	if (s->c.format == HL_FMT_CSV) {
 		hl_sweep_csv(out.fp, c, sw);
-	} else if (s->o.format == HL_FMT_TEXT) {
+	} else if (s->c.format == HL_FMT_TEXT) {
 		hl_sweep_text(out.fp, c, sw);
 	} else {
 		x = hl_xml_out_begin(c->source);
@@ -139,31 +86,15 @@ write_main(const sweep_opts *s, const hl_case *c, const hl_sweep *sw,
 }
 
 static hl_status
-write_chart(const char *path, hl_svg_chart *ch, hl_error *err)
+run_sweep(void *opts, hl_error *err)
 {
-	hl_output out;
-	hl_status st;
-
-	if (ch == NULL)
-		return hl_error_nomem(err);
-	st = hl_output_open(&out, path, err);
-	if (st == HL_OK)
-		st = hl_svg_chart_write_file(ch, out.fp, err);
-	if (st == HL_OK)
-		st = hl_output_commit(&out, err);
-	hl_output_abort(&out);
-	return st;
-}
-
-static hl_status
-run_sweep(const sweep_opts *s, hl_error *err)
-{
+	const sweep_opts *s = opts;
 	hl_case *c = NULL;
 	hl_sweep *sw = NULL;
 	hl_svg_chart *cost = NULL, *area = NULL;
 	hl_status st;
 
-	st = hl_cmd_load_case(&s->o, &c, err);
+	st = hl_cmd_load_case(&s->c, &c, err);
 	if (st == HL_OK)
 		st = hl_output_check(s->cost_svg, err);
 	if (st == HL_OK)
@@ -178,9 +109,9 @@ run_sweep(const sweep_opts *s, hl_error *err)
 	    (area = hl_sweep_chart_area(c, sw)) == NULL)
 		st = hl_error_nomem(err);
 	if (st == HL_OK && cost != NULL)
-		st = write_chart(s->cost_svg, cost, err);
+		st = hl_cmd_write_chart(s->cost_svg, cost, err);
 	if (st == HL_OK && area != NULL)
-		st = write_chart(s->area_svg, area, err);
+		st = hl_cmd_write_chart(s->area_svg, area, err);
 	if (st == HL_OK)
 		st = write_main(s, c, sw, err);
 	hl_svg_chart_free(cost);
@@ -190,24 +121,16 @@ run_sweep(const sweep_opts *s, hl_error *err)
 	return st;
 }
 
-static int
-run(int argc, char **argv)
-{
-	sweep_opts s;
-	hl_error err;
-	int rc = parse(argc, argv, &s);
-
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
-	hl_error_clear(&err);
-	if (run_sweep(&s, &err) != HL_OK)
-		return hl_cmd_fail(&err);
-	return 0;
-}
-
 const hl_command hl_cmd_sweep = {
-	"sweep", "CASE [--from K --to K --step K] [--format text|xml|csv] "
-	"[-o FILE] [--cost-svg FILE] [--area-svg FILE]",
+	"sweep", "CASE [options]",
 	"area, units, shells and cost targets over ΔTmin, and the optimum",
-	run, help
+	"Supertargets over a grid of ΔTmin: hot and cold utility, area, units,\n"
+	"shells, capital, energy and total annual cost at each value, and the ΔTmin\n"
+	"of least total annual cost (grid best refined by golden-section search).\n"
+	"Area by the vertical-transfer formula on the balanced composite curves,\n"
+	"shells by the Xp rule, capital from the case's cost law annualised over its\n"
+	"interest and life, energy from the utility prices and operating hours.\n",
+	NULL, option_rows, sizeof(sweep_opts),
+	"give one CASE file", "give one CASE file, not several",
+	init, check, run_sweep
 };

@@ -1,5 +1,4 @@
 /* targets.c - `heatloom targets`: minimum utilities and pinches. */
-#include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -16,78 +15,31 @@
 #include "utility_lp.h"
 #include "utility_out.h"
 
-static void
-help(FILE *fp)
-{
-	fprintf(fp,
-"Usage: heatloom targets CASE [options]\n"
-"\n"
-"Minimum hot and cold utility, pinch temperatures and the heat cascade of\n"
-"the process streams (problem table algorithm). When the case has utilities,\n"
-"also the load and yearly cost of each utility level at least total cost\n"
-"(transshipment LP) and the utility pinches. CASE is an XML case file or a\n"
-"stream table (CSV).\n"
-"\n"
-"Options:\n"
-"  --dtmin K          minimum approach temperature (default: the case's, or 10)\n"
-"  --utilities FILE   utility table (CSV) to add to the case\n"
-"  --format FMT       text (default), xml, or csv (the cascade)\n"
-"  --sensitivity      how far each stream datum and ΔTmin move the targets,\n"
-"                     ranked, with the band from the cp_tol and t_tol\n"
-"                     tolerances (csv: one row per datum)\n"
-"  --supertargets     also the area, units, shells and cost targets at this\n"
-"                     ΔTmin (text and xml)\n"
-"  -o, --output FILE  write to FILE instead of standard output\n"
-"  --verbose          show the LP solver's messages on standard error\n"
-"  -h, --help         show this help\n"
-"\n"
-"%s\n", hl_caution);
-}
+typedef struct {
+	hl_common c;
+	int sensitivity;  /* replaces the text and CSV outputs, adds to XML */
+	int super;        /* adds to the text and the XML */
+} options;
+HL_COMMON_FIRST(options);
 
-enum { OPT_SENS = 256, OPT_SUPER };
-
-/* --sensitivity: replaces the text and CSV outputs, adds to the XML. */
-static int want_sensitivity;
-/* --supertargets: adds to the text and the XML. */
-static int want_super;
-
-static int
-parse(int argc, char **argv, hl_common *o)
-{
-	static const struct option opts[] = {
-		{ "dtmin", required_argument, NULL, HL_OPT_DTMIN },
-		{ "utilities", required_argument, NULL, HL_OPT_UTIL },
-		{ "format", required_argument, NULL, HL_OPT_FORMAT },
-		{ "sensitivity", no_argument, NULL, OPT_SENS },
-		{ "supertargets", no_argument, NULL, OPT_SUPER },
-		{ "output", required_argument, NULL, 'o' },
-		{ "verbose", no_argument, NULL, HL_OPT_VERBOSE },
-		{ "help", no_argument, NULL, 'h' },
-		{ NULL, 0, NULL, 0 }
-	};
-	const unsigned formats = HL_FMT_BIT(HL_FMT_TEXT) |
-				 HL_FMT_BIT(HL_FMT_XML) | HL_FMT_BIT(HL_FMT_CSV);
-	int ch, rc;
-
-	hl_common_init(o);
-	want_sensitivity = 0;
-	want_super = 0;
-	optind = 1;
-	opterr = 0;
-	while ((ch = getopt_long(argc, argv, ":o:h", opts, NULL)) != -1) {
-		if (hl_cmd_common_opt("targets", ch, argv, formats, help, o,
-				      &rc)) {
-			if (rc != 0)
-				return rc;
-			continue;
-		}
-		if (ch == OPT_SENS)
-			want_sensitivity = 1;
-		else if (ch == OPT_SUPER)
-			want_super = 1;
-	}
-	return hl_cmd_one_input("targets", argc, argv, o);
-}
+static const hl_option option_rows[] = {
+	HL_ROW_DTMIN("minimum approach temperature (default: the case's, or 10)"),
+	HL_ROW_UTILITIES,
+	HL_ROW_FORMAT("text (default), xml, or csv (the cascade)"),
+	HL_ROW_FLAG("sensitivity", options, sensitivity, 1,
+	    "how far each stream datum and ΔTmin move the targets,\n"
+	    "ranked, with the band from the cp_tol and t_tol\n"
+	    "tolerances (csv: one row per datum); with\n"
+	    "--supertargets the supertargets follow it"),
+	HL_ROW_FLAG("supertargets", options, super, 1,
+	    "also the area, units, shells and cost targets at this\n"
+	    "ΔTmin (text and xml)"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
+	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
+	HL_ROW_VERBOSE("show the LP solver's messages on standard error"),
+	HL_ROW_HELP,
+	HL_ROW_END
+};
 
 static hl_status
 write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
@@ -112,23 +64,49 @@ write_xml(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	return st;
 }
 
+/* The process targets need no utility: when the utilities cannot serve,
+ * they are still printed, with the reason (the command then exits 3). */
+static void
+text_no_utility(FILE *fp, const hl_error *why)
+{
+	char buf[HL_ERROR_TEXT + HL_ERROR_FILE + 32];
+
+	hl_error_format(why, buf, sizeof buf);
+	fprintf(fp, "\nUtility levels         none: the utilities cannot "
+		"serve the process.\n                       %s\n", buf);
+}
+
 static void
 write_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	   const hl_threshold *th, const hl_utility_lp *lp,
-	   const hl_supertargets *sup)
+	   const hl_supertargets *sup, const hl_error *why)
 {
 	hl_targets_text_summary(fp, c, cas, th);
 	if (lp != NULL)
 		hl_utility_lp_text(fp, c, lp);
+	else if (why != NULL)
+		text_no_utility(fp, why);
 	if (sup != NULL)
 		hl_supertargets_text(fp, c, sup);
 	hl_targets_text_table(fp, cas);
 	hl_targets_text_caution(fp);
 }
 
-static hl_status
-run_targets(const hl_common *o, hl_error *err)
+/* --sensitivity text, followed by the supertargets when both are asked. */
+static void
+sens_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
+	  const hl_sensitivity *sv, const hl_supertargets *sup)
 {
+	hl_sensitivity_text(fp, c, cas, sv);
+	if (sup != NULL)
+		hl_supertargets_text(fp, c, sup);
+}
+
+static hl_status
+run_targets(void *opts, hl_error *err)
+{
+	const options *oo = opts;
+	const hl_common *o = &oo->c;
 	hl_utility_lp_opts lo = { o->verbose, hl_cmd_log_stderr, NULL, NAN };
 	hl_case *c = NULL;
 	hl_cascade *cas = NULL;
@@ -136,10 +114,17 @@ run_targets(const hl_common *o, hl_error *err)
 	hl_sensitivity *sv = NULL;
 	hl_threshold th = { 0, HUGE_VAL };
 	hl_supertargets sup;
+	hl_error why;
 	hl_output out;
 	hl_status st;
 
-	st = hl_cmd_load_case(o, &c, err);
+	hl_common exact = *o;
+
+	/* Latent heat as steps; the sensitivity and the supertargets work
+	 * along temperatures and take it spread (case.h). */
+	exact.exact_latent = !oo->sensitivity && !oo->super;
+	hl_error_clear(&why);
+	st = hl_cmd_load_case(&exact, &c, err);
 	if (st == HL_OK)
 		st = hl_output_check(o->output, err);
 	if (st == HL_OK)
@@ -148,29 +133,40 @@ run_targets(const hl_common *o, hl_error *err)
 		th.kind = hl_cascade_threshold_kind(cas);
 		st = hl_cascade_threshold_dtmin(c, cas, &th.dtmin, err);
 	}
-	if (st == HL_OK && c->nutil > 0)
+	if (st == HL_OK && c->nutil > 0) {
 		st = hl_utility_lp_solve(c, c->set.dtmin, &lo, &lp, err);
-	if (st == HL_OK && want_sensitivity)
+		if (st == HL_ENOSOLUTION) {
+			why = *err;
+			st = HL_OK;
+		}
+	}
+	if (st == HL_OK && oo->sensitivity)
 		st = hl_sensitivity_compute(c, cas, &sv, err);
-	if (st == HL_OK && want_super)
+	if (st == HL_OK && oo->super && why.status == HL_OK)
 		st = hl_sweep_point_from(c, cas, lp, &sup, err);
 	if (st == HL_OK)
 		st = hl_output_open(&out, o->output, err);
 	if (st == HL_OK) {
+		const hl_supertargets *ps = oo->super && why.status == HL_OK ?
+					    &sup : NULL;
+
 		if (o->format == HL_FMT_XML)
-			st = write_xml(out.fp, c, cas, &th, lp, sv,
-				       want_super ? &sup : NULL, err);
+			st = write_xml(out.fp, c, cas, &th, lp, sv, ps, err);
 		else if (sv != NULL && o->format == HL_FMT_CSV)
 			hl_sensitivity_csv(out.fp, c, sv);
 		else if (sv != NULL)
-			hl_sensitivity_text(out.fp, c, cas, sv);
+			sens_text(out.fp, c, cas, sv, ps);
 		else if (o->format == HL_FMT_CSV)
 			hl_targets_csv(out.fp, cas);
 		else
-			write_text(out.fp, c, cas, &th, lp,
-				   want_super ? &sup : NULL);
+			write_text(out.fp, c, cas, &th, lp, ps,
+				   why.status != HL_OK ? &why : NULL);
 		st = st == HL_OK ? hl_output_commit(&out, err) : st;
 		hl_output_abort(&out);
+	}
+	if (st == HL_OK && why.status != HL_OK) {
+		*err = why;
+		st = why.status;
 	}
 	hl_sensitivity_free(sv);
 	hl_utility_lp_free(lp);
@@ -179,24 +175,17 @@ run_targets(const hl_common *o, hl_error *err)
 	return st;
 }
 
-static int
-run(int argc, char **argv)
-{
-	hl_common o;
-	hl_error err;
-	int rc = parse(argc, argv, &o);
-
-	if (rc != 0)
-		return rc < 0 ? 0 : rc;
-	hl_error_clear(&err);
-	if (run_targets(&o, &err) != HL_OK)
-		return hl_cmd_fail(&err);
-	return 0;
-}
-
 const hl_command hl_cmd_targets = {
-	"targets", "CASE [--dtmin K] [--utilities FILE] [--format text|xml|csv] "
-	"[--sensitivity] [--supertargets] [-o FILE] [--verbose]",
+	"targets", "CASE [options]",
 	"energy targets, pinches, heat cascade, least-cost utility levels",
-	run, help
+	"Minimum hot and cold utility, pinch temperatures and the heat cascade of\n"
+	"the process streams (problem table algorithm). When the case has utilities,\n"
+	"also the load and yearly cost of each utility level at least total cost\n"
+	"(transshipment LP) and the utility pinches; when the utilities cannot\n"
+	"serve the process, the process targets still print, then the reason,\n"
+	"and the exit status is 3. CASE is an XML case file or a stream table\n"
+	"(CSV).\n",
+	NULL, option_rows, sizeof(options),
+	"give one CASE file", "give one CASE file, not several",
+	NULL, NULL, run_targets
 };

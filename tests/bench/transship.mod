@@ -5,7 +5,8 @@
  * smaller of the two heats in the subnetwork, no other bounds, cuts or
  * starting solution. It is the model `bench_matches ... textbook` solves
  * inside heatloom, written a second time, independently, from the paper;
- * heatloom's own (tightened) model adds the rows of src/core/match_model.c.
+ * heatloom's own (tightened) model adds the rows of
+ * src/core/match/match_model.c.
  *
  * Data: a .dat file from tests/bench/match_dat (the intervals, subnetworks
  * and the heat of every party in every interval, as heatloom prepared them).

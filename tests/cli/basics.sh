@@ -1,5 +1,6 @@
 #!/bin/sh
-# basics.sh - help, version, usage errors and exit codes (design.md).
+# basics.sh - help, version, usage errors and exit codes (doc/design.md,
+# "Contracts").
 . "$TOP_SRCDIR/tests/cli/lib.sh"
 
 check_exit 0 hl --help
@@ -31,4 +32,14 @@ check_grep "cannot open" "$WORK/stderr"
 check_exit 0 hl targets "$CASES/demo-streams.csv" --utilities "$CASES/demo-utilities.csv"
 check_grep "Minimum hot utility" "$WORK/stdout"
 check_grep "Pinch " "$WORK/stdout"
+# The README and the man page name every command and every option of
+# targets (the docs must not drift from the program).
+for cmd in targets size curves sweep audit matches design check report; do
+	grep -q "heatloom $cmd " "$TOP_SRCDIR/README.md" && pass || fail "README omits $cmd"
+	grep -q "^\.BI \"$cmd " "$TOP_SRCDIR/doc/heatloom.1" && pass || fail "man page omits $cmd"
+done
+for opt in $(hl targets --help | sed -n 's/^  \(--[a-z-]*\).*/\1/p'); do
+	grep -q -- "$opt" "$TOP_SRCDIR/README.md" && pass || fail "README omits targets $opt"
+	grep -q -- "$(printf '%s' "$opt" | sed 's/-/\\\\-/g')" "$TOP_SRCDIR/doc/heatloom.1" && pass || fail "man page omits $opt"
+done
 finish

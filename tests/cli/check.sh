@@ -36,6 +36,9 @@ check_grep "t.xml:" "$WORK/stderr"
 tamper '/id="E1"/s/cold-out="140"/cold-out="139"/'
 check_exit 2 hl check "$WORK/t.xml"
 check_grep ": E1: heat balance of the cold side" "$WORK/stderr"
+# Messages give numbers at a readable precision (at most 6 significant
+# digits), not 10.
+grep -Eq '[0-9]\.?[0-9]{7,}' "$WORK/stderr" && fail "a number with more than 6 digits: $(cat "$WORK/stderr")" || pass
 
 # A consistent change of both ends of E1's cold side breaks C2's stages.
 tamper '/id="E1"/s/cold-in="80"/cold-in="82"/'

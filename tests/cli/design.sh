@@ -44,7 +44,7 @@ approaches() {
 # The four-stream problem (Linnhoff et al., User Guide on Process
 # Integration, IChemE 1982; Kemp, Pinch Analysis and Process Integration,
 # 2007, ch. 2; from memory, targets confirmed by a hand cascade): at ΔTmin
-# 10 K, 20 / 60 kW and six units (references.md). The temperatures are those
+# 10 K, 20 / 60 kW and six units (doc/references.md). The temperatures are those
 # of the network the pinch design rules give (derived by hand: H1-C2 240 kW
 # from 170 to 90 °C against 80 to 140 °C, H2-C1 90 kW 150 -> 90 against
 # 80 -> 125, H1-C1 90 kW 90 -> 60 against 35 -> 80, H2-C1 30 kW 90 -> 70
@@ -131,6 +131,19 @@ check_exit 0 hl check "$X"
 check_near "$(net hot-utility)" "$(awk -v t="$(net hot-target)" -v r="$(net rule-penalty)" -v p="$(net energy-penalty)" 'BEGIN { printf "%.15g", t + r + p }')" 1e-9 "demo hot utility"
 "$XMLLINT" --noout "$WORK/grid.svg" && pass || fail "grid.svg is not XML"
 check_grep "<svg" "$WORK/grid.svg"
+# The demo's LP steam level makes a utility pinch at 160 / 150 °C beside the
+# process pinch at 158 / 148 °C: the diagram names it apart.
+check_grep ">utility pinch 160 / 150 °C<" "$WORK/grid.svg"
+check_grep ">pinch 158 / 148 °C<" "$WORK/grid.svg"
+check_grep ">utility pinch<" "$WORK/grid.svg"
+# A cooler's duty (below its line) stays clear of the next line's end
+# temperature (above that line): at least 12 units apart at 10.5-unit text.
+awk '
+	/<text/ && />[0-9]+<\/text>/ { match($0, /y="[0-9.]+"/); y = substr($0, RSTART + 3, RLENGTH - 4)
+		match($0, /x="[0-9.]+"/); x = substr($0, RSTART + 3, RLENGTH - 4); if (x > 900) d[++n] = y }
+	/<text/ && /°C<\/text>/ && /text-anchor="end"/ { match($0, /y="[0-9.]+"/); e[++m] = substr($0, RSTART + 3, RLENGTH - 4) }
+	END { bad = 0; for (i = 1; i <= n; i++) for (j = 1; j <= m; j++) { g = e[j] - d[i]; if (g > 0 && g < 12) bad = 1 } exit bad }
+' "$WORK/grid.svg" && pass || fail "a cooler duty runs into an end temperature in grid.svg"
 if [ -n "${RSVG_CONVERT:-}" ]; then
 	check_exit 0 "$RSVG_CONVERT" -o "$WORK/grid.png" "$WORK/grid.svg"
 	[ "$(head -c 8 "$WORK/grid.png" | od -An -tx1 | tr -d ' \n')" = 89504e470d0a1a0a ] \
@@ -151,4 +164,72 @@ check_exit 2 hl design "$DATA/good/kemp4.csv" --dtmin 0 -o "$WORK/zero.txt"
 [ -e "$WORK/zero.txt" ] && fail "a failed design wrote its output" || pass
 check_exit 0 hl design --help
 check_grep "screening estimates" "$WORK/stdout"
+
+# Exchanger types per utility and per pair; check prices them again.
+TC="$DATA/good/kemp4-types.xml"
+check_exit 0 hl design "$TC" --method units --format xml -o "$X"
+valid "$X"
+ty() { xpath "string(/results/network/exchanger[@$1]/@$2)" "$X"; }
+[ "$(ty "hot='flue gas'" type)" = fired-heater ] && pass || fail "flue gas unit not a fired heater"
+[ "$(ty "cold='air'" type)" = air-cooler ] && pass || fail "air unit not an air cooler"
+[ "$(ty "hot='H2' and @cold='C1'" type)" = plate ] && pass || fail "H2/C1 not plate"
+check_near "$(ty "hot='flue gas'" area)" 0 0 "fired heater: no area"
+# 80000 + 109000·Q^0.8 at Q = 0.02 MW (the case's law) [formula check].
+check_near "$(ty "hot='flue gas'" cost)" "$(awk 'BEGIN { printf "%.15g", 80000 + 109000*exp(0.8*log(0.02)) }')" 1e-9 "fired heater cost"
+check_near "$(ty "hot='H2' and @cold='C1'" parallel)" 5 0 "plates in parallel beyond 5 m²"
+check_grep "below the smallest plausible" "$X"
+check_exit 0 hl check "$X"
+check_grep "sound, 0 problems" "$WORK/stdout"
+
+# The least-cost search prices its units by the same types and laws: every
+# H2/C1 unit a plate, every cooler on air an air cooler, every unit on
+# steam at 0 + 1200·A^0.6 per shell [formula check], and check agrees.
+check_exit 0 hl design "$TC" --format xml -o "$X"
+valid "$X"
+every() {	# every EXPR-selected exchanger has type $2
+	n=$(xpath "count(/results/network/exchanger[$1])" "$X")
+	m=$(xpath "count(/results/network/exchanger[$1][@type='$2'])" "$X")
+	[ "$n" -ge 1 ] && [ "$n" = "$m" ] && pass ||
+		fail "least-cost: $m of $n units [$1] are $2"
+}
+every "@hot='H2' and @cold='C1'" plate
+every "@cold='air'" air-cooler
+n=$(xpath "count(/results/network/exchanger[@hot='steam'])" "$X")
+i=1
+while [ "$i" -le "$n" ]; do
+	e="/results/network/exchanger[@hot='steam'][$i]"
+	check_near "$(xpath "string($e/@cost)" "$X")" "$(awk \
+	    -v a="$(xpath "string($e/@area-shell)" "$X")" \
+	    -v s="$(xpath "string($e/@shells)" "$X")" \
+	    'BEGIN { printf "%.15g", s*1200*exp(0.6*log(a)) }')" 1e-9 \
+	    "least-cost heater $i at 1200·A^0.6"
+	i=$((i + 1))
+done
+check_exit 0 hl check "$X"
+check_grep "sound, 0 problems" "$WORK/stdout"
+
+
+# Heaters priced apart from process units through the utility table's own
+# cost law (0 + 1200·A^0.6 per shell) [formula check]; the cooler by type.
+check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities-typed.csv" --format xml -o "$X"
+valid "$X"
+A=$(ty "hot='steam'" area-shell)
+check_near "$(ty "hot='steam'" cost)" "$(awk -v a="$A" -v n="$(ty "hot='steam'" shells)" 'BEGIN { printf "%.15g", n*1200*exp(0.6*log(a)) }')" 1e-9 "heater law 1200·A^0.6"
+[ "$(ty "cold='cooling water'" type)" = plate ] && pass || fail "cooler not plate"
+check_exit 0 hl check "$X"
+
+
+# A default type per utility kind: cooler-type makes every cooler without
+# its own type an air cooler; heaters stay shell-and-tube.
+sed 's|<settings dtmin="10">|<settings dtmin="10" cooler-type="air-cooler">|; s| type="air-cooler"/>|/>|; s|<utility name="flue gas"[^>]*/>||' \
+	"$DATA/good/kemp4-types.xml" >"$WORK/kinds.xml"
+check_exit 0 hl design "$WORK/kinds.xml" --format xml -o "$X"
+[ "$(ty "cold='air'" type)" = air-cooler ] && pass || fail "cooler-type not applied"
+[ "$(ty "hot='steam'" type)" = shell-and-tube ] && pass || fail "heater not shell-and-tube"
+check_exit 0 hl check "$X"
+sed 's|<settings dtmin="10">|<settings dtmin="10" heater-type="air-cooler">|' \
+	"$DATA/good/kemp4-types.xml" >"$WORK/kinds-bad.xml"
+check_exit 2 hl design "$WORK/kinds-bad.xml"
+check_grep "heater-type cannot be air-cooler" "$WORK/stderr"
+
 finish

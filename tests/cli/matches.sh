@@ -8,7 +8,7 @@ HARD="$DATA/good/gen-10x10-seed8.csv"
 
 # Linnhoff et al. (1982) / Kemp (2007) ch. 2, ΔTmin 10 K: the fewest units
 # meeting the targets is 6, three on each side of the pinch (derived by hand
-# from the Euler rule, references.md).
+# from the Euler rule, doc/references.md).
 check_exit 0 hl matches "$K4" --dtmin 10
 check_grep "Units                  6 (proven optimal)" "$WORK/stdout"
 check_grep "above-pinch-1" "$WORK/stdout"
@@ -117,7 +117,7 @@ fi
 
 # Utility levels: the utility LP's loads split the network at its utility
 # pinch. smith4-levels.csv: MP steam at 200 °C takes 3000 kW, HP steam the
-# other 4500 kW above 195 °C shifted (references.md, derived), so HP steam
+# other 4500 kW above 195 °C shifted (doc/references.md, derived), so HP steam
 # works above the utility pinch and MP steam between it and the process
 # pinch (145 °C shifted).
 if [ -n "${XMLLINT:-}" ]; then
@@ -200,4 +200,9 @@ check_grep "screening estimates" "$WORK/stdout"
 check_exit 1 hl matches
 check_exit 1 hl matches "$K4" --format svg
 check_exit 1 hl matches "$K4" --bogus
+# The demo's subnetworks are split at its process pinch (153 °C shifted)
+# and at two utility pinches; the text tells them apart.
+check_exit 0 hl matches "$CASES/demo.xml"
+check_grep "pinch 2 at 153.0 °C shifted: process pinch" "$WORK/stdout"
+check_grep "pinch 1 at 155.0 °C shifted: utility pinch" "$WORK/stdout"
 finish

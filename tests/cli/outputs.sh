@@ -1,5 +1,5 @@
 #!/bin/sh
-# outputs.sh - all-or-nothing output files (design.md, "Errors").
+# outputs.sh - all-or-nothing output files (doc/design.md, "Contracts").
 . "$TOP_SRCDIR/tests/cli/lib.sh"
 
 cp "$DATA/good/kemp4.csv" "$WORK/in.csv"

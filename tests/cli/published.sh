@@ -26,7 +26,7 @@ targets() {
 
 # Linnhoff et al. (1982) / Kemp (2007) ch. 2, from memory, hand-checked.
 targets "$DATA/good/kemp4.csv" 10 20 60 90 80
-# Same problem at 20 K: 65 / 105 kW (derived by hand cascade, references.md).
+# Same problem at 20 K: 65 / 105 kW (derived by hand cascade, doc/references.md).
 targets "$DATA/good/kemp4.csv" 20 65 105 "" ""
 # Written with duties, kind and a segmented stream; BOM, CRLF, comments;
 # semicolons with decimal commas: all read as the same problem.

@@ -82,9 +82,12 @@ function sig(v, s, md,    a, m, f, d, q) {
 	if (d >= 0) return sprintf("%." d "f", v)
 	q = 10 ^ (-d); return sprintf("%.0f", sprintf("%.0f", v / q) * q)
 }
-function fix1(v) { return sprintf("%.1f", v) }'
+function fix1(v) { return sprintf("%.1f", v) }
+function qty(v) { return v >= 1000 || v <= -1000 ? sprintf("%.0f", v) : sig(v, 3, 1) }'
 sig() { awk -v v="$1" -v s="$2" -v md="$3" "$ROUND"' BEGIN { print sig(v, s, md) }'; }
 fix1() { awk -v v="$1" 'BEGIN { printf("%.1f\n", v) }'; }
+# qty V: duties and areas, report_fmt.h's one rule for both.
+qty() { awk -v v="$1" "$ROUND"' BEGIN { print qty(v) }'; }
 
 # attrs XPATH FILE: the values of the attributes XPATH selects, one a line.
 attrs() {
@@ -127,10 +130,10 @@ T="$WORK/t.xml"
 W="$WORK/w.xml"
 qh=$(x '/results/targets/@hot-utility' "$T")
 qc=$(x '/results/targets/@cold-utility' "$T")
-expect t-qh "$(sig "$qh" 3 1) kW"
-expect t-qc "$(sig "$qc" 3 1) kW"
-expect sum-qh "$(sig "$qh" 3 1) kW"
-expect sum-qc "$(sig "$qc" 3 1) kW"
+expect t-qh "$(qty "$qh") kW"
+expect t-qc "$(qty "$qc") kW"
+expect sum-qh "$(qty "$qh") kW"
+expect sum-qc "$(qty "$qc") kW"
 expect t-dtmin "$(fix1 "$(x '/results/targets/@dtmin' "$T")") K"
 ph=$(fix1 "$(x '/results/targets/pinch[1]/@hot' "$T")")
 pc=$(fix1 "$(x '/results/targets/pinch[1]/@cold' "$T")")
@@ -142,8 +145,8 @@ expect sum-pinch "$ph °C hot / $pc °C cold"
 ucost=$(x '/results/targets/utility-summary/@cost' "$T")
 expect u-cost "$(sig "$ucost" 3 0) EUR/yr"
 expect sum-ucost "$(sig "$ucost" 3 0) EUR/yr"
-expect u-hot "$(sig "$(x '/results/targets/utility-summary/@hot' "$T")" 3 1) kW"
-expect u-cold "$(sig "$(x '/results/targets/utility-summary/@cold' "$T")" 3 1) kW"
+expect u-hot "$(qty "$(x '/results/targets/utility-summary/@hot' "$T")") kW"
+expect u-cold "$(qty "$(x '/results/targets/utility-summary/@cold' "$T")") kW"
 n=$(x 'count(/results/targets/utility)' "$T")
 i=1
 while [ "$i" -le "$n" ]; do
@@ -151,7 +154,7 @@ while [ "$i" -le "$n" ]; do
 	row="//*[local-name()='table'][contains(@class,'choice')]//*[local-name()='tr'][*[1]='$name']"
 	load=$(xpath "string($row/*[6])" "$R")
 	cost=$(xpath "string($row/*[7])" "$R" | sed "s/$NNBSP//g")
-	want_load=$(sig "$(x "/results/targets/utility[$i]/@load" "$T")" 3 1)
+	want_load=$(qty "$(x "/results/targets/utility[$i]/@load" "$T")")
 	want_cost=$(sig "$(x "/results/targets/utility[$i]/@cost" "$T")" 3 0)
 	[ "$load" = "$want_load" ] && pass || fail "$name load '$load', want '$want_load'"
 	[ "$cost" = "$want_cost" ] && pass || fail "$name cost '$cost', want '$want_cost'"
@@ -161,13 +164,13 @@ done
 
 # Supertargets at the chosen ΔTmin.
 S=/results/supertargets
-expect s-area "$(fix1 "$(x "$S/@area" "$T")") m²"
-expect s-area-st "$(fix1 "$(x "$S/@area-shell-and-tube" "$T")") m²"
+expect s-area "$(qty "$(x "$S/@area" "$T")") m²"
+expect s-area-st "$(qty "$(x "$S/@area-shell-and-tube" "$T")") m²"
 expect s-shells "$(x "$S/@shells" "$T")"
 expect s-total "$(sig "$(x "$S/@total-cost" "$T")" 3 0) EUR/yr"
 expect s-capital "$(sig "$(x "$S/@capital-cost" "$T")" 3 0) EUR"
 expect sum-tac "$(sig "$(x "$S/@total-cost" "$T")" 3 0) EUR/yr"
-expect sum-area "$(fix1 "$(x "$S/@area-shell-and-tube" "$T")") m²"
+expect sum-area "$(qty "$(x "$S/@area-shell-and-tube" "$T")") m²"
 expect sum-units "$(x "$S/@units" "$T") / $(x "$S/@shells" "$T")"
 expect sum-capital "$(sig "$(x "$S/@capital-cost" "$T")" 3 0) EUR"
 case $(shown s-units) in
@@ -189,7 +192,7 @@ bad=$(awk -F'\t' "$ROUND"'
 	NR == FNR { row[fix1($1)] = $0; next }
 	!($1 in row) { print "no grid point at " $1; next }
 	{ split(row[$1], x, "\t")
-	  want = sig(x[2], 3, 1) "|" sig(x[3], 3, 1) "|" fix1(x[4]) "|" x[5] "|" x[6] "|" \
+	  want = qty(x[2]) "|" qty(x[3]) "|" qty(x[4]) "|" x[5] "|" x[6] "|" \
 		sig(x[7], 3, 0) "|" sig(x[8], 3, 0) "|" sig(x[9], 3, 0)
 	  got = $2 "|" $3 "|" $4 "|" $5 "|" $6 "|" $7 "|" $8 "|" $9
 	  if (got != want) print "ΔTmin " $1 ": " got ", want " want }' \
@@ -207,7 +210,7 @@ for k in 1 2 3; do
 	case $got in
 	none) awk -v u="$up" 'BEGIN { exit !(u < 0.05) }' \
 		&& pass || fail "rank $k QHmin move 'none', XML hot-up $up" ;;
-	*"+$(sig "$up" 3 1)"|"±$(sig "$up" 3 1)") pass ;;
+	*"+$(qty "$up")"|"±$(qty "$up")") pass ;;
 	*) fail "rank $k QHmin move '$got', XML hot-up $up" ;;
 	esac
 done
@@ -271,7 +274,7 @@ for t in hot cold; do
 	for col in 2:nominal 3:low 4:high; do
 		c=${col%%:*}; attr=${col#*:}
 		got=$(xpath "string($row/*[$c])" "$R" | sed "s/$NNBSP//g")
-		want=$(sig "$(x "$B[@target='$t']/@$attr" "$T")" 3 1)
+		want=$(qty "$(x "$B[@target='$t']/@$attr" "$T")")
 		[ "$got" = "$want" ] && pass || fail "$t band $attr '$got', want '$want'"
 	done
 done
@@ -292,7 +295,7 @@ xml_tsv "$M" /results/matches/match hot cold duty region hot-from hot-to \
 	cold-from cold-to >"$WORK/match.tsv"
 html_tsv matches >"$WORK/matches.tsv"
 compare matches "$WORK/match.tsv" "$WORK/matches.tsv" '
-	want = FNR "|" x[1] "|" x[2] "|" sig(x[3], 3, 1) "|" x[4] "|" fix1(x[5]) " → " fix1(x[6]) "|" fix1(x[7]) " → " fix1(x[8])
+	want = FNR "|" x[1] "|" x[2] "|" qty(x[3]) "|" x[4] "|" fix1(x[5]) " → " fix1(x[6]) "|" fix1(x[7]) " → " fix1(x[8])
 	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6 "|" $7
 	if (got != want) print "match " FNR ": " got ", want " want'
 
@@ -301,23 +304,23 @@ compare matches "$WORK/match.tsv" "$WORK/matches.tsv" '
 D="$WORK/d.xml"
 check_exit 0 hl design "$CASES/demo.xml" --format xml -o "$D" --quiet
 N=/results/network
-expect n-qh "$(sig "$(x "$N/@hot-utility" "$D")" 3 1) kW (target $(sig "$(x "$N/@hot-target" "$D")" 3 1) kW)"
-expect n-qc "$(sig "$(x "$N/@cold-utility" "$D")" 3 1) kW (target $(sig "$(x "$N/@cold-target" "$D")" 3 1) kW)"
+expect n-qh "$(qty "$(x "$N/@hot-utility" "$D")") kW (target $(qty "$(x "$N/@hot-target" "$D")") kW)"
+expect n-qc "$(qty "$(x "$N/@cold-utility" "$D")") kW (target $(qty "$(x "$N/@cold-target" "$D")") kW)"
 expect n-units "$(x "$N/@units" "$D")"
-expect n-area "$(fix1 "$(x "$N/@area" "$D")") m²"
+expect n-area "$(qty "$(x "$N/@area" "$D")") m²"
 expect n-capital "$(sig "$(x "$N/@capital-cost" "$D")" 3 0) EUR"
 expect n-annual "$(sig "$(x "$N/@annual-capital-cost" "$D")" 3 0) EUR/yr"
 expect n-energy "$(sig "$(x "$N/@energy-cost" "$D")" 3 0) EUR/yr"
 expect n-total "$(sig "$(x "$N/@total-cost" "$D")" 3 0) EUR/yr"
-expect sum-net "$(x "$N/@units" "$D") exchangers, $(fix1 "$(x "$N/@area" "$D")") m²"
+expect sum-net "$(x "$N/@units" "$D") exchangers, $(qty "$(x "$N/@area" "$D")") m²"
 xml_tsv "$D" "$N/exchanger" id hot cold duty hot-in hot-out cold-in cold-out \
-	u lmtd ft shells area cost >"$WORK/exch.tsv"
+	u lmtd ft type shells area cost >"$WORK/exch.tsv"
 html_tsv exchangers >"$WORK/exchangers.tsv"
 compare exchangers "$WORK/exch.tsv" "$WORK/exchangers.tsv" '
-	want = x[1] "|" x[2] "|" x[3] "|" sig(x[4], 3, 1) "|" fix1(x[5]) " → " fix1(x[6]) "|" \
+	want = x[1] "|" x[2] "|" x[3] "|" qty(x[4]) "|" fix1(x[5]) " → " fix1(x[6]) "|" \
 		fix1(x[7]) " → " fix1(x[8]) "|" sig(x[9], 3, 3) "|" fix1(x[10]) "|" \
-		sprintf("%.3f", x[11]) "|" x[12] "|" fix1(x[13]) "|" sig(x[14], 3, 0)
-	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6 "|" $7 "|" $8 "|" $9 "|" $10 "|" $11 "|" $12
+		sprintf("%.3f", x[11]) "|" x[12] "|" x[13] "|" qty(x[14]) "|" sig(x[15], 3, 0)
+	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6 "|" $7 "|" $8 "|" $9 "|" $10 "|" $11 "|" $12 "|" $13
 	if (got != want) print "unit " FNR ": " got ", want " want'
 [ "$(wc -l <"$WORK/exchangers.tsv")" -ge 10 ] && pass || fail "the demo network has few exchangers"
 # The layout of the demo adds utility at EMAT = ΔTmin, and the report names
@@ -326,7 +329,7 @@ compare exchangers "$WORK/exch.tsv" "$WORK/exchangers.tsv" '
 check_grep 'the same matches place at the targets' "$R"
 check_exit 0 hl report "$CASES/demo.xml" --no-sweep --emat 7 -o "$WORK/e.html"
 R="$WORK/e.html"
-expect n-qh "$(sig "$(x '/results/targets/@hot-utility' "$T")" 3 1) kW (target $(sig "$(x '/results/targets/@hot-utility' "$T")" 3 1) kW)"
+expect n-qh "$(qty "$(x '/results/targets/@hot-utility' "$T")") kW (target $(qty "$(x '/results/targets/@hot-utility' "$T")") kW)"
 # --no-design leaves the matches and the network out.
 check_exit 0 hl report "$CASES/demo.xml" --no-sweep --no-design -o "$WORK/nd.html"
 got=$("$HTML_CHECK" "$WORK/nd.html" | grep '^section ' | cut -d' ' -f2 | tr '\n' ' ')
@@ -347,7 +350,7 @@ check_exit 0 hl audit "$CASES/demo.xml" --network "$CASES/demo-network.csv" \
 	--format xml -o "$A"
 check_exit 0 "$HTML_CHECK" "$R"
 got=$("$HTML_CHECK" "$R" | grep '^section ' | cut -d' ' -f2 | tr '\n' ' ')
-[ "$got" = "summary data targets utility-choice audit curves tradeoff matches network sensitivity assumptions methods caution " ] \
+[ "$got" = "summary data targets utility-choice audit retrofit curves tradeoff matches network sensitivity assumptions methods caution " ] \
 	&& pass || fail "audit sections: $got"
 # cell ID N: the text of the N-th cell of the row with that id.
 cell() {
@@ -355,19 +358,19 @@ cell() {
 }
 AU=/results/audit
 for side in hot cold; do
-	[ "$(cell a-$side 2)" = "$(sig "$(x "$AU/@$side-utility-now" "$A")" 3 1)" ] && pass \
+	[ "$(cell a-$side 2)" = "$(qty "$(x "$AU/@$side-utility-now" "$A")")" ] && pass \
 		|| fail "audit $side today '$(cell a-$side 2)'"
-	[ "$(cell a-$side 3)" = "$(sig "$(x "$AU/@$side-utility-target" "$A")" 3 1)" ] && pass \
+	[ "$(cell a-$side 3)" = "$(qty "$(x "$AU/@$side-utility-target" "$A")")" ] && pass \
 		|| fail "audit $side target '$(cell a-$side 3)'"
 done
-[ "$(cell a-hot 4)" = "$(sig "$(x "$AU/@saving" "$A")" 3 1)" ] && pass || fail "audit saving '$(cell a-hot 4)'"
+[ "$(cell a-hot 4)" = "$(qty "$(x "$AU/@saving" "$A")")" ] && pass || fail "audit saving '$(cell a-hot 4)'"
 expect a-saving-cost "$(sig "$(x "$AU/@saving-cost" "$A")" 3 0) EUR/yr"
 expect sum-saving "$(sig "$(x "$AU/@saving-cost" "$A")" 3 0) EUR/yr"
 expect a-cost-now "$(sig "$(x "$AU/@utility-cost-now" "$A")" 3 0) EUR/yr"
 expect a-cost-target "$(sig "$(x "$AU/@utility-cost-target" "$A")" 3 0) EUR/yr"
 expect a-dtmin-now "$(fix1 "$(x "$AU/@dtmin-now" "$A")") K (the targets equal today's hot utility there)"
-expect a-area-existing "$(fix1 "$(x "$AU/@area-existing" "$A")") m²"
-expect a-area-target-now "$(fix1 "$(x "$AU/@area-target-now" "$A")") m²"
+expect a-area-existing "$(qty "$(x "$AU/@area-existing" "$A")") m²"
+expect a-area-target-now "$(qty "$(x "$AU/@area-target-now" "$A")") m²"
 expect a-alpha "$(sig "$(x "$AU/@alpha" "$A")" 3 3) (area target at today's energy / existing area)"
 # The culprits, rank by rank.
 [ "$(x "count($AU/violation)" "$A")" -ge 1 ] && pass || fail "the demo network breaks no pinch rule?"
@@ -375,14 +378,14 @@ expect a-alpha "$(sig "$(x "$AU/@alpha" "$A")" 3 3) (area target at today's ener
 xml_tsv "$A" "$AU/violation" rank exchanger duty saving >"$WORK/viol.tsv"
 html_tsv culprits >"$WORK/culprits.tsv"
 compare culprits "$WORK/viol.tsv" "$WORK/culprits.tsv" '
-	if ($1 != x[1] || $2 != x[2] || $4 != sig(x[3], 3, 1) || $5 != sig(x[4], 3, 0))
+	if ($1 != x[1] || $2 != x[2] || $4 != qty(x[3]) || $5 != sig(x[4], 3, 0))
 		print "rank " x[1] ": " $1 "|" $2 "|" $4 "|" $5'
 # The retrofit curve, point by point (payback is absent today: "today").
 xml_tsv "$A" "$AU/retrofit/point" hot-utility dtmin area-retrofit new-area \
 	investment saving >"$WORK/retro.tsv"
 html_tsv retrofit >"$WORK/retrofit.tsv"
 compare retrofit "$WORK/retro.tsv" "$WORK/retrofit.tsv" '
-	want = sig(x[1], 3, 1) "|" fix1(x[2]) "|" fix1(x[3]) "|" fix1(x[4]) "|" sig(x[5], 3, 0) "|" sig(x[6], 3, 0)
+	want = qty(x[1]) "|" fix1(x[2]) "|" qty(x[3]) "|" qty(x[4]) "|" sig(x[5], 3, 0) "|" sig(x[6], 3, 0)
 	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6
 	if (got != want) print "point " FNR ": " got ", want " want'
 paybacks=$(attrs "$AU/retrofit/point/@payback" "$A" | awk '{ printf("%.1f ", $1) }')
@@ -392,6 +395,18 @@ pb=$(fix1 "$(x "$AU/retrofit/point[last()]/@payback" "$A")")
 expect a-payback "$pb years"
 expect sum-payback "$pb years"
 check_grep 'Tjoe' "$R"
+# The retrofit proposals against `heatloom retrofit --max-changes 2`, rank
+# by rank (the report runs the same search).
+RX="$WORK/rx.xml"
+check_exit 0 hl retrofit "$CASES/demo.xml" --network "$CASES/demo-network.csv" \
+	--max-changes 2 --quiet --format xml -o "$RX"
+xml_tsv "$RX" /results/retrofit/proposal rank changes investment saving \
+	payback hot-utility >"$WORK/rx.tsv"
+html_tsv rfit >"$WORK/rfit.tsv"
+compare rfit "$WORK/rx.tsv" "$WORK/rfit.tsv" '
+	want = x[1] "|" x[2] "|" sig(x[3], 3, 0) "|" sig(x[4], 3, 0) "|" sprintf("%.2f", x[5]) "|" sig(x[6], 3, 1)
+	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6
+	if (got != want) print "proposal " FNR ": " got ", want " want'
 # A bad network row stops the report as it stops the audit, nothing written.
 printf 'name,hot,cold,duty\nX-1,no such stream,reactor feed,100\n' >"$WORK/badnet.csv"
 check_exit 2 hl report "$CASES/demo.xml" --network "$WORK/badnet.csv" -o "$WORK/no.html"
@@ -421,6 +436,9 @@ check_grep 'no heating utility' "$R"
 
 # --- Defaults named as defaults; the caution; bad use. --------------------
 check_grep 'built-in default' "$WORK/r.html"
+# demo.xml sets hours="8000", the default value: named as set for this case.
+check_exit 0 hl report "$CASES/demo.xml" -o "$WORK/set.html"
+check_grep 'Operating hours</td><td>8000 h/yr</td><td>set for this case (the same as the built-in default)' "$WORK/set.html"
 check_grep 'qualified engineers under local codes' "$WORK/r.html"
 check_exit 1 hl report
 check_exit 1 hl report "$CASES/demo.xml" --from 20 --to 10
@@ -432,5 +450,16 @@ for bad in below-absolute-zero.csv cp-tol-percent.csv; do
 done
 check_exit 0 hl report --help
 check_grep 'screening estimates' "$WORK/stdout"
+
+
+# Exchanger types: the report names each type's law, marks the built-in
+# ones as illustrative, lists the units by type and warns of a tiny heater.
+check_exit 0 hl report "$DATA/good/kemp4-types.xml" -o "$WORK/types.html"
+check_grep "Cost law, plate" "$WORK/types.html"
+check_grep "Cost law, fired-heater" "$WORK/types.html"
+check_grep "illustrative, not a price" "$WORK/types.html"
+check_grep "<td>air-cooler</td>" "$WORK/types.html"
+check_grep "by duty" "$WORK/types.html"
+check_grep "below the smallest plausible 0.1 MW" "$WORK/types.html"
 
 finish

@@ -92,6 +92,14 @@ if [ -n "${PDFINFO:-}" ]; then
 	"$PDFINFO" "$WORK/a4.pdf" | grep -q '^Page size:.*(A4)' && pass || fail "a4.pdf is not A4"
 	"$PDFINFO" "$WORK/letter.pdf" | grep -q '^Page size:.*(letter)' && pass || fail "letter.pdf is not Letter"
 fi
+# No page left nearly empty after the summary: page 2 holds the summary's
+# tail and the stream data (pdftotext, poppler-utils).
+if command -v pdftotext >/dev/null 2>&1; then
+	for paper in a4 letter; do
+		n=$(pdftotext -f 2 -l 2 -layout "$WORK/$paper.pdf" - | grep -c .)
+		[ "$n" -ge 15 ] && pass || fail "$paper.pdf page 2 has only $n lines"
+	done
+fi
 
 # Nothing left the machine.
 for run in png a4 letter; do

@@ -24,7 +24,7 @@ if [ -n "${XMLLINT:-}" ]; then
 	check_near "$(xpath "string($row/@hot-plus)" "$WORK/s.xml")" -80 1e-9 "H1 cp dQH"
 	check_near "$(xpath "string($row/@cold-plus)" "$WORK/s.xml")" 30 1e-9 "H1 cp dQC"
 	check_near "$(xpath "string($row/@rank)" "$WORK/s.xml")" 1 0 "H1 cp rank"
-	# ΔTmin: (65 − 20)/10 from the 20 K targets of references.md.
+	# ΔTmin: (65 − 20)/10 from the 20 K targets of doc/references.md.
 	check_near "$(xpath 'string(/results/sensitivity-dtmin/@hot-plus)' "$WORK/s.xml")" 4.5 1e-9 "dQH/dΔTmin"
 	# The band re-solved at the worst corner (derived by hand).
 	check_near "$(xpath 'string(/results/sensitivity-band[@target="hot"]/@high)' "$WORK/s.xml")" 66.6 1e-9 "QH band high"
@@ -137,4 +137,11 @@ check_grep "chilled water  supply     5.0 °C ±1.0 K         +inf/0          0|
 check_grep "and the utility cost " "$WORK/stdout"
 check_exit 0 hl help targets
 check_grep "--sensitivity" "$WORK/stdout"
+# The ranking says why a row with an infinite cost move stands first.
+check_exit 0 hl targets "$CASES/demo.xml" --sensitivity
+check_grep "A row whose cost moves by +inf or -inf ranks first: a step of its tolerance that" "$WORK/stdout"
+# --supertargets beside --sensitivity: both, the supertargets after.
+check_exit 0 hl targets "$CASES/demo.xml" --sensitivity --supertargets
+check_grep "Every datum, largest effect first" "$WORK/stdout"
+check_grep "Supertargets" "$WORK/stdout"
 finish

@@ -75,13 +75,13 @@ check_near "$(at balance duty)" 601.25 1e-12 "mean of the two sides"
 
 # Temperature crosses needing several shells; shells and F from the Xp rule
 # of Ahmad, Linnhoff & Smith (1988) with Xp 0.9 and F floor 0.80
-# (references.md: P 0.8, R 1 -> 4 shells, F 0.802; P 0.9, R 0.8 -> 5
+# (doc/references.md: P 0.8, R 1 -> 4 shells, F 0.802; P 0.9, R 0.8 -> 5
 # shells, F 0.837) [derived].
 check_near "$(at cross-4 shells)" 4 0 "P 0.8 R 1 shells"
 check_near "$(at cross-4 ft)" 0.802 5e-4 "P 0.8 R 1 F"
 check_near "$(at cross-5 shells)" 5 0 "P 0.9 R 0.8 shells"
 check_near "$(at cross-5 ft)" 0.837 5e-4 "P 0.9 R 0.8 F"
-# Area split evenly over the shells (design.md).
+# Area split evenly over the shells (doc/methods.md, "Area and cost").
 check_near "$(at cross-5 area-shell)" "$(calc "$(at cross-5 area)/5")" 1e-12 "area per shell"
 # Cost per shell a + b·A^c with the built-in law, marked as assumed.
 check_near "$(at cross-5 cost)" "$(calc "5*(10000 + 800*($(at cross-5 area)/5)^0.8)")" 1e-9 "default cost law"
@@ -129,7 +129,7 @@ grep -q ' $' "$WORK/r.txt" && fail "trailing blanks in the text report" || pass
 
 # CSV: a header and one row per unit.
 check_exit 0 hl size "$LIST" --format csv -o "$WORK/r.csv"
-check_grep "name,line,type,duty,hot_in,hot_out,cold_in,cold_out,u,lmtd,p,r,f,shells,area,area_shell,cost,status,cross,assumed,note" "$WORK/r.csv"
+check_grep "name,line,type,duty,hot_in,hot_out,cold_in,cold_out,u,lmtd,p,r,f,shells,parallel,area,area_shell,cost,status,cross,assumed,note" "$WORK/r.csv"
 check_grep "cross-4,16,shell-and-tube,640,100,36,20,84,0.4,16,0.8,1,0.80227" "$WORK/r.csv"
 check_near "$(wc -l <"$WORK/r.csv")" 8 0 "CSV rows"
 
@@ -153,9 +153,40 @@ done <"$WORK/doc-attrs"
 check_exit 1 hl size
 check_exit 1 hl size "$LIST" --cost-a 5000
 check_grep "together" "$WORK/stderr"
-check_exit 1 hl size "$LIST" --type plate
+check_exit 1 hl size "$LIST" --type spiral
 check_exit 1 hl size "$LIST" --fmin 1
 check_exit 0 hl help size
 check_grep "Usage: heatloom size UNITS.csv" "$WORK/stdout"
 check_grep "screening estimates" "$WORK/stdout"
+
+# Every exchanger type (tests/data/good/size-types.csv).
+TY="$DATA/good/size-types.csv"
+check_exit 0 hl size "$TY" --format xml -o "$X"
+valid "$X"
+# Counterflow, plate and double pipe: F = 1, the same area (counterflow
+# LMTD; Kern 1950, ch. 5) [derived]; each its own law.
+check_near "$(at pl ft)" 1 0 "plate F"
+check_near "$(at pl area)" "$(at cf area)" 1e-12 "plate area = counterflow"
+check_near "$(at dp area)" "$(at cf area)" 1e-12 "double pipe area"
+check_near "$(at pl cost)" "$(calc "5000 + 500*exp(0.85*l($(at pl area)))")" 1e-9 "plate law"
+# Air cooler: crossflow F below 1 but above the floor.
+F=$(at ac ft)
+awk -v f="$F" 'BEGIN { exit !(f > 0.8 && f < 1) }' && pass || fail "air cooler F $F"
+# Fired heater: no area; cost a + b·Q^c, Q = 10 MW (the form of Towler &
+# Sinnott, Chemical Engineering Design, 2nd ed. 2012, table 6.6, from
+# memory; here the illustrative 80000 + 110000·Q^0.8).
+check_near "$(at fh area)" 0 0 "fired heater area"
+check_near "$(at fh cost)" "$(calc '80000 + 110000*exp(0.8*l(10))')" 1e-9 "fired heater by duty"
+# Largest shell 1000 m²: 2276 m² in one shell in series goes 1 × 3.
+check_near "$(at big shells)" 1 0 "big: in series"
+check_near "$(at big parallel)" 3 0 "big: in parallel"
+check_exit 0 hl size "$TY" --largest 2500 --format xml -o "$X"
+[ -z "$(at big parallel)" ] && pass || fail "--largest 2500 still parallel"
+# A U of 500 kW/(m²·K) (W/(m²·K) meant) is flagged, not priced quietly.
+check_exit 0 hl size "$TY" --format xml -o "$X"
+at wrongu warning | grep -q "above the plausible" && pass || fail "no U warning"
+check_exit 0 hl size "$TY"
+check_grep "wrongu (line 9): CHECK: U 500" "$WORK/stdout"
+check_grep "illustrative default, not a price" "$WORK/stdout"
+
 finish

@@ -34,7 +34,7 @@ check_near "$(xpath 'string(/results/targets/utility[@name="steam"]/@cost)' "$WO
 check_grep 'optimal="true"' "$WORK/k.xml"
 
 # Smith (2005) ch. 16 with a cheaper MP level at 200 °C: 3000 kW there,
-# 4500 kW of HP steam (references.md, derived by hand); LP steam at 120 °C
+# 4500 kW of HP steam (doc/references.md, derived by hand); LP steam at 120 °C
 # lies below the 150/140 °C pinch and stays unused.
 check_exit 0 hl targets "$DATA/good/smith4.csv" --utilities "$DATA/good/smith4-levels.csv" --format xml -o "$WORK/s.xml"
 valid "$WORK/s.xml"
@@ -71,11 +71,22 @@ check_exit 0 hl targets "$DATA/good/smith4.csv" --utilities "$DATA/good/smith4-l
 [ ! -s "$WORK/stderr" ] && pass || fail "GLPK wrote to stderr"
 grep -q "obj =" "$WORK/stdout" && fail "GLPK wrote to stdout" || pass
 
-# No utility can serve: exit 3 with the sentence, no output file.
+# No utility can serve: the process targets still print (they need no
+# utility: kemp4 at 10 K, 20 / 60 kW, pinch 90/80 °C, see kemp4.csv), then
+# the reason, and the command exits 3.
 printf 'name,kind,supply,target,price\nsteam,hot,250,250,30\n' >"$WORK/nocold.csv"
 check_exit 3 hl targets "$DATA/good/kemp4.csv" --utilities "$WORK/nocold.csv" -o "$WORK/none.txt"
 check_grep "the process must reject 60.0 kW of heat below 85.0 °C shifted (hot streams at 90.0 °C) but the case has no cold utility" "$WORK/stderr"
-[ ! -e "$WORK/none.txt" ] && pass || fail "output written on exit 3"
+check_grep "Minimum hot utility    20.0 kW" "$WORK/none.txt"
+check_grep "Minimum cold utility   60.0 kW" "$WORK/none.txt"
+check_grep "Pinch                  90.0 °C hot / 80.0 °C cold" "$WORK/none.txt"
+check_grep "Utility levels         none: the utilities cannot serve the process." "$WORK/none.txt"
+check_grep "but the case has no cold utility" "$WORK/none.txt"
+check_exit 3 hl targets "$DATA/good/kemp4.csv" --utilities "$WORK/nocold.csv"
+check_grep "Minimum cold utility   60.0 kW" "$WORK/stdout"
+check_exit 3 hl targets "$DATA/good/kemp4.csv" --utilities "$WORK/nocold.csv" --format xml -o "$WORK/none.xml"
+valid "$WORK/none.xml"
+check_near "$(xpath 'string(/results/targets/@cold-utility)' "$WORK/none.xml")" 60 1e-9 "no-utility XML QCmin"
 
 # The demo plant: three steam levels, cooling and chilled water.
 check_exit 0 hl targets "$CASES/demo-streams.csv" --utilities "$CASES/demo-utilities.csv" --format xml -o "$WORK/d.xml"

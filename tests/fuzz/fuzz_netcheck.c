@@ -5,7 +5,7 @@
 #include <stdint.h>
 
 #include "netcheck.h"
-#include "network_xml.h"
+#include "network_read.h"
 
 int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size);
 

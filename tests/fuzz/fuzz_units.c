@@ -22,14 +22,16 @@ size_row(const hl_unit_spec *u, const hl_settings *set)
 	hl_exchanger_sizing z;
 	hl_status st;
 
-	hl_exchanger_spec_settings(&s, set);
+	/* The row's type chooses its law and shell limits, as in `size`. */
+	hl_exchanger_spec_type(&s, set, u->type >= 0 ?
+	    (hl_exchanger_type)u->type : set->exchanger);
+	if (!isnan(u->largest))
+		s.largest = u->largest;
 	s.hot_in = u->hot_in;
 	s.hot_out = u->hot_out;
 	s.cold_in = u->cold_in;
 	s.cold_out = u->cold_out;
 	s.duty = u->duty;
-	if (u->type >= 0)
-		s.type = (hl_exchanger_type)u->type;
 	s.u = u->u;
 	if (isnan(s.u) && hl_exchanger_u(isnan(u->h_hot) ? set->h_default :
 	    u->h_hot, isnan(u->h_cold) ? set->h_default : u->h_cold, &s.u,

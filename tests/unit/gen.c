@@ -29,7 +29,7 @@ hl_rng_uniform(hl_rng *r, double lo, double hi)
 void
 hl_gen_add(hl_case *c, const char *name, double ts, double tt, double cp)
 {
-	hl_segment g = { ts, tt, cp, NAN, 0, 0 };
+	hl_segment g = { ts, tt, cp, NAN, 0, 0, 0.0, 0 };
 	hl_stream s;
 
 	memset(&s, 0, sizeof s);

@@ -9,6 +9,7 @@
 #include <cmocka.h>
 
 #include "csv.h"
+#include "number.h"
 #include "tables.h"
 
 static hl_csv *
@@ -124,8 +125,9 @@ test_parse_number(void **state)
 static void
 test_parse_number_exact(void **state)
 {
-	static const char *const fmt[] = { "%.0f", "%.1f", "%.3f", "%.6f",
-					   "%.9e", "%.14e", "%.4e", "%.15g" };
+	/* %.0f %.1f %.3f %.6f %.9e %.14e %.4e %.15g, with literal formats */
+	static const char conv[] = "ffffeeeg";
+	static const int prec[] = { 0, 1, 3, 6, 9, 14, 4, 15 };
 	unsigned long long x = 88172645463325252ull;
 	int i, k;
 
@@ -140,7 +142,12 @@ test_parse_number_exact(void **state)
 		v = (double)(x % 100000000000ull) /
 		    (double)(1ull << (x % 40)) * ((x & 1) ? -1.0 : 1.0);
 		for (k = 0; k < 8; k++) {
-			snprintf(buf, sizeof buf, fmt[k], v);
+			if (conv[k] == 'f')
+				snprintf(buf, sizeof buf, "%.*f", prec[k], v);
+			else if (conv[k] == 'e')
+				snprintf(buf, sizeof buf, "%.*e", prec[k], v);
+			else
+				snprintf(buf, sizeof buf, "%.*g", prec[k], v);
 			want = strtod(buf, NULL);
 			assert_true(hl_parse_number(buf, 0, &got));
 			if (memcmp(&got, &want, sizeof got) != 0) {

@@ -12,20 +12,10 @@
 #include "cascade.h"
 #include "curves.h"
 #include "gen.h"
+#include "near.h"
 #include "utility_lp.h"
 
 #define REL 1e-9
-
-static void
-assert_rel(double got, double want, double rel)
-{
-	double scale = fabs(want) > 1.0 ? fabs(want) : 1.0;
-
-	if (fabs(got - want) > rel * scale) {
-		print_error("got %.15g, want %.15g\n", got, want);
-		fail();
-	}
-}
 
 /* The four-stream problems and their sources: tests/unit/gen.c. */
 static hl_curves *

@@ -71,8 +71,13 @@ test_units(void **state)
 	(void)state;
 	assert_string_equal(hl_report_fmt_temp(buf, sizeof buf, 158), "158.0" NB "°C");
 	assert_string_equal(hl_report_fmt_dt(buf, sizeof buf, 5.49), "5.5" NB "K");
-	assert_string_equal(hl_report_fmt_duty(buf, sizeof buf, 5837), "5840" NB "kW");
-	assert_string_equal(hl_report_fmt_area(buf, sizeof buf, 868.5967), "868.6" NB "m²");
+	/* Duties and areas share one rule: 3 significant figures, at
+	 * most one decimal, whole digits kept. */
+	assert_string_equal(hl_report_fmt_duty(buf, sizeof buf, 5837), "5837" NB "kW");
+	assert_string_equal(hl_report_fmt_duty(buf, sizeof buf, 12165.04), "12" HL_NNBSP "165" NB "kW");
+	assert_string_equal(hl_report_fmt_duty(buf, sizeof buf, 33.84), "33.8" NB "kW");
+	assert_string_equal(hl_report_fmt_area(buf, sizeof buf, 868.5967), "869" NB "m²");
+	assert_string_equal(hl_report_fmt_area(buf, sizeof buf, 1.714), "1.7" NB "m²");
 	assert_string_equal(hl_report_fmt_money(buf, sizeof buf, 311208.66, "EUR", 1),
 			    "311" NN "000" NB "EUR/yr");
 	assert_string_equal(hl_report_fmt_money(buf, sizeof buf, 703446.4, "EUR", 0),

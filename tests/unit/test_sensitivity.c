@@ -12,6 +12,7 @@
 
 #include "cascade.h"
 #include "gen.h"
+#include "near.h"
 #include "sensitivity.h"
 #include "utility_lp.h"
 
@@ -19,23 +20,6 @@
 #define HAND 1e-9
 /* Analytic derivative against a central finite difference (issue 11). */
 #define FD_REL 1e-6
-
-static int
-near(double got, double want, double rel)
-{
-	double scale = fabs(want) > 1.0 ? fabs(want) : 1.0;
-
-	return fabs(got - want) <= rel * scale;
-}
-
-static void
-assert_near(double got, double want, double rel)
-{
-	if (!near(got, want, rel)) {
-		print_error("got %.15g, want %.15g\n", got, want);
-		fail();
-	}
-}
 
 static hl_sensitivity *
 sens(const hl_case *c, double dtmin)
@@ -71,10 +55,10 @@ row_of(const hl_case *c, const hl_sensitivity *s, const char *name,
 static void
 assert_row(const hl_sens_row *r, double hm, double hp, double cm, double cp)
 {
-	assert_near(r->hot_minus, hm, HAND);
-	assert_near(r->hot_plus, hp, HAND);
-	assert_near(r->cold_minus, cm, HAND);
-	assert_near(r->cold_plus, cp, HAND);
+	assert_rel(r->hot_minus, hm, HAND);
+	assert_rel(r->hot_plus, hp, HAND);
+	assert_rel(r->cold_minus, cm, HAND);
+	assert_rel(r->cold_plus, cp, HAND);
 }
 
 /* The four-stream problem (hl_gen_kemp4: Linnhoff et al., User Guide on
@@ -113,7 +97,7 @@ test_kemp4_by_hand(void **state)
 	 * QCmin gains the 4 kW/K C2 no longer takes: −1.5 + 4 = 2.5. */
 	assert_row(row_of(c, s, "C2", HL_SENS_SUPPLY, 0), -1.5, -1.5, 2.5, 2.5);
 	/* ΔTmin: every hot cp crossing the pinch, 3 + 1.5 = 4.5 kW/K. The
-	 * targets at 20 K, 65 / 105 kW (references.md, derived by hand
+	 * targets at 20 K, 65 / 105 kW (doc/references.md, derived by hand
 	 * cascade), agree: (65 − 20)/10 = (105 − 60)/10 = 4.5. */
 	assert_row(&s->dt, 4.5, 4.5, 4.5, 4.5);
 	assert_false(s->dt.kink);
@@ -123,21 +107,21 @@ test_kemp4_by_hand(void **state)
 	 * supply, QHmin = 2.1·57 + 4.2·62 − 2.85·80 − 1.425·60 = 66.6 kW,
 	 * QCmin there 66.6 + 475.95 − 506.1 = 36.45 kW. The other corner needs
 	 * no hot utility at all: QHmin 0, QCmin = Σ hot − Σ cold = 109.85 kW. */
-	assert_near(s->hot.high, 66.6, HAND);
-	assert_near(s->hot.low, 0.0, HAND);
-	assert_near(s->cold.low, 36.45, HAND);
-	assert_near(s->cold.high, 109.85, HAND);
+	assert_rel(s->hot.high, 66.6, HAND);
+	assert_rel(s->hot.low, 0.0, HAND);
+	assert_rel(s->cold.low, 36.45, HAND);
+	assert_rel(s->cold.high, 109.85, HAND);
 	/* First order at the high corner: 20 + Σ |derivative|·tolerance =
 	 * 20 + 5.5 + 2 + 12 + 3 + 12 + 1.5 + 4 + 4.5 + 1.5 = 66 kW; the
 	 * re-solve exceeds it by the cp × temperature cross terms. */
-	assert_near(s->hot.lin_high, 66.0, HAND);
+	assert_rel(s->hot.lin_high, 66.0, HAND);
 	assert_true(s->hot.high > s->hot.lin_high);
 	/* The ranking: H1 cp and C2 cp each move QHmin by 12 kW (0.15·80 and
 	 * 0.2·60), the largest effects, tied and so kept in case order. */
 	assert_int_equal(s->row[s->rank[0]].stream, 1);
 	assert_int_equal(s->row[s->rank[1]].stream, 2);
 	assert_int_equal(s->row[s->rank[0]].q, HL_SENS_CP);
-	assert_near(hl_sensitivity_effect(&s->row[s->rank[0]]), 12.0, HAND);
+	assert_rel(hl_sensitivity_effect(&s->row[s->rank[0]]), 12.0, HAND);
 	assert_int_equal(s->row[s->rank[0]].rank, 1);
 	hl_sensitivity_free(s);
 	hl_case_free(c);
@@ -281,9 +265,9 @@ check_fd(double minus, double plus, int kink, double q0, double qp, double qm,
 	double lo = fmin(minus, plus), hi = fmax(minus, plus);
 	double slack = FD_REL * fmax(1.0, fmax(fabs(lo), fabs(hi)));
 
-	if (!kink && near(central, plus, FD_REL))
+	if (!kink && hl_near(central, plus, FD_REL))
 		return 0;
-	if (kink && near(fwd, plus, FD_REL) && near(bwd, minus, FD_REL) &&
+	if (kink && hl_near(fwd, plus, FD_REL) && hl_near(bwd, minus, FD_REL) &&
 	    central >= lo - slack && central <= hi + slack)
 		return 1;
 	print_error("%s: minus %.12g plus %.12g, fd back %.12g fwd %.12g "
@@ -410,16 +394,16 @@ test_above_below_pinch(void **state)
 			lo += st->kind == HL_HOT ? -sh : sh;
 			hi += st->kind == HL_HOT ? -sh : sh;
 			if (lo >= tp) {
-				assert_near(r->hot_plus, sign * per, HAND);
-				assert_near(r->hot_minus, sign * per, HAND);
-				assert_near(r->cold_plus, 0.0, HAND);
-				assert_near(r->cold_minus, 0.0, HAND);
+				assert_rel(r->hot_plus, sign * per, HAND);
+				assert_rel(r->hot_minus, sign * per, HAND);
+				assert_rel(r->cold_plus, 0.0, HAND);
+				assert_rel(r->cold_minus, 0.0, HAND);
 				above++;
 			} else if (hi <= tp) {
-				assert_near(r->hot_plus, 0.0, HAND);
-				assert_near(r->hot_minus, 0.0, HAND);
-				assert_near(r->cold_plus, -sign * per, HAND);
-				assert_near(r->cold_minus, -sign * per, HAND);
+				assert_rel(r->hot_plus, 0.0, HAND);
+				assert_rel(r->hot_minus, 0.0, HAND);
+				assert_rel(r->cold_plus, -sign * per, HAND);
+				assert_rel(r->cold_minus, -sign * per, HAND);
 				below++;
 			}
 		}
@@ -525,10 +509,10 @@ test_band_contains_corners(void **state)
 			cmax = fmax(cmax, qc);
 			cmin = fmin(cmin, qc);
 		}
-		assert_near(hmax, s->hot.high, 1e-9);
-		assert_near(hmin, s->hot.low, 1e-9);
-		assert_near(cmax, s->cold.high, 1e-9);
-		assert_near(cmin, s->cold.low, 1e-9);
+		assert_rel(hmax, s->hot.high, 1e-9);
+		assert_rel(hmin, s->hot.low, 1e-9);
+		assert_rel(cmax, s->cold.high, 1e-9);
+		assert_rel(cmin, s->cold.low, 1e-9);
 		/* The derivatives never point against the corner chosen. */
 		for (i = 0; i < s->nrow; i++) {
 			const hl_sens_row *r = &s->row[i];
@@ -618,8 +602,8 @@ test_surplus_hook(void **state)
 
 			assert_int_equal(hl_sensitivity_surplus(c, 10.0,
 				&s->row[i], t, 0, &minus, &plus, NULL), HL_OK);
-			assert_near(plus, fd, FD_REL);
-			assert_near(minus, fd, FD_REL);
+			assert_rel(plus, fd, FD_REL);
+			assert_rel(minus, fd, FD_REL);
 			hl_case_free(p);
 			hl_case_free(m);
 		}
@@ -660,7 +644,7 @@ test_surplus_hook_tied(void **state)
 			rm = surplus_above(m, 10.0, t - h);
 			assert_int_equal(hl_sensitivity_surplus(c, 10.0, r, t, 1,
 				&minus, &plus, NULL), HL_OK);
-			check_fd(minus, plus, !near(minus, plus, 1e-12), r0, rp,
+			check_fd(minus, plus, !hl_near(minus, plus, 1e-12), r0, rp,
 				 rm, h, "surplus at the moving end");
 			checked++;
 			hl_case_free(p);
@@ -696,7 +680,7 @@ test_cost(void **state)
 
 		targets_at(c, &s->row[i], 10.0, h, &qhp, &qcp);
 		targets_at(c, &s->row[i], 10.0, -h, &qhm, &qcm);
-		assert_near(s->row[i].cost_plus, 8.0 * (40 * (qhp - qhm) +
+		assert_rel(s->row[i].cost_plus, 8.0 * (40 * (qhp - qhm) +
 			    5 * (qcp - qcm)) / (2 * h), FD_REL);
 	}
 	hl_sensitivity_free(s);
@@ -917,24 +901,24 @@ test_cost_levels_above_pinch(void **state)
 	hl_gen_add_utility(c, "water", HL_COLD, 20, 20, 5, NAN);
 	s = sens(c, 10.0);
 	assert_int_equal(s->cost, HL_SENS_COST_LEVELS);
-	assert_near(row_of(c, s, "C2", HL_SENS_CP, 0)->cost_plus,
+	assert_rel(row_of(c, s, "C2", HL_SENS_CP, 0)->cost_plus,
 		    40 * 60 * 8.0, HAND);
-	assert_near(row_of(c, s, "C2", HL_SENS_CP, 0)->cost_minus,
+	assert_rel(row_of(c, s, "C2", HL_SENS_CP, 0)->cost_minus,
 		    40 * 60 * 8.0, HAND);
 	/* H1 also has 30 K below the pinch, where its cp is rejected to the
 	 * water: −80 kW per kW/K of steam and +30 of water. */
-	assert_near(row_of(c, s, "H1", HL_SENS_CP, 0)->cost_plus,
+	assert_rel(row_of(c, s, "H1", HL_SENS_CP, 0)->cost_plus,
 		    (-40 * 80 + 5 * 30) * 8.0, HAND);
 	/* The idle level's temperature costs nothing either way. */
-	assert_near(s->urow[1].cost_plus, 0.0, HAND);
-	assert_near(s->urow[1].cost_minus, 0.0, HAND);
+	assert_rel(s->urow[1].cost_plus, 0.0, HAND);
+	assert_rel(s->urow[1].cost_minus, 0.0, HAND);
 	/* H2 ends at 30 °C, 25 °C shifted, the water's own level: a lower
 	 * target leaves heat below any cold utility, an infinite cost a step
 	 * that way, and that datum ranks first. Next come the finite cost
 	 * moves, largest first: C2's cp (8·40·60 × its ±0.2 kW/K = 3840). */
 	assert_true(isinf(row_of(c, s, "H2", HL_SENS_TARGET, 0)->cost_minus));
 	assert_int_equal(row_of(c, s, "H2", HL_SENS_TARGET, 0)->rank, 1);
-	assert_near(hl_sensitivity_effect(&s->row[s->rank[1]]), 3840.0, HAND);
+	assert_rel(hl_sensitivity_effect(&s->row[s->rank[1]]), 3840.0, HAND);
 	hl_sensitivity_free(s);
 	hl_case_free(c);
 }
@@ -977,7 +961,7 @@ test_collapse(void **state)
 	hl_gen_add(c, "H3", 100, 99, 50.0);
 	s = sens(c, 10.0);
 	assert_int_equal(s->collapsed, 1);
-	assert_near(s->hot.high, 66.6, HAND);
+	assert_rel(s->hot.high, 66.6, HAND);
 	hl_sensitivity_free(s);
 	hl_case_free(c);
 }

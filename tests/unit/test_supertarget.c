@@ -29,7 +29,7 @@ targets(const hl_case *c, double dt, const double *load, hl_supertargets *st)
 	hl_cascade_free(cas);
 }
 
-/* Hand checks of the vertical-transfer formula, references.md [derived]:
+/* Hand checks of the vertical-transfer formula, doc/references.md [derived]:
  * hot 100->50, cold 20->70, both CP 1 kW/K and h 1 kW/(m²K): 3.333 m²;
  * cold 20->60 CP 1.25 instead: 2.877 m². Two streams in counterflow with
  * uniform h: the target equals Q/(U·LMTD) (common practice, no source). */
@@ -81,7 +81,7 @@ test_crf(void **state)
 
 /* Units target of the four-stream problem (Linnhoff et al. 1982; Kemp 2007,
  * ch. 2): N − 1 per side of the pinch gives 4 above (4 streams + hot
- * utility) and 3 below (3 streams + cold utility), 7 in all (references.md
+ * utility) and 3 below (3 streams + cold utility), 7 in all (doc/references.md
  * [derived]); the MILP finds 6 because of an independent subset. */
 static void
 test_units_four_stream(void **state)

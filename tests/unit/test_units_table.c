@@ -117,7 +117,7 @@ test_coefficients_and_rules(void **state)
 	refused("E1,150,90,30,80,500,,,0.4,1,,,,,,,", "only one film coefficient");
 	refused("E1,150,90,30,80,500,,,0.4,1,1,,,,,,", "20.0 % apart");
 	refused("E1,150,90,30,80,500,,,0,,,,,,,,", "must be > 0");
-	refused("E1,150,90,30,80,500,,,0.4,,,plate,,,,,", "type 'plate'");
+	refused("E1,150,90,30,80,500,,,0.4,,,spiral,,,,,", "type 'spiral'");
 	refused("E1,150,90,30,80,500,,,0.4,,,,1,,,,", "fmin 1");
 	refused("E1,150,90,30,80,500,,,0.4,,,,,0,,,", "xp 0");
 	refused("E1,150,90,30,80,500,,,0.4,,,,,,1,2,", "all three");

@@ -16,22 +16,12 @@
 #include "cascade.h"
 #include "gen.h"
 #include "glpk_guard.h"
+#include "near.h"
 #include "utility_lp.h"
 
 /* Agreement demanded between the LP and the problem table: both are exact
  * up to rounding. */
 #define REL 1e-9
-
-static void
-assert_rel(double got, double want, double rel)
-{
-	double scale = fabs(want) > 1.0 ? fabs(want) : 1.0;
-
-	if (fabs(got - want) > rel * scale) {
-		print_error("got %.15g, want %.15g\n", got, want);
-		fail();
-	}
-}
 
 /* The four-stream problems and their sources: tests/unit/gen.c. */
 static hl_utility_lp *
@@ -297,7 +287,7 @@ test_random_one_each(void **state)
 /* --- Several levels, answers known by hand -------------------------------
  * Smith's problem with a second, cheaper hot utility condensing at 200 °C
  * (195 °C shifted): the cascade carries 3.0 MW past 195 °C, so the level can
- * take at most 3000 kW of the 7500 kW (references.md, derived by hand). */
+ * take at most 3000 kW of the 7500 kW (doc/references.md, derived by hand). */
 static void
 test_smith_second_level(void **state)
 {
@@ -406,6 +396,11 @@ test_ranged_hot_across_pinch(void **state)
 	lp = solve(c, 10.0);
 	assert_rel(lp->util[0].load, 160.0 / 7.0, REL);
 	assert_rel(lp->util[1].load, 60.0 + 20.0 / 7.0, REL);
+	/* The rise is the heat the flue gas gives below the pinch (85 °C
+	 * shifted): 160/7 × (85 − 55) / 240 = 20/7 kW. */
+	assert_rel(lp->util[0].across, 20.0 / 7.0, REL);
+	assert_rel(lp->range_rise, 20.0 / 7.0, REL);
+	assert_rel(lp->qh_min, 20.0, REL);
 	check_answer(c, 10.0, lp);
 	hl_utility_lp_free(lp);
 	hl_case_free(c);
@@ -564,6 +559,84 @@ test_random_levels(void **state)
 	}
 }
 
+/* A credit (steam raised and sold above a bought hot utility's price) on
+ * tests/data/good/credit.csv (invented; hand cascade in
+ * tests/cli/credits.sh): steam raising takes all 400 kW H1 gives above its
+ * level, HP steam 150 kW heats C2 instead, cooling water 200 kW. Without
+ * the credit rule the LP would be unbounded. */
+static void
+test_credit(void **state)
+{
+	hl_case *c = hl_case_create();
+	hl_utility_lp *lp;
+
+	(void)state;
+	hl_gen_add(c, "H1", 200, 100, 10.0);
+	hl_gen_add(c, "C1", 50, 120, 5.0);
+	hl_gen_add(c, "C2", 140, 180, 5.0);
+	hl_gen_add_utility(c, "HP steam", HL_HOT, 250, 250, 20, NAN);
+	hl_gen_add_utility(c, "steam raising", HL_COLD, 150, 150, -30, NAN);
+	hl_gen_add_utility(c, "cooling water", HL_COLD, 20, 30, 1, NAN);
+	assert_int_equal(hl_case_validate(c, NULL), HL_OK);
+	lp = solve(c, 10.0);
+	assert_rel(lp->util[0].load, 150.0, REL);
+	assert_rel(lp->util[1].load, 400.0, REL);
+	assert_rel(lp->util[2].load, 200.0, REL);
+	assert_rel(lp->cost, -70400.0, REL);
+	assert_rel(lp->credit, 96000.0, REL);
+	assert_rel(lp->credit_rise, 150.0, REL);
+	check_answer(c, 10.0, lp);
+	hl_utility_lp_free(lp);
+	hl_case_free(c);
+}
+
+/* Random credits stay bounded: the answer balances, a credit cold utility
+ * takes no more than the hot streams give, a credit hot one gives no more
+ * than the cold streams take, and the cost is no higher than without the
+ * credits' earnings (the credit levels at load 0 are feasible). */
+static void
+test_random_credits(void **state)
+{
+	hl_rng r;
+	int n;
+
+	(void)state;
+	hl_rng_seed(&r, 77);
+	for (n = 0; n < 80; n++) {
+		hl_case *c = hl_gen_case(&r, 1 + n % 4, 1 + n % 3);
+		double dt = floor(hl_rng_uniform(&r, 5, 25)), hot = 0, cold = 0;
+		hl_utility_lp *lp, *lp0;
+		size_t i;
+
+		hl_gen_add_utility(c, "top", HL_HOT, 400, 400, 40, NAN);
+		hl_gen_add_utility(c, "bottom", HL_COLD, -50, -50, 12, NAN);
+		lp0 = solve(c, dt);
+		hl_gen_add_utility(c, "sell", HL_COLD,
+			floor(hl_rng_uniform(&r, 20, 200)), 0, -60, NAN);
+		c->util[c->nutil - 1].target = c->util[c->nutil - 1].supply +
+			(n % 2 ? 0 : 10);
+		hl_gen_add_utility(c, "waste heat", HL_HOT,
+			floor(hl_rng_uniform(&r, 60, 300)), 0, -5, NAN);
+		c->util[c->nutil - 1].target = c->util[c->nutil - 1].supply;
+		assert_int_equal(hl_case_validate(c, NULL), HL_OK);
+		lp = solve(c, dt);
+		/* Feasible; check_no_cheaper_move does not know that a credit
+		 * may only serve the process (its cheaper moves may feed a
+		 * credit from a utility), so optimality is left to the hand
+		 * cases and the transportation LP (tests/cli/credits.sh). */
+		check_feasible(c, dt, lp);
+		for (i = 0; i < c->nstream; i++)
+			*(c->stream[i].kind == HL_HOT ? &hot : &cold) +=
+				hl_stream_duty(&c->stream[i]);
+		assert_true(lp->util[2].load <= hot * (1 + 1e-9) + 1e-6);
+		assert_true(lp->util[3].load <= cold * (1 + 1e-9) + 1e-6);
+		assert_true(lp->cost <= lp0->cost + 1e-6 * (1 + fabs(lp0->cost)));
+		hl_utility_lp_free(lp);
+		hl_utility_lp_free(lp0);
+		hl_case_free(c);
+	}
+}
+
 /* The guard turns a GLPK API error (which would abort) into a status. */
 static void
 test_guard(void **state)
@@ -602,6 +675,8 @@ main(void)
 		cmocka_unit_test(test_out_of_reach),
 		cmocka_unit_test(test_infeasible),
 		cmocka_unit_test(test_random_levels),
+		cmocka_unit_test(test_credit),
+		cmocka_unit_test(test_random_credits),
 		cmocka_unit_test(test_guard),
 	};
 

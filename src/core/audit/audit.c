@@ -5,7 +5,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "audit_private.h"
+#include "audit_int.h"
 #include "cascade.h"
 #include "utility_lp.h"
 
@@ -202,18 +202,18 @@ energy(const hl_case *c, hl_audit *a, hl_error *err)
 	hl_cascade *cas = NULL;
 	hl_utility_lp *lp = NULL;
 	hl_status st;
-	size_t i;
 
 	st = hl_cascade_compute(c, a->dtmin, &cas, err);
 	if (st == HL_OK && c->nutil > 0)
 		st = hl_utility_lp_solve(c, a->dtmin, NULL, &lp, err);
 	if (st == HL_OK) {
 		choose_pinch(cas, a);
-		a->hot_target = cas->qh;
-		a->cold_target = cas->qc;
+		a->range_rise = lp ? lp->range_rise : 0.0;
+		a->hot_target = cas->qh + a->range_rise;
+		a->cold_target = cas->qc + a->range_rise;
 		a->cost_target = lp ? lp->cost : 0.0;
-		for (i = 0; lp != NULL && i < c->nutil; i++)
-			a->target_load[i] = lp->util[i].load;
+		if (lp != NULL)
+			hl_utility_lp_copy_loads(lp, a->target_load);
 		a->price_hot = mean_price(c, a->net, HL_HOT);
 		a->price_cold = mean_price(c, a->net, HL_COLD);
 		a->saving = a->net->hot_now - a->hot_target;
@@ -237,7 +237,8 @@ efficiency(const hl_case *c, hl_audit *a, hl_error *err)
 	a->alpha = NAN;
 	a->area_existing = c->nutil > 0 ? a->net->area :
 			   a->net->area_recovery;
-	st = hl_audit_dtmin_at(c, a->net->hot_now, &a->dtmin_now, err);
+	st = hl_audit_dtmin_at(c, a->net->hot_now - a->range_rise,
+			       &a->dtmin_now, err);
 	if (st != HL_OK)
 		return st;
 	if (isnan(a->dtmin_now) || a->dtmin_now <= 0.0) {

@@ -97,8 +97,15 @@ typedef struct {
 	double pinch_hot;        /* °C, shifted + ΔTmin/2 */
 	double pinch_cold;       /* °C, shifted − ΔTmin/2 */
 	char pinch_kind;         /* 'P' a pinch, 'T' the top, 'B' the bottom */
-	double hot_target;       /* kW, minimum hot utility */
-	double cold_target;      /* kW */
+	double hot_target;       /* kW, minimum hot utility with the case's
+				    utilities: the problem-table minimum plus
+				    range_rise */
+	double cold_target;      /* kW, likewise */
+	double range_rise;       /* kW the utility ranges add at ΔTmin (a flue
+				    gas cooled below the pinch, utility_lp.h);
+				    the area–energy curve keeps it at every
+				    energy, so that its hot utility is one
+				    accounting with the targets */
 	double cost_target;      /* per year, least-cost bill at the targets
 				    (0 without utilities) */
 	double *target_load;     /* kW per utility, least cost at ΔTmin */

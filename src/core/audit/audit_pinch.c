@@ -9,7 +9,7 @@
 #include <math.h>
 #include <stdlib.h>
 
-#include "audit_private.h"
+#include "audit_int.h"
 
 /* The heat a stream side exchanges above the shifted temperature p: the
  * side's duty times the part of its stream's heat between its terminal

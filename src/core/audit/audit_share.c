@@ -3,7 +3,7 @@
 #include <math.h>
 #include <stdlib.h>
 
-#include "audit_private.h"
+#include "audit_int.h"
 #include "exchanger.h"
 
 /* Temperature of a rising polyline at heat h: the right-hand limit

@@ -12,7 +12,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "existing_private.h"
+#include "existing_int.h"
 
 const char *
 hl_existing_role_name(hl_unit_role r)
@@ -325,7 +325,7 @@ totals(const hl_case *c, hl_existing *net)
 		if (isnan(u->area))
 			continue;
 		net->area += u->area;
-		net->shells += u->shells;
+		net->shells += u->shells * (u->parallel > 1 ? u->parallel : 1);
 		net->nestimated += (size_t)u->area_estimated;
 		if (u->role == HL_ROLE_RECOVERY)
 			net->area_recovery += u->area;

@@ -98,7 +98,10 @@ typedef struct {
 	double u;           /* kW/(m²·K) from the film coefficients */
 	double lmtd;        /* K, counterflow, from the ends as read */
 	double f;           /* F of its shells (1 for counterflow) */
-	int shells;         /* given, else estimated */
+	hl_exchanger_type type; /* its row's, else hl_case_pair_type */
+	int shells;         /* in series: given, else estimated */
+	int parallel;       /* trains in parallel (estimated area), 1 */
+	unsigned warn;      /* HL_EXCH_WARN_* of an estimated area */
 	double area;        /* m², given or estimated; NaN when neither */
 	int area_estimated; /* 1: estimated, not given */
 	double approach;    /* K, the smaller end difference */

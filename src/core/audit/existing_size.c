@@ -3,7 +3,7 @@
 #include <stdio.h>
 
 #include "exchanger.h"
-#include "existing_private.h"
+#include "existing_int.h"
 
 /* Heat-weighted film coefficient of a stream over [lo, hi]:
  * 1/h = Σ(q_j/h_j) / Σq_j over its segments there (series resistances
@@ -58,6 +58,13 @@ side_h(const hl_case *c, hl_side *sd)
 	}
 }
 
+static const char *
+side_name(const hl_case *c, const hl_side *sd)
+{
+	return sd->stream >= 0 ? c->stream[sd->stream].name :
+	       sd->util >= 0 ? c->util[sd->util].name : "";
+}
+
 static double
 side_shift(const hl_case *c, const hl_side *sd)
 {
@@ -99,50 +106,83 @@ approach(hl_existing_work *w, hl_existing_unit *u)
 	return rc < 0 ? hl_error_nomem(w->err) : HL_OK;
 }
 
-/* F and shells: the given count if it can do the duty, else the Xp rule
- * (Ahmad, Linnhoff & Smith 1988), else counterflow. Only an estimate is
+/* The sizing API's spec for unit u (its type's law and limits). */
+static void
+unit_spec(const hl_existing_work *w, const hl_existing_unit *u, int series,
+	  hl_exchanger_spec *s)
+{
+	hl_exchanger_spec_type(s, &w->c->set, u->type);
+	s->hot_in = u->hot.t_in;
+	s->hot_out = u->hot.t_out;
+	s->cold_in = u->cold.t_in;
+	s->cold_out = u->cold.t_out;
+	s->duty = u->duty;
+	s->u = u->u;
+	s->series = series;
+}
+
+/* Through hl_exchanger_size: the given shells (sections) if they can do
+ * the duty, else the fewest the rules allow (Xp rule of Ahmad, Linnhoff &
+ * Smith 1988 for shell-and-tube), else counterflow. Only an estimate is
  * worth a warning: a given area stands whatever its shells. */
 static hl_status
-shells_f(hl_existing_work *w, hl_existing_unit *u, int given, int quiet)
+size_unit(hl_existing_work *w, hl_existing_unit *u, int given, int quiet,
+	  hl_exchanger_sizing *z)
 {
-	const hl_settings *set = &w->c->set;
-	double p, r;
-	int n, rc = 0;
+	hl_exchanger_spec s;
+	int ac = u->type == HL_EXCH_AIR_COOLER;
+	const char *what = ac ? "crossflow sections" : "shells";
+	int rc = 0;
 
-	u->f = 1.0;
-	u->shells = given > 0 ? given : 1;
-	if (set->exchanger == HL_EXCH_COUNTERFLOW ||
-	    hl_exchanger_pr(u->hot.t_in, u->hot.t_out, u->cold.t_in,
-			    u->cold.t_out, &p, &r, NULL) != HL_OK ||
-	    p == 0.0 || r == 0.0 || !isfinite(r))
+	unit_spec(w, u, given, &s);
+	if (hl_exchanger_size(&s, z, NULL) == HL_OK)
 		return HL_OK;
-	if (given > 0 && hl_exchanger_f_shells(p, r, given, &u->f, NULL) ==
-	    HL_OK)
-		return HL_OK;
-	if (hl_exchanger_shells(p, r, set->fmin, set->xp, &n, &u->f, NULL,
-				NULL) == HL_OK) {
+	s.series = 0;
+	if (hl_exchanger_size(&s, z, NULL) == HL_OK) {
 		if (given > 0 && quiet)
-			n = given;
+			z->shells = given;
 		else if (given > 0)
 			rc = hl_existing_warn(w->net, u->file, u->line,
-				"unit '%s': %d shell%s in series cannot do "
-				"this duty at these temperatures; its area is "
+				"unit '%s': %d %s%s in series cannot do this "
+				"duty at these temperatures; its area is "
 				"estimated with %d", u->name, given,
-				given == 1 ? "" : "s", n);
-		u->shells = n;
-	} else if (!quiet) {
-		u->f = 1.0;
-		rc = hl_existing_warn(w->net, u->file, u->line, "unit '%s': no "
-			"shell-and-tube unit of up to %d shells in series fits "
-			"these temperatures; its area is estimated as "
-			"counterflow", u->name, HL_EXCHANGER_MAX_SHELLS);
+				ac ? "crossflow section" : "shell",
+				given == 1 ? "" : "s", z->shells);
+		return rc < 0 ? hl_error_nomem(w->err) : HL_OK;
 	}
+	s.type = HL_EXCH_COUNTERFLOW;
+	if (hl_exchanger_size(&s, z, w->err) != HL_OK)
+		return w->err != NULL ? w->err->status : HL_EINPUT;
+	z->shells = given > 0 ? given : 1;
+	if (!quiet)
+		rc = hl_existing_warn(w->net, u->file, u->line, "unit '%s': "
+			"no %s unit of up to %d %s in series fits these "
+			"temperatures; its area is estimated as counterflow",
+			u->name, hl_exchanger_type_name(u->type),
+			HL_EXCHANGER_MAX_SHELLS, what);
 	return rc < 0 ? hl_error_nomem(w->err) : HL_OK;
+}
+
+/* An implausible U or shell of an estimated area (hl_exchanger_warning). */
+static hl_status
+plausible(hl_existing_work *w, hl_existing_unit *u,
+	  const hl_exchanger_sizing *z)
+{
+	hl_exchanger_spec s;
+	char why[300];
+
+	if (z->warn == 0)
+		return HL_OK;
+	unit_spec(w, u, 0, &s);
+	hl_exchanger_warning(&s, z, why, sizeof why);
+	return hl_existing_warn(w->net, u->file, u->line, "unit '%s': %s",
+	    u->name, why) < 0 ? hl_error_nomem(w->err) : HL_OK;
 }
 
 hl_status
 hl_existing_size(hl_existing_work *w, hl_existing_unit *u, const hl_unit *row)
 {
+	hl_exchanger_sizing z;
 	hl_status st;
 
 	u->lmtd = u->u = u->f = NAN;
@@ -152,21 +192,42 @@ hl_existing_size(hl_existing_work *w, hl_existing_unit *u, const hl_unit *row)
 	st = approach(w, u);
 	if (st != HL_OK)
 		return st;
+	u->type = row != NULL && row->type_given ?
+	    (hl_exchanger_type)row->type : hl_case_pair_type(w->c,
+	    side_name(w->c, &u->hot), side_name(w->c, &u->cold));
+	if ((u->type == HL_EXCH_FIRED_HEATER && u->hot.util < 0) ||
+	    (u->type == HL_EXCH_AIR_COOLER && u->cold.util < 0))
+		return hl_error_set(w->err, HL_EINPUT, u->file, u->line,
+			"unit '%s': a %s needs a %s utility on its %s side",
+			u->name, hl_exchanger_type_name(u->type),
+			u->type == HL_EXCH_FIRED_HEATER ? "hot" : "cold",
+			u->type == HL_EXCH_FIRED_HEATER ? "hot" : "cold");
 	side_h(w->c, &u->hot);
 	side_h(w->c, &u->cold);
 	hl_exchanger_u(u->hot.h, u->cold.h, &u->u, NULL);
 	hl_exchanger_lmtd(u->hot.t_in - u->cold.t_out,
 			  u->hot.t_out - u->cold.t_in, &u->lmtd, NULL);
-	st = shells_f(w, u, row ? row->shells : 0,
-		      row != NULL && !isnan(row->area));
+	st = size_unit(w, u, row ? row->shells : 0,
+		       row != NULL && !isnan(row->area), &z);
 	if (st != HL_OK)
 		return st;
+	u->f = z.f;
+	u->shells = z.shells;
+	u->parallel = 1;
 	if (row != NULL && !isnan(row->area)) {
 		u->area = row->area;
 		return HL_OK;
 	}
-	/* Q = U·A·F·LMTD (Kern 1950, eq. 7.41 for F). */
-	u->area = u->duty / (u->u * u->f * u->lmtd);
+	u->parallel = z.parallel;
+	/* Q = U·A·F·LMTD (Kern 1950, eq. 7.41 for F), by hl_exchanger_size;
+	 * a fired heater's area, which the audit's area shares need, as
+	 * counterflow. */
+	u->area = u->type == HL_EXCH_FIRED_HEATER ?
+	    u->duty / (u->u * u->lmtd) : z.area;
+	u->warn = z.warn;
+	st = plausible(w, u, &z);
+	if (st != HL_OK)
+		return st;
 	u->area_estimated = 1;
 	return HL_OK;
 }

@@ -9,7 +9,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "existing_private.h"
+#include "existing_int.h"
 
 /* One unit's side on the stream being walked. */
 typedef struct {
@@ -306,7 +306,7 @@ walk_entries(hl_existing_work *w, long si, entry *e, size_t n)
 	hl_status st = HL_OK;
 
 	for (i = 0; i < n && st == HL_OK; i++) {
-		double gi = e[i].side->given_in, start;
+		double gi = e[i].side->given_in, start = pos;
 
 		/* A branch starts where the group started, not where the
 		 * units before it left the stream. */
@@ -322,12 +322,13 @@ walk_entries(hl_existing_work *w, long si, entry *e, size_t n)
 		if (st == HL_OK)
 			st = start_of(w, si, &e[i], i > 0 ? &e[i - 1] : NULL,
 				      pos, &start);
+		if (st != HL_OK)
+			break;  /* start is unset: nothing below may read it */
 		g0 = i;
 		gstart = start;
 		gin = gi;
 		pos = start + e[i].u->duty;
-		if (st == HL_OK)
-			st = check_end(w, s, &e[i], pos);
+		st = check_end(w, s, &e[i], pos);
 	}
 	if (st == HL_OK)
 		st = close_group(w, s, e + g0, n - g0, gstart, pos);

@@ -1,4 +1,5 @@
-/* glpk_guard.c - GLPK hooks and status mapping (design.md, "GLPK rules"). */
+/* glpk_guard.c - GLPK hooks and status mapping (doc/design.md,
+ * "Conventions"). */
 #include <limits.h>
 #include <math.h>
 #include <string.h>
@@ -139,13 +140,6 @@ simplex(glp_prob *P, hl_glpk_guard *g, double time_limit, const char *what,
 	return hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
 		"%s ended without a proven optimum (GLPK status %d)", what,
 		stat);
-}
-
-hl_status
-hl_glpk_simplex(glp_prob *P, hl_glpk_guard *g, double time_limit,
-		const char *what, hl_error *err)
-{
-	return simplex(P, g, time_limit, what, PRESOLVE, err);
 }
 
 hl_status

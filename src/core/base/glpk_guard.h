@@ -1,9 +1,9 @@
 /* glpk_guard.h - running GLPK without letting it print, abort or hang.
  *
  * GLPK reports a misuse of its API (a bad index, inconsistent bounds) by
- * printing a message and calling abort(). design.md forbids both in the core:
- * a guard installs glp_error_hook with a jump back into the caller, sends
- * GLPK's terminal output to a log callback (or nowhere), and maps the
+ * printing a message and calling abort(). doc/design.md forbids both in the
+ * core: a guard installs glp_error_hook with a jump back into the caller,
+ * sends GLPK's terminal output to a log callback (or nowhere), and maps the
  * outcome of a solver call to an hl_status with a sentence a user
  * understands.
  *
@@ -15,7 +15,7 @@
  *	hl_glpk_guard_begin(&g, log, ctx, verbose);
  *	if (HL_GLPK_CRASHED(&g))
  *		return hl_glpk_guard_crash(&g, "the utility LP", err);
- *	P = glp_create_prob(); ... hl_glpk_simplex(P, &g, ...) ...
+ *	P = glp_create_prob(); ... hl_glpk_simplex_direct(P, &g, ...) ...
  *	glp_delete_prob(P);
  *	hl_glpk_guard_end(&g);
  *
@@ -40,7 +40,7 @@ typedef struct {
 	hl_glpk_log log;   /* NULL: discard */
 	void *log_ctx;
 	int verbose;       /* 1: GLPK's progress messages are produced */
-	int infeasible;    /* set by hl_glpk_simplex: proven infeasible */
+	int infeasible;    /* set by the simplex calls: proven infeasible */
 	char last[256];    /* the last line GLPK wrote, for error messages */
 	size_t lastlen;
 } hl_glpk_guard;
@@ -60,13 +60,11 @@ void hl_glpk_guard_end(hl_glpk_guard *g);
 hl_status hl_glpk_guard_crash(hl_glpk_guard *g, const char *what,
 			      hl_error *err);
 
-/* The simplex method on P with a time limit (s, > 0), presolve, scaling and
- * the guard's message level. HL_OK only when the solution is proven optimal;
+/* The simplex method on P with a time limit (s, > 0), scaling and the
+ * guard's message level. HL_OK only when the solution is proven optimal;
  * otherwise HL_ENOSOLUTION with a sentence naming what ("the utility LP"):
- * infeasible (g->infeasible = 1), unbounded, time limit, numerical trouble. */
-hl_status hl_glpk_simplex(glp_prob *P, hl_glpk_guard *g, double time_limit,
-			  const char *what, hl_error *err);
-/* The same, answered by the plain simplex on the original rows. GLPK's
+ * infeasible (g->infeasible = 1), unbounded, time limit, numerical trouble.
+ * The answer comes from the plain simplex on the original rows: GLPK's
  * presolver's tolerance-based reductions can return an "optimal" point of
  * the original LP that leaves heat unserved (seen: 4e-4 kW in a utility LP
  * a 0.01 kW step from a change of basis, the cost too low by half) or call

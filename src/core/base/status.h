@@ -11,7 +11,8 @@
 
 #include <stddef.h>
 
-/* The numeric values are the process exit codes (design.md, "Errors"). */
+/* The numeric values are the process exit codes (doc/design.md,
+ * "Contracts"). */
 typedef enum {
 	HL_OK = 0,
 	HL_EUSAGE = 1,      /* bad command line */

@@ -29,8 +29,8 @@ expm1_ratio(double z)
 
 /* Counterflow NTU referred to the P side, NTU_cf = ln[(1−PR)/(1−P)]/(1−R)
  * (Kern 1950, eq. 7.41 numerator), in log1p form; needs p < 1 and p·r < 1. */
-static double
-ntu_counterflow(double p, double r)
+double
+hl_exchanger_ntu_counterflow(double p, double r)
 {
 	double x = p * (1.0 - r) / (1.0 - p);
 
@@ -39,8 +39,8 @@ ntu_counterflow(double p, double r)
 
 /* Counterflow effectiveness of the reference side at ratio r >= 0
  * (Incropera & DeWitt, table 11.3, counterflow row) as E/(1 + E). */
-static double
-eps_counterflow(double ntu, double r)
+double
+hl_exchanger_eps_cf(double ntu, double r)
 {
 	double e = ntu * expm1_ratio((1.0 - r) * ntu);
 
@@ -168,7 +168,7 @@ f_one_shell(double p, double r, double *f, hl_error *err)
 		    "P = %.6g is at or above %.6g, the most one shell can "
 		    "reach at R = %.6g: no F exists; use more shells in series",
 		    p, hl_exchanger_pmax(r), r);
-	value = s * ntu_counterflow(p, r) / log1p(2.0 * p * s / b);
+	value = s * hl_exchanger_ntu_counterflow(p, r) / log1p(2.0 * p * s / b);
 	/* F <= 1 holds exactly; rounding at tiny P or R may overshoot. */
 	*f = value > 1.0 ? 1.0 : value;
 	return HL_OK;
@@ -216,7 +216,7 @@ check_series(double p, double r, int n, hl_error *err)
 static double
 p_shell(double p, double r, int n)
 {
-	return eps_counterflow(ntu_counterflow(p, r) / n, r);
+	return hl_exchanger_eps_cf(hl_exchanger_ntu_counterflow(p, r) / n, r);
 }
 
 /* N equal shells in series: per-shell P1 from the overall P (see p_shell). */
@@ -252,8 +252,8 @@ hl_exchanger_shells_estimate(double p, double r, double xp)
 {
 	if (check_series(p, r, 1, NULL) != HL_OK || !(xp > 0.0 && xp <= 1.0))
 		return NAN;
-	return ntu_counterflow(p, r) /
-	    ntu_counterflow(xp * hl_exchanger_pmax(r), r);
+	return hl_exchanger_ntu_counterflow(p, r) /
+	    hl_exchanger_ntu_counterflow(xp * hl_exchanger_pmax(r), r);
 }
 
 /* Whether n shells meet both rules; fills F and P1 when they do. */
@@ -335,7 +335,7 @@ hl_exchanger_eps_counterflow(double ntu, double cr, double *eps,
 	st = check_ntu(ntu, cr, err);
 	if (st != HL_OK)
 		return st;
-	*eps = eps_counterflow(ntu, cr);
+	*eps = hl_exchanger_eps_cf(ntu, cr);
 	return HL_OK;
 }
 
@@ -373,7 +373,7 @@ hl_exchanger_eps_shells(double ntu, double cr, int n, double *eps,
 		*eps = -expm1(-ntu);
 		return HL_OK;
 	}
-	*eps = eps_counterflow(n * ntu_counterflow(e1, cr), cr);
+	*eps = hl_exchanger_eps_cf(n * hl_exchanger_ntu_counterflow(e1, cr), cr);
 	return HL_OK;
 }
 
@@ -388,119 +388,5 @@ hl_exchanger_u(double h_hot, double h_cold, double *u, hl_error *err)
 		    "film coefficients %.6g and %.6g kW/(m²·K) must both be "
 		    "positive numbers", h_hot, h_cold);
 	*u = 1.0 / (1.0 / h_hot + 1.0 / h_cold);
-	return HL_OK;
-}
-
-void
-hl_exchanger_spec_settings(hl_exchanger_spec *spec, const hl_settings *set)
-{
-	spec->type = set->exchanger;
-	spec->fmin = set->fmin;
-	spec->xp = set->xp;
-	spec->cost_a = set->cost_a;
-	spec->cost_b = set->cost_b;
-	spec->cost_c = set->cost_c;
-}
-
-/* Everything but the temperatures, which check_temperatures covers. */
-static hl_status
-check_spec(const hl_exchanger_spec *s, hl_error *err)
-{
-	if (!(s->duty > 0.0 && isfinite(s->duty)))
-		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "duty %.6g kW is not a positive number: give the heat "
-		    "the exchanger transfers, in kW", s->duty);
-	if (!(s->u > 0.0 && isfinite(s->u)))
-		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "overall coefficient U %.6g kW/(m²·K) is not a positive "
-		    "number: check the film coefficients", s->u);
-	if (s->type != HL_EXCH_SHELL_TUBE && s->type != HL_EXCH_COUNTERFLOW)
-		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "unknown exchanger type %d", (int)s->type);
-	if (!(s->cost_a >= 0.0 && s->cost_b >= 0.0 && s->cost_c > 0.0 &&
-	    isfinite(s->cost_a) && isfinite(s->cost_b) && isfinite(s->cost_c)))
-		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "cost law a + b·A^c needs a >= 0, b >= 0, c > 0 "
-		    "(got a %.6g, b %.6g, c %.6g)",
-		    s->cost_a, s->cost_b, s->cost_c);
-	return HL_OK;
-}
-
-/* Q = U·A·F·LMTD (Kern 1950, ch. 7) with the shell count of
- * hl_exchanger_shells, cost per shell a + b·A_shell^c. */
-hl_status
-hl_exchanger_size(const hl_exchanger_spec *spec, hl_exchanger_sizing *out,
-		  hl_error *err)
-{
-	hl_exchanger_sizing z;
-	hl_status st;
-
-	st = hl_exchanger_pr(spec->hot_in, spec->hot_out, spec->cold_in,
-	    spec->cold_out, &z.p, &z.r, err);
-	if (st == HL_OK)
-		st = check_spec(spec, err);
-	if (st == HL_OK)
-		st = hl_exchanger_lmtd(spec->hot_in - spec->cold_out,
-		    spec->hot_out - spec->cold_in, &z.lmtd, err);
-	if (st != HL_OK)
-		return st;
-	z.f = 1.0;
-	z.shells = 1;
-	if (spec->type == HL_EXCH_SHELL_TUBE) {
-		st = hl_exchanger_shells(z.p, z.r, spec->fmin, spec->xp,
-		    &z.shells, &z.f, NULL, err);
-		if (st != HL_OK)
-			return st;
-	}
-	z.area = spec->duty / (spec->u * z.f * z.lmtd);
-	z.area_shell = z.area / z.shells;
-	z.cost = z.shells * (spec->cost_a +
-	    spec->cost_b * pow(z.area_shell, spec->cost_c));
-	if (!isfinite(z.area) || !isfinite(z.cost))
-		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "area or cost overflows (duty %.6g kW, U %.6g, LMTD "
-		    "%.6g K): check the units of duty and U",
-		    spec->duty, spec->u, z.lmtd);
-	*out = z;
-	return HL_OK;
-}
-
-/* ε-NTU rating (Incropera & DeWitt, ch. 11): duty = ε·Cmin·(hot_in − cold_in). */
-hl_status
-hl_exchanger_rate(double hot_in, double cold_in, double cp_hot,
-		  double cp_cold, double ua, hl_exchanger_type type,
-		  int shells, hl_exchanger_rating *out, hl_error *err)
-{
-	hl_exchanger_rating z;
-	double cmin, cmax;
-	hl_status st;
-
-	if (!(isfinite(hot_in) && isfinite(cold_in) && hot_in >= cold_in))
-		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "hot inlet %.6g °C must be a number not below the cold "
-		    "inlet %.6g °C", hot_in, cold_in);
-	if (!(cp_hot > 0.0 && cp_cold > 0.0 && isfinite(cp_hot) &&
-	    isfinite(cp_cold) && ua >= 0.0 && isfinite(ua)))
-		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "cp %.6g and %.6g kW/K must be positive and UA %.6g kW/K "
-		    "not negative", cp_hot, cp_cold, ua);
-	cmin = fmin(cp_hot, cp_cold);
-	cmax = fmax(cp_hot, cp_cold);
-	z.ntu = ua / cmin;
-	if (type == HL_EXCH_COUNTERFLOW)
-		st = hl_exchanger_eps_counterflow(z.ntu, cmin / cmax, &z.eps,
-		    err);
-	else if (type == HL_EXCH_SHELL_TUBE)
-		st = hl_exchanger_eps_shells(z.ntu, cmin / cmax, shells,
-		    &z.eps, err);
-	else
-		st = hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "unknown exchanger type %d", (int)type);
-	if (st != HL_OK)
-		return st;
-	z.duty = z.eps * cmin * (hot_in - cold_in);
-	z.hot_out = hot_in - z.duty / cp_hot;
-	z.cold_out = cold_in + z.duty / cp_cold;
-	*out = z;
 	return HL_OK;
 }

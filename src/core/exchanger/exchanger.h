@@ -2,9 +2,15 @@
  *
  * Pure numerics: nothing here allocates, prints or touches a file.
  *
+ * Every command sizes through one entry point, hl_exchanger_size ("Sizing
+ * by type" below): the type, duty, temperatures, U and the settings in;
+ * shells in series and in parallel, F, area, cost and warnings out. The
+ * rest are its parts (F, shells, crossflow, ε-NTU), usable on their own.
+ *
  * Units: temperatures in °C (differences in K), duties in kW, heat capacity
  * flow rates in kW/K, film and overall coefficients in kW/(m²·K), areas in m²,
- * cost in the case's currency.
+ * cost in the case's currency; a fired heater's cost law takes its duty in
+ * MW, as published furnace laws do.
  *
  * Notation (Kern 1950, ch. 7): T1 → T2 is the hot side, t1 → t2 the cold side.
  * P = (t2 − t1)/(T1 − t1) is the cold side's temperature effectiveness and
@@ -25,6 +31,8 @@
  */
 #ifndef HL_EXCHANGER_H
 #define HL_EXCHANGER_H
+
+#include <stddef.h>
 
 #include "case.h"
 #include "status.h"
@@ -100,63 +108,156 @@ hl_status hl_exchanger_eps_shells(double ntu, double cr, int n, double *eps,
 hl_status hl_exchanger_u(double h_hot, double h_cold, double *u,
 			 hl_error *err);
 
+/* Counterflow NTU referred to the P side at P, R (domain of
+ * hl_exchanger_p_shell); and the counterflow effectiveness of that side at
+ * ntu >= 0, ratio r >= 0 finite (the inverse). No checks: callers hold the
+ * domain. */
+double hl_exchanger_ntu_counterflow(double p, double r);
+double hl_exchanger_eps_cf(double ntu, double r);
+
+/* ---- Crossflow, both fluids unmixed (crossflow.c) ---- */
+
+/* Largest NTU (referred to Cmin) the crossflow functions go to. */
+#define HL_CROSSFLOW_NTU_MAX 60.0
+
+/* Effectiveness of a single-pass crossflow unit with both fluids unmixed.
+ * Domain: 0 <= ntu <= HL_CROSSFLOW_NTU_MAX, 0 <= cr <= 1. HL_EINPUT
+ * otherwise. */
+hl_status hl_exchanger_eps_crossflow(double ntu, double cr, double *eps,
+				     hl_error *err);
+
+/* F of one such crossflow unit at the cold side's P and R = C_cold/C_hot
+ * (the arrangement is symmetric in the two fluids). Domain as
+ * hl_exchanger_f; F = 1 when p = 0 or r = 0. HL_ENOSOLUTION when P needs
+ * more than HL_CROSSFLOW_NTU_MAX. */
+hl_status hl_exchanger_f_crossflow(double p, double r, double *f,
+				   hl_error *err);
+
+/* Fewest identical crossflow sections in series (counter-current
+ * between sections) whose overall F >= fmin; *f their F. Domain: as
+ * hl_exchanger_p_shell, 0 <= fmin < 1. HL_ENOSOLUTION beyond
+ * HL_EXCHANGER_MAX_SHELLS sections. */
+hl_status hl_exchanger_sections_crossflow(double p, double r, double fmin,
+					  int *n, double *f, hl_error *err);
+
+/* ---- Sizing by type (sizing.c): the one entry point every command uses ----
+ *
+ * Given the type, the duty, the four terminal temperatures, U and the
+ * settings (F floor, Xp, the type's cost law and its largest and smallest
+ * shell), hl_exchanger_size returns shells in series, shells in parallel,
+ * F, area and cost:
+ *   shell-and-tube  shells in series by the F floor and the Xp rule, F of
+ *                   Bowman, Mueller & Nagle (1940); A = Q/(U·F·LMTD)
+ *   counterflow     F = 1, one unit
+ *   plate           F = 1 (counterflow plates), one unit
+ *   double-pipe     F = 1; hairpins in series, each at most `largest` m²
+ *   air-cooler      crossflow, both fluids unmixed; sections in series
+ *                   until F >= fmin
+ *   fired-heater    by duty: no area, no F, no U; X = duty in MW
+ * Every type but double pipe puts shells (units) in parallel once one
+ * shell would exceed `largest`; the cost is
+ *   series · parallel · (a + b · X^c),
+ * X the area of one shell (m²), or the duty of one fired heater (MW). */
+
 /* What to size. */
 typedef struct {
 	double hot_in, hot_out;   /* °C */
 	double cold_in, cold_out; /* °C */
 	double duty;              /* kW, > 0 */
-	double u;                 /* kW/(m²·K), > 0 */
+	double u;                 /* kW/(m²·K), > 0; ignored for fired heaters */
 	hl_exchanger_type type;
-	double fmin;              /* F floor, [0, 1); ignored for counterflow */
-	double xp;                /* (0, 1]; ignored for counterflow */
-	double cost_a;            /* cost per shell a + b·A_shell^c; a, b >= 0 */
+	double fmin;              /* F floor, [0, 1); shell-and-tube, air cooler */
+	double xp;                /* (0, 1]; shell-and-tube */
+	double cost_a;            /* cost per shell a + b·X^c; a, b >= 0 */
 	double cost_b;
 	double cost_c;            /* > 0 */
+	double largest;           /* X of the largest shell; HUGE_VAL or 0:
+				     no limit */
+	double smallest;          /* X below which a shell is implausible;
+				     0: none */
+	int series;               /* 0: the fewest shells (sections,
+				     hairpins) in series the rules allow;
+				     n > 0: exactly n, as an existing unit
+				     has (HL_ENOSOLUTION when n cannot do
+				     the duty) */
 } hl_exchanger_spec;
+
+/* Warnings: the sizing stands, but a number looks wrong. */
+#define HL_EXCH_WARN_SMALL 1u   /* a shell below the smallest plausible */
+#define HL_EXCH_WARN_U_LOW 2u   /* U below HL_EXCH_U_LOW */
+#define HL_EXCH_WARN_U_HIGH 4u  /* U above HL_EXCH_U_HIGH */
+/* Plausible overall coefficients, kW/(m²·K): gas to gas at low pressure
+ * to condensing steam against boiling water (common practice, no source). */
+#define HL_EXCH_U_LOW 0.01
+#define HL_EXCH_U_HIGH 10.0
 
 /* What sizing gives. */
 typedef struct {
 	double lmtd;       /* K, counterflow LMTD of the terminal temperatures */
 	double p, r;       /* as hl_exchanger_pr */
-	double f;          /* overall F of all shells (1 for counterflow) */
-	int shells;        /* shells in series (1 for counterflow) */
-	double area;       /* m², total: duty/(u·f·lmtd) */
-	double area_shell; /* m², area/shells */
-	double cost;       /* shells·(a + b·area_shell^c) */
+	double f;          /* overall F (1 for counterflow, plate, double
+			      pipe, fired heater) */
+	int shells;        /* shells in series: hairpins (double pipe),
+			      sections (air cooler); 1 otherwise */
+	int parallel;      /* trains of `shells` in parallel, >= 1 */
+	double area;       /* m², total: duty/(u·f·lmtd); 0 fired heater */
+	double area_shell; /* m², area/(shells·parallel) */
+	double x;          /* the cost law's X for one shell: area_shell, or
+			      MW per fired heater */
+	double cost;       /* shells·parallel·(a + b·x^c) */
+	unsigned warn;     /* HL_EXCH_WARN_* */
 } hl_exchanger_sizing;
 
-/* Fill the type, F floor, Xp and cost law of spec from case settings; the
- * temperatures, duty and U are left as they are. */
+/* Fill the type, F floor, Xp, cost law and shell limits of spec for the
+ * case's exchanger type (hl_exchanger_spec_type for another type), series
+ * 0 (the fewest); the temperatures, duty and U are left as they are. */
 void hl_exchanger_spec_settings(hl_exchanger_spec *spec,
 				const hl_settings *set);
+void hl_exchanger_spec_type(hl_exchanger_spec *spec, const hl_settings *set,
+			    hl_exchanger_type type);
+
+/* The law of type t under set: its own a, b, c, or (a NaN) the process
+ * law cost_a, cost_b, cost_c. */
+void hl_exchanger_law_of(const hl_settings *set, hl_exchanger_type t,
+			 double *a, double *b, double *c);
 
 /* Size one exchanger. HL_EINPUT (with a sentence naming the offending
  * numbers) for: a non-finite number; a hot outlet above its inlet; a cold
  * outlet below its inlet; a hot inlet not above the cold outlet or a hot
  * outlet not above the cold inlet (no exchanger of any kind can do that);
- * duty or U not positive; fmin, xp or the cost law outside their domains.
- * HL_ENOSOLUTION when a shell-and-tube unit would need more than
- * HL_EXCHANGER_MAX_SHELLS shells. A temperature cross (cold outlet above hot
- * outlet) is normal for shell-and-tube and only raises the shell count. */
+ * duty or U not positive; fmin, xp, the cost law or the shell limits
+ * outside their domains. HL_ENOSOLUTION when a shell-and-tube unit or an
+ * air cooler would need more than HL_EXCHANGER_MAX_SHELLS in series. A
+ * temperature cross (cold outlet above hot outlet) is normal for
+ * shell-and-tube and only raises the shell count. */
 hl_status hl_exchanger_size(const hl_exchanger_spec *spec,
 			    hl_exchanger_sizing *out, hl_error *err);
 
-/* What rating gives. */
-typedef struct {
-	double duty;     /* kW */
-	double hot_out;  /* °C */
-	double cold_out; /* °C */
-	double ntu;      /* UA/Cmin */
-	double eps;      /* duty/(Cmin·(hot_in − cold_in)) */
-} hl_exchanger_rating;
+/* Redo the area-dependent part of z (area, parallel, area per shell, X,
+ * cost, warnings) for the total area z->area with z->shells in series:
+ * for a caller with a better mean than the terminal LMTD (a unit across a
+ * change of cp). spec as for hl_exchanger_size, already checked. */
+void hl_exchanger_price(const hl_exchanger_spec *spec,
+			hl_exchanger_sizing *z);
 
-/* Rate a given unit: from inlet temperatures (°C, hot_in >= cold_in), heat
- * capacity flow rates cp_hot, cp_cold (kW/K, > 0 finite) and ua (kW/K, >= 0),
- * the duty and outlet temperatures. type counterflow ignores shells;
- * shell-and-tube needs shells >= 1. HL_EINPUT outside that domain. */
-hl_status hl_exchanger_rate(double hot_in, double cold_in, double cp_hot,
-			    double cp_cold, double ua, hl_exchanger_type type,
-			    int shells, hl_exchanger_rating *out,
-			    hl_error *err);
+/* One phrase naming the cost law and shell limits of type t under set,
+ * and whether the case set them or they are the illustrative defaults,
+ * into buf of size n; e.g. "plate: 5000 + 500·A^0.85 per unit, A in m²,
+ * largest 1500 m² (illustrative default, not a price)". */
+void hl_exchanger_law_text(const hl_settings *set, hl_exchanger_type t,
+			   char *buf, size_t n);
+
+/* 1 when the cost law of type t is the built-in illustrative one: the
+ * case set neither the type's law nor (for the types that use it) a
+ * process law other than the default. */
+int hl_exchanger_law_illustrative(const hl_settings *set,
+				  hl_exchanger_type t);
+
+/* One sentence for z->warn (empty when none) into buf of size n. */
+void hl_exchanger_warning(const hl_exchanger_spec *spec,
+			  const hl_exchanger_sizing *z, char *buf, size_t n);
+
+/* Rating (a unit of known area in new conditions) is rating.h's: one
+ * entry point, hl_rating_run, for every type but the fired heater. */
 
 #endif

@@ -4,6 +4,7 @@
 
 #include "exchanger.h"
 #include "profile.h"
+#include "sorted.h"
 
 /* Distance (K) run from the supply end: a hot stream runs down, a cold one
  * up. */
@@ -91,14 +92,6 @@ corners(const hl_profile_side *s, int hot, double d, double *p, size_t n)
 	return n;
 }
 
-static int
-cmp_double(const void *a, const void *b)
-{
-	double x = *(const double *)a, y = *(const double *)b;
-
-	return (x > y) - (x < y);
-}
-
 /* The film coefficient of the side where its temperature is t. */
 static double
 side_h(const hl_profile_side *s, double t, int *assumed)
@@ -139,7 +132,7 @@ hl_profile_unit_eval(const hl_profile_side *hot, const hl_profile_side *cold,
 		n = corners(cold, 0, d, p, n);
 	}
 	p[n++] = d;
-	qsort(p + 1, n - 2, sizeof *p, cmp_double);
+	qsort(p + 1, n - 2, sizeof *p, hl_sorted_cmp_asc);
 	for (i = 1; i + 1 < n; i++)
 		dt[i] = side_temp(hot, 1, p[i], d) - side_temp(cold, 0, p[i],
 							     d);

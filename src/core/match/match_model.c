@@ -27,6 +27,7 @@
 #include <string.h>
 
 #include "match_int.h"
+#include "sorted.h"
 
 static double
 heat(const hl_match_problem *p, size_t i, size_t k)
@@ -489,14 +490,6 @@ add_logic_rows(builder *bd, const hl_match_sd *sd)
 		}
 }
 
-static int
-cmp_desc(const void *x, const void *y)
-{
-	double a = *(const double *)x, b = *(const double *)y;
-
-	return (a < b) - (a > b);
-}
-
 /* Fewest matches of party i: how many of its largest U's cover its heat. */
 static size_t
 cover_count(const hl_match_problem *p, const hl_match_sd *sd, size_t i,
@@ -509,7 +502,7 @@ cover_count(const hl_match_problem *p, const hl_match_sd *sd, size_t i,
 		if (sd->ycol[o] != 0 && (p->hot[o / p->ncold] == i ||
 		    p->cold[o % p->ncold] == i))
 			buf[n++] = sd->U[o];
-	qsort(buf, n, sizeof *buf, cmp_desc);
+	qsort(buf, n, sizeof *buf, hl_sorted_cmp_desc);
 	for (m = 0; m < n && sum < need; m++)
 		sum += buf[m];
 	return m;
@@ -546,7 +539,7 @@ window_count(double *cap, size_t n, double need)
 	size_t m;
 	double sum = 0.0;
 
-	qsort(cap, n, sizeof *cap, cmp_desc);
+	qsort(cap, n, sizeof *cap, hl_sorted_cmp_desc);
 	for (m = 0; m < n && sum < need; m++)
 		sum += cap[m];
 	return m;

@@ -8,20 +8,13 @@
 
 #include "cascade.h"
 #include "match_int.h"
+#include "sorted.h"
 
 /* Above this many party-interval cells the MILP is out of reach anyway. */
 #define MAX_CELLS 20000000u
 
 static const char implicit_hot[] = "hot utility";
 static const char implicit_cold[] = "cold utility";
-
-static int
-cmp_desc(const void *a, const void *b)
-{
-	double x = *(const double *)a, y = *(const double *)b;
-
-	return (x < y) - (x > y);
-}
 
 static int
 uses_case_utilities(const hl_case *c, const double *util_load)
@@ -151,7 +144,7 @@ build_boundaries(hl_match_problem *p, int with_util)
 		t[n++] = c->util[i].supply + sh;
 		t[n++] = c->util[i].target + sh;
 	}
-	qsort(t, n, sizeof *t, cmp_desc);
+	qsort(t, n, sizeof *t, hl_sorted_cmp_desc);
 	for (i = 1, u = 1; i < n; i++)
 		if (t[u - 1] - t[i] > 1e-9 * (1.0 + fabs(t[i])))
 			t[u++] = t[i];

@@ -31,6 +31,18 @@ hl_network_party_free(hl_network_party *p)
 	p->seg = NULL;
 }
 
+int
+hl_network_has_credit(const hl_network *net)
+{
+	size_t i;
+
+	for (i = 0; i < net->nparty; i++)
+		if (net->party[i].utility && net->party[i].price < 0.0 &&
+		    net->party[i].load > 0.0)
+			return 1;
+	return 0;
+}
+
 void
 hl_network_free(hl_network *net)
 {
@@ -47,6 +59,7 @@ hl_network_free(hl_network *net)
 	free(net->party);
 	free(net->unit);
 	free(net->note);
+	free(net->typed);
 	free(net->set.currency);
 	free(net->source);
 	free(net);
@@ -149,6 +162,54 @@ side_of(const hl_network *net, const hl_network_party *p, double t_in,
 	s->h = p->utility && !isnan(p->h) ? p->h : net->set.h_default;
 }
 
+hl_exchanger_type
+hl_network_unit_type(const hl_network *net, size_t hot, size_t cold)
+{
+	const hl_network_party *h = &net->party[hot], *c = &net->party[cold];
+	size_t i;
+	int pass;
+
+	/* Pass 0: pairs named on both sides; pass 1: with a wildcard. */
+	for (pass = 0; pass < 2; pass++)
+		for (i = 0; i < net->ntyped; i++) {
+			const hl_network_typed *t = &net->typed[i];
+
+			if ((t->hot < 0 || t->cold < 0) == pass &&
+			    (t->hot < 0 || (size_t)t->hot == hot) &&
+			    (t->cold < 0 || (size_t)t->cold == cold))
+				return t->type;
+		}
+	if (h->utility && h->type_given)
+		return (hl_exchanger_type)h->type;
+	if (c->utility && c->type_given)
+		return (hl_exchanger_type)c->type;
+	return net->set.exchanger;
+}
+
+/* The spec of unit u: its type's law, or its utility's own cost law. */
+static void
+unit_spec(const hl_network *net, const hl_network_unit *u,
+	  hl_exchanger_spec *spec)
+{
+	const hl_network_party *h = &net->party[u->hot];
+	const hl_network_party *c = &net->party[u->cold];
+	const hl_network_party *util = h->utility && h->cost_given ? h :
+	    c->utility && c->cost_given ? c : NULL;
+
+	hl_exchanger_spec_type(spec, &net->set, u->type);
+	if (util != NULL) {
+		spec->cost_a = util->cost_a;
+		spec->cost_b = util->cost_b;
+		spec->cost_c = util->cost_c;
+	}
+	spec->hot_in = u->hot_in;
+	spec->hot_out = u->hot_out;
+	spec->cold_in = u->cold_in;
+	spec->cold_out = u->cold_out;
+	spec->duty = u->duty;
+	spec->u = u->u;
+}
+
 /* Sizing through hl_exchanger_size; a unit whose sides change cp inside it
  * takes the piecewise counterflow mean and U of hl_profile_unit_eval with
  * the F and shells of its terminal temperatures. */
@@ -177,36 +238,61 @@ hl_network_size_unit(const hl_network *net, hl_network_unit *u,
 	st = hl_exchanger_u(pu.h_hot, pu.h_cold, &u->u, err);
 	if (st != HL_OK)
 		return st;
-	hl_exchanger_spec_settings(&spec, &net->set);
-	spec.type = u->type;
-	spec.hot_in = u->hot_in;
-	spec.hot_out = u->hot_out;
-	spec.cold_in = u->cold_in;
-	spec.cold_out = u->cold_out;
-	spec.duty = u->duty;
-	spec.u = u->u;
+	unit_spec(net, u, &spec);
+	if (u->held)
+		spec.series = u->shells > 0 ? u->shells : 1;
 	st = hl_exchanger_size(&spec, &z, err);
+	if (st != HL_OK && u->held) {
+		/* Its data are sound when the free count can size it. */
+		hl_exchanger_spec free_count = spec;
+
+		free_count.series = 0;
+		if (hl_exchanger_size(&free_count, &z, err) == HL_OK)
+			return hl_error_set(err, HL_ENOSOLUTION, NULL, 0,
+			    "its %d %s in series cannot reach P %.6g at R "
+			    "%.6g: it needs more", spec.series,
+			    u->type == HL_EXCH_AIR_COOLER ? "sections" :
+			    u->type == HL_EXCH_DOUBLE_PIPE ? "hairpins" :
+			    "shells", z.p, z.r);
+	}
 	if (st != HL_OK)
 		return st;
-	if (pu.pieces > 1) {
+	if (pu.pieces > 1 && u->type != HL_EXCH_FIRED_HEATER) {
 		if (!(pu.lmtd > 0.0 && pu.u > 0.0))
 			return hl_error_set(err, HL_EINPUT, NULL, 0,
 			    "the hot side falls to the cold side inside the "
 			    "unit (approach %.6g K)", pu.approach);
-		u->u = pu.u;
+		u->u = spec.u = pu.u;
 		z.lmtd = pu.lmtd;
 		z.area = u->duty / (u->u * z.f * z.lmtd);
-		z.area_shell = z.area / z.shells;
-		z.cost = z.shells * (spec.cost_a +
-		    spec.cost_b * pow(z.area_shell, spec.cost_c));
+		hl_exchanger_price(&spec, &z);
 	}
+	if (u->held)
+		return hl_network_size_held(net, u, &spec, &z, err);
 	u->lmtd = z.lmtd;
 	u->ft = z.f;
 	u->shells = z.shells;
+	u->parallel = z.parallel;
 	u->area = z.area;
 	u->area_shell = z.area_shell;
 	u->cost = z.cost;
+	u->warn = z.warn;
 	return HL_OK;
+}
+
+void
+hl_network_unit_warning(const hl_network *net, const hl_network_unit *u,
+			char *buf, size_t n)
+{
+	hl_exchanger_spec spec;
+	hl_exchanger_sizing z;
+
+	unit_spec(net, u, &spec);
+	memset(&z, 0, sizeof z);
+	z.warn = u->warn;
+	z.x = u->type == HL_EXCH_FIRED_HEATER ? u->duty / 1000.0 /
+	    (u->parallel > 0 ? u->parallel : 1) : u->area_shell;
+	hl_exchanger_warning(&spec, &z, buf, n);
 }
 
 void
@@ -276,59 +362,3 @@ hl_network_totals(hl_network *net)
 	net->total_cost = net->capital_annual + net->energy_cost;
 }
 
-hl_status
-hl_network_parties_from_case(const hl_case *c, const double *util_load,
-			     hl_network_party **out, size_t *n,
-			     hl_error *err)
-{
-	hl_network_party *p = calloc(c->nstream + c->nutil + 1, sizeof *p);
-	size_t i, k = 0;
-
-	if (p == NULL)
-		return hl_error_nomem(err);
-	for (i = 0; i < c->nstream; i++, k++) {
-		const hl_stream *s = &c->stream[i];
-		hl_network_party q;
-
-		memset(&q, 0, sizeof q);
-		q.name = s->name;
-		q.kind = s->kind;
-		q.supply = hl_stream_supply(s);
-		q.target = hl_stream_target(s);
-		q.nseg = s->nseg;
-		q.seg = s->seg;
-		q.h = NAN;
-		q.dt_contrib = s->dt_contrib;
-		q.load = hl_stream_duty(s);
-		q.price = NAN;
-		q.max_load = NAN;
-		if (party_copy(&p[k], &q) != HL_OK)
-			goto nomem;
-	}
-	for (i = 0; i < c->nutil; i++, k++) {
-		const hl_utility *u = &c->util[i];
-		hl_network_party q;
-
-		memset(&q, 0, sizeof q);
-		q.name = u->name;
-		q.kind = u->kind;
-		q.utility = 1;
-		q.supply = u->supply;
-		q.target = u->target;
-		q.h = u->h;
-		q.dt_contrib = u->dt_contrib;
-		q.load = util_load != NULL ? util_load[i] : 0.0;
-		q.price = u->price;
-		q.max_load = u->max_load;
-		if (party_copy(&p[k], &q) != HL_OK)
-			goto nomem;
-	}
-	*out = p;
-	*n = k;
-	return HL_OK;
-nomem:
-	while (k-- > 0)
-		hl_network_party_free(&p[k]);
-	free(p);
-	return hl_error_nomem(err);
-}

@@ -62,8 +62,19 @@ typedef struct {
 			       (in a network: the Σ of its units' duties) */
 	double price;       /* utilities: currency per MWh, NaN: none */
 	double max_load;    /* utilities: kW, NaN: unlimited */
+	int type_given;     /* utilities: 1 when type below was given */
+	int type;           /* hl_exchanger_type of units on this utility */
+	int cost_given;     /* utilities: 1 when their units cost */
+	double cost_a, cost_b, cost_c;  /* a + b·X^c (X as the type's law) */
 	long line;          /* line in the network file, 0 when built */
 } hl_network_party;
+
+/* The exchanger type the engineer fixed for a pair of parties (indices;
+ * -1 on a side: any party of that side). */
+typedef struct {
+	long hot, cold;
+	hl_exchanger_type type;
+} hl_network_typed;
 
 /* A match to place. Where it exchanges: either per-interval loads give[k]
  * (heat leaving the hot party in interval k) and take[k] (heat entering the
@@ -93,6 +104,11 @@ typedef struct {
 	double qh_target;         /* kW, minimum hot utility (problem table) */
 	double qc_target;
 	double restriction;       /* kW of hot utility the match rules added */
+	size_t ntyped;            /* exchanger types fixed per pair, */
+	const hl_network_typed *typed; /* first match wins; NULL: none */
+	double range_rise;        /* kW above the target the utility loads
+				     carry (a ranged utility exchanging heat
+				     across the pinch) */
 } hl_network_input;
 
 /* assumed h flags of a unit */
@@ -108,19 +124,32 @@ typedef struct {
 	double hot_share, cold_share;  /* fraction of the party's flow */
 	int hot_stage, cold_stage;     /* 1-based along a process stream,
 					  0 on a utility */
-	hl_exchanger_type type;
+	hl_exchanger_type type;  /* hl_network_unit_type, or counterflow
+				    when that type cannot do the duty */
 	double u;           /* kW/(m²·K) */
 	unsigned assumed;   /* HL_NETWORK_H_* where h_default was used */
 	double required;    /* K, the approach the unit must keep */
 	double approach;    /* K, its smallest hot − cold difference */
 	double lmtd;        /* K, effective counterflow mean (pieces) */
 	double ft;          /* F of all shells, 1 for counterflow */
-	int shells;
-	double area;        /* m², total */
+	int shells;         /* in series (hairpins, air-cooler sections) */
+	int parallel;       /* trains of `shells` in parallel */
+	double area;        /* m², total (0 for a fired heater) */
 	double area_shell;  /* m² */
-	double cost;        /* currency, shells·(a + b·area_shell^c) */
+	double cost;        /* currency, shells·parallel·(a + b·X^c) */
+	unsigned warn;      /* HL_EXCH_WARN_* of its sizing */
 	char *note;         /* NULL or one sentence for the report */
 	long line;          /* line in the network file, 0 when built */
+	/* Retrofit (network_held.c): a held unit is hardware, today's or
+	 * bought: its shells in series are fixed, the area its duty needs
+	 * must fit in area_today + area_added, and its cost is that of the
+	 * shells bought only. */
+	int held;           /* 1: a retrofit unit, 0: a design unit */
+	char reuses[96];    /* today's tag it reuses, "" for a new unit */
+	double area_today;  /* m², the area it has today (0 for a new unit) */
+	double area_added;  /* m², area bought */
+	int shells_added;   /* shells bought (in series or in parallel) */
+	int moved;          /* re-piped or resequenced (not in files) */
 } hl_network_unit;
 
 typedef struct {
@@ -133,6 +162,7 @@ typedef struct {
 	double qh, qc;             /* kW of hot and cold utility used */
 	double qh_target, qc_target;
 	double restriction;        /* kW above the targets from match rules */
+	double range_rise;         /* kW above them from utility ranges */
 	double penalty;            /* kW above them from the placement */
 	size_t nsplit;             /* split stages */
 	double area, capital;      /* m², currency */
@@ -140,11 +170,18 @@ typedef struct {
 	double capital_annual, energy_cost, total_cost;  /* currency/year */
 	size_t nnote;
 	char **note;               /* what the placement had to change */
+	size_t ntyped;             /* the input's types per pair (a copy) */
+	hl_network_typed *typed;
 	char *source;              /* the case or network file, NULL */
 } hl_network;
 
 hl_network *hl_network_create(void);
 void hl_network_free(hl_network *net);
+
+/* 1 when a utility with a negative price (a credit) carries load: the rise
+ * above the targets (range_rise) is then hot utility bought because the
+ * credit pays for the process heat it frees, not only utility ranges. */
+int hl_network_has_credit(const hl_network *net);
 
 /* Copy a party into the network (deep copy). */
 hl_status hl_network_add_party(hl_network *net, const hl_network_party *p,
@@ -165,13 +202,46 @@ double hl_network_required(const hl_settings *set, const hl_network_party *hot,
 /* ΔT contribution (K) of a party at set->dtmin. */
 double hl_network_shift(const hl_settings *set, const hl_network_party *p);
 
-/* Size unit u of net in place from its duty and terminal temperatures:
- * U (and assumed flags), required approach, approach, LMTD, F, shells,
- * area, cost. A shell-and-tube unit that would need more shells than
- * HL_EXCHANGER_MAX_SHELLS is sized as counterflow, with a note. Errors:
- * HL_EINPUT (naming the unit) when its temperatures cannot exchange heat. */
+/* Exchanger type of a unit between parties hot and cold: the first of
+ * net->typed naming the pair, else the utility's own type, else the
+ * settings' exchanger (hl_case_pair_type's order). */
+hl_exchanger_type hl_network_unit_type(const hl_network *net, size_t hot,
+				       size_t cold);
+
+/* Size unit u of net in place from its duty, terminal temperatures and
+ * u->type, through hl_exchanger_size with the type's law (a utility's own
+ * cost law when it gives one): U (and assumed flags), required approach,
+ * approach, LMTD, F, shells in series and parallel, area, cost, warnings.
+ * HL_ENOSOLUTION when the type would need more shells in series than
+ * HL_EXCHANGER_MAX_SHELLS (callers then size it as counterflow, with a
+ * note). Errors: HL_EINPUT (naming the unit) when its temperatures cannot
+ * exchange heat. */
 hl_status hl_network_size_unit(const hl_network *net, hl_network_unit *u,
 			       hl_error *err);
+
+/* Size a held unit (held = 1) at its own shell count from the sizing z of
+ * hl_exchanger_size at spec (series = its shells, its type's law): F at
+ * those shells, the area its duty needs, the cost of the shells bought by
+ * the type's law, shells_added·(a + b·(area_added / shells_added)^c), the
+ * bought shells split in parallel so that none passes the type's largest
+ * (shells_added counts them; a new unit's parallel follows). */
+hl_status hl_network_size_held(const hl_network *net, hl_network_unit *u,
+			       const hl_exchanger_spec *spec,
+			       const hl_exchanger_sizing *z, hl_error *err);
+
+/* An empty network on the parties of case c: its process streams in case
+ * order, then its utilities (party nstream + k is utility k) with loads
+ * util_load (kW each, NULL: 0), types and cost laws, the case's settings
+ * and its exchanger type rules; no units, no totals (network_case.c). */
+hl_status hl_network_of_case(const hl_case *c, const double *util_load,
+			     hl_network **out, hl_error *err);
+
+/* A deep copy of net (NULL when memory runs out). */
+hl_network *hl_network_copy(const hl_network *net);
+
+/* The sentence of hl_exchanger_warning for unit u (empty when none). */
+void hl_network_unit_warning(const hl_network *net,
+			     const hl_network_unit *u, char *buf, size_t n);
 
 /* Fill the totals: utility use, splits, area, capital, CRF, annual costs. */
 void hl_network_totals(hl_network *net);
@@ -182,14 +252,5 @@ void hl_network_totals(hl_network *net);
  * units added or dropped say what changed. */
 hl_status hl_network_place(const hl_network_input *in, hl_network **out,
 			   hl_error *err);
-
-/* Parties of a case for a network input: process streams in case order,
- * then the case's utilities with their loads (util_load, kW, one per
- * utility; NULL: all 0). Caller frees each with hl_network_party_free and
- * the array with free(). */
-hl_status hl_network_parties_from_case(const hl_case *c,
-				       const double *util_load,
-				       hl_network_party **out, size_t *n,
-				       hl_error *err);
 
 #endif

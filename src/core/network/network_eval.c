@@ -74,8 +74,9 @@ block_init(hl_net_block *B, size_t cap)
 	return HL_OK;
 }
 
-hl_status
-hl_net_lane_insert(hl_net_lane *L, size_t pos, size_t unit)
+/* Append a unit to a lane as its own block at index pos. */
+static hl_status
+lane_insert(hl_net_lane *L, size_t pos, size_t unit)
 {
 	hl_net_block B;
 
@@ -164,7 +165,7 @@ hl_net_lane_unmerge(hl_net_lane *L, size_t i, const double *key, int falling)
 	L->b[i].n = 1;
 	L->b[i].share[0] = 1.0;
 	for (k = 1; k < n; k++) {
-		if (hl_net_lane_insert(L, i + k, B.u[k]) != HL_OK)
+		if (lane_insert(L, i + k, B.u[k]) != HL_OK)
 			return HL_EIO;
 	}
 	L->b[i].u[0] = B.u[0];
@@ -268,10 +269,10 @@ hl_net_place_add_unit(hl_net_place *P, const hl_network_unit *u,
 	P->key_hot[k] = key_hot;
 	P->key_cold[k] = key_cold;
 	if (!net->party[u->hot].utility &&
-	    hl_net_lane_insert(&P->lane[u->hot], SIZE_MAX, k) != HL_OK)
+	    lane_insert(&P->lane[u->hot], SIZE_MAX, k) != HL_OK)
 		return HL_EIO;
 	if (!net->party[u->cold].utility &&
-	    hl_net_lane_insert(&P->lane[u->cold], SIZE_MAX, k) != HL_OK)
+	    lane_insert(&P->lane[u->cold], SIZE_MAX, k) != HL_OK)
 		return HL_EIO;
 	return HL_OK;
 }
@@ -449,7 +450,7 @@ unit_objective(hl_net_place *P, size_t k)
 	hl_status st;
 	double w = 1.0;
 
-	u.type = net->set.exchanger;
+	u.type = hl_network_unit_type(net, u.hot, u.cold);
 	u.note = NULL;
 	st = hl_network_size_unit(net, &u, NULL);
 	if (st == HL_ENOSOLUTION) {

@@ -65,8 +65,6 @@ void hl_net_place_free(hl_net_place *P);
  * each process lane it touches, or at position pos (SIZE_MAX: the end). */
 hl_status hl_net_place_add_unit(hl_net_place *P, const hl_network_unit *u,
 				double key_hot, double key_cold);
-/* Append a unit to a lane as its own block at index pos. */
-hl_status hl_net_lane_insert(hl_net_lane *L, size_t pos, size_t unit);
 /* Move block i of L to index j (the others keep their order). */
 void hl_net_lane_move(hl_net_lane *L, size_t i, size_t j);
 /* Merge blocks i..j of L into block i; shares by heat. */

@@ -16,6 +16,7 @@ hl_network_feed_free(hl_network_feed *f)
 		hl_network_party_free(&f->party[i]);
 	free(f->party);
 	free(f->match);
+	free(f->typed);
 	memset(f, 0, sizeof *f);
 }
 
@@ -46,6 +47,12 @@ party_of(const hl_case *c, const hl_match_party *q, hl_network_party *p)
 		const hl_utility *u = &c->util[q->index];
 
 		t.utility = 1;
+		t.type = hl_utility_type(&c->set, u);
+		t.type_given = t.type >= 0;
+		t.cost_given = u->cost_given;
+		t.cost_a = u->cost_a;
+		t.cost_b = u->cost_b;
+		t.cost_c = u->cost_c;
 		t.h = u->h;
 		t.dt_contrib = u->dt_contrib;
 		t.price = u->price;
@@ -66,6 +73,43 @@ party_of(const hl_case *c, const hl_match_party *q, hl_network_party *p)
 		hl_network_party_free(p);
 		return HL_EIO;
 	}
+	return HL_OK;
+}
+
+/* Index of the party named name (-1 for "*"), -2 when none has it. */
+static long
+party_index(const hl_network_feed *f, const char *name)
+{
+	size_t i;
+
+	if (strcmp(name, "*") == 0)
+		return -1;
+	for (i = 0; i < f->in.nparty; i++)
+		if (strcmp(f->party[i].name, name) == 0)
+			return (long)i;
+	return -2;
+}
+
+/* The case's exchanger type rules on the feed's parties (a rule on a party
+ * the result has not got cannot apply and is left out). */
+static hl_status
+typed_of(const hl_case *c, hl_network_feed *f)
+{
+	size_t i;
+
+	f->typed = calloc(c->ntyped + 1, sizeof *f->typed);
+	if (f->typed == NULL)
+		return HL_EIO;
+	for (i = 0; i < c->ntyped; i++) {
+		hl_network_typed *t = &f->typed[f->in.ntyped];
+
+		t->hot = party_index(f, c->typed[i].hot);
+		t->cold = party_index(f, c->typed[i].cold);
+		t->type = c->typed[i].type;
+		if (t->hot != -2 && t->cold != -2)
+			f->in.ntyped++;
+	}
+	f->in.typed = f->typed;
 	return HL_OK;
 }
 
@@ -103,6 +147,10 @@ hl_network_from_matches(const hl_case *c, const hl_match_result *r,
 		n->cold_lo = m->cold_from;
 		n->cold_hi = m->cold_to;
 	}
+	if (typed_of(c, &f) != HL_OK) {
+		hl_network_feed_free(&f);
+		return hl_error_nomem(err);
+	}
 	f.in.set = &c->set;
 	f.in.party = f.party;
 	f.in.match = f.match;
@@ -111,7 +159,12 @@ hl_network_from_matches(const hl_case *c, const hl_match_result *r,
 	f.in.t = r->t;
 	f.in.qh_target = qh_min;
 	f.in.qc_target = qc_min;
-	f.in.restriction = fmax(0.0, r->qh - qh_min);
+	/* Loads above the target come from utility ranges (the loads given
+	 * already exceed it) or from the rules (they raise the loads). */
+	f.in.range_rise = fmax(0.0, r->qh0 - qh_min);
+	if (f.in.range_rise <= 1e-6 * fmax(1.0, qh_min))
+		f.in.range_rise = 0.0;
+	f.in.restriction = fmax(0.0, r->qh - qh_min - f.in.range_rise);
 	if (f.in.restriction <= 1e-6 * fmax(1.0, qh_min))
 		f.in.restriction = 0.0;
 	*out = f;

@@ -23,6 +23,8 @@ typedef struct {
 	hl_network_input in;      /* what hl_network_place takes */
 	hl_network_party *party;  /* owned, in.nparty of them */
 	hl_network_match *match;  /* owned, in.nmatch of them */
+	hl_network_typed *typed;  /* owned, in.ntyped: the case's type rules
+				     on these parties */
 } hl_network_feed;
 
 /* qh_min, qc_min: the problem-table targets (kW) at c's dtmin; the hot

@@ -93,9 +93,34 @@ cold_stream(const hl_opt_problem *P, hl_opt_state *s, size_t b)
 	s->cvs[b] = v;
 }
 
-/* Size u through the network's sizing; a shell-and-tube unit beyond the
- * shell count a shell sensibly has goes counterflow, as the placement
- * does, unless a shell limit is set. Returns the limits missed. */
+hl_status
+hl_opt_size(const hl_network *net, hl_network_unit *u, int fallback,
+	    hl_error *err)
+{
+	hl_status st;
+
+	u->type = hl_network_unit_type(net, u->hot, u->cold);
+	st = hl_network_size_unit(net, u, err);
+	if (st == HL_ENOSOLUTION && fallback &&
+	    u->type != HL_EXCH_COUNTERFLOW) {
+		u->note = (char *)(u->type == HL_EXCH_AIR_COOLER ?
+		    "would need more sections in series than an air cooler "
+		    "sensibly has: sized as pure counterflow (double pipe or "
+		    "plate)" : "would need more shells in series than its "
+		    "type sensibly has: sized as pure counterflow (double "
+		    "pipe or plate)");
+		u->type = HL_EXCH_COUNTERFLOW;
+		if (err != NULL)
+			hl_error_clear(err);
+		st = hl_network_size_unit(net, u, err);
+	}
+	return st;
+}
+
+/* Size u by its type (hl_opt_size; counterflow beyond the shells a type
+ * sensibly has, as the placement does, unless a shell limit is set).
+ * Returns the limits missed. A fired heater is sized by duty and has no
+ * area, so the smallest area does not apply to it. */
 static double
 size_unit(const hl_opt_problem *P, hl_network_unit *u)
 {
@@ -103,25 +128,19 @@ size_unit(const hl_opt_problem *P, hl_network_unit *u)
 	double d1 = u->hot_in - u->cold_out, d2 = u->hot_out - u->cold_in;
 	double req = hl_network_required(&P->base->set,
 	    &P->base->party[u->hot], &P->base->party[u->cold]), v = 0.0;
-	hl_status st;
 
-	u->type = P->base->set.exchanger;
 	if (d1 < req || d2 < req)
 		return (fmax(0.0, req - d1) + fmax(0.0, req - d2)) / VIOL_K +
 		    1e-3;
-	st = hl_network_size_unit(P->base, u, NULL);
-	if (st == HL_ENOSOLUTION && o->max_shells <= 0 &&
-	    u->type != HL_EXCH_COUNTERFLOW) {
-		u->type = HL_EXCH_COUNTERFLOW;
-		st = hl_network_size_unit(P->base, u, NULL);
-	}
-	if (st != HL_OK)
+	if (hl_opt_size(P->base, u, o->max_shells <= 0, NULL) != HL_OK)
 		return 1.0;
+	u->note = NULL;
 	if (u->approach < req)
 		v += (req - u->approach) / VIOL_K + 1e-3;
 	if (o->min_duty > 0.0 && u->duty < o->min_duty)
 		v += 1.0 - u->duty / o->min_duty + 1e-3;
-	if (o->min_area > 0.0 && u->area < o->min_area)
+	if (o->min_area > 0.0 && u->type != HL_EXCH_FIRED_HEATER &&
+	    u->area < o->min_area)
 		v += 1.0 - u->area / o->min_area + 1e-3;
 	if (o->max_shells > 0 && u->shells > o->max_shells)
 		v += u->shells - o->max_shells;

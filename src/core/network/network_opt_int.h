@@ -107,6 +107,13 @@ double hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in,
 		       double d, hl_network_unit *best, long *which,
 		       double *viol);
 
+/* Size unit u of net by its type (hl_network_unit_type, so the case's
+ * per-type and per-utility cost laws apply); with fallback, a type that
+ * would need too many shells in series is sized as counterflow and
+ * u->note (a static text) says so. */
+hl_status hl_opt_size(const hl_network *net, hl_network_unit *u,
+		      int fallback, hl_error *err);
+
 /* The state as a network (sized by hl_network_size_unit). */
 hl_status hl_opt_to_network(const hl_opt_problem *P, const hl_opt_state *s,
 			    hl_network **out, hl_error *err);

@@ -42,28 +42,12 @@ pair_rules(const hl_opt_problem *P, size_t hp, size_t cp, int *allow,
 	}
 }
 
+/* The case's parties with their types and cost laws (network_case.c):
+ * every unit of the search is sized and priced against it. */
 static hl_status
 base_network(hl_opt_problem *P, hl_error *err)
 {
-	hl_network_party *p = NULL;
-	size_t n = 0, i;
-	hl_status st;
-
-	P->base = hl_network_create();
-	if (P->base == NULL)
-		return hl_error_nomem(err);
-	P->base->set = P->c->set;
-	P->base->set.currency = strdup(P->c->set.currency != NULL ?
-	    P->c->set.currency : "EUR");
-	if (P->base->set.currency == NULL)
-		return hl_error_nomem(err);
-	st = hl_network_parties_from_case(P->c, NULL, &p, &n, err);
-	for (i = 0; st == HL_OK && i < n; i++)
-		st = hl_network_add_party(P->base, &p[i], err);
-	for (i = 0; i < n; i++)
-		hl_network_party_free(&p[i]);
-	free(p);
-	return st;
+	return hl_network_of_case(P->c, NULL, &P->base, err);
 }
 
 /* Stages of a layering of net's process units: each unit one stage after

@@ -10,30 +10,16 @@
 #include "cascade.h"
 #include "network_opt_int.h"
 
+/* The parties, settings and type rules of base, no units (a copy). */
 static hl_network *
-empty_like(const hl_network *base, hl_error *err)
+empty_like(const hl_network *base)
 {
-	hl_network *net = hl_network_create();
+	hl_network *net = hl_network_copy(base);
 	size_t i;
 
-	if (net == NULL)
-		return NULL;
-	net->set = base->set;
-	net->set.currency = strdup(base->set.currency);
-	if (net->set.currency == NULL) {
-		hl_network_free(net);
-		return NULL;
-	}
-	for (i = 0; i < base->nparty; i++) {
-		hl_network_party q = base->party[i];
-
-		if (q.utility)
-			q.load = 0.0;
-		if (hl_network_add_party(net, &q, err) != HL_OK) {
-			hl_network_free(net);
-			return NULL;
-		}
-	}
+	for (i = 0; net != NULL && i < net->nparty; i++)
+		if (net->party[i].utility)
+			net->party[i].load = 0.0;
 	return net;
 }
 
@@ -96,25 +82,6 @@ stage_load_cold(const hl_opt_problem *P, const hl_opt_state *s, size_t k,
 	return sum;
 }
 
-/* Size u in net; the counterflow fallback of the placement for a unit
- * beyond the shells a shell-and-tube unit sensibly has. */
-static hl_status
-size_in(hl_network *net, hl_network_unit *u, hl_error *err)
-{
-	hl_status st;
-
-	u->type = net->set.exchanger;
-	st = hl_network_size_unit(net, u, err);
-	if (st == HL_ENOSOLUTION && u->type != HL_EXCH_COUNTERFLOW) {
-		u->type = HL_EXCH_COUNTERFLOW;
-		st = hl_network_size_unit(net, u, err);
-		u->note = (char *)"would need more shells in series than a "
-		    "shell-and-tube unit sensibly has: sized as pure "
-		    "counterflow (double pipe or plate)";
-	}
-	return st;
-}
-
 static hl_status
 add(hl_network *net, hl_network_unit *u, char kind, unsigned *n,
     hl_error *err)
@@ -123,7 +90,7 @@ add(hl_network *net, hl_network_unit *u, char kind, unsigned *n,
 
 	snprintf(u->id, sizeof u->id, "%c%u", kind, ++*n % 100000000u);
 	u->match = -1;
-	st = size_in(net, u, err);
+	st = hl_opt_size(net, u, 1, err);
 	if (st != HL_OK) {
 		char why[HL_ERROR_TEXT];
 
@@ -265,7 +232,7 @@ hl_status
 hl_opt_to_network(const hl_opt_problem *P, const hl_opt_state *s,
 		  hl_network **out, hl_error *err)
 {
-	hl_network *net = empty_like(P->base, err);
+	hl_network *net = empty_like(P->base);
 	double qh, qc;
 	hl_status st;
 

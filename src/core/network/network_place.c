@@ -138,8 +138,8 @@ hl_net_check_input(const hl_network_input *in, hl_error *err)
 		if (!q->utility && fabs(sum[i] - q->load) >
 		    1e-6 * fmax(1.0, q->load)) {
 			hl_error_set(err, HL_EINPUT, NULL, 0,
-			    "the matches give stream '%s' %.10g kW, but it "
-			    "exchanges %.10g kW: every stream's heat must be "
+			    "the matches give stream '%s' %.6g kW, but it "
+			    "exchanges %.6g kW: every stream's heat must be "
 			    "matched", q->name, sum[i], q->load);
 			free(sum);
 			return HL_EINPUT;
@@ -150,8 +150,8 @@ hl_net_check_input(const hl_network_input *in, hl_error *err)
 	    fmax(1.0, in->qh_target) || qc < in->qc_target - 1e-6 *
 	    fmax(1.0, in->qc_target)))
 		return hl_error_set(err, HL_EINPUT, NULL, 0,
-		    "the matches use %.10g kW of hot and %.10g kW of cold "
-		    "utility, below the targets %.10g / %.10g kW: no network "
+		    "the matches use %.6g kW of hot and %.6g kW of cold "
+		    "utility, below the targets %.6g / %.6g kW: no network "
 		    "can exchange that much heat at this ΔTmin", qh, qc,
 		    in->qh_target, in->qc_target);
 	return HL_OK;
@@ -363,15 +363,20 @@ finish(hl_network *net, const hl_network_input *in, hl_error *err)
 		hl_network_unit *u = &net->unit[i];
 
 		snprintf(u->id, sizeof u->id, "E%u", (unsigned)(++ne % 100000000u));
-		u->type = net->set.exchanger;
+		u->type = hl_network_unit_type(net, u->hot, u->cold);
 		st = hl_network_size_unit(net, u, err);
 		if (st == HL_ENOSOLUTION) {
+			char why[160];
+
+			snprintf(why, sizeof why, "would need more %s in "
+			    "series than a %s sensibly has: sized as pure "
+			    "counterflow (double pipe or plate)",
+			    u->type == HL_EXCH_AIR_COOLER ? "sections" :
+			    "shells", hl_exchanger_type_name(u->type));
 			u->type = HL_EXCH_COUNTERFLOW;
 			st = hl_network_size_unit(net, u, err);
 			free(u->note);
-			u->note = strdup("would need more shells in series "
-			    "than a shell-and-tube unit sensibly has: sized as "
-			    "pure counterflow (double pipe or plate)");
+			u->note = strdup(why);
 			if (u->note == NULL)
 				return hl_error_nomem(err);
 		}
@@ -388,6 +393,7 @@ finish(hl_network *net, const hl_network_input *in, hl_error *err)
 	net->qh_target = in->qh_target;
 	net->qc_target = in->qc_target;
 	net->restriction = in->restriction;
+	net->range_rise = in->range_rise;
 	hl_network_totals(net);
 	return HL_OK;
 }
@@ -408,7 +414,13 @@ hl_net_attempt(const hl_network_input *in, hl_network **out, long *worst,
 	net->set = *in->set;
 	net->set.currency = strdup(in->set->currency != NULL ?
 	    in->set->currency : "EUR");
-	if (net->set.currency == NULL) {
+	if (in->ntyped > 0 && (net->typed = malloc(in->ntyped *
+	    sizeof *net->typed)) != NULL) {
+		memcpy(net->typed, in->typed, in->ntyped * sizeof *net->typed);
+		net->ntyped = in->ntyped;
+	}
+	if (net->set.currency == NULL || (in->ntyped > 0 &&
+	    net->typed == NULL)) {
 		hl_network_free(net);
 		return hl_error_nomem(err);
 	}

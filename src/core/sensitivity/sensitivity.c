@@ -33,6 +33,7 @@
 #include <string.h>
 
 #include "sensitivity_int.h"
+#include "sorted.h"
 
 void
 hl_sens_work_free(hl_sens_work *w)
@@ -80,23 +81,6 @@ hl_sens_work_init(hl_sens_work *w, const hl_case *c, double dtmin, hl_error *err
 	return HL_OK;
 }
 
-/* Index of v in the falling array t[0..n), or n. */
-static size_t
-find_boundary(const double *t, size_t n, double v)
-{
-	size_t lo = 0, hi = n;
-
-	while (lo < hi) {
-		size_t mid = lo + (hi - lo) / 2;
-
-		if (t[mid] > v)
-			lo = mid + 1;
-		else
-			hi = mid;
-	}
-	return lo < n && t[lo] == v ? lo : n;
-}
-
 /* Every segment end with its −R, the active ones (zero lifted flow) first. */
 static hl_status
 work_ends(hl_sens_work *w, const hl_cascade *cas, hl_error *err)
@@ -111,8 +95,10 @@ work_ends(hl_sens_work *w, const hl_cascade *cas, hl_error *err)
 		for (i = 0; i < w->n; i++) {
 			for (e = 0; e < 2; e++) {
 				double t = e ? w->g[i].lo : w->g[i].hi;
-				size_t k = find_boundary(cas->t, cas->nb, t);
-				double flow = k < cas->nb ? cas->flow[k] : 0.0;
+				size_t k = hl_sorted_find_desc(cas->t, cas->nb,
+							       t);
+				double flow = k < cas->nb && cas->t[k] == t ?
+					      cas->flow[k] : 0.0;
 				int act = flow <= cas->tol;
 
 				if (act != (pass == 0))

@@ -70,6 +70,79 @@ interval_cp(const hl_case *c, double dtmin, const double *t, size_t nb,
 	netcp[nb - 1] = 0.0;
 }
 
+/* Latent heat at each boundary: hot (condensing) positive, cold negative;
+ * *any is set when some latent segment lies there. */
+static void
+boundary_latent(const hl_case *c, double dtmin, const double *t, size_t nb,
+		double *lat, int *any)
+{
+	size_t i, j, b;
+
+	memset(lat, 0, nb * sizeof *lat);
+	memset(any, 0, nb * sizeof *any);
+	for (i = 0; i < c->nstream; i++) {
+		const hl_stream *s = &c->stream[i];
+		double sh = hl_stream_shift(s, dtmin);
+
+		sh = s->kind == HL_HOT ? -sh : sh;
+		for (j = 0; j < s->nseg; j++) {
+			if (!hl_segment_latent(&s->seg[j]))
+				continue;
+			b = hl_sorted_find_desc(t, nb, s->seg[j].supply + sh);
+			lat[b] += s->kind == HL_HOT ? s->seg[j].latent :
+						     -s->seg[j].latent;
+			any[b] = 1;
+		}
+	}
+}
+
+/* A boundary with latent heat becomes two at the same temperature with a
+ * zero-width interval between them whose surplus is the latent heat (hot
+ * condensing there may boil a cold stream there: ΔT = ΔTmin exactly).
+ * Linnhoff & Flower (1978) with latent heat as a step of the cascade. */
+static int
+add_latent_steps(const hl_case *c, hl_cascade *cas, double **step)
+{
+	size_t nb = cas->nb, n = 0, k;
+	double *lat = malloc(nb * sizeof *lat), *t, *cp, *st;
+	int *any = malloc(nb * sizeof *any);
+
+	*step = NULL;
+	if (lat == NULL || any == NULL) {
+		free(lat);
+		free(any);
+		return 0;
+	}
+	boundary_latent(c, cas->dtmin, cas->t, nb, lat, any);
+	for (k = 0; k < nb; k++)
+		n += 1 + (size_t)any[k];
+	t = malloc(n * sizeof *t);
+	cp = malloc(n * sizeof *cp);
+	st = calloc(n, sizeof *st);
+	if (t == NULL || cp == NULL || st == NULL) {
+		free(t), free(cp), free(st), free(lat), free(any);
+		return 0;
+	}
+	for (k = 0, n = 0; k < nb; k++) {
+		if (any[k]) {
+			t[n] = cas->t[k];
+			cp[n] = 0.0;
+			st[n++] = lat[k];
+		}
+		t[n] = cas->t[k];
+		cp[n++] = cas->netcp[k];
+	}
+	free(cas->t);
+	free(cas->netcp);
+	cas->t = t;
+	cas->netcp = cp;
+	cas->nb = n;
+	*step = st;
+	free(lat);
+	free(any);
+	return 1;
+}
+
 static void
 totals(const hl_case *c, double *hot, double *cold)
 {
@@ -86,14 +159,15 @@ totals(const hl_case *c, double *hot, double *cold)
 
 /* Cascade the surpluses, lift by the largest deficit, mark the pinches. */
 static hl_status
-run_cascade(hl_cascade *cas, hl_error *err)
+run_cascade(hl_cascade *cas, const double *step, hl_error *err)
 {
 	size_t k, nb = cas->nb;
 	double r = 0.0, rmin = 0.0, scale = 0.0;
 
 	cas->flow[0] = 0.0;
 	for (k = 0; k + 1 < nb; k++) {
-		cas->dh[k] = cas->netcp[k] * (cas->t[k] - cas->t[k + 1]);
+		cas->dh[k] = cas->netcp[k] * (cas->t[k] - cas->t[k + 1]) +
+			     (step != NULL ? step[k] : 0.0);
 		scale += fabs(cas->dh[k]);
 		r += cas->dh[k];
 		cas->flow[k + 1] = r;
@@ -125,6 +199,7 @@ hl_cascade_compute(const hl_case *c, double dtmin, hl_cascade **out,
 		   hl_error *err)
 {
 	hl_cascade *cas;
+	double *step = NULL;
 	hl_status st;
 
 	*out = NULL;
@@ -136,19 +211,27 @@ hl_cascade_compute(const hl_case *c, double dtmin, hl_cascade **out,
 		return hl_error_nomem(err);
 	cas->dtmin = dtmin;
 	cas->t = shifted_boundaries(c, dtmin, &cas->nb);
-	if (cas->t != NULL) {
+	if (cas->t != NULL)
 		cas->netcp = malloc(cas->nb * sizeof(double));
-		cas->dh = calloc(cas->nb, sizeof(double));
-		cas->flow = malloc(cas->nb * sizeof(double));
-	}
-	if (cas->t == NULL || cas->netcp == NULL || cas->dh == NULL ||
-	    cas->flow == NULL) {
+	if (cas->t == NULL || cas->netcp == NULL) {
 		hl_cascade_free(cas);
 		return hl_error_nomem(err);
 	}
 	interval_cp(c, dtmin, cas->t, cas->nb, cas->netcp);
+	if (hl_case_has_latent(c) && !add_latent_steps(c, cas, &step)) {
+		hl_cascade_free(cas);
+		return hl_error_nomem(err);
+	}
+	cas->dh = calloc(cas->nb, sizeof(double));
+	cas->flow = malloc(cas->nb * sizeof(double));
+	if (cas->dh == NULL || cas->flow == NULL) {
+		free(step);
+		hl_cascade_free(cas);
+		return hl_error_nomem(err);
+	}
 	totals(c, &cas->hot_total, &cas->cold_total);
-	st = run_cascade(cas, err);
+	st = run_cascade(cas, step, err);
+	free(step);
 	if (st != HL_OK) {
 		hl_cascade_free(cas);
 		return st;

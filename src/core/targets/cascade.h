@@ -8,6 +8,9 @@
  *
  * Boundaries are indexed from the hottest (0) down to the coldest (nb-1);
  * interval k lies between boundaries k and k+1. Heat flows down the cascade.
+ * Latent heat (a segment with supply = target) is a step: its boundary is
+ * given twice, and the zero-width interval between the two copies (net cp
+ * 0) carries the latent surplus (hot condensing minus cold boiling there).
  */
 #ifndef HL_CASCADE_H
 #define HL_CASCADE_H
@@ -22,7 +25,8 @@ typedef struct {
 	size_t nb;          /* boundaries (>= 2) */
 	double *t;          /* shifted temperature of each boundary, °C, falling */
 	double *netcp;      /* per interval: Σ cp hot − Σ cp cold, kW/K */
-	double *dh;         /* per interval: heat surplus, kW (< 0 deficit) */
+	double *dh;         /* per interval: heat surplus, kW (< 0 deficit);
+			       a zero-width interval: the latent heat there */
 	double *flow;       /* per boundary: heat flowing down with the minimum
 			       hot utility added at the top, kW (>= 0) */
 	double qh;          /* minimum hot utility, kW */

@@ -177,7 +177,7 @@ gather(const hl_case *c, hl_kind kind, double dtmin, int shifted,
 
 			p[n].t_hi = fmax(g->supply, g->target) + sh;
 			p[n].t_lo = fmin(g->supply, g->target) + sh;
-			p[n].q = g->cp * (p[n].t_hi - p[n].t_lo);
+			p[n].q = hl_segment_duty(g);
 			n++;
 		}
 	}
@@ -248,7 +248,14 @@ utility_pieces(const hl_case *c, const hl_utility_lp *lp, hl_kind kind,
 			continue;
 		p[n].t_hi = lp->util[i].t_hi;
 		p[n].t_lo = lp->util[i].t_lo;
-		p[n].q = lp->util[i].load;
+		p[n].q = lp->util[i].load - lp->util[i].across;
+		/* The part across the pinch is drawn into the grand
+		 * composite (see grand_util), not beyond the pinch. */
+		if (lp->util[i].across > 0.0 && kind == HL_HOT)
+			p[n].t_lo = fmin(p[n].t_hi, lp->proc[0].shifted);
+		else if (lp->util[i].across > 0.0)
+			p[n].t_hi = fmax(p[n].t_lo,
+					 lp->proc[lp->nproc - 1].shifted);
 		*total += p[n].q;
 		n++;
 	}
@@ -310,6 +317,88 @@ place_levels(const hl_case *c, const hl_utility_lp *lp, hl_curves *cv,
 	}
 }
 
+/* Heat utility u exchanges on the far side of the pinch between the pinch
+ * and shifted t (hot: below the hottest pinch, cold: above the coldest). */
+static double
+across_part(const hl_case *c, const hl_utility_lp *lp, size_t u, double t)
+{
+	const hl_utility_load *a = &lp->util[u];
+	double span = a->t_hi - a->t_lo, pin, lo, hi;
+
+	if (a->across <= 0.0 || lp->nproc == 0)
+		return 0.0;
+	if (c->util[u].kind == HL_HOT) {
+		pin = lp->proc[0].shifted;
+		if (span <= 0.0)
+			return t < a->t_hi ? a->load : 0.0;
+		lo = fmax(t, a->t_lo);
+		hi = fmin(pin, a->t_hi);
+	} else {
+		pin = lp->proc[lp->nproc - 1].shifted;
+		if (span <= 0.0)
+			return t > a->t_lo ? a->load : 0.0;
+		lo = fmax(pin, a->t_lo);
+		hi = fmin(t, a->t_hi);
+	}
+	return hi > lo ? a->load * (hi - lo) / span : 0.0;
+}
+
+static double
+curve_value(const hl_curve *g, double t)
+{
+	size_t k;
+
+	for (k = 0; k + 1 < g->n; k++)
+		if (t <= g->t[k] && t >= g->t[k + 1])
+			return g->t[k] == g->t[k + 1] ? g->h[k + 1] : g->h[k] +
+			       (g->h[k + 1] - g->h[k]) * (g->t[k] - t) /
+			       (g->t[k] - g->t[k + 1]);
+	return g->n == 0 ? 0.0 : t > g->t[0] ? g->h[0] : g->h[g->n - 1];
+}
+
+/* The grand composite with the heat the utility ranges put across the
+ * pinch: one accounting with the LP's loads (its foot is the cold load
+ * when only hot ranges cross). Empty when no utility crosses. */
+static hl_status
+grand_util(const hl_case *c, const hl_utility_lp *lp, hl_curves *cv,
+	   hl_error *err)
+{
+	double *t;
+	size_t i, n = 0, m;
+
+	if (lp->range_rise <= 0.0 || lp->nproc == 0)
+		return HL_OK;
+	t = malloc((cv->grand.n + 2 * c->nutil + 2) * sizeof *t);
+	if (t == NULL || !curve_alloc(&cv->grand_util, cv->grand.n +
+				      2 * c->nutil + 2)) {
+		free(t);
+		return hl_error_nomem(err);
+	}
+	for (i = 0; i < cv->grand.n; i++)
+		t[n++] = cv->grand.t[i];
+	for (i = 0; i < c->nutil; i++)
+		if (lp->util[i].across > 0.0) {
+			double top = cv->grand.t[0];
+			double foot = cv->grand.t[cv->grand.n - 1];
+
+			if (lp->util[i].t_hi < top && lp->util[i].t_hi > foot)
+				t[n++] = lp->util[i].t_hi;
+			if (lp->util[i].t_lo < top && lp->util[i].t_lo > foot)
+				t[n++] = lp->util[i].t_lo;
+		}
+	m = hl_sorted_unique_desc(t, n);
+	for (i = 0; i < m; i++) {
+		double h = curve_value(&cv->grand, t[i]);
+		size_t u;
+
+		for (u = 0; u < c->nutil; u++)
+			h += across_part(c, lp, u, t[i]);
+		push(&cv->grand_util, h, t[i]);
+	}
+	free(t);
+	return HL_OK;
+}
+
 /* The utility composites against the grand composite. The cold one is
  * built rising (heat taken below T) and turned into heat taken above T. */
 static hl_status
@@ -367,6 +456,8 @@ hl_curves_compute(const hl_case *c, const hl_cascade *cas,
 		st = grand(cas, cv, err);
 	if (st == HL_OK && lp != NULL)
 		st = utility_curves(c, lp, cv, p, err);
+	if (st == HL_OK && lp != NULL)
+		st = grand_util(c, lp, cv, err);
 	free(p);
 	if (st != HL_OK) {
 		hl_curves_free(cv);
@@ -386,6 +477,7 @@ hl_curves_free(hl_curves *cv)
 	curve_clear(&cv->shifted_hot);
 	curve_clear(&cv->shifted_cold);
 	curve_clear(&cv->grand);
+	curve_clear(&cv->grand_util);
 	curve_clear(&cv->hot_util);
 	curve_clear(&cv->cold_util);
 	curve_clear(&cv->bal_hot);

@@ -15,6 +15,10 @@
  * the hot-utility curve gives the heat the hot utilities deliver at or below
  * T, the cold-utility curve the heat the cold utilities take at or above T;
  * each stays left of the grand composite and touches it at a utility pinch.
+ * A utility whose range crosses the process pinch (a flue gas with a stack
+ * temperature below it) is drawn up to the pinch only; the heat it gives
+ * beyond is added to the grand composite (grand_util), so that chart and
+ * loads keep one accounting.
  *
  * Balanced composite curves: the composites with the utilities added as
  * streams at their LP loads (an isothermal utility is a horizontal step);
@@ -64,6 +68,9 @@ typedef struct {
 	hl_curve hot, cold;              /* composite curves, real °C */
 	hl_curve shifted_hot, shifted_cold;
 	hl_curve grand;                  /* heat flow vs shifted °C, top first */
+	hl_curve grand_util;             /* grand plus the heat utility ranges
+					    put across the pinch (a flue gas
+					    cooled below it); n = 0 when none */
 	hl_curve hot_util, cold_util;    /* utility composites (n = 0 without
 					    a utility result) */
 	size_t nlevel;

@@ -33,7 +33,7 @@ hl_sweep_point_from(const hl_case *c, const hl_cascade *cas,
 		    hl_error *err)
 {
 	double *load = NULL, *pinch = NULL;
-	size_t i, np = 0;
+	size_t np = 0;
 	hl_status s;
 
 	if (lp == NULL)
@@ -43,8 +43,7 @@ hl_sweep_point_from(const hl_case *c, const hl_cascade *cas,
 	if (load == NULL || pinch == NULL) {
 		s = hl_error_nomem(err);
 	} else {
-		for (i = 0; i < c->nutil; i++)
-			load[i] = lp->util[i].load;
+		hl_utility_lp_copy_loads(lp, load);
 		s = hl_supertarget_compute(c, cas, load, pinch, np, st, err);
 	}
 	free(load);

@@ -17,27 +17,15 @@
 #include "utility_lp.h"
 #include "sorted.h"
 
-typedef struct {
-	const hl_case *c;
-	double dtmin;
-	size_t nb;
-	double *t;        /* boundaries, falling */
-	double *dh;       /* process surplus of interval k, kW */
-	size_t nu;
-	double *hi, *lo;  /* shifted ends of each utility */
-	size_t *bhi, *blo;
-	double *cap;      /* max_load, HUGE_VAL when unlimited */
-	double pmax, pmin;       /* span of the process, shifted */
-	double cold_min;         /* lowest shifted cold-stream temperature */
-	double hot_max;          /* highest shifted hot-stream temperature */
-	double tol;
-} model;
+#include "utility_lp_int.h"
 
 static void
 model_free(model *m)
 {
 	free(m->t);
 	free(m->dh);
+	free(m->hk);
+	free(m->ck);
 	free(m->hi);
 	free(m->lo);
 	free(m->bhi);
@@ -61,6 +49,70 @@ utility_ends(const hl_utility *u, double dtmin, double *hi, double *lo)
 	sh = u->kind == HL_HOT ? -sh : sh;
 	*hi = fmax(u->supply, u->target) + sh;
 	*lo = fmin(u->supply, u->target) + sh;
+}
+
+/* Latent heat is a zero-width interval between two copies of its boundary
+ * (as in the problem table, cascade.h): give each such boundary twice. */
+static int
+double_latent(model *m)
+{
+	const hl_case *c = m->c;
+	size_t i, j, k, n = m->nb, extra = 0;
+	char *mark = calloc(m->nb, 1);
+	double *t;
+
+	if (mark == NULL)
+		return 0;
+	for (i = 0; i < c->nstream; i++)
+		for (j = 0; j < c->stream[i].nseg; j++)
+			if (hl_segment_latent(&c->stream[i].seg[j]))
+				mark[hl_sorted_find_desc(m->t, m->nb,
+				     c->stream[i].seg[j].supply +
+				     stream_sign_shift(&c->stream[i],
+						       m->dtmin))] = 1;
+	for (k = 0; k < n; k++)
+		extra += (size_t)mark[k];
+	t = extra ? malloc((n + extra) * sizeof *t) : NULL;
+	if (extra && t == NULL) {
+		free(mark);
+		return 0;
+	}
+	for (k = 0, i = 0; extra && k < n; k++) {
+		if (mark[k])
+			t[i++] = m->t[k];
+		t[i++] = m->t[k];
+	}
+	if (extra) {
+		free(m->t);
+		m->t = t;
+		m->nb = n + extra;
+	}
+	free(mark);
+	return 1;
+}
+
+/* Whether latent heat lies at the hottest hot or the coldest cold shifted
+ * temperature (a utility exactly there can still take or give it). */
+static void
+latent_ends(model *m)
+{
+	const hl_case *c = m->c;
+	size_t i, j;
+
+	for (i = 0; i < c->nstream; i++) {
+		const hl_stream *s = &c->stream[i];
+		double t;
+
+		for (j = 0; j < s->nseg; j++) {
+			if (!hl_segment_latent(&s->seg[j]))
+				continue;
+			t = s->seg[j].supply + stream_sign_shift(s, m->dtmin);
+			if (s->kind == HL_HOT && t == m->hot_max)
+				m->hot_latent_max = 1;
+			if (s->kind == HL_COLD && t == m->cold_min)
+				m->cold_latent_min = 1;
+		}
+	}
 }
 
 /* Every shifted end temperature, sorted and unique; the process span. */
@@ -95,12 +147,35 @@ build_boundaries(model *m)
 				m->cold_min = fmin(m->cold_min, fmin(a, b));
 		}
 	}
+	latent_ends(m);
 	for (u = 0; u < m->nu; u++) {
 		m->t[n++] = m->hi[u];
 		m->t[n++] = m->lo[u];
 	}
 	m->nb = hl_sorted_unique_desc(m->t, n);
-	return 1;
+	return double_latent(m);
+}
+
+/* Latent heat of each zero-width interval (the first copy of its boundary,
+ * see double_latent): lat[2k] hot, lat[2k+1] cold, kW. */
+static void
+latent_steps(const model *m, double *lat)
+{
+	const hl_case *c = m->c;
+	size_t i, j, b;
+
+	for (i = 0; i < c->nstream; i++) {
+		const hl_stream *s = &c->stream[i];
+
+		for (j = 0; j < s->nseg; j++) {
+			if (!hl_segment_latent(&s->seg[j]))
+				continue;
+			b = hl_sorted_find_desc(m->t, m->nb, s->seg[j].supply +
+						stream_sign_shift(s, m->dtmin));
+			lat[2 * b + (s->kind == HL_HOT ? 0 : 1)] +=
+				s->seg[j].latent;
+		}
+	}
 }
 
 /* Surplus of every interval: net cp by a difference array over boundary
@@ -110,11 +185,16 @@ build_surplus(model *m)
 {
 	const hl_case *c = m->c;
 	size_t i, j, k;
-	double run = 0.0, scale = 0.0;
+	double run = 0.0, runh = 0.0, runc = 0.0, scale = 0.0, *lat;
 
 	m->dh = calloc(m->nb, sizeof *m->dh);
-	if (m->dh == NULL)
+	m->hk = calloc(m->nb, sizeof *m->hk);
+	m->ck = calloc(m->nb, sizeof *m->ck);
+	lat = calloc(2 * m->nb, sizeof *lat);
+	if (m->dh == NULL || m->hk == NULL || m->ck == NULL || lat == NULL) {
+		free(lat);
 		return 0;
+	}
 	for (i = 0; i < c->nstream; i++) {
 		const hl_stream *s = &c->stream[i];
 		double sh = stream_sign_shift(s, m->dtmin);
@@ -123,18 +203,32 @@ build_surplus(model *m)
 		for (j = 0; j < s->nseg; j++) {
 			const hl_segment *g = &s->seg[j];
 
-			m->dh[hl_sorted_find_desc(m->t, m->nb, fmax(g->supply, g->target) +
-					sh)] += sign * g->cp;
-			m->dh[hl_sorted_find_desc(m->t, m->nb, fmin(g->supply, g->target) +
-					sh)] -= sign * g->cp;
+			size_t a = hl_sorted_find_desc(m->t, m->nb,
+					fmax(g->supply, g->target) + sh);
+			size_t b = hl_sorted_find_desc(m->t, m->nb,
+					fmin(g->supply, g->target) + sh);
+			double *side = s->kind == HL_HOT ? m->hk : m->ck;
+
+			m->dh[a] += sign * g->cp;
+			m->dh[b] -= sign * g->cp;
+			side[a] += g->cp;
+			side[b] -= g->cp;
 		}
 	}
+	latent_steps(m, lat);
 	for (k = 0; k + 1 < m->nb; k++) {
+		double w = m->t[k] - m->t[k + 1];
+
 		run += m->dh[k];
-		m->dh[k] = run * (m->t[k] - m->t[k + 1]);
+		runh += m->hk[k];
+		runc += m->ck[k];
+		m->dh[k] = run * w + lat[2 * k] - lat[2 * k + 1];
+		m->hk[k] = runh * w + lat[2 * k];
+		m->ck[k] = runc * w + lat[2 * k + 1];
 		scale += fabs(m->dh[k]);
 	}
-	m->dh[m->nb - 1] = 0.0;
+	free(lat);
+	m->dh[m->nb - 1] = m->hk[m->nb - 1] = m->ck[m->nb - 1] = 0.0;
 	m->tol = 1e-9 * (scale > 0.0 ? scale : 1.0);
 	return 1;
 }
@@ -156,6 +250,7 @@ place_utilities(model *m)
 
 		utility_ends(x, m->dtmin, &m->hi[u], &m->lo[u]);
 		m->cap[u] = isnan(x->max_load) ? HUGE_VAL : x->max_load;
+		m->credit |= x->price < 0.0;
 	}
 	return 1;
 }
@@ -168,6 +263,12 @@ locate_utilities(model *m)
 	for (u = 0; u < m->nu; u++) {
 		m->bhi[u] = hl_sorted_find_desc(m->t, m->nb, m->hi[u]);
 		m->blo[u] = hl_sorted_find_desc(m->t, m->nb, m->lo[u]);
+		/* an isothermal cold utility takes from the interval above its
+		 * level: at a latent step, the step itself (the last copy) */
+		if (m->hi[u] == m->lo[u] && !is_hot(m, u))
+			while (m->bhi[u] + 1 < m->nb &&
+			       m->t[m->bhi[u] + 1] == m->t[m->bhi[u]])
+				m->blo[u] = ++m->bhi[u];
 	}
 }
 
@@ -186,7 +287,7 @@ build_model(model *m, const hl_case *c, double dtmin, hl_error *err)
 	return HL_OK;
 }
 
-static int
+int
 is_hot(const model *m, size_t u)
 {
 	return m->c->util[u].kind == HL_HOT;
@@ -208,7 +309,7 @@ frac_above(const model *m, size_t u, size_t b)
 
 /* Heat utility u adds to interval k per kW of load (negative for a cold
  * utility); 0 outside its range. */
-static double
+double
 coef(const model *m, size_t u, size_t k)
 {
 	double sign = is_hot(m, u) ? 1.0 : -1.0;
@@ -224,7 +325,7 @@ coef(const model *m, size_t u, size_t k)
 }
 
 /* First and one-past-last interval utility u touches. */
-static void
+void
 rows_of(const model *m, size_t u, size_t *k0, size_t *k1)
 {
 	if (m->bhi[u] != m->blo[u]) {
@@ -468,7 +569,7 @@ build_matrix(const model *m, triplets *tr)
 	return 1;
 }
 
-static int
+int
 serves(const model *m, size_t u)
 {
 	size_t k0, k1;
@@ -512,17 +613,27 @@ break_ties(glp_prob *P, const model *m, hl_glpk_guard *g, double tlim,
 	   hl_error *err)
 {
 	double pmax = 1.0;
-	int j, ncol = (int)(m->nb + m->nu);
+	int j, ncol = glp_get_num_cols(P);
 	size_t u;
 
 	for (u = 0; u < m->nu; u++)
-		pmax = fmax(pmax, m->c->util[u].price);
+		pmax = fmax(pmax, fabs(m->c->util[u].price));
 	for (j = 1; j <= ncol; j++) {
 		double x = glp_get_col_prim(P, j);
 
 		if (glp_get_col_stat(P, j) != GLP_BS &&
 		    fabs(glp_get_col_dual(P, j)) > 1e-9 * pmax)
 			glp_set_col_bnds(P, j, GLP_FX, x, x);
+	}
+	/* The credit model has inequality rows: those with a nonzero dual
+	 * stay active on the optimal face. */
+	for (j = 1; j <= glp_get_num_rows(P); j++) {
+		double x = glp_get_row_prim(P, j);
+
+		if (glp_get_row_type(P, j) != GLP_FX &&
+		    glp_get_row_stat(P, j) != GLP_BS &&
+		    fabs(glp_get_row_dual(P, j)) > 1e-9 * pmax)
+			glp_set_row_bnds(P, j, GLP_FX, x, x);
 	}
 	for (u = 0; u < m->nu; u++)
 		glp_set_obj_coef(P, (int)(m->nb + u) + 1, tie_weight(m, u));
@@ -576,11 +687,19 @@ solve_loads(const model *m, const hl_utility_lp_opts *opt, double *load,
 	P = glp_create_prob();
 	glp_set_prob_name(P, "heatloom utility levels");
 	glp_set_obj_dir(P, GLP_MIN);
-	glp_add_rows(P, (int)m->nb - 1);
-	glp_add_cols(P, (int)(m->nb + m->nu));
-	glp_load_matrix(P, tr.ne, tr.ia, tr.ja, tr.ar);
-	set_bounds(P, m);
-	st = hl_glpk_simplex_direct(P, &g, tlim, "the utility LP", err);
+	if (m->credit) {
+		glp_add_rows(P, hl_utility_credit_nrow(m));
+		glp_add_cols(P, hl_utility_credit_ncol(m));
+		st = hl_utility_credit_load(P, m) ? HL_OK : hl_error_nomem(err);
+	} else {
+		glp_add_rows(P, (int)m->nb - 1);
+		glp_add_cols(P, (int)(m->nb + m->nu));
+		glp_load_matrix(P, tr.ne, tr.ia, tr.ja, tr.ar);
+		set_bounds(P, m);
+		st = HL_OK;
+	}
+	if (st == HL_OK)
+		st = hl_glpk_simplex_direct(P, &g, tlim, "the utility LP", err);
 	if (st == HL_OK)
 		tie_broken_loads(P, m, &g, tlim, load);
 	if (st != HL_OK && g.infeasible)
@@ -666,6 +785,8 @@ find_pinches(const model *m, hl_utility_lp *r)
 		if (b + 1 < m->nb)
 			s += m->dh[b];
 	}
+	r->qh_min = smin < 0.0 ? -smin : 0.0;
+	r->qc_min = s - smin;
 	for (b = 1; b + 1 < m->nb; b++) {
 		int inside = m->t[b] < m->pmax && m->t[b] > m->pmin;
 		int ppinch = pf[b] - smin <= m->tol;
@@ -694,8 +815,10 @@ classify(const model *m, hl_utility_lp *r, const double *load)
 		l->cost = x->price * l->load * r->hours / 1000.0;
 		if (l->load > 0.0)
 			l->use = HL_UTIL_USED;
-		else if (is_hot(m, u) ? m->cold_min >= m->hi[u]
-				      : m->hot_max <= m->lo[u])
+		else if (is_hot(m, u) ? m->cold_min > m->hi[u] ||
+				(m->cold_min == m->hi[u] && !m->cold_latent_min)
+				      : m->hot_max < m->lo[u] ||
+				(m->hot_max == m->lo[u] && !m->hot_latent_max))
 			l->use = HL_UTIL_REACH;
 		else
 			l->use = HL_UTIL_IDLE;
@@ -705,6 +828,65 @@ classify(const model *m, hl_utility_lp *r, const double *load)
 			r->cold_load += l->load;
 		r->cost += l->cost;
 	}
+}
+
+/* Heat of utility u on the far side of shifted temperature ts: below it
+ * for a hot utility, above it for a cold one. */
+static double
+beyond(const model *m, size_t u, double load, double ts)
+{
+	double f;
+
+	if (m->hi[u] == m->lo[u])
+		return is_hot(m, u) ? (m->hi[u] <= ts ? load : 0.0)
+				    : (m->lo[u] >= ts ? load : 0.0);
+	f = (fmin(m->hi[u], ts) - m->lo[u]) / (m->hi[u] - m->lo[u]);
+	f = fmin(1.0, fmax(0.0, f));
+	return load * (is_hot(m, u) ? f : 1.0 - f);
+}
+
+/* Hot utility bought beyond the minimum and the ranges because a credit
+ * pays for it: it frees process heat for a credit cold utility. */
+static void
+credit_rise(const model *m, hl_utility_lp *r)
+{
+	double rise = r->hot_load - r->qh_min - r->range_rise;
+	size_t u;
+
+	r->credit_rise = m->credit && rise > m->tol ? rise : 0.0;
+	r->credit = 0.0;
+	for (u = 0; u < m->nu; u++)
+		if (r->util[u].cost < 0.0)
+			r->credit -= r->util[u].cost;
+}
+
+/* What each utility exchanges across the process pinch (the hottest for a
+ * hot utility, the coldest for a cold one), and the rise of the hot
+ * utility above the process target it causes. */
+static void
+find_across(const model *m, hl_utility_lp *r)
+{
+	double top, bottom, rise = 0.0;
+	size_t u;
+
+	if (r->nproc == 0) {
+		rise = m->credit ? 0.0 : r->hot_load - r->qh_min;
+		r->range_rise = rise > m->tol ? rise : 0.0;
+		credit_rise(m, r);
+		return;
+	}
+	top = r->proc[0].shifted;
+	bottom = r->proc[r->nproc - 1].shifted;
+	for (u = 0; u < m->nu; u++) {
+		hl_utility_load *l = &r->util[u];
+		double a = beyond(m, u, l->load, is_hot(m, u) ? top : bottom);
+
+		l->across = a > m->tol ? a : 0.0;
+		if (is_hot(m, u))
+			rise += l->across;
+	}
+	r->range_rise = rise;
+	credit_rise(m, r);
 }
 
 static hl_status
@@ -732,6 +914,7 @@ make_result(const model *m, const double *load, hl_utility_lp **out,
 	}
 	memcpy(r->t, m->t, m->nb * sizeof *r->t);
 	classify(m, r, load);
+	find_across(m, r);
 	*out = r;
 	return HL_OK;
 }
@@ -777,6 +960,28 @@ hl_utility_lp_free(hl_utility_lp *r)
 	free(r->proc);
 	free(r->pinch);
 	free(r);
+}
+
+void
+hl_utility_lp_copy_loads(const hl_utility_lp *r, double *load)
+{
+	size_t i;
+
+	for (i = 0; i < r->nutil; i++)
+		load[i] = r->util[i].load;
+}
+
+hl_status
+hl_utility_lp_loads(const hl_utility_lp *r, double **out, hl_error *err)
+{
+	*out = NULL;
+	if (r == NULL)
+		return HL_OK;
+	*out = malloc((r->nutil > 0 ? r->nutil : 1) * sizeof **out);
+	if (*out == NULL)
+		return hl_error_nomem(err);
+	hl_utility_lp_copy_loads(r, *out);
+	return HL_OK;
 }
 
 const char *

@@ -24,8 +24,11 @@
  *
  *	R_k + Σ hot heat into k + surplus_k = R_{k+1} + Σ cold heat out of k
  *
- * The objective is Σ price_u · Q_u. Among answers of equal cost (within 1e-9
- * relative) a second solve picks, deterministically, the one of least
+ * The objective is Σ price_u · Q_u. A negative price is a credit (steam
+ * raised, heat sold); then the heat is split by origin (utility_credit.c)
+ * so that a credit utility takes only heat the process gives, or gives
+ * only heat the process takes, and the LP stays bounded. Among answers of
+ * equal cost (within 1e-9 relative) a second solve picks, deterministically, the one of least
  * weighted utility use, weighting each kW by 1 + its level's rank: the
  * colder hot utility and the hotter cold utility are preferred (the cheaper
  * level in exergy; LP steam before HP steam at the same price).
@@ -55,6 +58,11 @@ typedef struct {
 	double cost;        /* currency per year: price × load × hours / 1000 */
 	hl_utility_use use;
 	double t_hi, t_lo;  /* shifted temperatures of its ends, °C */
+	double across;      /* kW of the load a hot utility gives below the
+			       process pinch (a cold one takes above it):
+			       a utility with a range must exchange over all
+			       of it, so a flue gas with a stack temperature
+			       below the pinch heats the process below it too */
 } hl_utility_load;
 
 /* A boundary where no heat flows down. */
@@ -72,6 +80,15 @@ typedef struct {
 	double hot_load;        /* Σ hot utility loads, kW */
 	double cold_load;       /* Σ cold utility loads, kW */
 	double cost;            /* Σ yearly costs */
+	double qh_min, qc_min;  /* kW, the process targets (problem table) */
+	double range_rise;      /* kW: hot_load − qh_min owed to utility
+				   ranges (Σ across of the hot utilities when
+				   the process has a pinch), 0 when none */
+	double credit_rise;     /* kW of hot utility bought beyond that
+				   because a credit pays for it (it frees
+				   process heat for a credit cold utility) */
+	double credit;          /* currency per year the credits earn (>= 0;
+				   cost is net of it) */
 	size_t nb;
 	double *t;              /* boundaries, shifted °C, falling */
 	double *flow;           /* R_b with the chosen loads, kW (>= 0) */
@@ -104,6 +121,12 @@ hl_status hl_utility_lp_solve(const hl_case *c, double dtmin,
 			      const hl_utility_lp_opts *opt,
 			      hl_utility_lp **out, hl_error *err);
 void hl_utility_lp_free(hl_utility_lp *r);
+
+/* The load of each case utility (kW, case order) into load[r->nutil]. */
+void hl_utility_lp_copy_loads(const hl_utility_lp *r, double *load);
+/* The same in a new array (free it); *out is NULL when r is NULL. */
+hl_status hl_utility_lp_loads(const hl_utility_lp *r, double **out,
+			      hl_error *err);
 
 /* Name of a use ("used", "unused", "out of reach"). */
 const char *hl_utility_use_name(hl_utility_use use);

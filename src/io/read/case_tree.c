@@ -14,6 +14,7 @@
 #include <string.h>
 
 #include "case_tree.h"
+#include "plausible.h"
 #include "tables.h"
 #include "xml_attr.h"
 
@@ -164,8 +165,9 @@ static const hl_xattr settings_attrs[] = {
 	{ "h-default", HL_XATTR_AMOUNT, 0, U_H, NULL },
 	{ "fmin", HL_XATTR_AMOUNT, 0, NULL, NULL },
 	{ "xp", HL_XATTR_AMOUNT, 0, NULL, NULL },
-	{ "exchanger", HL_XATTR_CHOICE, 0, NULL,
-	  "shell-and-tube|counterflow" },
+	{ "exchanger", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
+	{ "heater-type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
+	{ "cooler-type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
 	{ "interest", HL_XATTR_AMOUNT, 0, NULL, NULL },
 	{ "life", HL_XATTR_AMOUNT, 0, "years", NULL },
 	{ "cp-tol", HL_XATTR_AMOUNT, 0, NULL, NULL },
@@ -177,18 +179,20 @@ static const hl_xattr settings_attrs[] = {
 static const struct {
 	const char *name;
 	size_t off;
+	unsigned bit;
 } settings_numbers[] = {
-	{ "dtmin", offsetof(hl_settings, dtmin) },
-	{ "emat", offsetof(hl_settings, emat) },
-	{ "hours", offsetof(hl_settings, hours) },
-	{ "h-default", offsetof(hl_settings, h_default) },
-	{ "fmin", offsetof(hl_settings, fmin) },
-	{ "xp", offsetof(hl_settings, xp) },
-	{ "interest", offsetof(hl_settings, interest) },
-	{ "life", offsetof(hl_settings, life) },
-	{ "cp-tol", offsetof(hl_settings, cp_tol) },
-	{ "t-tol", offsetof(hl_settings, t_tol) },
-	{ "time-limit", offsetof(hl_settings, time_limit) },
+	{ "dtmin", offsetof(hl_settings, dtmin), HL_GIVEN_DTMIN },
+	{ "emat", offsetof(hl_settings, emat), HL_GIVEN_EMAT },
+	{ "hours", offsetof(hl_settings, hours), HL_GIVEN_HOURS },
+	{ "h-default", offsetof(hl_settings, h_default), HL_GIVEN_H_DEFAULT },
+	{ "fmin", offsetof(hl_settings, fmin), HL_GIVEN_FMIN },
+	{ "xp", offsetof(hl_settings, xp), HL_GIVEN_XP },
+	{ "interest", offsetof(hl_settings, interest), HL_GIVEN_INTEREST },
+	{ "life", offsetof(hl_settings, life), HL_GIVEN_LIFE },
+	{ "cp-tol", offsetof(hl_settings, cp_tol), HL_GIVEN_CP_TOL },
+	{ "t-tol", offsetof(hl_settings, t_tol), HL_GIVEN_T_TOL },
+	{ "time-limit", offsetof(hl_settings, time_limit),
+	  HL_GIVEN_TIME_LIMIT },
 };
 
 static hl_status
@@ -198,21 +202,76 @@ read_cost(walk *w, xmlNodePtr n)
 		{ "a", HL_XATTR_AMOUNT, 0, "currency", NULL },
 		{ "b", HL_XATTR_AMOUNT, 0, NULL, NULL },
 		{ "c", HL_XATTR_AMOUNT, 0, NULL, NULL },
+		{ "repipe", HL_XATTR_AMOUNT, 0, "currency", NULL },
+		{ "new-unit", HL_XATTR_AMOUNT, 0, "currency", NULL },
 	};
 	hl_settings *s = &w->c->set;
 	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
 
 	if (st != HL_OK)
 		return st;
+	s->given |= HL_GIVEN_COST;
 	if (!isnan(num(n, "a")))
 		s->cost_a = num(n, "a");
 	if (!isnan(num(n, "b")))
 		s->cost_b = num(n, "b");
 	if (!isnan(num(n, "c")))
 		s->cost_c = num(n, "c");
+	s->repipe_cost = num(n, "repipe");
+	s->unit_cost = num(n, "new-unit");
 	if (!(s->cost_c > 0.0))
 		return fail(w, n, HL_EINPUT, "cost exponent c must be > 0 "
 			"(cost per shell = a + b·A^c, A in m²)");
+	return HL_OK;
+}
+
+/* <equipment type=… a b c largest smallest>: one type's law and limits. */
+static hl_status
+read_equipment(walk *w, xmlNodePtr n)
+{
+	static const hl_xattr attrs[] = {
+		{ "type", HL_XATTR_CHOICE, 1, NULL, HL_EXCH_TYPE_CHOICES },
+		{ "a", HL_XATTR_AMOUNT, 0, "currency", NULL },
+		{ "b", HL_XATTR_AMOUNT, 0, NULL, NULL },
+		{ "c", HL_XATTR_AMOUNT, 0, NULL, NULL },
+		{ "largest", HL_XATTR_AMOUNT, 0, NULL, NULL },
+		{ "smallest", HL_XATTR_AMOUNT, 0, NULL, NULL },
+	};
+	hl_exchanger_law *l;
+	double a, b, c;
+	int ncost;
+	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
+
+	if (st != HL_OK)
+		return st;
+	l = &w->c->set.law[hl_exchanger_type_parse(hl_xattr_text(n, "type"))];
+	if (l->given != 0)
+		return fail(w, n, HL_EINPUT, "a second <equipment type=\"%s\">"
+			"; give each type once", hl_xattr_text(n, "type"));
+	a = num(n, "a");
+	b = num(n, "b");
+	c = num(n, "c");
+	ncost = !isnan(a) + !isnan(b) + !isnan(c);
+	if (ncost != 0 && ncost != 3)
+		return fail(w, n, HL_EINPUT, "give all three of a, b, c (cost "
+			"of one shell a + b·X^c) or none");
+	if (ncost == 3) {
+		l->a = a;
+		l->b = b;
+		l->c = c;
+		l->given |= HL_LAW_COST;
+	}
+	if (!isnan(num(n, "largest"))) {
+		l->largest = num(n, "largest");
+		l->given |= HL_LAW_LARGEST;
+	}
+	if (!isnan(num(n, "smallest"))) {
+		l->smallest = num(n, "smallest");
+		l->given |= HL_LAW_SMALLEST;
+	}
+	if (!(l->largest > l->smallest) || (ncost == 3 && !(c > 0.0)))
+		return fail(w, n, HL_EINPUT, "largest must be above smallest "
+			"and c > 0");
 	return HL_OK;
 }
 
@@ -330,12 +389,21 @@ settings_values(walk *w, xmlNodePtr n)
 	for (i = 0; i < NELEM(settings_numbers); i++) {
 		double v = num(n, settings_numbers[i].name);
 
-		if (!isnan(v))
-			*(double *)((char *)s + settings_numbers[i].off) = v;
+		if (isnan(v))
+			continue;
+		*(double *)((char *)s + settings_numbers[i].off) = v;
+		s->given |= settings_numbers[i].bit;
 	}
+	s->given |= (ex != NULL ? HL_GIVEN_EXCHANGER : 0u) |
+		    (cur != NULL ? HL_GIVEN_CURRENCY : 0u);
 	if (ex != NULL)
-		s->exchanger = strcmp(ex, "counterflow") == 0 ?
-			       HL_EXCH_COUNTERFLOW : HL_EXCH_SHELL_TUBE;
+		s->exchanger = (hl_exchanger_type)hl_exchanger_type_parse(ex);
+	if (hl_xattr_text(n, "heater-type") != NULL)
+		s->kind_type[HL_HOT] = hl_exchanger_type_parse(
+			hl_xattr_text(n, "heater-type"));
+	if (hl_xattr_text(n, "cooler-type") != NULL)
+		s->kind_type[HL_COLD] = hl_exchanger_type_parse(
+			hl_xattr_text(n, "cooler-type"));
 	if (cur != NULL) {
 		char *d = strdup(cur);
 
@@ -369,6 +437,10 @@ read_settings(walk *w, xmlNodePtr n)
 
 		if (ch->type != XML_ELEMENT_NODE)
 			continue;
+		if (is_elem(ch, "equipment")) {
+			st = read_equipment(w, ch);
+			continue;
+		}
 		if (is_elem(ch, "cost"))
 			seen = &seen_cost;
 		else if (is_elem(ch, "plant-areas"))
@@ -376,8 +448,9 @@ read_settings(walk *w, xmlNodePtr n)
 		else if (is_elem(ch, "design"))
 			seen = &seen_design;
 		else
-			return unknown_child(w, n, ch, "<cost>, <plant-areas> "
-				"and <design>, besides attributes");
+			return unknown_child(w, n, ch, "<cost>, <equipment>, "
+				"<plant-areas> and <design>, besides "
+				"attributes");
 		if (*seen)
 			return fail(w, ch, HL_EINPUT, "a second <%s> in "
 				"<settings>; give it once", name_of(ch));
@@ -430,10 +503,18 @@ read_ends(walk *w, xmlNodePtr n, const char *name, double h, hl_segment *g)
 		return fail(w, n, HL_EINPUT, "stream '%s' needs supply and "
 			"target (" U_T "), or <segment> children", name);
 	span = fabs(g->supply - g->target);
-	if (span == 0.0)
+	if (span == 0.0 && !isnan(cp))
 		return fail(w, n, HL_EINPUT, "stream '%s': supply equals target "
-			"(%g " U_T "); a process stream must change temperature",
+			"(%g " U_T "), so cp would be infinite; give the latent "
+			"heat as a duty (kW) instead of cp", name, g->supply);
+	if (span == 0.0 && !(duty > 0.0))
+		return fail(w, n, HL_EINPUT, "stream '%s': supply equals target "
+			"(%g " U_T "): give the latent heat as a duty (kW, > 0)",
 			name, g->supply);
+	if (span == 0.0) {
+		g->latent = duty;
+		return HL_OK;
+	}
 	if (!isnan(duty) && !(duty > 0.0))
 		return fail(w, n, HL_EINPUT, "stream '%s': duty must be > 0 kW",
 			    name);
@@ -450,6 +531,11 @@ read_ends(walk *w, xmlNodePtr n, const char *name, double h, hl_segment *g)
 			"is %g kW, but duty says %g kW; give one of them or make "
 			"them agree", name, cp, span, cp * span, duty);
 	g->cp = cp;
+	hl_doubt_htc(w->o->file, g->line, "h", g->h);
+	if (g->by_duty)
+		hl_doubt_duty(w->o->file, g->line, "duty", duty);
+	else
+		hl_doubt_cp(w->o->file, g->line, "cp", cp, span);
 	return HL_OK;
 }
 
@@ -501,8 +587,22 @@ stream_kind(walk *w, xmlNodePtr n, hl_stream *s)
 {
 	const char *k = hl_xattr_text(n, "kind");
 	const hl_segment *g = &s->seg[0];
+	size_t i;
 
 	s->kind = g->supply > g->target ? HL_HOT : HL_COLD;
+	/* A stream of latent heat only takes its kind from the attribute;
+	 * one that starts latent from its first sensible segment. */
+	for (i = 0; i < s->nseg && hl_segment_latent(&s->seg[i]); i++)
+		;
+	if (i < s->nseg)
+		s->kind = s->seg[i].supply > s->seg[i].target ? HL_HOT :
+			  HL_COLD;
+	else if (k == NULL)
+		return fail(w, n, HL_EINPUT, "stream '%s' is latent heat at "
+			"%g " U_T ": give its kind (hot: condensing, cold: "
+			"boiling)", s->name, g->supply);
+	else
+		s->kind = strcmp(k, "hot") == 0 ? HL_HOT : HL_COLD;
 	if (k == NULL || strcmp(k, s->kind == HL_HOT ? "hot" : "cold") == 0)
 		return HL_OK;
 	return fail(w, n, HL_EINPUT, "stream '%s' is marked %s but runs from "
@@ -556,12 +656,17 @@ read_utility(walk *w, xmlNodePtr n)
 		{ "kind", HL_XATTR_CHOICE, 1, NULL, "hot|cold" },
 		{ "supply", HL_XATTR_NUMBER, 1, U_T, NULL },
 		{ "target", HL_XATTR_NUMBER, 1, U_T, NULL },
-		{ "price", HL_XATTR_AMOUNT, 1, "currency per MWh", NULL },
+		{ "price", HL_XATTR_NUMBER, 1, "currency per MWh", NULL },
 		{ "h", HL_XATTR_AMOUNT, 0, U_H, NULL },
 		{ "max-load", HL_XATTR_AMOUNT, 0, "kW", NULL },
 		{ "dt-contrib", HL_XATTR_AMOUNT, 0, "K", NULL },
+		{ "type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
+		{ "cost-a", HL_XATTR_AMOUNT, 0, "currency", NULL },
+		{ "cost-b", HL_XATTR_AMOUNT, 0, NULL, NULL },
+		{ "cost-c", HL_XATTR_AMOUNT, 0, NULL, NULL },
 	};
 	hl_utility u;
+	int ncost;
 	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
 
 	if (st != HL_OK)
@@ -576,8 +681,20 @@ read_utility(walk *w, xmlNodePtr n)
 	u.h = num(n, "h");
 	u.max_load = num(n, "max-load");
 	u.dt_contrib = num(n, "dt-contrib");
+	u.type = hl_exchanger_type_parse(hl_xattr_text(n, "type"));
+	u.type_given = u.type >= 0;
+	u.cost_a = num(n, "cost-a");
+	u.cost_b = num(n, "cost-b");
+	u.cost_c = num(n, "cost-c");
+	ncost = !isnan(u.cost_a) + !isnan(u.cost_b) + !isnan(u.cost_c);
+	if (ncost != 0 && ncost != 3)
+		return fail(w, n, HL_EINPUT, "utility '%s': give all three of "
+			"cost-a, cost-b, cost-c or none", u.name);
+	u.cost_given = ncost == 3;
 	u.file = (char *)w->o->file;
 	u.line = hl_xattr_line(n);
+	hl_doubt_htc(u.file, u.line, "h", u.h);
+	hl_doubt_duty(u.file, u.line, "max-load", u.max_load);
 	return hl_case_add_utility(w->c, &u, w->err);
 }
 
@@ -612,6 +729,31 @@ read_rule(walk *w, xmlNodePtr n, hl_rule_kind kind)
 	return hl_case_add_rule(w->c, &r, w->err);
 }
 
+/* <exchanger hot cold type>: the type the engineer fixes for a pair. */
+static hl_status
+read_type_rule(walk *w, xmlNodePtr n)
+{
+	static const hl_xattr attrs[] = {
+		{ "hot", HL_XATTR_LABEL, 1, NULL, NULL },
+		{ "cold", HL_XATTR_LABEL, 1, NULL, NULL },
+		{ "type", HL_XATTR_CHOICE, 1, NULL, HL_EXCH_TYPE_CHOICES },
+		{ "reason", HL_XATTR_TEXT, 0, NULL, NULL },
+	};
+	hl_type_rule r;
+	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
+
+	if (st != HL_OK)
+		return st;
+	memset(&r, 0, sizeof r);
+	r.hot = (char *)hl_xattr_text(n, "hot");
+	r.cold = (char *)hl_xattr_text(n, "cold");
+	r.type = (hl_exchanger_type)hl_exchanger_type_parse(
+		hl_xattr_text(n, "type"));
+	r.file = (char *)w->o->file;
+	r.line = hl_xattr_line(n);
+	return hl_case_add_type_rule(w->c, &r, w->err);
+}
+
 static hl_status
 read_matches(walk *w, xmlNodePtr n)
 {
@@ -629,9 +771,11 @@ read_matches(walk *w, xmlNodePtr n)
 			st = read_rule(w, ch, HL_RULE_REQUIRE);
 		else if (is_elem(ch, "limit"))
 			st = read_rule(w, ch, HL_RULE_MAX_DUTY);
+		else if (is_elem(ch, "exchanger"))
+			st = read_type_rule(w, ch);
 		else
 			st = unknown_child(w, n, ch, "<forbid>, <require> and "
-				"<limit> rules");
+				"<limit> rules and <exchanger> types");
 	}
 	return st;
 }
@@ -652,6 +796,7 @@ read_unit(walk *w, xmlNodePtr n)
 		{ "cold-out", HL_XATTR_NUMBER, 0, U_T, NULL },
 		{ "area", HL_XATTR_AMOUNT, 0, "m²", NULL },
 		{ "shells", HL_XATTR_COUNT, 0, NULL, NULL },
+		{ "type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
 	};
 	hl_unit u;
 	hl_status st = check_leaf(w, n, attrs, NELEM(attrs));
@@ -669,6 +814,8 @@ read_unit(walk *w, xmlNodePtr n)
 	u.cold_out = num(n, "cold-out");
 	u.area = num(n, "area");
 	u.shells = isnan(num(n, "shells")) ? 0 : (int)num(n, "shells");
+	u.type = hl_exchanger_type_parse(hl_xattr_text(n, "type"));
+	u.type_given = u.type >= 0;
 	u.file = (char *)w->o->file;
 	u.line = hl_xattr_line(n);
 	if (!(u.duty > 0.0))

@@ -38,14 +38,8 @@ int hl_csv_next(hl_csv *r, hl_error *err);
 
 size_t hl_csv_nfields(const hl_csv *r);
 const char *hl_csv_field(const hl_csv *r, size_t i); /* "" past the end */
-int hl_csv_quoted(const hl_csv *r, size_t i);        /* field was quoted */
 long hl_csv_line(const hl_csv *r);                   /* line of the record */
 const char *hl_csv_name(const hl_csv *r);
 int hl_csv_decimal_comma(const hl_csv *r);
-
-/* Parse a decimal number strictly: optional sign, digits with an optional
- * point (or comma when decimal_comma), optional exponent; no inf, nan, hex
- * or trailing text. Returns 1 on success. */
-int hl_parse_number(const char *s, int decimal_comma, double *out);
 
 #endif

@@ -3,15 +3,22 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "plausible.h"
 #include "table.h"
 #include "tables.h"
 
 enum { N_NAME, N_HOT, N_COLD, N_DUTY, N_HOT_IN, N_HOT_OUT, N_COLD_IN,
-       N_COLD_OUT, N_AREA, N_SHELLS, N_COUNT };
+       N_COLD_OUT, N_AREA, N_SHELLS, N_TYPE, N_COUNT };
 
 static const char *const columns[N_COUNT] = {
 	"name", "hot", "cold", "duty", "hot_in", "hot_out", "cold_in",
-	"cold_out", "area", "shells"
+	"cold_out", "area", "shells", "type"
+};
+
+static const hl_qty qty[N_COUNT] = {
+	HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_POWER, HL_QTY_TEMP,
+	HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_AREA, HL_QTY_NONE,
+	HL_QTY_NONE
 };
 
 int
@@ -84,6 +91,7 @@ read_numbers(hl_table *t, hl_unit *u, hl_error *err)
 	if (!(u->duty > 0.0))
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
 			"unit '%s': duty must be > 0 kW", u->name);
+	hl_doubt_duty(u->file, u->line, "duty", u->duty);
 	if (!isnan(u->area) && !(u->area > 0.0))
 		return hl_error_set(err, HL_EINPUT, u->file, u->line,
 			"unit '%s': area must be > 0 m² (leave the cell empty "
@@ -109,6 +117,24 @@ read_shells(hl_table *t, hl_unit *u, hl_error *err)
 	return HL_OK;
 }
 
+/* The optional exchanger type of the unit. */
+static hl_status
+read_type(hl_table *t, hl_unit *u, hl_error *err)
+{
+	const char *s = hl_table_text(t, N_TYPE);
+
+	if (s[0] == '\0')
+		return HL_OK;
+	u->type = hl_exchanger_type_parse(s);
+	if (u->type < 0)
+		return hl_error_set(err, HL_EINPUT, u->file, u->line,
+			"unit '%s': type '%.40s' is not one of shell-and-tube, "
+			"counterflow, plate, double-pipe, air-cooler, "
+			"fired-heater", u->name, s);
+	u->type_given = 1;
+	return HL_OK;
+}
+
 static hl_status
 read_unit(hl_table *t, hl_unit *u, hl_error *err)
 {
@@ -122,6 +148,8 @@ read_unit(hl_table *t, hl_unit *u, hl_error *err)
 		st = read_numbers(t, u, err);
 	if (st == HL_OK)
 		st = read_shells(t, u, err);
+	if (st == HL_OK)
+		st = read_type(t, u, err);
 	return st;
 }
 
@@ -161,7 +189,8 @@ hl_network_table_read(hl_case *c, const char *path, hl_error *err)
 	hl_table t;
 	hl_status st;
 
-	st = hl_table_open(&t, path, "network table", columns, N_COUNT, err);
+	st = hl_table_open(&t, path, "network table", columns, qty, N_COUNT,
+			   err);
 	if (st != HL_OK)
 		return st;
 	return read_table(c, &t, err);
@@ -175,7 +204,7 @@ hl_network_table_read_mem(hl_case *c, const char *name, const char *data,
 	hl_status st;
 
 	st = hl_table_open_mem(&t, name, data, len, "network table", columns,
-			       N_COUNT, err);
+			       qty, N_COUNT, err);
 	if (st != HL_OK)
 		return st;
 	return read_table(c, &t, err);

@@ -5,6 +5,8 @@
 #include <string.h>
 #include <strings.h>
 
+#include "plausible.h"
+#include "read_warn.h"
 #include "table.h"
 #include "tables.h"
 
@@ -16,11 +18,18 @@ static const char *const columns[C_COUNT] = {
 	"area", "cp_tol", "t_tol"
 };
 
+static const hl_qty qty[C_COUNT] = {
+	HL_QTY_NONE, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_CP, HL_QTY_POWER,
+	HL_QTY_HTC, HL_QTY_DTEMP, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE,
+	HL_QTY_DTEMP
+};
+
 /* One row as read, before it joins a stream. */
 typedef struct {
 	double supply, target, cp, duty, h, dtc, cptol, ttol;
 	int kind; /* -1 not given */
 	int by_duty; /* cp derived from the duty */
+	double latent; /* kW at one temperature (supply = target), else 0 */
 } row;
 
 static hl_status
@@ -66,6 +75,25 @@ parse_kind(hl_table *t, int *kind, hl_error *err)
 	return HL_OK;
 }
 
+/* Latent heat (supply = target): a duty, no cp (it would be infinite). */
+static hl_status
+row_latent(const char *f, long l, const char *name, row *r, hl_error *err)
+{
+	if (!isnan(r->cp))
+		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': supply "
+			"equals target (%g °C), so cp would be infinite; give "
+			"the latent heat as a duty (kW) instead of cp", name,
+			r->supply);
+	if (!(r->duty > 0.0))
+		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': supply "
+			"equals target (%g °C): give the latent heat as a duty "
+			"(kW, > 0)", name, r->supply);
+	r->latent = r->duty;
+	r->cp = 0.0;
+	r->by_duty = 1;
+	return HL_OK;
+}
+
 /* cp from the row: cp, or duty over the temperature change; both must agree. */
 static hl_status
 row_cp(hl_table *t, const char *name, row *r, hl_error *err)
@@ -74,13 +102,12 @@ row_cp(hl_table *t, const char *name, row *r, hl_error *err)
 	const char *f = hl_table_file(t);
 	long l = hl_table_line(t);
 
+	r->latent = 0.0;
 	if (isnan(r->supply) || isnan(r->target))
 		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': supply "
 			"and target temperatures are both required", name);
 	if (span == 0.0)
-		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': supply "
-			"equals target (%g °C); a process stream must change "
-			"temperature", name, r->supply);
+		return row_latent(f, l, name, r, err);
 	if (!isnan(r->duty) && !(r->duty > 0.0))
 		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s': duty "
 			"must be > 0 kW", name);
@@ -102,6 +129,35 @@ row_cp(hl_table *t, const char *name, row *r, hl_error *err)
 	return HL_OK;
 }
 
+/* Values that look like another unit (plausible.h). */
+static void
+row_doubts(const hl_table *t, const row *r)
+{
+	const char *f = hl_table_file(t);
+	long l = hl_table_line(t);
+
+	hl_doubt_htc(f, l, "h", r->h);
+	if (r->by_duty)
+		hl_doubt_duty(f, l, "duty", r->duty);
+	else
+		hl_doubt_cp(f, l, "cp", r->cp, fabs(r->supply - r->target));
+}
+
+/* Every temperature at or above HL_DOUBT_KELVIN with no unit in the
+ * header: kelvin written as °C? */
+static void
+kelvin_doubt(const hl_table *t, double coolest, double hottest)
+{
+	if (coolest < HL_DOUBT_KELVIN || hottest > HL_T_MAX ||
+	    hl_table_unit(t, C_SUPPLY) != NULL ||
+	    hl_table_unit(t, C_TARGET) != NULL)
+		return;
+	hl_read_warn(hl_table_file(t), t->header_line, "every supply and "
+		"target temperature is %g or above (the coolest is %g): in "
+		"kelvin? °C is assumed; write the unit in the header, "
+		"'supply [K]' and 'target [K]'", HL_DOUBT_KELVIN, coolest);
+}
+
 static hl_status
 read_row(hl_table *t, row *r, hl_error *err)
 {
@@ -115,6 +171,8 @@ read_row(hl_table *t, row *r, hl_error *err)
 		st = parse_kind(t, &r->kind, err);
 	if (st == HL_OK)
 		st = row_cp(t, hl_table_text(t, C_NAME), r, err);
+	if (st == HL_OK)
+		row_doubts(t, r);
 	return st;
 }
 
@@ -148,6 +206,13 @@ builder_start(builder *b, hl_table *t, const row *r, hl_error *err)
 	b->s.name = b->name;
 	b->s.area = b->area[0] ? b->area : NULL;
 	b->s.kind = r->supply > r->target ? HL_HOT : HL_COLD;
+	if (r->supply == r->target && r->kind < 0)
+		return hl_error_set(err, HL_EINPUT, hl_table_file(t),
+			hl_table_line(t), "stream '%s' starts with latent heat "
+			"at %g °C: give its kind (hot: condensing, cold: "
+			"boiling)", b->name, r->supply);
+	if (r->supply == r->target)
+		b->s.kind = (hl_kind)r->kind;
 	if (r->kind >= 0 && r->kind != (int)b->s.kind)
 		return hl_error_set(err, HL_EINPUT, hl_table_file(t),
 			hl_table_line(t), "stream '%s' is marked %s but runs "
@@ -182,6 +247,8 @@ builder_add(builder *b, hl_table *t, const row *r, hl_error *err)
 	g->h = r->h;
 	g->line = hl_table_line(t);
 	g->by_duty = r->by_duty;
+	g->latent = r->latent;
+	g->spread = 0;
 	return HL_OK;
 }
 
@@ -195,6 +262,8 @@ builder_continue(builder *b, hl_table *t, const row *r, hl_error *err)
 	long l = hl_table_line(t);
 	int kind = r->supply > r->target ? HL_HOT : HL_COLD;
 
+	if (r->supply == r->target)
+		kind = (int)b->s.kind;
 	if (r->supply != last->target)
 		return hl_error_set(err, HL_EINPUT, f, l, "stream '%s' appears "
 			"again but does not chain: this row starts at %g °C, "
@@ -217,6 +286,7 @@ read_rows(hl_case *c, hl_table *t, hl_error *err)
 	builder b;
 	hl_status st = HL_OK;
 	int rc, rows = 0;
+	double coolest = INFINITY, hottest = -INFINITY;
 
 	memset(&b, 0, sizeof b);
 	b.s.file = (char *)hl_table_file(t);
@@ -227,6 +297,8 @@ read_rows(hl_case *c, hl_table *t, hl_error *err)
 		st = read_row(t, &r, err);
 		if (st != HL_OK)
 			break;
+		coolest = fmin(coolest, fmin(r.supply, r.target));
+		hottest = fmax(hottest, fmax(r.supply, r.target));
 		if (b.open && strcmp(b.name, hl_table_text(t, C_NAME)) == 0) {
 			st = builder_continue(&b, t, &r, err);
 		} else {
@@ -247,6 +319,8 @@ read_rows(hl_case *c, hl_table *t, hl_error *err)
 			"streams");
 	if (st == HL_OK)
 		st = builder_flush(c, &b, err);
+	if (st == HL_OK)
+		kelvin_doubt(t, coolest, hottest);
 	free(b.s.seg);
 	return st;
 }
@@ -276,7 +350,8 @@ hl_stream_table_read(hl_case *c, const char *path, hl_error *err)
 	hl_table t;
 	hl_status st;
 
-	st = hl_table_open(&t, path, "stream table", columns, C_COUNT, err);
+	st = hl_table_open(&t, path, "stream table", columns, qty, C_COUNT,
+			   err);
 	if (st != HL_OK)
 		return st;
 	return read_table(c, &t, err);
@@ -290,7 +365,7 @@ hl_stream_table_read_mem(hl_case *c, const char *name, const char *data,
 	hl_status st;
 
 	st = hl_table_open_mem(&t, name, data, len, "stream table", columns,
-			       C_COUNT, err);
+			       qty, C_COUNT, err);
 	if (st != HL_OK)
 		return st;
 	return read_table(c, &t, err);

@@ -1,4 +1,4 @@
-/* tables.h - the stream table and the utility table (CSV), design.md.
+/* tables.h - the stream table and the utility table (CSV), doc/formats.md.
  *
  * Stream table columns: name, supply, target (°C), cp (kW/K) or duty (kW);
  * optional h (kW/(m²·K)), dt_contrib (K), kind (hot|cold), area (plant area

@@ -4,6 +4,7 @@
  * exchanger module's own test (hl_exchanger_pr), so the reader and the
  * sizing can never disagree about what a counterflow unit could do.
  */
+#include <ctype.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdio.h>
@@ -13,17 +14,27 @@
 
 #include "case.h"
 #include "exchanger.h"
+#include "plausible.h"
 #include "table.h"
 #include "units_table.h"
 
 enum { C_NAME, C_HOT_IN, C_HOT_OUT, C_COLD_IN, C_COLD_OUT, C_DUTY, C_HOT_CP,
        C_COLD_CP, C_U, C_H_HOT, C_H_COLD, C_TYPE, C_FMIN, C_XP, C_COST_A,
-       C_COST_B, C_COST_C, C_COUNT };
+       C_COST_B, C_COST_C, C_LARGEST, C_COUNT };
 
 static const char *const columns[C_COUNT] = {
 	"name", "hot_in", "hot_out", "cold_in", "cold_out", "duty", "hot_cp",
 	"cold_cp", "u", "h_hot", "h_cold", "type", "fmin", "xp", "cost_a",
-	"cost_b", "cost_c"
+	"cost_b", "cost_c", "largest"
+};
+
+static const hl_qty qty[C_COUNT] = {
+	HL_QTY_NONE, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_TEMP,
+	HL_QTY_POWER, HL_QTY_CP, HL_QTY_CP, HL_QTY_HTC, HL_QTY_HTC,
+	HL_QTY_HTC, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE,
+	HL_QTY_NONE, HL_QTY_NONE,
+	/* largest: m² per shell or MW per fired heater, by the type */
+	HL_QTY_NONE
 };
 
 /* The row being checked: where it is and what it is called. */
@@ -122,13 +133,19 @@ parse_type(const ctx *c, int *type, hl_error *err)
 	*type = -1;
 	if (s[0] == '\0')
 		return HL_OK;
-	if (strcasecmp(s, "shell-and-tube") == 0)
-		*type = HL_EXCH_SHELL_TUBE;
-	else if (strcasecmp(s, "counterflow") == 0)
-		*type = HL_EXCH_COUNTERFLOW;
-	else
+	{
+		char low[48];
+		size_t i;
+
+		for (i = 0; s[i] != '\0' && i + 1 < sizeof low; i++)
+			low[i] = (char)tolower((unsigned char)s[i]);
+		low[i] = '\0';
+		*type = hl_exchanger_type_parse(low);
+	}
+	if (*type < 0)
 		return fail(c, err, "type '%.40s' is unknown; give "
-		    "shell-and-tube or counterflow", s);
+		    "shell-and-tube, counterflow, plate, double-pipe, "
+		    "air-cooler or fired-heater", s);
 	return HL_OK;
 }
 
@@ -265,7 +282,9 @@ resolve_u(const ctx *c, const double *v, hl_unit_spec *u, hl_error *err)
 		st = check_coefficient(c, "h_cold", u->h_cold, err);
 	if (st != HL_OK)
 		return st;
-	if (isnan(u->u) && isnan(u->h_hot) && isnan(u->h_cold))
+	/* A fired heater is sized by duty: no coefficient needed. */
+	if (isnan(u->u) && isnan(u->h_hot) && isnan(u->h_cold) &&
+	    u->type != HL_EXCH_FIRED_HEATER)
 		return fail(c, err, "no heat transfer coefficient: give u, or "
 		    "h_hot and h_cold (kW/(m²·K), fouling included)");
 	if (isnan(u->u))
@@ -296,6 +315,10 @@ resolve_rules(const ctx *c, const double *v, hl_unit_spec *u, hl_error *err)
 	u->cost_a = v[C_COST_A];
 	u->cost_b = v[C_COST_B];
 	u->cost_c = v[C_COST_C];
+	u->largest = v[C_LARGEST];
+	if (!isnan(u->largest) && !(u->largest > 0.0))
+		return fail(c, err, "largest %g must be > 0 (m² per shell, MW "
+		    "per fired heater)", u->largest);
 	if (!isnan(u->fmin) && !(u->fmin >= 0.0 && u->fmin < 1.0))
 		return fail(c, err, "fmin %g is outside [0, 1): a usual F "
 		    "floor is 0.80", u->fmin);
@@ -312,6 +335,23 @@ resolve_rules(const ctx *c, const double *v, hl_unit_spec *u, hl_error *err)
 	return HL_OK;
 }
 
+/* Values that look like another unit (plausible.h). */
+static void
+row_doubts(const hl_table *t, const double *v)
+{
+	const char *f = hl_table_file(t);
+	long l = hl_table_line(t);
+	size_t k;
+
+	for (k = C_U; k <= C_H_COLD; k++)
+		hl_doubt_htc(f, l, columns[k], v[k]);
+	hl_doubt_duty(f, l, "duty", v[C_DUTY]);
+	hl_doubt_cp(f, l, "hot_cp", v[C_HOT_CP], fabs(v[C_HOT_IN] -
+	    v[C_HOT_OUT]));
+	hl_doubt_cp(f, l, "cold_cp", v[C_COLD_CP], fabs(v[C_COLD_OUT] -
+	    v[C_COLD_IN]));
+}
+
 static hl_status
 read_row(hl_table *t, hl_unit_spec *u, hl_error *err)
 {
@@ -324,6 +364,8 @@ read_row(hl_table *t, hl_unit_spec *u, hl_error *err)
 		    hl_table_line(t), "exchanger without a name; give each "
 		    "row a name");
 	st = read_numbers(&c, v, err);
+	if (st == HL_OK)
+		row_doubts(t, v);
 	if (st == HL_OK)
 		st = check_temperatures(&c, v, err);
 	if (st == HL_OK)
@@ -478,7 +520,7 @@ hl_units_table_read(const char *path, hl_units_table **out, hl_error *err)
 	hl_table t;
 
 	return finish(&t, hl_table_open(&t, path, "exchanger list", columns,
-	    C_COUNT, err), out, err);
+	    qty, C_COUNT, err), out, err);
 }
 
 hl_status
@@ -488,7 +530,7 @@ hl_units_table_read_mem(const char *name, const char *data, size_t len,
 	hl_table t;
 
 	return finish(&t, hl_table_open_mem(&t, name, data, len,
-	    "exchanger list", columns, C_COUNT, err), out, err);
+	    "exchanger list", columns, qty, C_COUNT, err), out, err);
 }
 
 void

@@ -5,8 +5,9 @@
  *	name, hot_in, hot_out, cold_in, cold_out      required, °C
  *	duty (kW) and/or hot_cp, cold_cp (kW/K)        at least one of them
  *	u, or h_hot and h_cold (kW/(m²·K))            at least one of them
- *	type (shell-and-tube | counterflow), fmin, xp, cost_a, cost_b, cost_c
- *	                                               optional
+ *	type (shell-and-tube | counterflow | plate | double-pipe |
+ *	air-cooler | fired-heater), fmin, xp, cost_a, cost_b, cost_c,
+ *	largest (m² per shell, MW per fired heater)    optional
  * An empty cell means "not given". The reader checks every row as data: the
  * numbers, the four temperatures (a counterflow unit must be able to do the
  * job), the heat balance, the coefficients, the options; the first bad row
@@ -52,6 +53,7 @@ typedef struct {
 	double fmin;               /* [0, 1), or NaN */
 	double xp;                 /* (0, 1], or NaN */
 	double cost_a, cost_b, cost_c; /* all three, or all NaN */
+	double largest;            /* > 0, or NaN */
 } hl_unit_spec;
 
 typedef struct {

@@ -3,7 +3,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "csv.h"
+#include "number.h"
 #include "tables.h"
 #include "xml_attr.h"
 

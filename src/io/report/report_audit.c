@@ -6,6 +6,7 @@
 #include <stdio.h>
 
 #include "audit_out.h"
+#include "display.h"
 #include "report_sec.h"
 
 #define B 64
@@ -49,8 +50,7 @@ energy_table(hl_report *r)
 		hl_html_attr(r->h, "id", id[i]);
 		hl_report_cell(r, name[i]);
 		for (k = 0; k < 3; k++)
-			hl_report_cell_num(r, hl_report_fmt_sig(s, B, v[i][k],
-					   3, 1));
+			hl_report_cell_num(r, hl_report_fmt_qty(s, B, hl_show_q(v[i][k])));
 		hl_report_row_end(r);
 	}
 	hl_report_table_end(r);
@@ -101,7 +101,7 @@ culprit_row(hl_report *r, const hl_violation *vi, size_t rank)
 	hl_html_elemf(r->h, "span", "action", ": %s",
 		      hl_audit_action(vi->kind));
 	hl_html_end(r->h);
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, vi->duty, 3, 1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(vi->duty)));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, vi->saving, 3, 0));
 	hl_report_row_end(r);
 }
@@ -109,8 +109,8 @@ culprit_row(hl_report *r, const hl_violation *vi, size_t rank)
 static void
 culprits(hl_report *r)
 {
-	static const char *const head[] = { "#", "Unit", "Rule broken and "
-		"what to do", "Duty", "Saving" };
+	static const char *const head[] = { "#", "Unit", ("Rule broken and "
+		"what to do"), "Duty", "Saving" };
 	const hl_audit *a = r->d->audit;
 	const char *cur = hl_report_currency(r->d->c);
 	static const int num[] = { 1, 0, 0, 1, 1 };
@@ -147,7 +147,8 @@ side_temps(char *buf, size_t size, const hl_side *s)
 	char a[B / 2], b[B / 2];
 
 	snprintf(buf, size, "%s → %s", hl_report_fmt_fixed(a, sizeof a,
-		 s->t_in, 1), hl_report_fmt_fixed(b, sizeof b, s->t_out, 1));
+		 hl_show_t(s->t_in), 1), hl_report_fmt_fixed(b, sizeof b,
+		 hl_show_t(s->t_out), 1));
 }
 
 static void
@@ -162,7 +163,7 @@ unit_row(hl_report *r, size_t i)
 	hl_report_cell(r, u->implied ? "(gap)" : u->name);
 	hl_report_cell(r, hl_existing_side_name(c, &u->hot));
 	hl_report_cell(r, hl_existing_side_name(c, &u->cold));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->duty, 3, 1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(u->duty)));
 	side_temps(v, sizeof v, &u->hot);
 	hl_report_cell_num(r, v);
 	side_temps(v, sizeof v, &u->cold);
@@ -171,7 +172,7 @@ unit_row(hl_report *r, size_t i)
 		v[0] = '\0';
 	else
 		snprintf(v, sizeof v, "%s%s", u->area_estimated ? "*" : "",
-			 hl_report_fmt_fixed(ar, B, u->area, 1));
+			 hl_report_fmt_qty(ar, B, hl_show_a(u->area)));
 	hl_report_cell_num(r, v);
 	snprintf(v, B, "%d", u->shells);
 	hl_report_cell_num(r, v);
@@ -239,10 +240,11 @@ retrofit_row(hl_report *r, const hl_retrofit_point *p, size_t i, size_t n)
 	char v[B];
 
 	hl_report_row_start(r, i == 0 ? "chosen" : i + 1 == n ? "best" : NULL);
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->hot_utility, 3, 1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, p->dtmin, 1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, p->area_retrofit, 1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, p->new_area, 1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(p->hot_utility)));
+	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_dt(p->dtmin),
+			   1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_a(p->area_retrofit)));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_a(p->new_area)));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->investment, 3, 0));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->saving, 3, 0));
 	if (isnan(p->payback))
@@ -275,11 +277,38 @@ retrofit_sentence(hl_report *r)
 	hl_html_end(r->h);
 }
 
+/* Why the area targets here are not those of the trade-off section at the
+ * same ΔTmin: the mix of utility levels. */
+static void
+sweep_gap_note(hl_report *r, const hl_retrofit *rf)
+{
+	const hl_retrofit_point *w = NULL;
+	char a[B], b[B], t[B], v[8 * B];
+	size_t i;
+
+	for (i = 0; i < rf->n; i++)
+		if (!isnan(rf->pt[i].area_sweep) && (w == NULL ||
+		    fabs(rf->pt[i].area_target - rf->pt[i].area_sweep) >
+		    fabs(w->area_target - w->area_sweep)))
+			w = &rf->pt[i];
+	if (w == NULL || fabs(w->area_target - w->area_sweep) < 0.05)
+		return;
+	snprintf(v, sizeof v, "The area targets of this curve keep today's mix "
+		 "of utility levels, moving linearly to the least-cost mix at "
+		 "the targets; the ΔTmin sweep takes the least-cost mix at "
+		 "every ΔTmin, so its area target differs at the same ΔTmin "
+		 "(largest gap: %s here, %s there, at %s).",
+		 hl_report_fmt_area(a, B, w->area_target),
+		 hl_report_fmt_area(b, B, w->area_sweep),
+		 hl_report_fmt_dt(t, B, w->dtmin));
+	hl_report_note(r, v);
+}
+
 static void
 retrofit(hl_report *r)
 {
-	static const char *const head[] = { "Hot utility", "ΔTmin", "Area "
-		"needed", "New area", "Investment", "Saving", "Payback" };
+	static const char *const head[] = { "Hot utility", "ΔTmin", ("Area "
+		"needed"), "New area", "Investment", "Saving", "Payback" };
 	static const int num[] = { 1, 1, 1, 1, 1, 1, 1 };
 	const hl_retrofit *rf = r->d->retrofit;
 	const char *cur = hl_report_currency(r->d->c);
@@ -304,12 +333,13 @@ retrofit(hl_report *r)
 	hl_report_table_start(r, "data retrofit", "From today (first row) to "
 			      "the targets (last row): the area a retrofit "
 			      "keeping today's α needs, the new area, its "
-			      "investment in shells of today's mean size, the "
-			      "saving at today's prices and the simple "
-			      "payback.", 7, head, unit, num);
+			      "investment (shells of the shell target's mean "
+			      "size, by the cost law of the case's exchanger type), the saving at "
+			      "today's prices and the simple payback.", 7, head, unit, num);
 	for (i = 0; i < rf->n; i++)
 		retrofit_row(r, &rf->pt[i], i, rf->n);
 	hl_report_table_end(r);
+	sweep_gap_note(r, rf);
 	hl_report_note(r, "Which units to re-pipe, where new shells go, "
 		       "pressure drop, layout and plant constraints are not in "
 		       "these figures: they are for a detailed retrofit "

@@ -4,6 +4,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "display.h"
 #include "report_sec.h"
 
 #define B 64
@@ -19,7 +20,7 @@ always(const hl_report_data *d)
 static char *
 cp_text(char *buf, size_t size, double cp)
 {
-	snprintf(buf, size, "%.4g", cp);
+	snprintf(buf, size, "%.4g", hl_show_cp(cp));
 	return buf;
 }
 
@@ -27,9 +28,9 @@ static char *
 h_text(char *buf, size_t size, double h, double h_default)
 {
 	if (isnan(h))
-		snprintf(buf, size, "%.4g (default)", h_default);
+		snprintf(buf, size, "%.4g (default)", hl_show_h(h_default));
 	else
-		snprintf(buf, size, "%.4g", h);
+		snprintf(buf, size, "%.4g", hl_show_h(h));
 	return buf;
 }
 
@@ -39,7 +40,7 @@ contrib_text(char *buf, size_t size, double dt)
 	if (isnan(dt))
 		snprintf(buf, size, "ΔTmin/2");
 	else
-		hl_report_fmt_fixed(buf, size, dt, 1);
+		hl_report_fmt_fixed(buf, size, hl_show_dt(dt), 1);
 	return buf;
 }
 
@@ -60,11 +61,16 @@ stream_rows(hl_report *r, const hl_stream *s)
 			hl_report_cell(r, "\xe2\x80\x83" "continued");
 		hl_report_cell(r, k == 0 ? (s->kind == HL_HOT ? "hot" :
 			       "cold") : "");
-		hl_report_cell_num(r, hl_report_fmt_fixed(v, B, g->supply, 1));
-		hl_report_cell_num(r, hl_report_fmt_fixed(v, B, g->target, 1));
-		hl_report_cell_num(r, cp_text(v, B, g->cp));
-		hl_report_cell_num(r, hl_report_fmt_sig(v, B,
-				   g->cp * fabs(g->supply - g->target), 3, 1));
+		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+				   hl_show_t(g->supply), 1));
+		/* latent heat: one temperature, no cp (case.h) */
+		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+				   hl_show_t(g->spread ? g->supply : g->target),
+				   1));
+		hl_report_cell_num(r, g->spread ? "latent" : cp_text(v, B,
+				   g->cp));
+		hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(g->cp *
+				   fabs(g->supply - g->target))));
 		hl_report_cell(r, g->by_duty ? "duty" : "cp");
 		hl_report_cell_num(r, h_text(v, B, g->h, set->h_default));
 		hl_report_cell_num(r, k == 0 ? contrib_text(v, B,
@@ -118,7 +124,7 @@ max_text(char *buf, size_t size, double max_load)
 	if (isnan(max_load))
 		snprintf(buf, size, "unlimited");
 	else
-		hl_report_fmt_sig(buf, size, max_load, 3, 1);
+		hl_report_fmt_qty(buf, size, hl_show_q(max_load));
 	return buf;
 }
 
@@ -144,9 +150,11 @@ utility_table(hl_report *r)
 		hl_report_row_start(r, NULL);
 		hl_report_cell(r, u->name);
 		hl_report_cell(r, u->kind == HL_HOT ? "hot" : "cold");
-		hl_report_cell_num(r, hl_report_fmt_fixed(v, B, u->supply, 1));
-		hl_report_cell_num(r, hl_report_fmt_fixed(v, B, u->target, 1));
-		snprintf(v, B, "%.2f", u->price);
+		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+				   hl_show_t(u->supply), 1));
+		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+				   hl_show_t(u->target), 1));
+		snprintf(v, B, "%.2f", hl_show_p(u->price));
 		hl_report_cell_num(r, v);
 		hl_report_cell_num(r, h_text(v, B, u->h, c->set.h_default));
 		hl_report_cell_num(r, max_text(v, B, u->max_load));
@@ -187,7 +195,7 @@ rule_table(hl_report *r)
 		hl_report_cell(r, m->hot);
 		hl_report_cell(r, m->cold);
 		hl_report_cell_num(r, m->kind == HL_RULE_MAX_DUTY ?
-				   hl_report_fmt_sig(v, B, m->max_duty, 3, 1) :
+				   hl_report_fmt_qty(v, B, hl_show_q(m->max_duty)) :
 				   "");
 		hl_report_cell(r, m->reason ? m->reason : "");
 		hl_report_row_end(r);

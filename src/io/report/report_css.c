@@ -108,6 +108,9 @@ const char hl_report_css[] =
 "body{max-width:none;margin:0;padding:0;font-size:9.5pt}"
 ".section{margin-top:0;break-before:page}"
 "#summary{break-before:auto;margin-top:6mm}"
+/* The summary's tail would leave page 2 nearly empty: the data follow it
+ * on the same page. */
+"#data{break-before:auto;margin-top:8mm}"
 "h2,h3,caption{break-after:avoid}"
 "tr,.figure,table.facts,.caution,ol.methods li{break-inside:avoid}"
 "thead{display:table-header-group}"

@@ -4,6 +4,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "display.h"
 #include "report_fmt.h"
 
 /* Copy a plain "%.*f" number into buf with the minus sign and digit groups
@@ -84,32 +85,42 @@ with_unit(char *buf, size_t size, const char *unit)
 	return buf;
 }
 
+/* Duties and areas alike: 3 significant figures and at most one decimal,
+ * but whole digits are never rounded away (12 165 stays 12 165). */
+char *
+hl_report_fmt_qty(char *buf, size_t size, double v)
+{
+	if (fabs(v) >= 1000.0)
+		return hl_report_fmt_fixed(buf, size, v, 0);
+	return hl_report_fmt_sig(buf, size, v, 3, 1);
+}
+
 char *
 hl_report_fmt_temp(char *buf, size_t size, double celsius)
 {
-	hl_report_fmt_fixed(buf, size, celsius, 1);
-	return with_unit(buf, size, "\xc2\xb0" "C");
+	hl_report_fmt_fixed(buf, size, hl_show_t(celsius), 1);
+	return with_unit(buf, size, HL_SYM_T);
 }
 
 char *
 hl_report_fmt_dt(char *buf, size_t size, double kelvin)
 {
-	hl_report_fmt_fixed(buf, size, kelvin, 1);
-	return with_unit(buf, size, "K");
+	hl_report_fmt_fixed(buf, size, hl_show_dt(kelvin), 1);
+	return with_unit(buf, size, HL_SYM_DT);
 }
 
 char *
 hl_report_fmt_duty(char *buf, size_t size, double kw)
 {
-	hl_report_fmt_sig(buf, size, kw, 3, 1);
-	return with_unit(buf, size, "kW");
+	hl_report_fmt_qty(buf, size, hl_show_q(kw));
+	return with_unit(buf, size, HL_SYM_Q);
 }
 
 char *
 hl_report_fmt_area(char *buf, size_t size, double m2)
 {
-	hl_report_fmt_fixed(buf, size, m2, 1);
-	return with_unit(buf, size, "m\xc2\xb2");
+	hl_report_fmt_qty(buf, size, hl_show_a(m2));
+	return with_unit(buf, size, HL_SYM_A);
 }
 
 char *

@@ -4,11 +4,13 @@
  * alike and a test can recompute it from the XML results:
  *
  *   temperature   0.1 K                     "158.0 °C", "10.0 K"
- *   duty, load    3 significant figures,    "978 kW", "33.8 kW", "5840 kW"
- *                 at most 0.1 kW            "0.4 kW"
- *   area          0.1 m²                    "868.6 m²"
+ *   duty, load,   one rule for both: 3      "978 kW", "33.8 kW", "0.4 kW",
+ *   area          significant figures, at   "5837 kW", "12 165 kW",
+ *                 most one decimal, whole   "869 m²", "1.7 m²"
+ *                 digits never rounded away
  *   money         3 significant figures,    "197 000 EUR", "49 200 EUR/yr"
- *                 whole units at most
+ *                 whole units at most (cost laws are rough estimates:
+ *                 more figures would claim a precision they lack)
  *
  * Whole numbers of five or more digits are grouped in threes with a narrow
  * no-break space (U+202F); four-digit numbers are not grouped (BIPM, The
@@ -32,6 +34,9 @@
  * maxdec decimals, grouped. */
 char *hl_report_fmt_sig(char *buf, size_t size, double v, int sig,
 			int maxdec);
+/* A duty or an area: 3 significant figures, at most one decimal, whole
+ * digits kept. */
+char *hl_report_fmt_qty(char *buf, size_t size, double v);
 /* v with a fixed number of decimals, grouped. */
 char *hl_report_fmt_fixed(char *buf, size_t size, double v, int decimals);
 
@@ -39,9 +44,9 @@ char *hl_report_fmt_fixed(char *buf, size_t size, double v, int decimals);
 char *hl_report_fmt_temp(char *buf, size_t size, double celsius);
 /* "10.0 K" (a temperature difference) */
 char *hl_report_fmt_dt(char *buf, size_t size, double kelvin);
-/* "978 kW" (3 significant figures) */
+/* "978 kW", "12 165 kW" (hl_report_fmt_qty) */
 char *hl_report_fmt_duty(char *buf, size_t size, double kw);
-/* "868.6 m²" */
+/* "869 m²" (hl_report_fmt_qty) */
 char *hl_report_fmt_area(char *buf, size_t size, double m2);
 /* "197 000 EUR" and, with per_year, "197 000 EUR/yr"; currency may be
  * NULL or empty (no unit). */

@@ -16,6 +16,7 @@ static const hl_report_section *const sections[] = {
 	&hl_report_sec_targets,
 	&hl_report_sec_choice,
 	&hl_report_sec_audit,
+	&hl_report_sec_retrofit,
 	&hl_report_sec_curves,
 	&hl_report_sec_tradeoff,
 	&hl_report_sec_matches,
@@ -26,17 +27,6 @@ static const hl_report_section *const sections[] = {
 	&hl_report_sec_caution,
 };
 #define NSECTIONS (sizeof sections / sizeof sections[0])
-
-size_t
-hl_report_html_sections(const hl_report_data *d, const char **ids, size_t max)
-{
-	size_t i, n = 0;
-
-	for (i = 0; i < NSECTIONS; i++)
-		if (sections[i]->present(d) && n < max)
-			ids[n++] = sections[i]->id;
-	return n;
-}
 
 static void
 title_of(const hl_report_data *d, char *buf, size_t size)

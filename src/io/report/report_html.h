@@ -28,6 +28,7 @@
 #include "match_milp.h"
 #include "network.h"
 #include "retrofit.h"
+#include "rfit.h"
 #include "sensitivity.h"
 #include "status.h"
 #include "supertarget.h"
@@ -64,6 +65,14 @@ typedef struct {
 	const hl_audit *audit;            /* NULL: no existing network */
 	const hl_retrofit *retrofit;      /* with audit, NULL: not run */
 	const char *audit_note;
+	const hl_rfit *rfit;              /* with audit: retrofit proposals,
+					     NULL: not run */
+	const double *rfit_promise;       /* per proposal, the constant-α
+					     saving at its investment */
+	const char *rfit_note;            /* why rfit is missing */
+	double rfit_payback;              /* years, the limit used */
+	int rfit_changes;                 /* the most changes asked for */
+	int rfit_costs_given;             /* fixed costs from the case */
 	const char *network_file;         /* --network, NULL: the case's */
 	const hl_network *net;            /* the designed network, NULL: not
 					     run */
@@ -80,11 +89,5 @@ typedef struct {
  * hl_output (a temporary file renamed when complete). */
 hl_status hl_report_html_write(FILE *fp, const hl_report_data *d,
 			       hl_error *err);
-
-/* The sections the report would hold for d, in order, as their anchor ids
- * ("summary", "streams", …); n gets their count (at most 32). For the
- * command's --verbose and the tests. */
-size_t hl_report_html_sections(const hl_report_data *d, const char **ids,
-			       size_t max);
 
 #endif

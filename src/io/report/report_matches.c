@@ -3,6 +3,7 @@
 #include <stdio.h>
 
 #include "matches_out.h"
+#include "display.h"
 #include "report_sec.h"
 
 #define B 64
@@ -60,8 +61,10 @@ sub_table(hl_report *r)
 
 		hl_report_row_start(r, NULL);
 		hl_report_cell(r, s->label);
-		hl_report_cell_num(r, hl_report_fmt_fixed(v, B, s->top, 1));
-		hl_report_cell_num(r, hl_report_fmt_fixed(v, B, s->bottom, 1));
+		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+				   hl_show_t(s->top), 1));
+		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+				   hl_show_t(s->bottom), 1));
 		snprintf(v, B, "%zu", s->nparty);
 		hl_report_cell_num(r, v);
 		snprintf(v, B, "%zu", s->units);
@@ -97,7 +100,7 @@ match_table(hl_report *r)
 		hl_report_cell_num(r, v);
 		hl_report_cell(r, m->party[x->hot].name);
 		hl_report_cell(r, m->party[x->cold].name);
-		hl_report_cell_num(r, hl_report_fmt_sig(v, B, x->duty, 3, 1));
+		hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(x->duty)));
 		hl_report_cell(r, m->sub[x->sub].label);
 		hl_report_range(v, B, x->hot_from, x->hot_to);
 		hl_report_cell_num(r, v);

@@ -4,6 +4,7 @@
 #include <stdio.h>
 
 #include "grid_svg.h"
+#include "display.h"
 #include "report_sec.h"
 
 #define B 64
@@ -18,6 +19,44 @@ static const char *
 party_name(const hl_network *n, size_t i)
 {
 	return n->party[i].name;
+}
+
+/* One accounting of the network's utility above the minimum: the ranges of
+ * the utilities (a flue gas cooled below the pinch), the match rules and
+ * the layout; the same sentence wherever the report gives the rise. */
+void
+hl_report_rise_text(hl_report *r, const hl_network *n)
+{
+	double rise = n->qh - n->qh_target;
+	char a[B], b[B], c[B];
+	int k = 0;
+
+	if (isnan(n->qh_target) || rise <= 1e-6 * fmax(1.0, n->qh_target)) {
+		hl_html_text(r->h, "it uses the minimum hot and cold utility");
+		return;
+	}
+	hl_html_textf(r->h, "it uses %s of hot utility, %s above the minimum "
+		      "%s (and as much more cold utility): ",
+		      hl_report_fmt_duty(a, B, n->qh),
+		      hl_report_fmt_duty(b, B, rise),
+		      hl_report_fmt_duty(c, B, n->qh_target));
+	if (n->range_rise > 0.0 && hl_network_has_credit(n) && ++k)
+		hl_html_textf(r->h, "%s of hot utility bought because a credit "
+			      "(a utility with a negative price) pays more for "
+			      "the process heat it frees",
+			      hl_report_fmt_duty(a, B, n->range_rise));
+	else if (n->range_rise > 0.0 && ++k)
+		hl_html_textf(r->h, "%s because a hot utility's range ends "
+			      "below the pinch (a flue gas must give heat "
+			      "below it to reach its stack temperature)",
+			      hl_report_fmt_duty(a, B, n->range_rise));
+	if (n->restriction > 0.0)
+		hl_html_textf(r->h, "%s%s from the match rules", k++ ? ", " :
+			      "", hl_report_fmt_duty(a, B, n->restriction));
+	if (n->penalty > 0.0)
+		hl_html_textf(r->h, "%s%s from the layout of the matches",
+			      k++ ? ", " : "",
+			      hl_report_fmt_duty(a, B, n->penalty));
 }
 
 static void
@@ -35,11 +74,12 @@ summary(hl_report *r)
 		      "%s of area in all. ", n->nmatch, n->nsplit,
 		      n->nsplit == 1 ? "" : "s",
 		      hl_report_fmt_area(a, B, n->area));
+	hl_html_text(r->h, "In all, ");
+	hl_report_rise_text(r, n);
+	hl_html_text(r->h, ". ");
 	if (n->penalty > 0.0) {
-		hl_html_textf(r->h, "No order of the matches keeps every "
-			      "approach at the targets: the layout uses %s "
-			      "more of both hot and cold utility ",
-			      hl_report_fmt_duty(a, B, n->penalty));
+		hl_html_text(r->h, "No order of the matches keeps every "
+			     "approach at the utility loads of the matches ");
 		if (!isnan(r->d->net_emat_hint))
 			hl_html_textf(r->h, "(with an exchanger minimum "
 				      "approach of %s instead of %s the same "
@@ -51,8 +91,6 @@ summary(hl_report *r)
 						       n->set.emat));
 		else
 			hl_html_text(r->h, "(see the notes below). ");
-	} else {
-		hl_html_text(r->h, "It meets the utility loads of the targets. ");
 	}
 	if (r->d->net_findings == 0)
 		hl_html_text(r->h, "The network passes heatloom's independent "
@@ -99,7 +137,7 @@ grid(hl_report *r)
 {
 	const hl_report_data *d = r->d;
 	hl_grid_opts go = { "Heat exchanger network", NULL, NULL,
-			    d->net_npinch, d->net_pinch };
+			    d->net_npinch, d->net_pinch, d->cas };
 	char id[32];
 
 	hl_report_figure_open(r, id, sizeof id);
@@ -110,7 +148,8 @@ grid(hl_report *r)
 			       "above, cold below, temperature falling from "
 			       "left to right; each exchanger a linked pair of "
 			       "marks, heaters and coolers square marks; "
-			       "dashed lines at the pinches.");
+			       "dashed lines at the pinches (dotted, orange: "
+			       "utility pinches).");
 }
 
 static void
@@ -123,17 +162,25 @@ unit_row(hl_report *r, const hl_network_unit *u)
 	hl_report_cell(r, u->id);
 	hl_report_cell(r, party_name(n, u->hot));
 	hl_report_cell(r, party_name(n, u->cold));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->duty, 3, 1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(u->duty)));
 	hl_report_range(v, B, u->hot_in, u->hot_out);
 	hl_report_cell_num(r, v);
 	hl_report_range(v, B, u->cold_in, u->cold_out);
 	hl_report_cell_num(r, v);
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->u, 3, 3));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, u->lmtd, 1));
+	hl_report_cell_num(r, hl_report_fmt_sig(v, B, hl_show_h(u->u), 3, 3));
+	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_dt(u->lmtd),
+			   1));
 	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, u->ft, 3));
-	snprintf(v, B, "%d", u->shells);
+	hl_report_cell(r, hl_exchanger_type_name(u->type));
+	if (u->parallel > 1)
+		snprintf(v, B, "%d × %d", u->shells, u->parallel);
+	else
+		snprintf(v, B, "%d", u->shells);
 	hl_report_cell_num(r, v);
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, u->area, 1));
+	if (u->type == HL_EXCH_FIRED_HEATER)
+		hl_report_cell_num(r, "by duty");
+	else
+		hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_a(u->area)));
 	hl_report_cell_num(r, hl_report_fmt_sig(v, B, u->cost, 3, 0));
 	hl_report_row_end(r);
 }
@@ -143,10 +190,11 @@ unit_table(hl_report *r)
 {
 	static const char *const head[] = { "Unit", "Hot side", "Cold side",
 		"Duty", "Hot in → out", "Cold in → out", "U", "LMTD", "F",
-		"Shells", "Area", "Cost" };
+		"Type", "Shells", "Area", "Cost" };
 	const char *unit[] = { "", "", "", "kW", "°C", "°C", "kW/(m²·K)", "K",
-		"", "", "m²", hl_report_currency(r->d->c) };
-	static const int num[] = { 0, 0, 0, 1, 1, 1, 1, 1, 1, 1, 1, 1 };
+		"", "", "series × parallel", "m²",
+		hl_report_currency(r->d->c) };
+	static const int num[] = { 0, 0, 0, 1, 1, 1, 1, 1, 1, 0, 1, 1, 1 };
 	const hl_network *n = r->d->net;
 	size_t i;
 
@@ -154,8 +202,11 @@ unit_table(hl_report *r)
 			      "terminal temperatures, overall coefficient U "
 			      "from the film coefficients, counterflow mean "
 			      "temperature difference, F of all shells, "
-			      "shells in series, area and installed cost.",
-			      12, head, unit, num);
+			      "exchanger type, shells in series (× trains in "
+			      "parallel beyond the largest shell), area (a "
+			      "fired heater is sized by duty) and installed "
+			      "cost by the type's law.",
+			      13, head, unit, num);
 	for (i = 0; i < n->nunit; i++)
 		unit_row(r, &n->unit[i]);
 	hl_report_table_end(r);
@@ -169,7 +220,8 @@ notes(hl_report *r)
 	size_t i, k = n->nnote;
 
 	for (i = 0; i < n->nunit; i++)
-		k += n->unit[i].note != NULL || n->unit[i].assumed != 0;
+		k += n->unit[i].note != NULL || n->unit[i].assumed != 0 ||
+		    n->unit[i].warn != 0;
 	if (k == 0)
 		return;
 	hl_html_start(r->h, "ul", "network-notes");
@@ -181,6 +233,13 @@ notes(hl_report *r)
 		if (u->note != NULL)
 			hl_html_elemf(r->h, "li", NULL, "%s: %s", u->id,
 				      u->note);
+		if (u->warn != 0) {
+			char why[300];
+
+			hl_network_unit_warning(n, u, why, sizeof why);
+			hl_html_elemf(r->h, "li", NULL, "%s: check: %s.",
+				      u->id, why);
+		}
 		if (u->assumed != 0)
 			hl_html_elemf(r->h, "li", NULL, "%s: no film "
 				      "coefficient given for the %s side; U "

@@ -4,6 +4,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "display.h"
 #include "report_sec.h"
 
 #define B 96
@@ -18,9 +19,17 @@ always(const hl_report_data *d)
 static const char DEFAULT_TEXT[] = "built-in default";
 static const char CASE_TEXT[] = "differs from the default: set for this case";
 
+static const char GIVEN_TEXT[] = "set for this case";
+static const char GIVEN_DEFAULT_TEXT[] = "set for this case (the same as "
+	"the built-in default)";
+
+/* Where a setting's value comes from: the case file (whether or not it
+ * equals the default), or the built-in default. */
 static const char *
-source_of(int is_default)
+source_of(const hl_settings *s, unsigned bit, int is_default)
 {
+	if (s->given & bit)
+		return is_default ? GIVEN_DEFAULT_TEXT : GIVEN_TEXT;
 	return is_default ? DEFAULT_TEXT : CASE_TEXT;
 }
 
@@ -39,6 +48,73 @@ setting(hl_report *r, const char *name, const char *value,
 	hl_report_row_end(r);
 }
 
+/* Whether the case uses type t anywhere (settings, utilities, rules,
+ * today's units) or sets its law. */
+static int
+type_used(const hl_case *c, hl_exchanger_type t)
+{
+	size_t i;
+
+	if (c->set.exchanger == t || c->set.law[t].given != 0 ||
+	    c->set.kind_type[HL_HOT] == (int)t ||
+	    c->set.kind_type[HL_COLD] == (int)t)
+		return 1;
+	for (i = 0; i < c->nutil; i++)
+		if (hl_utility_type(&c->set, &c->util[i]) == (int)t)
+			return 1;
+	for (i = 0; i < c->ntyped; i++)
+		if (c->typed[i].type == t)
+			return 1;
+	for (i = 0; i < c->nunit; i++)
+		if (c->unit[i].type_given && c->unit[i].type == (int)t)
+			return 1;
+	return 0;
+}
+
+/* A row per exchanger type the case uses beyond shell-and-tube, and per
+ * utility with its own cost law. */
+static void
+type_laws(hl_report *r, const hl_settings *s)
+{
+	const hl_case *c = r->d->c;
+	char v[300], name[B];
+	size_t i;
+	int t;
+
+	for (t = HL_EXCH_COUNTERFLOW; t < HL_EXCH_NTYPES; t++) {
+		if (!type_used(c, (hl_exchanger_type)t))
+			continue;
+		hl_exchanger_law_text(s, (hl_exchanger_type)t, v, sizeof v);
+		/* The source column says where the law comes from. */
+		if (strrchr(v, '(') != NULL && strrchr(v, '(') > v)
+			strrchr(v, '(')[-1] = '\0';
+		snprintf(name, B, "Cost law, %s",
+			 hl_exchanger_type_name((hl_exchanger_type)t));
+		setting(r, name, strchr(v, ':') != NULL ? strchr(v, ':') + 2 :
+			v, hl_exchanger_law_illustrative(s,
+			(hl_exchanger_type)t) ? "built-in default: "
+			"illustrative, not a price" : CASE_TEXT);
+	}
+	for (i = 0; i < c->nutil; i++) {
+		const hl_utility *u = &c->util[i];
+
+		if (!u->cost_given && hl_utility_type(s, u) < 0)
+			continue;
+		snprintf(name, B, "Units on %s", u->name);
+		if (u->cost_given)
+			snprintf(v, sizeof v, "%s, %g + %g·X^%g each",
+				 hl_exchanger_type_name(hl_utility_type(s, u) >=
+				 0 ? (hl_exchanger_type)hl_utility_type(s, u) :
+				 s->exchanger),
+				 u->cost_a, u->cost_b, u->cost_c);
+		else
+			snprintf(v, sizeof v, "%s",
+				 hl_exchanger_type_name((hl_exchanger_type)
+				 hl_utility_type(s, u)));
+		setting(r, name, v, CASE_TEXT);
+	}
+}
+
 static void
 settings_rows(hl_report *r, const hl_settings *s, const hl_settings *def)
 {
@@ -49,41 +125,52 @@ settings_rows(hl_report *r, const hl_settings *s, const hl_settings *def)
 
 	setting(r, "ΔTmin", hl_report_fmt_dt(v, B, s->dtmin),
 		r->d->meta.dtmin_from ? r->d->meta.dtmin_from :
-		source_of(s->dtmin == def->dtmin));
+		source_of(s, HL_GIVEN_DTMIN, s->dtmin == def->dtmin));
 	if (isnan(s->emat))
 		setting(r, "Exchanger minimum approach (EMAT)", "equal to ΔTmin",
 			DEFAULT_TEXT);
 	else
 		setting(r, "Exchanger minimum approach (EMAT)",
-			hl_report_fmt_dt(v, B, s->emat), CASE_TEXT);
+			hl_report_fmt_dt(v, B, s->emat), s->given &
+			HL_GIVEN_EMAT ? GIVEN_TEXT : CASE_TEXT);
 	snprintf(v, B, "%g h/yr", s->hours);
-	setting(r, "Operating hours", v, source_of(s->hours == def->hours));
-	snprintf(v, B, "%g kW/(m²·K)", s->h_default);
+	setting(r, "Operating hours", v, source_of(s, HL_GIVEN_HOURS,
+		s->hours == def->hours));
+	snprintf(v, B, "%.4g %s", hl_show_h(s->h_default), HL_SYM_H);
 	setting(r, "Film coefficient where none is given", v,
-		source_of(s->h_default == def->h_default));
+		source_of(s, HL_GIVEN_H_DEFAULT,
+			  s->h_default == def->h_default));
 	setting(r, "Exchanger type", s->exchanger == HL_EXCH_SHELL_TUBE ?
 		"shell-and-tube, one shell pass, 2, 4, … tube passes" :
-		"counterflow", source_of(s->exchanger == def->exchanger));
+		hl_exchanger_type_name(s->exchanger),
+		source_of(s, HL_GIVEN_EXCHANGER,
+		s->exchanger == def->exchanger));
 	snprintf(v, B, "%.2f", s->fmin);
-	setting(r, "F floor per shell", v, source_of(s->fmin == def->fmin));
+	setting(r, "F floor per shell", v, source_of(s, HL_GIVEN_FMIN,
+		s->fmin == def->fmin));
 	snprintf(v, B, "%.2f of the maximum P", s->xp);
-	setting(r, "Xp rule", v, source_of(s->xp == def->xp));
+	setting(r, "Xp rule", v, source_of(s, HL_GIVEN_XP,
+		s->xp == def->xp));
 	snprintf(v, B, "%g + %g·A^%g %s per shell, A in m²", s->cost_a,
 		 s->cost_b, s->cost_c, cur);
-	setting(r, "Exchanger cost law", v, cost_default ?
+	setting(r, "Exchanger cost law", v, s->given & HL_GIVEN_COST ?
+		GIVEN_TEXT : cost_default ?
 		"built-in default: illustrative, not a price" : CASE_TEXT);
+	type_laws(r, s);
 	snprintf(v, B, "%g %% a year", 100.0 * s->interest);
-	setting(r, "Interest rate", v, source_of(s->interest == def->interest));
+	setting(r, "Interest rate", v, source_of(s, HL_GIVEN_INTEREST,
+		s->interest == def->interest));
 	snprintf(v, B, "%g years", s->life);
-	setting(r, "Plant life", v, source_of(s->life == def->life));
+	setting(r, "Plant life", v, source_of(s, HL_GIVEN_LIFE,
+		s->life == def->life));
 	snprintf(v, B, "±%g %%", 100.0 * s->cp_tol);
 	setting(r, "cp and duty tolerance", v,
-		source_of(s->cp_tol == def->cp_tol));
+		source_of(s, HL_GIVEN_CP_TOL, s->cp_tol == def->cp_tol));
 	snprintf(v, B, "±%s", hl_report_fmt_dt(a, sizeof a, s->t_tol));
 	setting(r, "Temperature tolerance", v,
-		source_of(s->t_tol == def->t_tol));
-	setting(r, "Currency", *cur ? cur : "none", strcmp(cur, "EUR") == 0 ?
-		DEFAULT_TEXT : CASE_TEXT);
+		source_of(s, HL_GIVEN_T_TOL, s->t_tol == def->t_tol));
+	setting(r, "Currency", *cur ? cur : "none", source_of(s,
+		HL_GIVEN_CURRENCY, strcmp(cur, "EUR") == 0));
 }
 
 static size_t
@@ -124,10 +211,11 @@ write_assumptions(hl_report *r)
 	if (nh > 0) {
 		hl_html_start(r->h, "p", NULL);
 		hl_html_textf(r->h, "%zu stream%s or utilit%s give%s no film "
-			      "coefficient; the area targets use %g kW/(m²·K) "
+			      "coefficient; the area targets use %.4g %s "
 			      "for %s.", nh, nh == 1 ? "" : "s",
 			      nh == 1 ? "y" : "ies", nh == 1 ? "s" : "",
-			      c->set.h_default, nh == 1 ? "it" : "them");
+			      hl_show_h(c->set.h_default), HL_SYM_H,
+			      nh == 1 ? "it" : "them");
 		hl_html_end(r->h);
 	}
 	hl_html_elem(r->h, "h3", NULL, "Assumptions of the methods");

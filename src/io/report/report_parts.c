@@ -2,6 +2,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "display.h"
 #include "report_sec.h"
 
 const char *
@@ -63,6 +64,7 @@ hl_report_table_start(hl_report *r, const char *cls, const char *cap,
 		      const char *const *unit, const int *num)
 {
 	size_t i;
+	char u[64];
 
 	hl_html_start(r->h, "table", cls);
 	if (cap != NULL) {
@@ -77,7 +79,8 @@ hl_report_table_start(hl_report *r, const char *cls, const char *cap,
 		hl_html_text(r->h, head[i]);
 		if (unit != NULL && unit[i] != NULL && *unit[i] != '\0') {
 			hl_html_void(r->h, "br", NULL, NULL);
-			hl_html_elem(r->h, "span", "unit", unit[i]);
+			hl_html_elem(r->h, "span", "unit",
+				     hl_report_unit(u, sizeof u, unit[i]));
 		}
 		hl_html_end(r->h);
 	}
@@ -188,12 +191,43 @@ hl_report_figure(hl_report *r, hl_svg_chart *chart, const char *subtitle,
 	hl_svg_chart_free(chart);
 }
 
+/* A table's SI unit label in the display units: the tables name their
+ * columns' units in SI and convert their cells with hl_show(). */
+const char *
+hl_report_unit(char *buf, size_t size, const char *si)
+{
+	static const struct { const char *si; hl_qty q; } map[] = {
+		{ "°C", HL_QTY_TEMP }, { "K", HL_QTY_DTEMP },
+		{ "kW", HL_QTY_POWER }, { "kW/K", HL_QTY_CP },
+		{ "kW/(m²·K)", HL_QTY_HTC }, { "m²", HL_QTY_AREA },
+	};
+	const char *slash = strstr(si, "/MWh");
+	size_t i;
+
+	snprintf(buf, size, "%s", si);
+	if (hl_display_get() == HL_UNITS_SI)
+		return buf;
+	if (slash != NULL && slash[4] == '\0') {
+		snprintf(buf, size, "%.*s/MMBtu", (int)(slash - si), si);
+		return buf;
+	}
+	if (strncmp(si, "shifted ", 8) == 0 && strcmp(si + 8, "°C") == 0) {
+		snprintf(buf, size, "shifted %s", HL_SYM_T);
+		return buf;
+	}
+	for (i = 0; i < sizeof map / sizeof map[0]; i++)
+		if (strcmp(si, map[i].si) == 0)
+			snprintf(buf, size, "%s", hl_show_unit(map[i].q));
+	return buf;
+}
+
 char *
 hl_report_range(char *buf, size_t size, double from, double to)
 {
 	char a[64], b[64];
 
-	snprintf(buf, size, "%s → %s", hl_report_fmt_fixed(a, sizeof a, from,
-		 1), hl_report_fmt_fixed(b, sizeof b, to, 1));
+	snprintf(buf, size, "%s → %s", hl_report_fmt_fixed(a, sizeof a,
+		 hl_show_t(from), 1), hl_report_fmt_fixed(b, sizeof b,
+		 hl_show_t(to), 1));
 	return buf;
 }

@@ -79,6 +79,9 @@ void hl_report_figure(hl_report *r, hl_svg_chart *chart, const char *subtitle,
 /* "245.0 → 158.0": a temperature range at 0.1 K, without its unit (the
  * column heading gives it). */
 char *hl_report_range(char *buf, size_t size, double from, double to);
+/* A table column's SI unit label ("°C", "kW", "EUR/MWh") in the display
+ * units (display.h); the cells must be converted alike. */
+const char *hl_report_unit(char *buf, size_t size, const char *si);
 
 /* A numbered figure of another kind (the grid diagram): _open starts its
  * <div class="figure" id> and returns the id it chose ("figN", in id);
@@ -99,12 +102,17 @@ void hl_report_sens_cost_range(double minus, double plus, double tol,
 /* The ranked data as bars (report_sens_chart.c): the first top of them. */
 void hl_report_sens_chart(hl_report *r, size_t top);
 
+/* The network's hot utility above the minimum and its causes (ranges,
+ * rules, layout), as part of a sentence. */
+void hl_report_rise_text(hl_report *r, const hl_network *n);
+
 /* The sections (one file each). */
 extern const hl_report_section hl_report_sec_summary;
 extern const hl_report_section hl_report_sec_streams;
 extern const hl_report_section hl_report_sec_targets;
 extern const hl_report_section hl_report_sec_choice;
 extern const hl_report_section hl_report_sec_audit;
+extern const hl_report_section hl_report_sec_retrofit;
 extern const hl_report_section hl_report_sec_curves;
 extern const hl_report_section hl_report_sec_tradeoff;
 extern const hl_report_section hl_report_sec_matches;

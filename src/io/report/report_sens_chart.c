@@ -15,6 +15,7 @@
 
 #include <libxml/xmlwriter.h>
 
+#include "display.h"
 #include "report_sec.h"
 
 #define W 680.0
@@ -123,10 +124,10 @@ bars_of(const hl_sensitivity *sv, const hl_sens_row *r)
 		if (isnan(b.down[0]))
 			b.down[0] = b.up[0] = 0.0;
 	} else {
-		b.down[0] = r->hot_down;
-		b.up[0] = r->hot_up;
-		b.down[1] = r->cold_down;
-		b.up[1] = r->cold_up;
+		b.down[0] = hl_show_q(r->hot_down);
+		b.up[0] = hl_show_q(r->hot_up);
+		b.down[1] = hl_show_q(r->cold_down);
+		b.up[1] = hl_show_q(r->cold_up);
 	}
 	return b;
 }
@@ -303,7 +304,8 @@ draw(chart *c, const hl_report_data *d, size_t n, double vmax)
 		snprintf(unit, sizeof unit, "change in the utility cost (%s/yr)",
 			 hl_report_currency(d->c));
 	else
-		snprintf(unit, sizeof unit, "change in the target (kW)");
+		snprintf(unit, sizeof unit, "change in the target (%s)",
+			 HL_SYM_Q);
 	axis(c, vmax, TOP - 4.0, bottom + 2.0, unit);
 	end(c);
 }

@@ -5,6 +5,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "display.h"
 #include "report_sec.h"
 
 #define B 64
@@ -47,7 +48,8 @@ value_text(char *buf, size_t size, const hl_sens_row *row)
 	if (is_temperature(row->q))
 		hl_report_fmt_temp(buf, size, row->value);
 	else if (row->q == HL_SENS_CP)
-		snprintf(buf, size, "%.4g" HL_NBSP "kW/K", row->value);
+		snprintf(buf, size, "%.4g" HL_NBSP "%s",
+			 hl_show_cp(row->value), HL_SYM_CP);
 	else
 		hl_report_fmt_duty(buf, size, row->value);
 }
@@ -75,8 +77,8 @@ move_text(char *buf, size_t size, double down, double up)
 		snprintf(buf, size, "none");
 		return;
 	}
-	hl_report_fmt_sig(a, sizeof a, down, 3, 1);
-	hl_report_fmt_sig(b, sizeof b, up, 3, 1);
+	hl_report_fmt_qty(a, sizeof a, hl_show_q(down));
+	hl_report_fmt_qty(b, sizeof b, hl_show_q(up));
 	if (strcmp(a, b) == 0)
 		snprintf(buf, size, "±%s", a);
 	else
@@ -259,10 +261,12 @@ deriv_text(char *buf, size_t size, double minus, double plus, int kink)
 
 	if (kink)
 		snprintf(buf, size, "%s below, %s above",
-			 hl_report_fmt_sig(a, sizeof a, minus, 3, 2),
-			 hl_report_fmt_sig(b, sizeof b, plus, 3, 2));
+			 hl_report_fmt_sig(a, sizeof a, hl_show_cp(minus), 3,
+					   2),
+			 hl_report_fmt_sig(b, sizeof b, hl_show_cp(plus), 3,
+					   2));
 	else
-		hl_report_fmt_sig(buf, size, plus, 3, 2);
+		hl_report_fmt_sig(buf, size, hl_show_cp(plus), 3, 2);
 }
 
 static void
@@ -274,9 +278,9 @@ band_row(hl_report *r, const char *name, const hl_sens_band *b,
 	hl_html_start(r->h, "tr", NULL);
 	hl_html_attr(r->h, "id", id);
 	hl_report_cell(r, name);
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, b->nominal, 3, 1));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, b->low, 3, 1));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, b->high, 3, 1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(b->nominal)));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(b->low)));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(b->high)));
 	deriv_text(v, B, minus, plus, kink);
 	hl_report_cell_num(r, v);
 	hl_report_row_end(r);
@@ -342,7 +346,8 @@ write_sensitivity(hl_report *r)
 		hl_report_note(r, "∞: the datum sits at the edge of what the "
 			       "utilities can reach; a step that way, however "
 			       "small, leaves no utility able to serve the "
-			       "process. Check it first.");
+			       "process, so no finite cost can be given and "
+			       "the ranking puts it first. Check it first.");
 }
 
 const hl_report_section hl_report_sec_sensitivity = {

@@ -272,10 +272,8 @@ finding_network(hl_report *r)
 	hl_html_textf(r->h, ", %s installed, a total annual cost of %s",
 		      hl_report_fmt_money(a, B, n->capital, cur, 0),
 		      hl_report_fmt_money(b, B, n->total_cost, cur, 1));
-	if (n->penalty > 0.0)
-		hl_html_textf(r->h, "; its layout uses %s more utility than "
-			      "the targets", hl_report_fmt_duty(a, B,
-			      n->penalty));
+	hl_html_text(r->h, "; ");
+	hl_report_rise_text(r, n);
 	hl_html_text(r->h, ".");
 	hl_html_end(r->h);
 }

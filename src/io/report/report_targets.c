@@ -3,6 +3,7 @@
 #include <math.h>
 #include <stdio.h>
 
+#include "display.h"
 #include "report_sec.h"
 
 #define B 64
@@ -111,16 +112,19 @@ cascade_table(hl_report *r)
 		int pinch = cas->flow[k] == 0.0 && k > 0 && k + 1 < cas->nb;
 
 		hl_report_row_start(r, pinch ? "pinch" : NULL);
-		hl_report_cell_num(r, hl_report_fmt_fixed(v, B, cas->t[k], 1));
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-				   hl_cascade_hot_temp(cas, cas->t[k]), 1));
+				   hl_show_t(cas->t[k]), 1));
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-				   hl_cascade_cold_temp(cas, cas->t[k]), 1));
+				   hl_show_t(hl_cascade_hot_temp(cas, cas->t[k])),
+				   1));
+		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
+				   hl_show_t(hl_cascade_cold_temp(cas,
+				   cas->t[k])), 1));
 		hl_report_cell_num(r, k + 1 < cas->nb ? hl_report_fmt_fixed(v,
-				   B, cas->netcp[k], 2) : "");
-		hl_report_cell_num(r, k + 1 < cas->nb ? hl_report_fmt_sig(v,
-				   B, cas->dh[k], 3, 1) : "");
-		hl_report_fmt_sig(v, B, cas->flow[k], 3, 1);
+				   B, hl_show_cp(cas->netcp[k]), HL_DIG_CP(2)) :
+				   "");
+		hl_report_cell_num(r, k + 1 < cas->nb ? hl_report_fmt_qty(v, B, hl_show_q(cas->dh[k])) : "");
+		hl_report_fmt_qty(v, B, hl_show_q(cas->flow[k]));
 		hl_report_cell_num(r, v);
 		hl_report_row_end(r);
 	}
@@ -218,12 +222,12 @@ choice_table(hl_report *r)
 		hl_report_cell(r, c->util[i].name);
 		hl_report_cell(r, c->util[i].kind == HL_HOT ? "hot" : "cold");
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-				   c->util[i].supply, 1));
+				   hl_show_t(c->util[i].supply), 1));
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
-				   c->util[i].target, 1));
-		snprintf(v, B, "%.2f", c->util[i].price);
+				   hl_show_t(c->util[i].target), 1));
+		snprintf(v, B, "%.2f", hl_show_p(c->util[i].price));
 		hl_report_cell_num(r, v);
-		hl_report_cell_num(r, hl_report_fmt_sig(v, B, l->load, 3, 1));
+		hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(l->load)));
 		hl_report_cell_num(r, hl_report_fmt_sig(v, B, l->cost, 3, 0));
 		hl_report_cell(r, hl_utility_use_name(l->use));
 		hl_report_row_end(r);
@@ -254,8 +258,35 @@ choice_facts(hl_report *r)
 		       lp->hot_load), "u-hot");
 	hl_report_fact(r, "Cold utility", hl_report_fmt_duty(v, B,
 		       lp->cold_load), "u-cold");
-	hl_report_fact(r, "Utility cost", hl_report_fmt_money(v, B, lp->cost,
+	hl_report_fact(r, lp->credit > 0.0 ? "Utility cost, net of credits" :
+		       "Utility cost", hl_report_fmt_money(v, B, lp->cost,
 		       hl_report_currency(c), 1), "u-cost");
+	if (lp->credit > 0.0)
+		hl_report_fact(r, "Credits", hl_report_fmt_money(v, B,
+			       lp->credit, hl_report_currency(c), 1),
+			       "u-credit");
+	if (lp->credit_rise > 0.0) {
+		snprintf(v, sizeof v, "%s of hot utility beyond the minimum: "
+			 "it frees process heat that a credit pays more for",
+			 hl_report_fmt_duty(a, B, lp->credit_rise));
+		hl_report_fact(r, "Bought for credits", v, NULL);
+	}
+	for (i = 0; i < c->nutil; i++) {
+		const hl_utility *u = &c->util[i];
+
+		if (lp->util[i].across <= 0.0)
+			continue;
+		snprintf(v, sizeof v, "%s %s the pinch: %s must %s %s, the "
+			 "end of its range; hot and cold utility rise by as "
+			 "much above the minimum",
+			 hl_report_fmt_duty(a, B, lp->util[i].across),
+			 u->kind == HL_HOT ? "given below" : "taken above",
+			 u->name, u->kind == HL_HOT ? "cool to" : "heat to",
+			 hl_report_fmt_temp(b, B, u->kind == HL_HOT ?
+				fmin(u->supply, u->target) :
+				fmax(u->supply, u->target)));
+		hl_report_fact(r, "Above the minimum", v, NULL);
+	}
 	for (i = 0; i < lp->npinch; i++) {
 		const hl_utility_pinch *p = &lp->pinch[i];
 

@@ -4,6 +4,7 @@
 #include <math.h>
 #include <stdio.h>
 
+#include "display.h"
 #include "report_sec.h"
 #include "sweep_out.h"
 
@@ -133,7 +134,8 @@ point_row(hl_report *r, size_t i)
 
 	hl_report_row_start(r, i == d->sw->best ? "best" : chosen ? "chosen" :
 			    NULL);
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, p->st.dtmin, 1));
+	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, hl_show_dt(p->st.dtmin),
+			   1));
 	if (!p->ok) {
 		hl_html_start(r->h, "td", "why");
 		hl_html_attr(r->h, "colspan", "8");
@@ -142,12 +144,9 @@ point_row(hl_report *r, size_t i)
 		hl_report_row_end(r);
 		return;
 	}
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->st.hot_utility, 3,
-			   1));
-	hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->st.cold_utility, 3,
-			   1));
-	hl_report_cell_num(r, hl_report_fmt_fixed(v, B, area_of(d->c, &p->st),
-			   1));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(p->st.hot_utility)));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_q(p->st.cold_utility)));
+	hl_report_cell_num(r, hl_report_fmt_qty(v, B, hl_show_a(area_of(d->c, &p->st))));
 	snprintf(v, B, "%d", p->st.units);
 	hl_report_cell_num(r, v);
 	snprintf(v, B, "%d", p->st.shells);
@@ -181,8 +180,8 @@ sweep_table(hl_report *r)
 		 "least-cost and the chosen one are shown", every);
 	snprintf(cap, sizeof cap, "Supertargets over ΔTmin (%s area; capital "
 		 "annualised)%s. Shaded: the grid's least total cost (orange) "
-		 "and the chosen ΔTmin (blue-grey).", r->d->c->set.exchanger ==
-		 HL_EXCH_SHELL_TUBE ? "shell-and-tube" : "counterflow",
+		 "and the chosen ΔTmin (blue-grey).", 
+		 hl_exchanger_type_name(r->d->c->set.exchanger),
 		 every > 1 ? thin : "");
 	hl_report_table_start(r, "data sweep", cap, 9, head, unit, num);
 	for (i = 0; i < sw->n; i++)

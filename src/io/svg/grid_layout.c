@@ -16,9 +16,11 @@
 #include <string.h>
 
 #include "grid_int.h"
+#include "utf8.h"
 
 #define ROW 38.0      /* between stream lines */
 #define BRANCH 22.0   /* between the branches of a split */
+#define SQUARE_ROOM 12.0 /* more below a line with a heater or cooler */
 #define GAP 30.0      /* between the hot and the cold block */
 #define TOP 104.0     /* first stream line */
 #define COL_EASY 30.0 /* a column wide enough for every label */
@@ -31,11 +33,7 @@
 double
 hl_grid_text_width(const char *s, double fs)
 {
-	size_t n = 0;
-
-	for (; *s != '\0'; s++)
-		n += ((unsigned char)*s & 0xc0) != 0x80;
-	return 0.58 * fs * (double)n;
+	return 0.58 * fs * (double)hl_utf8_chars(s);
 }
 
 void
@@ -178,6 +176,22 @@ branches(const hl_network *net, const double *lev, hl_grid_layout *L)
 	}
 }
 
+/* Party p carries a heater or a cooler. */
+static int
+has_square(const hl_network *net, size_t p)
+{
+	size_t i;
+
+	for (i = 0; i < net->nunit; i++) {
+		const hl_network_unit *u = &net->unit[i];
+
+		if ((u->hot == p && net->party[u->cold].utility) ||
+		    (u->cold == p && net->party[u->hot].utility))
+			return 1;
+	}
+	return 0;
+}
+
 static void
 rows(const hl_network *net, hl_grid_layout *L)
 {
@@ -202,6 +216,11 @@ rows(const hl_network *net, hl_grid_layout *L)
 			L->row[p] = y;
 			L->bottom = y + (L->nbranch[p] - 1) * BRANCH;
 			y += ROW + (L->nbranch[p] - 1) * BRANCH;
+			/* A heater's or cooler's id and duty stand below its
+			 * line: room for them above the next line's end
+			 * temperatures. */
+			if (has_square(net, p))
+				y += SQUARE_ROOM;
 		}
 	}
 	if (first)

@@ -13,6 +13,7 @@
 
 #include <libxml/xmlwriter.h>
 
+#include "display.h"
 #include "grid_int.h"
 #include "profile.h"
 #include "svg.h"
@@ -117,10 +118,27 @@ text(W w, double x, double y, double fs, const char *anchor, int bold,
 	return rc | end(w);
 }
 
-/* A temperature without a needless decimal. */
+/* A duty as the grid shows it: whole kW, or MMBtu/h to 0.01. */
+static void
+duty(char *b, size_t n, double q)
+{
+	if (hl_display_get() == HL_UNITS_SI)
+		snprintf(b, n, "%.0f", q);
+	else
+		snprintf(b, n, "%.2f", hl_show_q(q) * 1e-6);
+}
+
+static const char *
+duty_unit(void)
+{
+	return hl_display_get() == HL_UNITS_SI ? "kW" : "MMBtu/h";
+}
+
+/* A temperature in the display unit without a needless decimal. */
 static void
 temp(char *b, size_t n, double t)
 {
+	t = hl_show_t(t);
 	if (fabs(t - nearbyint(t)) < 0.05)
 		snprintf(b, n, "%.0f", t);
 	else
@@ -165,12 +183,41 @@ draw_header(W w, const hl_network *net, const hl_grid_opts *o)
 	if (o != NULL && o->subtitle != NULL)
 		snprintf(sub, sizeof sub, "%s", o->subtitle);
 	else
-		snprintf(sub, sizeof sub, "ΔTmin %g K · hot utility %.1f kW · "
-		    "cold utility %.1f kW · %zu units, %zu split%s",
-		    net->set.dtmin, net->qh, net->qc, net->nunit, net->nsplit,
+		snprintf(sub, sizeof sub, "ΔTmin %g %s · hot utility %.*f %s · "
+		    "cold utility %.*f %s · %zu units, %zu split%s",
+		    hl_show_dt(net->set.dtmin), HL_SYM_DT, HL_DIG_Q(1),
+		    hl_show_q(net->qh), HL_SYM_Q, HL_DIG_Q(1),
+		    hl_show_q(net->qc), HL_SYM_Q, net->nunit, net->nsplit,
 		    net->nsplit == 1 ? "" : "s");
 	rc |= text(w, 24, 45, FS_SUB, "start", 0, 0, INK_SOFT, "%s", sub);
 	return rc;
+}
+
+static int utility_pinch(const hl_grid_opts *o, double t);
+
+static int
+any_utility_pinch(const hl_grid_opts *o)
+{
+	size_t i;
+
+	for (i = 0; i < o->npinch; i++)
+		if (utility_pinch(o, o->pinch[i]))
+			return 1;
+	return 0;
+}
+
+/* A pinch that the process alone does not have: a utility level's. */
+static int
+utility_pinch(const hl_grid_opts *o, double t)
+{
+	size_t i;
+
+	if (o->cas == NULL)
+		return 0;
+	for (i = 0; i < o->cas->npinch; i++)
+		if (fabs(o->cas->t[o->cas->pinch[i]] - t) <= 1e-9)
+			return 0;
+	return 1;
 }
 
 static int
@@ -187,15 +234,19 @@ draw_pinches(W w, const hl_grid_layout *L, const hl_network *net,
 
 		if (isnan(x))
 			continue;
+		int util = utility_pinch(o, o->pinch[i]);
+
 		temp(h, sizeof h, o->pinch[i] + half);
 		temp(c, sizeof c, o->pinch[i] - half);
-		snprintf(label, sizeof label, "pinch %s / %s °C", h, c);
+		snprintf(label, sizeof label, "%spinch %s / %s %s", util ?
+		    "utility " : "", h, c, HL_SYM_T);
 		wd = hl_grid_text_width(label, FS_T);
 		/* A label that would touch the one before it goes a row up. */
 		up = x - 0.5 * wd < last_end + 6.0 ? !up : 0;
 		last_end = x + 0.5 * wd;
 		rc |= line(w, x, L->top - (up ? 38 : 26), x, L->bottom + 14,
-		    hex(HL_SVG_GREY), 1.4, "6 4");
+		    hex(util ? HL_SVG_ORANGE : HL_SVG_GREY), 1.4,
+		    util ? "2 3" : "6 4");
 		rc |= text(w, x, L->top - (up ? 42 : 30), FS_T, "middle", 0, 1,
 		    INK_SOFT, "%s", label);
 	}
@@ -326,10 +377,10 @@ draw_stream(W w, const hl_network *net, const hl_grid_layout *L, size_t p)
 	}
 	temp(t, sizeof t, s->supply);
 	rc |= text(w, hot ? L->left + 3 : L->right - 3, y - 6, FS_T,
-	    hot ? "start" : "end", 1, 1, col, "%s °C", t);
+	    hot ? "start" : "end", 1, 1, col, "%s %s", t, HL_SYM_T);
 	temp(t, sizeof t, s->target);
 	rc |= text(w, hot ? L->right - 3 : L->left + 3, y - 6, FS_T,
-	    hot ? "end" : "start", 1, 1, col, "%s °C", t);
+	    hot ? "end" : "start", 1, 1, col, "%s %s", t, HL_SYM_T);
 	for (g = 1; g <= last; g++) {
 		double lo, hi, out;
 		size_t count;
@@ -388,23 +439,55 @@ square(W w, double x, double y, const char *fill)
 	return rc | end(w);
 }
 
+/* A retrofit change: new, with area added, or re-piped. */
+static int
+changed(const hl_network_unit *u)
+{
+	return u->held && (u->reuses[0] == '\0' || u->area_added > 0.0 ||
+	    u->moved);
+}
+
+/* The ring around a changed unit's mark (drawn under it). */
+static int
+ring(W w, double x, double y)
+{
+	int rc = start(w, "circle");
+
+	rc |= num(w, "cx", x);
+	rc |= num(w, "cy", y);
+	rc |= num(w, "r", MARK_R + 4.5);
+	rc |= attr(w, "fill", "none");
+	rc |= attr(w, "stroke", INK);
+	rc |= attr(w, "stroke-width", "1.2");
+	rc |= attr(w, "stroke-dasharray", "3 2");
+	return rc | end(w);
+}
+
 /* A unit: linked round marks with the id above and the duty (kW) below;
- * a heater or cooler a square on its one process stream. */
+ * a heater or cooler a square on its one process stream; a retrofit
+ * change ringed. */
 static int
 draw_unit(W w, const hl_network *net, const hl_grid_layout *L, size_t i)
 {
 	const hl_network_unit *u = &net->unit[i];
 	double x = L->x[i], yh = L->yh[i], yc = L->yc[i], y;
+	char d[32];
 	int rc = 0;
 
+	if (changed(u)) {
+		if (!isnan(yh))
+			rc |= ring(w, x, yh);
+		if (!isnan(yc))
+			rc |= ring(w, x, yc);
+	}
 	if (!isnan(yh) && !isnan(yc)) {
 		rc |= line(w, x, yh, x, yc, INK, 1.3, NULL);
 		rc |= circle(w, x, yh, "#ffffff");
 		rc |= circle(w, x, yc, "#ffffff");
 		rc |= text(w, x, yh - 11, FS_ID, "middle", 1, 1, INK, "%s",
 		    u->id);
-		rc |= text(w, x, yc + 19, FS_T, "middle", 0, 1, INK, "%.0f",
-		    u->duty);
+		duty(d, sizeof d, u->duty);
+		rc |= text(w, x, yc + 19, FS_T, "middle", 0, 1, INK, "%s", d);
 		return rc;
 	}
 	/* Id over duty below the line: two short lines fit between close
@@ -412,7 +495,8 @@ draw_unit(W w, const hl_network *net, const hl_grid_layout *L, size_t i)
 	y = isnan(yh) ? yc : yh;
 	rc |= square(w, x, y, hex(isnan(yh) ? HL_SVG_ORANGE : HL_SVG_SKY));
 	rc |= text(w, x, y + 20, FS_ID, "middle", 1, 1, INK, "%s", u->id);
-	rc |= text(w, x, y + 31, FS_T, "middle", 0, 1, INK, "%.0f", u->duty);
+	duty(d, sizeof d, u->duty);
+	rc |= text(w, x, y + 31, FS_T, "middle", 0, 1, INK, "%s", d);
 	return rc;
 }
 
@@ -422,11 +506,13 @@ static int
 draw_key(W w, const hl_network *net, const hl_grid_layout *L,
 	 const hl_grid_opts *o, double *bottom)
 {
-	static const char what[] = "exchanger (id above, duty in kW below)";
+	char what[64];
 	double y = L->key_top, x = 30.0, col_w = (L->width - 48.0) / 2.0;
 	size_t i, k = 0;
 	int rc = 0;
 
+	snprintf(what, sizeof what, "exchanger (id above, duty in %s below)",
+	    duty_unit());
 	rc |= line(w, x, y, x + 26, y, INK, 1.3, NULL);
 	rc |= circle(w, x, y, "#ffffff");
 	rc |= circle(w, x + 26, y, "#ffffff");
@@ -440,10 +526,26 @@ draw_key(W w, const hl_network *net, const hl_grid_layout *L,
 	x += 13 + hl_grid_text_width("cooler", FS_T) + 30;
 	rc |= line(w, x, y - 8, x, y + 8, hex(HL_SVG_GREY), 1.4, "6 4");
 	rc |= text(w, x + 8, y + 4, FS_T, "start", 0, 0, INK, "pinch");
+	if (any_utility_pinch(o)) {
+		x += 8 + hl_grid_text_width("pinch", FS_T) + 30;
+		rc |= line(w, x, y - 8, x, y + 8, hex(HL_SVG_ORANGE), 1.4,
+		    "2 3");
+		rc |= text(w, x + 8, y + 4, FS_T, "start", 0, 0, INK,
+		    "utility pinch");
+	}
+	for (i = 0; i < net->nunit && !changed(&net->unit[i]); i++)
+		;
+	if (i < net->nunit) {
+		x += 8 + hl_grid_text_width(any_utility_pinch(o) ? "utility pinch" : "pinch", FS_T) + 30;
+		rc |= ring(w, x, y);
+		rc |= text(w, x + 16, y + 4, FS_T, "start", 0, 0, INK,
+		    "new or changed");
+	}
 	y += KEY_ROW;
 	rc |= text(w, 24, y + 4, FS_T, "start", 0, 0, INK_SOFT, "Hot streams "
-	    "run left to right, cold streams right to left (°C between "
-	    "stages); split branches: share and outlet °C.");
+	    "run left to right, cold streams right to left (%s between "
+	    "stages); split branches: share and outlet %s.", HL_SYM_T,
+	    HL_SYM_T);
 	y += KEY_ROW;
 	for (i = 0; i < net->nunit; i++) {
 		const hl_network_unit *u = &net->unit[i];
@@ -453,9 +555,10 @@ draw_key(W w, const hl_network *net, const hl_grid_layout *L,
 		if (!h->utility && !c->utility)
 			continue;
 		rc |= text(w, 24 + (double)(k % 2) * col_w, y + 4, FS_T,
-		    "start", 0, 0, INK, "%s: %s %s %s, %.1f kW", u->id,
+		    "start", 0, 0, INK, "%s: %s %s %s, %.*f %s", u->id,
 		    h->utility ? h->name : c->name, h->utility ? "heats" :
-		    "cools", h->utility ? c->name : h->name, u->duty);
+		    "cools", h->utility ? c->name : h->name, HL_DIG_Q(1),
+		    hl_show_q(u->duty), HL_SYM_Q);
 		if (k++ % 2 == 1)
 			y += KEY_ROW - 2;
 	}

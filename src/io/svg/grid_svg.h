@@ -23,6 +23,7 @@
 
 #include <libxml/xmlwriter.h>
 
+#include "cascade.h"
 #include "network.h"
 #include "status.h"
 
@@ -32,6 +33,9 @@ typedef struct {
 	const char *footnote;  /* small print (the caution), NULL for none */
 	size_t npinch;
 	const double *pinch;   /* shifted °C of the pinches, hottest first */
+	const hl_cascade *cas; /* the process pinches among them; the others
+				  are utility pinches, drawn apart (NULL:
+				  all process pinches) */
 } hl_grid_opts;
 
 /* Write the diagram of net as a complete SVG document to fp. HL_EIO when

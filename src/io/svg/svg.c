@@ -3,13 +3,17 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "svg_private.h"
+#include "svg_int.h"
 
 /* Okabe & Ito (2008), "Color universal design", J*FLY; grey added. */
 static const char *const palette[HL_SVG_NCOLOURS] = {
 	"#000000", "#e69f00", "#56b4e9", "#009e73", "#f0e442", "#0072b2",
 	"#d55e00", "#cc79a7", "#6b7280"
 };
+
+const char hl_svg_caution[] =
+	"heatloom \xc2\xb7 screening estimate: detailed design and the safety "
+	"review of each match belong to qualified engineers under local codes";
 
 const char *
 hl_svg_colour_hex(hl_svg_colour c)

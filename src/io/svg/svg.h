@@ -101,6 +101,8 @@ void hl_svg_chart_free(hl_svg_chart *ch);
 int hl_svg_chart_set_subtitle(hl_svg_chart *ch, const char *text);
 /* Small print at the foot (the screening-estimate caution). */
 int hl_svg_chart_set_footnote(hl_svg_chart *ch, const char *text);
+/* The caution every standalone chart carries as its footnote. */
+extern const char hl_svg_caution[];
 /* Prefix of the ids inside the SVG (default "chart"): give each chart of
  * one HTML page its own, letters, digits and '-' only. */
 int hl_svg_chart_set_id(hl_svg_chart *ch, const char *prefix);

@@ -1,4 +1,4 @@
-/* svg_draw.c - layout and drawing of a chart (model in svg_private.h).
+/* svg_draw.c - layout and drawing of a chart (model in svg_int.h).
  *
  * The look: white page, a slate accent bar beside a left-aligned title,
  * the legend as a row of line samples under the title, hairline grid, axes
@@ -10,7 +10,8 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "svg_private.h"
+#include "svg_int.h"
+#include "utf8.h"
 
 #define INK "#2b2f36"
 #define INK_SOFT "#5b616b"
@@ -34,22 +35,11 @@ typedef struct {
 	int legend_rows;
 } layout;
 
-/* Number of characters of a UTF-8 string. */
-static size_t
-text_chars(const char *s)
-{
-	size_t n = 0;
-
-	for (; *s; s++)
-		n += ((unsigned char)*s & 0xc0) != 0x80;
-	return n;
-}
-
 /* Width of a text in chart units: a fair average for sans-serif fonts. */
 static double
 text_width(const char *s, double size)
 {
-	return s ? 0.58 * size * (double)text_chars(s) : 0.0;
+	return s ? 0.58 * size * (double)hl_utf8_chars(s) : 0.0;
 }
 
 /* Heckbert (1990), "Nice numbers for graph labels": the nice number
@@ -232,7 +222,7 @@ foot_lines(const hl_svg_chart *ch, size_t *starts, size_t *lens)
 		double wd = 0.0;
 
 		while (end < len) {
-			if (((unsigned char)s[end] & 0xc0) != 0x80)
+			if (!HL_UTF8_CONT(s[end]))
 				wd += 0.58 * FS_FOOT;
 			if (wd > room && brk > pos)
 				break;

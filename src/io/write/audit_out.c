@@ -5,6 +5,7 @@
 #include <string.h>
 
 #include "audit_out.h"
+#include "display.h"
 #include "result_xml.h"
 
 /* A number that may be undefined: left out when NaN or infinite. */
@@ -39,8 +40,7 @@ audit_attrs(xmlTextWriterPtr w, const hl_case *c, const hl_audit *a)
 	rc |= hl_xml_num(w, "pinch-hot", a->pinch_hot);
 	rc |= hl_xml_num(w, "pinch-cold", a->pinch_cold);
 	rc |= num_opt(w, "dtmin-now", a->dtmin_now);
-	rc |= hl_xml_str(w, "basis", c->set.exchanger == HL_EXCH_SHELL_TUBE ?
-			 "shell-and-tube" : "counterflow");
+	rc |= hl_xml_str(w, "basis", hl_exchanger_type_name(c->set.exchanger));
 	rc |= hl_xml_num(w, "area-existing", a->area_existing);
 	if (a->have_now)
 		rc |= hl_xml_num(w, "area-target-now", a->area_target_now);
@@ -89,6 +89,9 @@ exchanger(xmlTextWriterPtr w, const hl_case *c, const hl_audit *a, size_t i)
 		rc |= hl_xml_num(w, "ft", u->f);
 		rc |= hl_xml_int(w, "shells", u->shells);
 		rc |= hl_xml_num(w, "approach", u->approach);
+		rc |= hl_xml_str(w, "type", hl_exchanger_type_name(u->type));
+		if (u->parallel > 1)
+			rc |= hl_xml_int(w, "parallel", u->parallel);
 	}
 	if (!isnan(u->area)) {
 		rc |= hl_xml_num(w, "area", u->area);
@@ -135,8 +138,12 @@ retrofit(xmlTextWriterPtr w, const hl_retrofit *r)
 		rc |= hl_xml_num(w, "cold-utility", p->cold_utility);
 		rc |= hl_xml_num(w, "dtmin", p->dtmin);
 		rc |= hl_xml_num(w, "area-target", p->area_target);
+		if (!isnan(p->area_sweep))
+			rc |= hl_xml_num(w, "area-sweep", p->area_sweep);
 		rc |= hl_xml_num(w, "area-retrofit", p->area_retrofit);
 		rc |= hl_xml_num(w, "new-area", p->new_area);
+		rc |= num_opt(w, "shell-area", p->shell_area);
+		rc |= num_opt(w, "shell-cost", p->shell_cost);
 		rc |= hl_xml_num(w, "investment", p->investment);
 		rc |= hl_xml_num(w, "saving", p->saving);
 		rc |= num_opt(w, "payback", p->payback);
@@ -192,15 +199,25 @@ hl_audit_xml(xmlTextWriterPtr w, const hl_case *c, const hl_audit *a,
 void
 hl_audit_csv(FILE *fp, const hl_retrofit *r)
 {
+	static const char *const name[] = { "hot_utility", "cold_utility",
+		"dtmin", "area_target", "area_retrofit", "new_area" };
+	static const hl_qty qty[] = { HL_QTY_POWER, HL_QTY_POWER,
+		HL_QTY_DTEMP, HL_QTY_AREA, HL_QTY_AREA, HL_QTY_AREA };
+	char h[64];
 	size_t i, k;
 
-	fprintf(fp, "hot_utility,cold_utility,dtmin,area_target,"
-		"area_retrofit,new_area,investment,saving,payback\n");
+	for (k = 0; k < sizeof qty / sizeof qty[0]; k++)
+		fprintf(fp, "%s,", hl_show_header(h, sizeof h, name[k],
+						  qty[k]));
+	fprintf(fp, "investment,saving,payback\n");
 	for (i = 0; r != NULL && i < r->n; i++) {
 		const hl_retrofit_point *p = &r->pt[i];
-		double v[] = { p->hot_utility, p->cold_utility, p->dtmin,
-			       p->area_target, p->area_retrofit, p->new_area,
-			       p->investment, p->saving, p->payback };
+		double v[] = { hl_show_q(p->hot_utility),
+			       hl_show_q(p->cold_utility), hl_show_dt(p->dtmin),
+			       hl_show_a(p->area_target),
+			       hl_show_a(p->area_retrofit),
+			       hl_show_a(p->new_area), p->investment, p->saving,
+			       p->payback };
 
 		for (k = 0; k < sizeof v / sizeof v[0]; k++) {
 			char b[64] = "";
@@ -230,14 +247,14 @@ add_curves(hl_svg_chart *ch, const hl_retrofit *r)
 		return -1;
 	}
 	for (i = 0; i < r->ncurve; i++) {
-		x[i] = r->curve[i].hot_utility;
-		y[i] = r->curve[i].area;
+		x[i] = hl_show_q(r->curve[i].hot_utility);
+		y[i] = hl_show_a(r->curve[i].area);
 	}
 	rc |= hl_svg_chart_add_series(ch, "area target over ΔTmin", x, y,
 				      r->ncurve, &target);
 	for (i = 0; i < r->n; i++) {
-		x[i] = r->pt[i].hot_utility;
-		y[i] = r->pt[i].area_retrofit;
+		x[i] = hl_show_q(r->pt[i].hot_utility);
+		y[i] = hl_show_a(r->pt[i].area_retrofit);
 	}
 	rc |= hl_svg_chart_add_series(ch, "retrofit at constant α", x, y,
 				      r->n, &retro);
@@ -251,25 +268,29 @@ chart_create(const hl_case *c, const hl_audit *a)
 {
 	const char *src = c->source ? c->source : "case", *slash;
 	hl_svg_chart *ch;
-	char sub[256];
+	char sub[256], xl[64], yl[64], dt[64], sv[64];
 
-	ch = hl_svg_chart_create("Existing network: area against energy",
-		"Hot utility (kW)", c->set.exchanger == HL_EXCH_SHELL_TUBE ?
-		"Shell-and-tube area (m²)" : "Counterflow area (m²)");
+	snprintf(xl, sizeof xl, "Hot utility (%s)", HL_SYM_Q);
+	snprintf(yl, sizeof yl, "%s area (%s)", c->set.exchanger ==
+		 HL_EXCH_SHELL_TUBE ? "Shell-and-tube" : "Counterflow",
+		 HL_SYM_A);
+	ch = hl_svg_chart_create("Existing network: area against energy", xl,
+				 yl);
 	if (ch == NULL)
 		return NULL;
 	slash = strrchr(src, '/');
+	snprintf(dt, sizeof dt, "ΔTmin %.1f %s", hl_show_dt(a->dtmin),
+		 HL_SYM_DT);
+	snprintf(sv, sizeof sv, "saving %.0f %s", hl_show_q(a->saving),
+		 HL_SYM_Q);
 	if (isnan(a->alpha))
-		snprintf(sub, sizeof sub, "%s · ΔTmin %.1f K · saving %.0f kW",
-			 slash ? slash + 1 : src, a->dtmin, a->saving);
+		snprintf(sub, sizeof sub, "%s · %s · %s",
+			 slash ? slash + 1 : src, dt, sv);
 	else
-		snprintf(sub, sizeof sub, "%s · ΔTmin %.1f K · saving %.0f kW "
-			 "· α = %.2f", slash ? slash + 1 : src, a->dtmin,
-			 a->saving, a->alpha);
+		snprintf(sub, sizeof sub, "%s · %s · %s · α = %.2f",
+			 slash ? slash + 1 : src, dt, sv, a->alpha);
 	if (hl_svg_chart_set_subtitle(ch, sub) < 0 ||
-	    hl_svg_chart_set_footnote(ch, "heatloom · screening estimate: "
-		"detailed design and the safety review of each match belong "
-		"to qualified engineers under local codes") < 0) {
+	    hl_svg_chart_set_footnote(ch, hl_svg_caution) < 0) {
 		hl_svg_chart_free(ch);
 		return NULL;
 	}
@@ -287,8 +308,10 @@ hl_audit_chart(const hl_case *c, const hl_audit *a, const hl_retrofit *r)
 		return NULL;
 	if (r != NULL)
 		rc |= add_curves(ch, r);
-	snprintf(lab, sizeof lab, "today (%.0f m²)", a->area_existing);
-	rc |= hl_svg_chart_add_marker(ch, a->net->hot_now, a->area_existing,
+	snprintf(lab, sizeof lab, "today (%.0f %s)",
+		 hl_show_a(a->area_existing), HL_SYM_A);
+	rc |= hl_svg_chart_add_marker(ch, hl_show_q(a->net->hot_now),
+				      hl_show_a(a->area_existing),
 				      HL_SVG_MARK_SQUARE, HL_SVG_VERMILION,
 				      lab, HL_SVG_START);
 	if (r != NULL && r->n > 0) {
@@ -296,11 +319,12 @@ hl_audit_chart(const hl_case *c, const hl_audit *a, const hl_retrofit *r)
 
 		/* Short and above right: between the target curve and the
 		 * retrofit curve (the subtitle gives the ΔTmin). */
-		rc |= hl_svg_chart_add_marker(ch, t->hot_utility,
-					      t->area_target,
+		rc |= hl_svg_chart_add_marker(ch, hl_show_q(t->hot_utility),
+					      hl_show_a(t->area_target),
 					      HL_SVG_MARK_DIAMOND,
 					      HL_SVG_BLACK, NULL, HL_SVG_START);
-		rc |= hl_svg_chart_add_text(ch, t->hot_utility, t->area_target,
+		rc |= hl_svg_chart_add_text(ch, hl_show_q(t->hot_utility),
+					    hl_show_a(t->area_target),
 					    "targets", HL_SVG_START, 10.0, -10.0);
 	}
 	hl_svg_chart_set_yrange(ch, 0.0, NAN);

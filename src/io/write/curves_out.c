@@ -4,13 +4,10 @@
 #include <string.h>
 
 #include "curves_out.h"
+#include "display.h"
 #include "result_xml.h"
 
-static const char footnote[] =
-	"heatloom \xc2\xb7 screening estimate: detailed design and the safety "
-	"review of each match belong to qualified engineers under local codes";
-
-/* Heat axis unit: kW, or MW past 20 000 kW. */
+/* Heat axis unit: kW, or MW past 20 000 kW; MMBtu/h in US units. */
 typedef struct {
 	double f;          /* multiply kW by f */
 	const char *unit;
@@ -21,7 +18,10 @@ scale_for(double max_kw)
 {
 	heat_scale s = { 1.0, "kW" };
 
-	if (max_kw > 20000.0) {
+	if (hl_display_get() == HL_UNITS_US) {
+		s.f = hl_show_q(1.0) * 1e-6;
+		s.unit = "MMBtu/h";
+	} else if (max_kw > 20000.0) {
 		s.f = 1e-3;
 		s.unit = "MW";
 	}
@@ -54,7 +54,7 @@ heat_text(char *buf, size_t size, double kw, heat_scale s)
 	char num[64];
 
 	if (s.f != 1.0)
-		snprintf(buf, size, "%.2f MW", kw * s.f);
+		snprintf(buf, size, "%.2f %s", kw * s.f, s.unit);
 	else if (fabs(kw) < 100.0)
 		snprintf(buf, size, "%.1f kW", kw);
 	else {
@@ -79,15 +79,18 @@ add_curve(hl_svg_chart *ch, const char *label, const hl_curve *cv,
 	hl_svg_style st = { col, dash, width, HL_SVG_MARK_NONE,
 			    HL_SVG_STEP_NONE };
 	double *h = malloc((cv->n + 1) * sizeof *h);
+	double *t = malloc((cv->n + 1) * sizeof *t);
 	size_t i;
-	int rc;
+	int rc = -1;
 
-	if (h == NULL)
-		return -1;
-	for (i = 0; i < cv->n; i++)
+	for (i = 0; h != NULL && t != NULL && i < cv->n; i++) {
 		h[i] = cv->h[i] * s.f;
-	rc = hl_svg_chart_add_series(ch, label, h, cv->t, cv->n, &st);
+		t[i] = hl_show_t(cv->t[i]);
+	}
+	if (h != NULL && t != NULL)
+		rc = hl_svg_chart_add_series(ch, label, h, t, cv->n, &st);
 	free(h);
+	free(t);
 	return rc;
 }
 
@@ -100,7 +103,7 @@ new_chart(const char *title, const char *ylabel, const char *xname,
 
 	snprintf(xl, sizeof xl, "%s (%s)", xname, s.unit);
 	ch = hl_svg_chart_create(title, xl, ylabel);
-	if (ch != NULL && hl_svg_chart_set_footnote(ch, footnote) < 0) {
+	if (ch != NULL && hl_svg_chart_set_footnote(ch, hl_svg_caution) < 0) {
 		hl_svg_chart_free(ch);
 		return NULL;
 	}
@@ -130,8 +133,8 @@ static int
 target_spans(hl_svg_chart *ch, const hl_curve *hot, const hl_curve *cold,
 	     const hl_curves *cv, heat_scale s)
 {
-	double top = fmax(last_t(hot), last_t(cold));
-	double foot = fmin(first_t(hot), first_t(cold));
+	double top = hl_show_t(fmax(last_t(hot), last_t(cold)));
+	double foot = hl_show_t(fmin(first_t(hot), first_t(cold)));
 	double pad = 0.04 * (top - foot);
 	char a[64], b[96];
 	int rc = 0;
@@ -161,9 +164,9 @@ target_subtitle(char *buf, size_t size, const hl_case *c,
 	heat_text(a, sizeof a, cv->qh, s);
 	heat_text(b, sizeof b, cv->qc, s);
 	heat_text(r, sizeof r, cv->recovery, s);
-	snprintf(buf, size, "%.120s \xc2\xb7 \xce\x94Tmin %g K \xc2\xb7 QHmin %s "
-		 "\xc2\xb7 QCmin %s \xc2\xb7 heat recovery %s", case_name(c),
-		 cv->dtmin, a, b, r);
+	snprintf(buf, size, "%.120s \xc2\xb7 \xce\x94Tmin %g %s \xc2\xb7 QHmin "
+		 "%s \xc2\xb7 QCmin %s \xc2\xb7 heat recovery %s", case_name(c),
+		 hl_show_dt(cv->dtmin), HL_SYM_DT, a, b, r);
 }
 
 static int
@@ -180,12 +183,14 @@ composite_pinches(hl_svg_chart *ch, const hl_cascade *cas,
 		double tc = hl_cascade_cold_temp(cas, t);
 
 		if (shifted) {
-			snprintf(b, sizeof b, "pinch %.1f \xc2\xb0""C shifted", t);
-			rc |= hl_svg_chart_add_hline(ch, t, b, HL_SVG_GREY,
+			snprintf(b, sizeof b, "pinch %.1f %s shifted",
+				 hl_show_t(t), HL_SYM_T);
+			rc |= hl_svg_chart_add_hline(ch, hl_show_t(t), b,
+						     HL_SVG_GREY,
 						     HL_SVG_DOTTED, HL_SVG_START);
 		} else {
-			snprintf(b, sizeof b, "pinch %.1f / %.1f \xc2\xb0""C",
-				 th, tc);
+			snprintf(b, sizeof b, "pinch %.1f / %.1f %s",
+				 hl_show_t(th), hl_show_t(tc), HL_SYM_T);
 			rc |= hl_svg_chart_add_vline(ch,
 				hl_curve_heat_at(&cv->hot, th) * s.f, b,
 				HL_SVG_GREY, HL_SVG_DOTTED);
@@ -202,12 +207,13 @@ hl_curves_chart_composite(const hl_case *c, const hl_cascade *cas,
 	const hl_curve *cold = shifted ? &cv->shifted_cold : &cv->cold;
 	heat_scale s = scale_for(fmax(last_h(hot), last_h(cold)));
 	hl_svg_chart *ch;
-	char sub[512];
+	char sub[512], yl[64];
 	int rc = 0;
 
+	snprintf(yl, sizeof yl, "%s (%s)", shifted ? "Shifted temperature" :
+		 "Temperature", HL_SYM_T);
 	ch = new_chart(shifted ? "Shifted composite curves" :
-		       "Composite curves", shifted ? "Shifted temperature (\xc2\xb0""C)" :
-		       "Temperature (\xc2\xb0""C)", "Heat load", s);
+		       "Composite curves", yl, "Heat load", s);
 	if (ch == NULL)
 		return NULL;
 	target_subtitle(sub, sizeof sub, c, cv, s);
@@ -262,11 +268,12 @@ level_labels(hl_svg_chart *ch, const hl_case *c, const hl_curves *cv,
 		heat_text(a, sizeof a, load, s);
 		snprintf(b, sizeof b, "%s %s", c->util[l->util].name, a);
 		if (line >= 6.7 * (double)strlen(b))
-			rc |= hl_svg_chart_add_text(ch, l->h * s.f, l->t, b,
+			rc |= hl_svg_chart_add_text(ch, l->h * s.f,
+						    hl_show_t(l->t), b,
 						    HL_SVG_MIDDLE, 0.0, -7.0);
 		else
 			rc |= hl_svg_chart_add_text(ch, (l->h + load / 2) * s.f,
-						    l->t, b, HL_SVG_START, 8.0,
+						    hl_show_t(l->t), b, HL_SVG_START, 8.0,
 						    4.0);
 	}
 	for (i = 0; i < c->nutil; i++) {
@@ -276,8 +283,8 @@ level_labels(hl_svg_chart *ch, const hl_case *c, const hl_curves *cv,
 			continue;
 		snprintf(b, sizeof b, "%s: %s", c->util[i].name,
 			 hl_utility_use_name(u->use));
-		rc |= hl_svg_chart_add_hline(ch, c->util[i].kind == HL_HOT ?
-			u->t_hi : u->t_lo, b, HL_SVG_GREY, HL_SVG_DOTTED,
+		rc |= hl_svg_chart_add_hline(ch, hl_show_t(
+			c->util[i].kind == HL_HOT ? u->t_hi : u->t_lo), b, HL_SVG_GREY, HL_SVG_DOTTED,
 			HL_SVG_END);
 	}
 	return rc;
@@ -305,11 +312,11 @@ grand_pinches(hl_svg_chart *ch, const hl_case *c, const hl_cascade *cas,
 	}
 	for (i = 0; i < cas->npinch; i++) {
 		x[i] = 0.0;
-		y[i] = cas->t[cas->pinch[i]];
+		y[i] = hl_show_t(cas->t[cas->pinch[i]]);
 	}
 	if (cas->npinch == 1)
-		snprintf(b, sizeof b, "Process pinch %.1f \xc2\xb0""C shifted",
-			 y[0]);
+		snprintf(b, sizeof b, "Process pinch %.1f %s shifted", y[0],
+			 HL_SYM_T);
 	else
 		snprintf(b, sizeof b, "Process pinches");
 	if (cas->npinch > 0)
@@ -320,7 +327,7 @@ grand_pinches(hl_svg_chart *ch, const hl_case *c, const hl_cascade *cas,
 		const hl_utility_pinch *p = &lp->pinch[i];
 
 		x[i] = grand_at(cas, p->shifted) * s.f;
-		y[i] = p->shifted;
+		y[i] = hl_show_t(p->shifted);
 		if (len + 64 >= sizeof b)
 			continue;
 		if (p->util >= 0)
@@ -329,8 +336,8 @@ grand_pinches(hl_svg_chart *ch, const hl_case *c, const hl_cascade *cas,
 				c->util[p->util].name);
 		else
 			len += (size_t)snprintf(b + len, sizeof b - len,
-				"%s %.1f \xc2\xb0""C shifted", i ? "," : "",
-				p->shifted);
+				"%s %.1f %s shifted", i ? "," : "",
+				hl_show_t(p->shifted), HL_SYM_T);
 	}
 	if (lp != NULL && lp->npinch > 0)
 		rc |= hl_svg_chart_add_series(ch, b, x, y, lp->npinch, &us);
@@ -354,29 +361,35 @@ hl_svg_chart *
 hl_curves_chart_grand(const hl_case *c, const hl_cascade *cas,
 		      const hl_curves *cv, const hl_utility_lp *lp)
 {
-	heat_scale s = scale_for(max_h(&cv->grand));
+	heat_scale s = scale_for(fmax(max_h(&cv->grand),
+				      max_h(&cv->grand_util)));
 	hl_svg_chart *ch;
-	char sub[512], a[64];
+	char sub[512], a[64], yl[64];
 	int rc = 0;
 
-	ch = new_chart("Grand composite curve",
-		       "Shifted temperature (\xc2\xb0""C)", "Net heat flow", s);
+	snprintf(yl, sizeof yl, "Shifted temperature (%s)", HL_SYM_T);
+	ch = new_chart("Grand composite curve", yl, "Net heat flow", s);
 	if (ch == NULL)
 		return NULL;
 	if (lp != NULL) {
 		grouped(a, sizeof a, lp->cost);
-		snprintf(sub, sizeof sub, "%.120s \xc2\xb7 \xce\x94Tmin %g K \xc2\xb7 "
-			 "utility levels at least cost: %s %s per year",
-			 case_name(c), cv->dtmin, a,
+		snprintf(sub, sizeof sub, "%.120s \xc2\xb7 \xce\x94Tmin %g %s "
+			 "\xc2\xb7 utility levels at least cost: %s %s per "
+			 "year", case_name(c), hl_show_dt(cv->dtmin),
+			 HL_SYM_DT, a,
 			 c->set.currency ? c->set.currency : "");
 	} else {
-		snprintf(sub, sizeof sub, "%.120s \xc2\xb7 \xce\x94Tmin %g K",
-			 case_name(c), cv->dtmin);
+		snprintf(sub, sizeof sub, "%.120s \xc2\xb7 \xce\x94Tmin %g %s",
+			 case_name(c), hl_show_dt(cv->dtmin), HL_SYM_DT);
 	}
 	rc |= hl_svg_chart_set_subtitle(ch, sub);
 	rc |= hl_svg_chart_set_id(ch, "grand");
 	rc |= add_curve(ch, "Grand composite curve", &cv->grand, s,
 			HL_SVG_BLACK, HL_SVG_SOLID, 2.6);
+	if (lp != NULL && cv->grand_util.n > 0)
+		rc |= add_curve(ch, "With the heat utility ranges give across "
+				"the pinch", &cv->grand_util, s, HL_SVG_GREY,
+				HL_SVG_DOTTED, 2.2);
 	if (lp != NULL && cv->hot_util.n > 0)
 		rc |= add_curve(ch, "Hot utilities", &cv->hot_util, s,
 				HL_SVG_VERMILION, HL_SVG_DASHED, 2.2);
@@ -403,8 +416,9 @@ balanced_pinches(hl_svg_chart *ch, const hl_case *c, const hl_curves *cv,
 	int rc = 0;
 
 	for (i = 0; i < lp->nproc; i++) {
-		snprintf(b, sizeof b, "process pinch %.1f / %.1f \xc2\xb0""C",
-			 lp->proc[i].hot, lp->proc[i].cold);
+		snprintf(b, sizeof b, "process pinch %.1f / %.1f %s",
+			 hl_show_t(lp->proc[i].hot),
+			 hl_show_t(lp->proc[i].cold), HL_SYM_T);
 		rc |= hl_svg_chart_add_vline(ch, hl_curve_heat_at(&cv->bal_cold,
 			lp->proc[i].cold) * s.f, b, HL_SVG_GREY, HL_SVG_DOTTED);
 	}
@@ -418,10 +432,11 @@ balanced_pinches(hl_svg_chart *ch, const hl_case *c, const hl_curves *cv,
 			snprintf(b, sizeof b, "utility pinch (%s)",
 				 c->util[p->util].name);
 		else
-			snprintf(b, sizeof b, "utility pinch %.1f / %.1f "
-				 "\xc2\xb0""C", p->hot, p->cold);
+			snprintf(b, sizeof b, "utility pinch %.1f / %.1f %s",
+				 hl_show_t(p->hot), hl_show_t(p->cold),
+				 HL_SYM_T);
 		rc |= hl_svg_chart_add_vline(ch, h * s.f, b, HL_SVG_ORANGE,
-					     HL_SVG_DOTTED);
+					     HL_SVG_DASHED);
 	}
 	return rc;
 }
@@ -432,18 +447,18 @@ hl_curves_chart_balanced(const hl_case *c, const hl_curves *cv,
 {
 	heat_scale s = scale_for(last_h(&cv->bal_hot));
 	hl_svg_chart *ch;
-	char sub[512], a[64], b[64];
+	char sub[512], a[64], b[64], yl[64];
 	int rc = 0;
 
-	ch = new_chart("Balanced composite curves", "Temperature (\xc2\xb0""C)",
-		       "Heat load", s);
+	snprintf(yl, sizeof yl, "Temperature (%s)", HL_SYM_T);
+	ch = new_chart("Balanced composite curves", yl, "Heat load", s);
 	if (ch == NULL)
 		return NULL;
 	heat_text(a, sizeof a, lp->hot_load, s);
 	heat_text(b, sizeof b, lp->cold_load, s);
-	snprintf(sub, sizeof sub, "%.120s \xc2\xb7 \xce\x94Tmin %g K \xc2\xb7 "
+	snprintf(sub, sizeof sub, "%.120s \xc2\xb7 \xce\x94Tmin %g %s \xc2\xb7 "
 		 "utilities at least cost: hot %s, cold %s", case_name(c),
-		 cv->dtmin, a, b);
+		 hl_show_dt(cv->dtmin), HL_SYM_DT, a, b);
 	rc |= hl_svg_chart_set_subtitle(ch, sub);
 	rc |= hl_svg_chart_set_id(ch, "balanced");
 	rc |= add_curve(ch, "Hot streams and hot utilities", &cv->bal_hot, s,
@@ -466,8 +481,8 @@ csv_curve(FILE *fp, const char *name, const hl_curve *cv)
 	size_t i;
 
 	for (i = 0; i < cv->n; i++) {
-		hl_format_number(h, sizeof h, cv->h[i]);
-		hl_format_number(t, sizeof t, cv->t[i]);
+		hl_format_number(h, sizeof h, hl_show_q(cv->h[i]));
+		hl_format_number(t, sizeof t, hl_show_t(cv->t[i]));
 		fprintf(fp, "%s,%s,%s\n", name, h, t);
 	}
 }
@@ -475,7 +490,11 @@ csv_curve(FILE *fp, const char *name, const hl_curve *cv)
 void
 hl_curves_csv_composite(FILE *fp, const hl_curves *cv, int shifted)
 {
-	fprintf(fp, "curve,heat,%s\n", shifted ? "shifted" : "temperature");
+	char a[64], b[64];
+
+	fprintf(fp, "curve,%s,%s\n", hl_show_header(a, sizeof a, "heat",
+		HL_QTY_POWER), hl_show_header(b, sizeof b, shifted ? "shifted" :
+		"temperature", HL_QTY_TEMP));
 	csv_curve(fp, "hot", shifted ? &cv->shifted_hot : &cv->hot);
 	csv_curve(fp, "cold", shifted ? &cv->shifted_cold : &cv->cold);
 }
@@ -483,8 +502,13 @@ hl_curves_csv_composite(FILE *fp, const hl_curves *cv, int shifted)
 void
 hl_curves_csv_grand(FILE *fp, const hl_curves *cv)
 {
-	fprintf(fp, "curve,heat,shifted\n");
+	char a[64], b[64];
+
+	fprintf(fp, "curve,%s,%s\n", hl_show_header(a, sizeof a, "heat",
+		HL_QTY_POWER), hl_show_header(b, sizeof b, "shifted",
+		HL_QTY_TEMP));
 	csv_curve(fp, "grand", &cv->grand);
+	csv_curve(fp, "grand-with-utility-ranges", &cv->grand_util);
 	csv_curve(fp, "hot-utilities", &cv->hot_util);
 	csv_curve(fp, "cold-utilities", &cv->cold_util);
 }
@@ -492,7 +516,11 @@ hl_curves_csv_grand(FILE *fp, const hl_curves *cv)
 void
 hl_curves_csv_balanced(FILE *fp, const hl_curves *cv)
 {
-	fprintf(fp, "curve,heat,temperature\n");
+	char a[64], b[64];
+
+	fprintf(fp, "curve,%s,%s\n", hl_show_header(a, sizeof a, "heat",
+		HL_QTY_POWER), hl_show_header(b, sizeof b, "temperature",
+		HL_QTY_TEMP));
 	csv_curve(fp, "hot", &cv->bal_hot);
 	csv_curve(fp, "cold", &cv->bal_cold);
 }

@@ -2,7 +2,10 @@
 #include <math.h>
 #include <string.h>
 
+#include "display.h"
 #include "matches_out.h"
+#include "text_out.h"
+#include "utf8.h"
 
 static const char *
 kind_name(hl_kind k)
@@ -43,8 +46,9 @@ hl_matches_rule_text(const hl_case *c, long rule, char *buf, size_t size)
 	else if (r->reason != NULL)
 		snprintf(where, sizeof where, " (%s)", r->reason);
 	if (r->kind == HL_RULE_MAX_DUTY)
-		snprintf(buf, size, "at most %.1f kW %s-%s%s", r->max_duty,
-			 r->hot, r->cold, where);
+		snprintf(buf, size, "at most %.*f %s %s-%s%s", HL_DIG_Q(1),
+			 hl_show_q(r->max_duty), HL_SYM_Q, r->hot, r->cold,
+			 where);
 	else
 		snprintf(buf, size, "%s %s-%s%s", rule_kind(r->kind), r->hot,
 			 r->cold, where);
@@ -52,22 +56,11 @@ hl_matches_rule_text(const hl_case *c, long rule, char *buf, size_t size)
 
 /* ---- text ---- */
 
-/* Characters in a UTF-8 string (printf pads by bytes, not characters). */
-static int
-display_width(const char *s)
-{
-	int n = 0;
-
-	for (; *s != '\0'; s++)
-		n += ((unsigned char)*s & 0xc0) != 0x80;
-	return n;
-}
-
 /* s right-aligned (left = 0) or left-aligned in width characters. */
 static void
 pad(FILE *fp, const char *s, int width, int left)
 {
-	int n = width - display_width(s);
+	int n = width - (int)hl_utf8_chars(s);
 
 	if (left)
 		fputs(s, fp);
@@ -117,8 +110,10 @@ text_utilities(FILE *fp, const hl_case *c, const hl_match_result *r)
 {
 	size_t i;
 
-	fprintf(fp, "Hot utility            %.1f kW\n", r->qh);
-	fprintf(fp, "Cold utility           %.1f kW\n", r->qc);
+	fprintf(fp, "Hot utility            %.*f %s\n", HL_DIG_Q(1),
+		hl_show_q(r->qh), HL_SYM_Q);
+	fprintf(fp, "Cold utility           %.*f %s\n", HL_DIG_Q(1),
+		hl_show_q(r->qc), HL_SYM_Q);
 	if (r->implicit_utilities)
 		fprintf(fp, "                       (one hot utility above every "
 			"stream and one cold utility below,\n"
@@ -131,27 +126,31 @@ text_utilities(FILE *fp, const hl_case *c, const hl_match_result *r)
 
 		if (q->type != HL_PARTY_UTILITY || q->load <= 0.0)
 			continue;
-		fprintf(fp, "  %-20s %s, %.1f kW\n", q->name, kind_name(q->kind),
-			q->load);
+		fprintf(fp, "  %-20s %s, %.*f %s\n", q->name,
+			kind_name(q->kind), HL_DIG_Q(1), hl_show_q(q->load),
+			HL_SYM_Q);
 	}
 }
 
 static void
 text_subs(FILE *fp, const hl_match_result *r)
 {
+	char h[32];
 	size_t i;
 
 	fprintf(fp, "\nSubnetworks (split where no heat crosses: process and "
 		"utility pinches)\n\n");
 	fprintf(fp, "  %-20s ", "region");
-	pad(fp, "shifted °C", 17, 0);
+	snprintf(h, sizeof h, "shifted %s", HL_SYM_T);
+	pad(fp, h, 17, 0);
 	fprintf(fp, " %8s %6s %6s %6s  %-8s %8s\n", "streams", "units",
 		"N - 1", "bound", "status", "time s");
 	for (i = 0; i < r->nsub; i++) {
 		const hl_match_sub *b = &r->sub[i];
 		char range[40];
 
-		snprintf(range, sizeof range, "%.1f to %.1f", b->top, b->bottom);
+		snprintf(range, sizeof range, "%.1f to %.1f",
+			 hl_show_t(b->top), hl_show_t(b->bottom));
 		fprintf(fp, "  %-20s %17s %8zu %6zu %6zu %6zu  %-8s %8.2f\n",
 			b->label, range, b->nparty, b->units, b->euler, b->lower,
 			b->optimal ? "optimal" : "best", b->seconds);
@@ -162,25 +161,31 @@ static void
 text_matches(FILE *fp, const hl_match_result *r)
 {
 	int wh = name_width(r, 0), wc = name_width(r, 1);
+	char h[3][32];
 	size_t i;
 
+	snprintf(h[0], sizeof h[0], "duty %s", HL_SYM_Q);
+	snprintf(h[1], sizeof h[1], "hot %s", HL_SYM_T);
+	snprintf(h[2], sizeof h[2], "cold %s", HL_SYM_T);
 	fprintf(fp, "\nMatches (where each works: the temperature intervals of "
-		"its heat, real °C)\n\n");
+		"its heat, real %s)\n\n", HL_SYM_T);
 	fprintf(fp, "  %-*s  %-*s %10s  %-20s ", wh, "hot", wc, "cold",
-		"duty kW", "region");
-	pad(fp, "hot °C", 17, 0);
+		h[0], "region");
+	pad(fp, h[1], 17, 0);
 	fputc(' ', fp);
-	pad(fp, "cold °C", 17, 0);
+	pad(fp, h[2], 17, 0);
 	fputc('\n', fp);
 	for (i = 0; i < r->nmatch; i++) {
 		const hl_match *m = &r->match[i];
 		char ht[40], ct[40];
 
-		snprintf(ht, sizeof ht, "%.1f -> %.1f", m->hot_from, m->hot_to);
-		snprintf(ct, sizeof ct, "%.1f -> %.1f", m->cold_from, m->cold_to);
-		fprintf(fp, "  %-*.*s  %-*.*s %10.1f  %-20s %17s %17s%s%s\n", wh,
+		snprintf(ht, sizeof ht, "%.1f -> %.1f", hl_show_t(m->hot_from),
+			 hl_show_t(m->hot_to));
+		snprintf(ct, sizeof ct, "%.1f -> %.1f", hl_show_t(m->cold_from),
+			 hl_show_t(m->cold_to));
+		fprintf(fp, "  %-*.*s  %-*.*s %10.*f  %-20s %17s %17s%s%s\n", wh,
 			wh, r->party[m->hot].name, wc, wc, r->party[m->cold].name,
-			m->duty, r->sub[m->sub].label, ht, ct,
+			HL_DIG_Q(1), hl_show_q(m->duty), r->sub[m->sub].label, ht, ct,
 			m->required ? "  required" : "",
 			m->cross_area ? "  cross-area" : "");
 	}
@@ -204,8 +209,9 @@ text_rules(FILE *fp, const hl_case *c, const hl_match_result *r)
 				"heat\n", buf);
 		else if (r->restricted && cs->rise > 0.0)
 			fprintf(fp, "  %s: %zu pair%s; without it the hot utility "
-				"would be %.1f kW lower\n", buf, cs->pairs,
-				cs->pairs == 1 ? "" : "s", cs->rise);
+				"would be %.*f %s lower\n", buf, cs->pairs,
+				cs->pairs == 1 ? "" : "s", HL_DIG_Q(1),
+				hl_show_q(cs->rise), HL_SYM_Q);
 		else
 			fprintf(fp, "  %s: %zu pair%s\n", buf, cs->pairs,
 				cs->pairs == 1 ? "" : "s");
@@ -213,8 +219,12 @@ text_rules(FILE *fp, const hl_case *c, const hl_match_result *r)
 	if (!r->restricted)
 		return;
 	fprintf(fp, "\nThe match rules raise the utility targets: hot utility "
-		"%.1f -> %.1f kW (+%.1f), cold utility %.1f -> %.1f kW (+%.1f).\n",
-		r->qh0, r->qh, r->qh - r->qh0, r->qc0, r->qc, r->qc - r->qc0);
+		"%.*f -> %.*f %s (+%.*f), cold utility %.*f -> %.*f %s "
+		"(+%.*f).\n", HL_DIG_Q(1), hl_show_q(r->qh0), HL_DIG_Q(1),
+		hl_show_q(r->qh), HL_SYM_Q, HL_DIG_Q(1),
+		hl_show_q(r->qh - r->qh0), HL_DIG_Q(1), hl_show_q(r->qc0),
+		HL_DIG_Q(1), hl_show_q(r->qc), HL_SYM_Q, HL_DIG_Q(1),
+		hl_show_q(r->qc - r->qc0));
 	fprintf(fp, "(Restricted-match targets; the rise of each rule is the "
 		"target with it minus the\ntarget without it, so the shares "
 		"need not add up.)\n");
@@ -231,22 +241,48 @@ text_isolated(FILE *fp, const hl_match_result *r)
 		if (!q->isolated)
 			continue;
 		fprintf(fp, "\nNote: %s stream '%s' may not be matched with any "
-			"%s process stream: its whole duty, %.1f kW, goes to "
+			"%s process stream: its whole duty, %.*f %s, goes to "
 			"utilities.\n", kind_name(q->kind), q->name,
-			q->kind == HL_HOT ? "cold" : "hot", q->load);
+			q->kind == HL_HOT ? "cold" : "hot", HL_DIG_Q(1),
+			hl_show_q(q->load), HL_SYM_Q);
+	}
+}
+
+/* Which of the splits between subnetworks are process pinches and which
+ * utility pinches (the labels number them alike). */
+static void
+text_pinch_kinds(FILE *fp, const hl_match_result *r, const hl_cascade *cas)
+{
+	size_t s, k;
+
+	if (cas == NULL || r->nsub < 2)
+		return;
+	for (s = 0; s + 1 < r->nsub; s++) {
+		double t = r->sub[s].bottom;
+		int proc = 0;
+
+		for (k = 0; k < cas->npinch; k++)
+			proc |= fabs(cas->t[cas->pinch[k]] - t) <= 1e-9 *
+				(1.0 + fabs(t));
+		fprintf(fp, "%s  pinch %zu at %.1f %s shifted: %s\n", s ? "" :
+			"\n", s + 1, hl_show_t(t), HL_SYM_T, proc ?
+			"process pinch" : "utility pinch (a utility level used "
+			"to its limit there)");
 	}
 }
 
 void
 hl_matches_text(FILE *fp, const hl_case *c, const hl_match_result *r,
-		double dtmin)
+		double dtmin, const hl_cascade *cas)
 {
 	fprintf(fp, "Matches for %s (fewest units: transshipment MILP)\n\n",
 		c->source ? c->source : "");
-	fprintf(fp, "ΔTmin                  %.1f K\n", dtmin);
+	fprintf(fp, "ΔTmin                  %.1f %s\n", hl_show_dt(dtmin),
+		HL_SYM_DT);
 	text_utilities(fp, c, r);
 	text_status(fp, r);
 	text_subs(fp, r);
+	text_pinch_kinds(fp, r, cas);
 	text_matches(fp, r);
 	text_rules(fp, c, r);
 	text_isolated(fp, r);
@@ -420,40 +456,31 @@ hl_matches_xml(xmlTextWriterPtr w, const hl_case *c,
 
 /* ---- CSV ---- */
 
-static void
-csv_field(FILE *fp, const char *s)
-{
-	if (strpbrk(s, ",\"\r\n") == NULL) {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (; *s != '\0'; s++) {
-		if (*s == '"')
-			fputc('"', fp);
-		fputc(*s, fp);
-	}
-	fputc('"', fp);
-}
-
 void
 hl_matches_csv(FILE *fp, const hl_match_result *r)
 {
 	size_t i;
 
-	fprintf(fp, "hot,cold,duty,region,hot_from,hot_to,cold_from,cold_to\n");
+	char h[4][64], q[64];
+
+	fprintf(fp, "hot,cold,%s,region,%s,%s,%s,%s\n",
+		hl_show_header(q, sizeof q, "duty", HL_QTY_POWER),
+		hl_show_header(h[0], sizeof h[0], "hot_from", HL_QTY_TEMP),
+		hl_show_header(h[1], sizeof h[1], "hot_to", HL_QTY_TEMP),
+		hl_show_header(h[2], sizeof h[2], "cold_from", HL_QTY_TEMP),
+		hl_show_header(h[3], sizeof h[3], "cold_to", HL_QTY_TEMP));
 	for (i = 0; i < r->nmatch; i++) {
 		const hl_match *m = &r->match[i];
 		char v[5][64];
 
-		hl_format_number(v[0], sizeof v[0], m->duty);
-		hl_format_number(v[1], sizeof v[1], m->hot_from);
-		hl_format_number(v[2], sizeof v[2], m->hot_to);
-		hl_format_number(v[3], sizeof v[3], m->cold_from);
-		hl_format_number(v[4], sizeof v[4], m->cold_to);
-		csv_field(fp, r->party[m->hot].name);
+		hl_format_number(v[0], sizeof v[0], hl_show_q(m->duty));
+		hl_format_number(v[1], sizeof v[1], hl_show_t(m->hot_from));
+		hl_format_number(v[2], sizeof v[2], hl_show_t(m->hot_to));
+		hl_format_number(v[3], sizeof v[3], hl_show_t(m->cold_from));
+		hl_format_number(v[4], sizeof v[4], hl_show_t(m->cold_to));
+		hl_csv_text(fp, r->party[m->hot].name);
 		fputc(',', fp);
-		csv_field(fp, r->party[m->cold].name);
+		hl_csv_text(fp, r->party[m->cold].name);
 		fprintf(fp, ",%s,%s,%s,%s,%s,%s\n", v[0], r->sub[m->sub].label,
 			v[1], v[2], v[3], v[4]);
 	}

@@ -4,14 +4,16 @@
 
 #include <stdio.h>
 
+#include "cascade.h"
 #include "case.h"
 #include "match_milp.h"
 #include "result_xml.h"
 
-/* Summary, subnetworks, the match table, rules and notes, for a terminal
- * or a note; ends with the caution. */
+/* Summary, subnetworks (which splits are process and which utility
+ * pinches, when cas is given), the match table, rules and notes, for a
+ * terminal or a note; ends with the caution. */
 void hl_matches_text(FILE *fp, const hl_case *c, const hl_match_result *r,
-		     double dtmin);
+		     double dtmin, const hl_cascade *cas);
 
 /* The <matches> element (doc/results.md); < 0 on a writer failure. */
 int hl_matches_xml(xmlTextWriterPtr w, const hl_case *c,

@@ -2,6 +2,7 @@
 #include <math.h>
 #include <string.h>
 
+#include "display.h"
 #include "opt_out.h"
 #include "result_xml.h"
 
@@ -11,19 +12,22 @@ cur_of(const hl_network *net)
 	return net->set.currency != NULL ? net->set.currency : "";
 }
 
+/* The energy against the targets, in the display units (display.h). */
 static void
 text_energy(FILE *fp, const hl_network *net)
 {
 	double d = net->qh - net->qh_target;
 
 	if (fabs(d) < 0.05)
-		fprintf(fp, "  energy at the targets of ΔTmin %.1f K\n",
-		    net->set.dtmin);
+		fprintf(fp, "  energy at the targets of ΔTmin %.1f %s\n",
+		    hl_show_dt(net->set.dtmin), HL_SYM_DT);
 	else
-		fprintf(fp, "  energy %.1f kW %s the targets of ΔTmin %.1f K "
-		    "(hot %.1f kW against %.1f kW): the search found it "
-		    "cheaper %s\n", fabs(d), d > 0 ? "above" : "below",
-		    net->set.dtmin, net->qh, net->qh_target, d > 0 ?
+		fprintf(fp, "  energy %.*f %s %s the targets of ΔTmin %.1f %s "
+		    "(hot %.*f %s against %.*f %s): the search found it "
+		    "cheaper %s\n", HL_DIG_Q(1), hl_show_q(fabs(d)), HL_SYM_Q,
+		    d > 0 ? "above" : "below", hl_show_dt(net->set.dtmin),
+		    HL_SYM_DT, HL_DIG_Q(1), hl_show_q(net->qh), HL_SYM_Q,
+		    HL_DIG_Q(1), hl_show_q(net->qh_target), HL_SYM_Q, d > 0 ?
 		    "to buy this energy than the area to save it" :
 		    "to recover this heat with approaches below ΔTmin "
 		    "(down to EMAT)");
@@ -120,14 +124,15 @@ hl_opt_text(FILE *fp, const hl_opt_result *r, const hl_opt_options *o)
 		else if (c->kind == HL_OPT_SPLIT)
 			fprintf(fp, "  split of %s: in series (the smaller "
 			    "branches moved to free stages, loads polished) "
-			    "%+.0f %s/year, %+.1f kW of hot utility\n",
-			    c->text, c->d_tac, cur, c->d_energy);
+			    "%+.0f %s/year, %+.*f %s of hot utility\n",
+			    c->text, c->d_tac, cur, HL_DIG_Q(1),
+			    hl_show_q(c->d_energy), HL_SYM_Q);
 		else if (isinf(c->d_tac))
 			fprintf(fp, "  unit: %s\n", c->text);
 		else
-			fprintf(fp, "  unit: %s: %+.1f kW of hot utility, "
-			    "%+.0f %s/year\n", c->text, c->d_energy,
-			    c->d_tac, cur);
+			fprintf(fp, "  unit: %s: %+.*f %s of hot utility, "
+			    "%+.0f %s/year\n", c->text, HL_DIG_Q(1),
+			    hl_show_q(c->d_energy), HL_SYM_Q, c->d_tac, cur);
 	}
 }
 

@@ -11,7 +11,6 @@
 struct hl_xml_out {
 	xmlBufferPtr buf;
 	xmlTextWriterPtr w;
-	int failed;
 };
 
 static const char caution[] =
@@ -92,7 +91,8 @@ hl_format_number(char *buf, size_t size, double v)
 	snprintf(buf, size, "%.12g", v);
 	if (strchr(buf, 'e') == NULL)
 		return;
-	/* Plain decimal always (design.md): 12 significant digits. */
+	/* Plain decimal always (doc/design.md, "Contracts"): 12 significant
+	   digits. */
 	decimals = 11 - (int)floor(log10(fabs(v)));
 	if (decimals < 0)
 		decimals = 0;

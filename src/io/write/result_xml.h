@@ -1,4 +1,4 @@
-/* result_xml.h - the machine-readable results document (design.md).
+/* result_xml.h - the machine-readable results document (doc/results.md).
  *
  * Root <results>; each stage's writer adds its own elements. Numbers are
  * written in plain decimal with 12 significant digits.

@@ -2,7 +2,10 @@
 #include <math.h>
 #include <string.h>
 
+#include "display.h"
 #include "sensitivity_out.h"
+#include "text_out.h"
+#include "utf8.h"
 
 /* Below this a change in kW prints as zero, never as "-0.0". */
 #define SHOWN_ZERO 0.05
@@ -13,21 +16,10 @@ tidy(double v)
 	return fabs(v) < SHOWN_ZERO ? 0.0 : v;
 }
 
-/* Characters (not bytes) of a UTF-8 string, for padding columns. */
-static size_t
-text_width(const char *s)
-{
-	size_t n = 0;
-
-	for (; *s; s++)
-		n += ((unsigned char)*s & 0xC0) != 0x80;
-	return n;
-}
-
 static void
 put_padded(FILE *fp, const char *s, size_t width)
 {
-	size_t n = text_width(s);
+	size_t n = hl_utf8_chars(s);
 
 	fputs(s, fp);
 	for (; n < width; n++)
@@ -53,6 +45,29 @@ is_temperature(hl_sens_quantity q)
 	return q == HL_SENS_SUPPLY || q == HL_SENS_TARGET;
 }
 
+/* One unit of datum q in the display units (1 in SI): 1 K is 1.8 °F. */
+static double
+per_unit(hl_sens_quantity q)
+{
+	if (is_temperature(q) || q == HL_SENS_DTMIN)
+		return hl_show_dt(1.0);
+	return q == HL_SENS_CP ? hl_show_cp(1.0) : hl_show_q(1.0);
+}
+
+/* A derivative of a heat rate by datum q, SI to display units. */
+static double
+deriv_factor(hl_sens_quantity q)
+{
+	return hl_show_q(1.0) / per_unit(q);
+}
+
+/* "kelvin" in words, or the display unit of a temperature difference. */
+static const char *
+degree_word(void)
+{
+	return hl_display_get() == HL_UNITS_SI ? "kelvin" : HL_SYM_DT;
+}
+
 /* "target", "cp", "cp 2/3" for a segment of a segmented stream. */
 static void
 datum_label(char *buf, size_t size, const hl_case *c, const hl_sens_row *r)
@@ -70,29 +85,36 @@ datum_label(char *buf, size_t size, const hl_case *c, const hl_sens_row *r)
 static void
 value_text(char *buf, size_t size, const hl_sens_row *r)
 {
+	double cp = hl_show_cp(r->value);
+
 	if (is_temperature(r->q))
-		snprintf(buf, size, "%.1f °C", r->value);
+		snprintf(buf, size, "%.1f %s", hl_show_t(r->value), HL_SYM_T);
 	else if (r->q == HL_SENS_CP)
-		snprintf(buf, size, "%.*f kW/K", r->value >= 100.0 ? 0 :
-			 r->value >= 10.0 ? 1 : 2, r->value);
+		snprintf(buf, size, "%.*f %s", cp >= 100.0 ? 0 : cp >= 10.0 ?
+			 1 : 2, cp, HL_SYM_CP);
 	else
-		snprintf(buf, size, "%.1f kW", r->value);
+		snprintf(buf, size, "%.*f %s", HL_DIG_Q(1), hl_show_q(r->value),
+			 HL_SYM_Q);
 }
 
 static void
 tol_text(char *buf, size_t size, const hl_sens_row *r)
 {
 	if (is_temperature(r->q))
-		snprintf(buf, size, "±%.1f K", r->tol);
+		snprintf(buf, size, "±%.1f %s", hl_show_dt(r->tol), HL_SYM_DT);
 	else
 		snprintf(buf, size, "±%.3g %%", r->value > 0.0 ?
 			 100.0 * r->tol / r->value : 0.0);
 }
 
-/* A derivative, or "left|right" where a pinch changes. */
+/* A derivative, or "left|right" where a pinch changes; f converts it to the
+ * display units. */
 static void
-deriv_text(char *buf, size_t size, double minus, double plus, int kink)
+deriv_text(char *buf, size_t size, double minus, double plus, int kink,
+	   double f)
 {
+	minus *= f;
+	plus *= f;
 	if (kink)
 		snprintf(buf, size, "%.2f|%.2f", minus + 0.0, plus + 0.0);
 	else
@@ -100,12 +122,13 @@ deriv_text(char *buf, size_t size, double minus, double plus, int kink)
 }
 
 /* How far a target moves with the datum off by its tolerance: "±Y" when the
- * move is symmetric, else "+a/−b", the changes at +tol and at −tol. */
+ * move is symmetric, else "+a/−b", the changes at +tol and at −tol; scale
+ * converts the move to the display units (1 for money). */
 static void
 move_text(char *buf, size_t size, double minus, double plus, double tol,
-	  int decimals)
+	  int decimals, double scale)
 {
-	double up = tidy(plus * tol), down = tidy(-minus * tol);
+	double up = tidy(plus * tol) * scale, down = tidy(-minus * tol) * scale;
 
 	if (!differ_shown(up, -down, decimals))
 		snprintf(buf, size, "±%.*f", decimals, fabs(up));
@@ -143,7 +166,7 @@ cost_move_text(char *buf, size_t size, double minus, double plus, double tol)
 
 	if (tol <= 0.0 || (!isinf(minus) && !isinf(plus))) {
 		move_text(buf, size, tol > 0.0 ? minus : 0.0, tol > 0.0 ? plus :
-			  0.0, tol, 0);
+			  0.0, tol, 0, 1.0);
 		return;
 	}
 	signed_text(up, sizeof up, plus * tol);
@@ -151,11 +174,13 @@ cost_move_text(char *buf, size_t size, double minus, double plus, double tol)
 	snprintf(buf, size, "%s/%s", up, down);
 }
 
-/* A cost derivative, "left|right" when they differ, "inf" for a side
- * that no utility can serve. */
+/* A cost derivative per degree of a utility temperature, "left|right"
+ * when they differ, "inf" for a side that no utility can serve. */
 static void
 cost_deriv_text(char *buf, size_t size, double minus, double plus)
 {
+	minus /= hl_show_dt(1.0);
+	plus /= hl_show_dt(1.0);
 	if (minus == plus || (!isinf(minus) && !isinf(plus) &&
 			      !differ_shown(minus, plus, 0)))
 		snprintf(buf, size, "%.0f", fabs(plus) < 0.5 ? 0.0 : plus);
@@ -185,7 +210,7 @@ cost_words(FILE *fp, const hl_case *c, double minus, double plus, double tol,
 		return;
 	}
 	if (!inf_up && !inf_down) {
-		move_text(m, sizeof m, minus, plus, tol, 0);
+		move_text(m, sizeof m, minus, plus, tol, 0, 1.0);
 		fprintf(fp, "the utility cost by %s %s a year", m, currency(c));
 		return;
 	}
@@ -201,7 +226,8 @@ step_text(char *buf, size_t size, int temperature, double value, double tol,
 	  int sign)
 {
 	if (temperature)
-		snprintf(buf, size, "%c%.1f K", sign > 0 ? '+' : '-', tol);
+		snprintf(buf, size, "%c%.1f %s", sign > 0 ? '+' : '-',
+			 hl_show_dt(tol), HL_SYM_DT);
 	else
 		snprintf(buf, size, "%c%.3g %%", sign > 0 ? '+' : '-',
 			 value > 0.0 ? 100.0 * tol / value : 0.0);
@@ -213,8 +239,8 @@ name_width(const hl_case *c)
 	size_t i, w = 6;
 
 	for (i = 0; i < c->nstream; i++)
-		if (text_width(c->stream[i].name) > w)
-			w = text_width(c->stream[i].name);
+		if (hl_utf8_chars(c->stream[i].name) > w)
+			w = hl_utf8_chars(c->stream[i].name);
 	return w > 40 ? 40 : w;
 }
 
@@ -240,20 +266,24 @@ text_headline(FILE *fp, const hl_case *c, const hl_cascade *cas)
 
 	fprintf(fp, "Sensitivity of the energy targets for %s\n\n",
 		c->source ? c->source : "");
-	fprintf(fp, "At ΔTmin %.1f K: minimum hot utility %.1f kW, minimum "
-		"cold utility %.1f kW;\n", cas->dtmin, cas->qh, cas->qc);
+	fprintf(fp, "At ΔTmin %.1f %s: minimum hot utility %.*f %s, minimum "
+		"cold utility %.*f %s;\n", hl_show_dt(cas->dtmin), HL_SYM_DT,
+		HL_DIG_Q(1), hl_show_q(cas->qh), HL_SYM_Q, HL_DIG_Q(1),
+		hl_show_q(cas->qc), HL_SYM_Q);
 	for (i = 0; i < cas->npinch; i++) {
 		double s = cas->t[cas->pinch[i]];
 
-		fprintf(fp, "%s %.1f °C hot / %.1f °C cold", i ? "," :
-			"pinch at", hl_cascade_hot_temp(cas, s),
-			hl_cascade_cold_temp(cas, s));
+		fprintf(fp, "%s %.1f %s hot / %.1f %s cold", i ? "," :
+			"pinch at", hl_show_t(hl_cascade_hot_temp(cas, s)),
+			HL_SYM_T, hl_show_t(hl_cascade_cold_temp(cas, s)),
+			HL_SYM_T);
 	}
 	if (cas->npinch == 0)
 		fprintf(fp, "no pinch (a threshold problem)");
 	fprintf(fp, ".\nTolerances: each stream's cp_tol and t_tol where the "
-		"table gives them,\nelse ±%.3g %% on cp and duty and ±%.1f K on "
-		"temperatures.\n", 100.0 * c->set.cp_tol, c->set.t_tol);
+		"table gives them,\nelse ±%.3g %% on cp and duty and ±%.1f %s on "
+		"temperatures.\n", 100.0 * c->set.cp_tol,
+		hl_show_dt(c->set.t_tol), HL_SYM_DT);
 }
 
 static void
@@ -272,14 +302,16 @@ text_first(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 			break;
 		value_text(v, sizeof v, r);
 		tol_text(t, sizeof t, r);
-		move_text(h, sizeof h, r->hot_minus, r->hot_plus, r->tol, 1);
-		move_text(k, sizeof k, r->cold_minus, r->cold_plus, r->tol, 1);
+		move_text(h, sizeof h, r->hot_minus, r->hot_plus, r->tol,
+			  HL_DIG_Q(1), hl_show_q(1.0));
+		move_text(k, sizeof k, r->cold_minus, r->cold_plus, r->tol,
+			  HL_DIG_Q(1), hl_show_q(1.0));
 		fprintf(fp, "  %zu. %s %s", ++n, c->stream[r->stream].name,
 			long_quantity(r->q));
 		if (!is_temperature(r->q) && c->stream[r->stream].nseg > 1)
 			fprintf(fp, " (segment %zu)", r->segment + 1);
-		fprintf(fp, " (%s): a %s error in it moves QHmin by %s kW and "
-			"QCmin by %s kW", v, t, h, k);
+		fprintf(fp, " (%s): a %s error in it moves QHmin by %s %s and "
+			"QCmin by %s %s", v, t, h, HL_SYM_Q, k, HL_SYM_Q);
 		if (has_cost(sv, r->cost_minus, r->cost_plus)) {
 			step_text(h, sizeof h, is_temperature(r->q), r->value,
 				  r->tol, 1);
@@ -308,10 +340,14 @@ text_row(FILE *fp, const hl_case *c, const hl_sensitivity *sv, size_t rank,
 	datum_label(d, sizeof d, c, r);
 	value_text(v, sizeof v, r);
 	tol_text(t, sizeof t, r);
-	deriv_text(dh, sizeof dh, r->hot_minus, r->hot_plus, r->kink);
-	deriv_text(dc, sizeof dc, r->cold_minus, r->cold_plus, r->kink);
-	move_text(mh, sizeof mh, r->hot_minus, r->hot_plus, r->tol, 1);
-	move_text(mc, sizeof mc, r->cold_minus, r->cold_plus, r->tol, 1);
+	deriv_text(dh, sizeof dh, r->hot_minus, r->hot_plus, r->kink,
+		   deriv_factor(r->q));
+	deriv_text(dc, sizeof dc, r->cold_minus, r->cold_plus, r->kink,
+		   deriv_factor(r->q));
+	move_text(mh, sizeof mh, r->hot_minus, r->hot_plus, r->tol,
+		  HL_DIG_Q(1), hl_show_q(1.0));
+	move_text(mc, sizeof mc, r->cold_minus, r->cold_plus, r->tol,
+		  HL_DIG_Q(1), hl_show_q(1.0));
 	fprintf(fp, "%4zu  ", rank + 1);
 	put_padded(fp, c->stream[r->stream].name, nw);
 	fprintf(fp, "  ");
@@ -329,19 +365,27 @@ text_row(FILE *fp, const hl_case *c, const hl_sensitivity *sv, size_t rank,
 	fputc('\n', fp);
 }
 
+static size_t count_infinite(const hl_sensitivity *sv);
+
 static void
 text_table(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 {
 	size_t i, nw = name_width(c);
 
 	fprintf(fp, "\nEvery datum, largest effect first: how far each target "
-		"moves (kW, first order) with\nthe datum off by its tolerance, "
-		"and the derivatives (kW per K for temperatures,\nper kW/K for "
-		"cp, per kW for duty).");
+		"moves (%s, first order) with\nthe datum off by its tolerance, "
+		"and the derivatives (%s per %s for temperatures,\nper %s for "
+		"cp, per %s for duty).", HL_SYM_Q, HL_SYM_Q, HL_SYM_DT,
+		HL_SYM_CP, HL_SYM_Q);
 	if (sv->cost != HL_SENS_COST_NONE)
 		fprintf(fp, " The last column: how far the utility cost\nmoves "
 			"(%s a year, first order), at +tol/-tol when the two "
 			"differ.", currency(c));
+	if (count_infinite(sv) > 0)
+		fprintf(fp, "\nA row whose cost moves by +inf or -inf ranks "
+			"first: a step of its tolerance that\nway leaves no "
+			"utility able to serve the process, so no finite cost "
+			"can be given\nand the datum is the first to check.");
 	fputs("\n\n", fp);
 	fprintf(fp, "%4s  ", "rank");
 	put_padded(fp, "stream", nw);
@@ -359,8 +403,8 @@ text_urow(FILE *fp, const hl_case *c, const hl_sens_urow *u, size_t nw)
 {
 	char v[48], t[32], mv[64], d[64];
 
-	snprintf(v, sizeof v, "%.1f °C", u->value);
-	snprintf(t, sizeof t, "±%.1f K", u->tol);
+	snprintf(v, sizeof v, "%.1f %s", hl_show_t(u->value), HL_SYM_T);
+	snprintf(t, sizeof t, "±%.1f %s", hl_show_dt(u->tol), HL_SYM_DT);
 	cost_move_text(mv, sizeof mv, u->cost_minus, u->cost_plus, u->tol);
 	cost_deriv_text(d, sizeof d, u->cost_minus, u->cost_plus);
 	if (isnan(u->cost_minus) || isnan(u->cost_plus))
@@ -382,13 +426,14 @@ text_utilities(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 	if (sv->nurow == 0)
 		return;
 	for (i = 0; i < c->nutil; i++)
-		if (text_width(c->util[i].name) > nw)
-			nw = text_width(c->util[i].name);
+		if (hl_utf8_chars(c->util[i].name) > nw)
+			nw = hl_utf8_chars(c->util[i].name);
 	nw = nw > 40 ? 40 : nw;
 	fprintf(fp, "\nThe utilities' temperatures (the energy targets do not "
 		"depend on them; the\nutility cost does): how far the cost "
-		"moves with each off by ±%.1f K, and\nits derivative (%s a "
-		"year per K).\n\n", c->set.t_tol, currency(c));
+		"moves with each off by ±%.1f %s, and\nits derivative (%s a "
+		"year per %s).\n\n", hl_show_dt(c->set.t_tol), HL_SYM_DT,
+		currency(c), HL_SYM_DT);
 	fprintf(fp, "      ");
 	put_padded(fp, "utility", nw);
 	fprintf(fp, "  %-7s%11s %7s %14s %14s\n", "datum", "value", "tol",
@@ -400,9 +445,12 @@ text_utilities(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 static void
 text_band(FILE *fp, const char *name, const hl_sens_band *b)
 {
-	fprintf(fp, "  %s %.1f kW lies within %.1f … %.1f kW (first-order "
-		"estimate %.1f … %.1f kW)\n", name, b->nominal, b->low, b->high,
-		b->lin_low, b->lin_high);
+	int d = HL_DIG_Q(1);
+
+	fprintf(fp, "  %s %.*f %s lies within %.*f … %.*f %s (first-order "
+		"estimate %.*f … %.*f %s)\n", name, d, hl_show_q(b->nominal),
+		HL_SYM_Q, d, hl_show_q(b->low), d, hl_show_q(b->high), HL_SYM_Q,
+		d, hl_show_q(b->lin_low), d, hl_show_q(b->lin_high), HL_SYM_Q);
 }
 
 /* The first-order estimate misses the re-solve by more than 1 % of the
@@ -467,10 +515,11 @@ text_short_spans(FILE *fp, const hl_case *c, const hl_sensitivity *sv)
 		if (seen)
 			continue;
 		shown[n++] = r->stream;
-		fprintf(fp, "\n'%s' is given by cp over %.1f K: a ±%.1f K error "
-			"in one end changes its duty by\n±%.0f %%. If its duty is "
-			"what was measured, give 'duty' instead of 'cp' for it.\n",
-			s->name, span, r->tol, 100.0 * r->tol / span);
+		fprintf(fp, "\n'%s' is given by cp over %.1f %s: a ±%.1f %s "
+			"error in one end changes its duty by\n±%.0f %%. If its "
+			"duty is what was measured, give 'duty' instead of 'cp' "
+			"for it.\n", s->name, hl_show_dt(span), HL_SYM_DT,
+			hl_show_dt(r->tol), HL_SYM_DT, 100.0 * r->tol / span);
 	}
 }
 
@@ -520,12 +569,14 @@ text_dtmin_cost(FILE *fp, const hl_case *c, const hl_sens_row *dt)
 			"the process");
 	else
 		fprintf(fp, ",\nand the utility cost %.0f %s a year more",
-			dt->cost_plus, currency(c));
+			dt->cost_plus / hl_show_dt(1.0), currency(c));
 	if (isinf(dt->cost_minus))
 		fprintf(fp, "; any smaller ΔTmin leaves no utility able to "
 			"serve the process");
-	else if (differ_shown(dt->cost_minus, dt->cost_plus, 0))
-		fprintf(fp, " (%.0f less per kelvin less)", dt->cost_minus);
+	else if (differ_shown(dt->cost_minus / hl_show_dt(1.0),
+			      dt->cost_plus / hl_show_dt(1.0), 0))
+		fprintf(fp, " (%.0f less per %s less)",
+			dt->cost_minus / hl_show_dt(1.0), degree_word());
 }
 
 void
@@ -535,11 +586,15 @@ hl_sensitivity_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
 	text_headline(fp, c, cas);
 	text_first(fp, c, sv);
 	text_table(fp, c, sv);
-	fprintf(fp, "\nΔTmin: each kelvin more needs %.2f kW more hot and %.2f "
-		"kW more cold utility", sv->dt.hot_plus, sv->dt.cold_plus);
+	double f = deriv_factor(HL_SENS_DTMIN);
+
+	fprintf(fp, "\nΔTmin: each %s more needs %.2f %s more hot and %.2f "
+		"%s more cold utility", degree_word(), f * sv->dt.hot_plus,
+		HL_SYM_Q, f * sv->dt.cold_plus, HL_SYM_Q);
 	if (sv->dt.kink)
-		fprintf(fp, " (%.2f and %.2f per kelvin less: a pinch changes "
-			"here)", sv->dt.hot_minus, sv->dt.cold_minus);
+		fprintf(fp, " (%.2f and %.2f per %s less: a pinch changes "
+			"here)", f * sv->dt.hot_minus, f * sv->dt.cold_minus,
+			degree_word());
 	if (has_cost(sv, sv->dt.cost_minus, sv->dt.cost_plus))
 		text_dtmin_cost(fp, c, &sv->dt);
 	fprintf(fp, ".\n");
@@ -680,35 +735,6 @@ hl_sensitivity_xml(xmlTextWriterPtr w, const hl_case *c,
 	return rc < 0 ? -1 : 0;
 }
 
-/* A CSV field, quoted when it holds a comma, quote or line break. */
-static void
-csv_text(FILE *fp, const char *s)
-{
-	if (strpbrk(s, ",\"\r\n") == NULL) {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (; *s; s++) {
-		if (*s == '"')
-			fputc('"', fp);
-		fputc(*s, fp);
-	}
-	fputc('"', fp);
-}
-
-static void
-csv_num(FILE *fp, double v)
-{
-	char b[64];
-
-	fputc(',', fp);
-	if (isnan(v))
-		return;
-	hl_format_number(b, sizeof b, v);
-	fputs(b, fp);
-}
-
 static void
 csv_row(FILE *fp, const hl_case *c, const hl_sens_row *r)
 {
@@ -716,23 +742,23 @@ csv_row(FILE *fp, const hl_case *c, const hl_sens_row *r)
 		fprintf(fp, ",,dtmin,");
 	} else {
 		fprintf(fp, "%zu,", r->rank);
-		csv_text(fp, c->stream[r->stream].name);
+		hl_csv_text(fp, c->stream[r->stream].name);
 		fprintf(fp, ",%s,", hl_sensitivity_quantity_name(r->q));
 		if (!is_temperature(r->q))
 			fprintf(fp, "%zu", r->segment + 1);
 	}
-	csv_num(fp, r->value);
-	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->tol);
-	csv_num(fp, r->hot_minus);
-	csv_num(fp, r->hot_plus);
-	csv_num(fp, r->cold_minus);
-	csv_num(fp, r->cold_plus);
-	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->hot_down);
-	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->hot_up);
-	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_down);
-	csv_num(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_up);
-	csv_num(fp, r->cost_minus);
-	csv_num(fp, r->cost_plus);
+	hl_csv_value(fp, r->value);
+	hl_csv_value(fp, r->q == HL_SENS_DTMIN ? NAN : r->tol);
+	hl_csv_value(fp, r->hot_minus);
+	hl_csv_value(fp, r->hot_plus);
+	hl_csv_value(fp, r->cold_minus);
+	hl_csv_value(fp, r->cold_plus);
+	hl_csv_value(fp, r->q == HL_SENS_DTMIN ? NAN : r->hot_down);
+	hl_csv_value(fp, r->q == HL_SENS_DTMIN ? NAN : r->hot_up);
+	hl_csv_value(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_down);
+	hl_csv_value(fp, r->q == HL_SENS_DTMIN ? NAN : r->cold_up);
+	hl_csv_value(fp, r->cost_minus);
+	hl_csv_value(fp, r->cost_plus);
 	fprintf(fp, ",%d,\n", r->kink);
 }
 
@@ -744,14 +770,14 @@ csv_urow(FILE *fp, const hl_case *c, const hl_sens_urow *u)
 	int i;
 
 	fprintf(fp, ",,%s,", hl_sensitivity_quantity_name(u->q));
-	csv_num(fp, u->value);
-	csv_num(fp, u->tol);
+	hl_csv_value(fp, u->value);
+	hl_csv_value(fp, u->tol);
 	for (i = 0; i < 8; i++)
-		csv_num(fp, 0.0);
-	csv_num(fp, u->cost_minus);
-	csv_num(fp, u->cost_plus);
+		hl_csv_value(fp, 0.0);
+	hl_csv_value(fp, u->cost_minus);
+	hl_csv_value(fp, u->cost_plus);
 	fprintf(fp, ",0,");
-	csv_text(fp, c->util[u->util].name);
+	hl_csv_text(fp, c->util[u->util].name);
 	fputc('\n', fp);
 }
 

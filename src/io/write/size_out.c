@@ -10,37 +10,29 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "display.h"
 #include "size_out.h"
+#include "text_out.h"
+#include "utf8.h"
 
-const char *
-hl_size_type_name(hl_exchanger_type type)
+/* Short tag of a type for the text table. */
+static const char *
+type_tag(hl_exchanger_type t)
 {
-	return type == HL_EXCH_COUNTERFLOW ? "counterflow" : "shell-and-tube";
+	static const char *const tag[HL_EXCH_NTYPES] = {
+		"S&T", "CF", "PL", "DP", "AC", "FH"
+	};
+
+	return (int)t >= 0 && t < HL_EXCH_NTYPES ? tag[t] : "?";
 }
 
-int
-hl_size_row_cross(const hl_size_row *row)
+/* Whether the unit's cold outlet is above its hot outlet; a fired heater
+ * has no cross to speak of: it is sized by duty. */
+static int
+row_cross(const hl_size_row *row)
 {
-	return row->spec.cold_out > row->spec.hot_out;
-}
-
-/* Display width of a UTF-8 string: one per character. */
-/* Display width of the first len bytes of a UTF-8 string: one per
- * character. */
-static size_t
-width_n(const char *s, size_t len)
-{
-	size_t i, n = 0;
-
-	for (i = 0; i < len && s[i] != '\0'; i++)
-		n += ((unsigned char)s[i] & 0xC0) != 0x80;
-	return n;
-}
-
-static size_t
-text_width(const char *s)
-{
-	return width_n(s, strlen(s));
+	return row->spec.type != HL_EXCH_FIRED_HEATER &&
+	    row->spec.cold_out > row->spec.hot_out;
 }
 
 /* A line that holds back its spaces until something follows them, so that
@@ -77,54 +69,32 @@ end_line(line *l)
 	fputc('\n', l->fp);
 }
 
-/* s broken at spaces into lines of at most width characters, the first
- * led by `first`, the others by `next`. */
-static void
-wrapped(FILE *fp, const char *s, const char *first, const char *next,
-	size_t width)
-{
-	const char *lead = first;
-	size_t col = 0, n, w;
-
-	for (;;) {
-		s += strspn(s, " ");
-		if (*s == '\0')
-			break;
-		n = strcspn(s, " ");
-		w = width_n(s, n);
-		if (col > 0 && col + 1 + w > width) {
-			fputc('\n', fp);
-			col = 0;
-			lead = next;
-		}
-		if (col == 0) {
-			fputs(lead, fp);
-			col = text_width(lead);
-		} else {
-			fputc(' ', fp);
-			col++;
-		}
-		fwrite(s, 1, n, fp);
-		col += w;
-		s += n;
-	}
-	fputc('\n', fp);
-}
-
 /* The columns after the unit's name. */
 enum { K_TYPE, K_DUTY, K_HIN, K_HOUT, K_CIN, K_COUT, K_U, K_LMTD, K_P, K_R,
        K_F, K_SHELLS, K_AREA, K_ASHELL, K_COST, K_NOTE, K_COUNT };
 
 static const struct {
 	const char *head;
-	const char *unit;
+	const char *unit;  /* in SI */
+	hl_qty qty;        /* for the other display units */
 } column[K_COUNT] = {
-	{ "type", "" }, { "duty", "kW" }, { "hot in", "°C" },
-	{ "hot out", "°C" }, { "cold in", "°C" }, { "cold out", "°C" },
-	{ "U", "kW/(m²K)" }, { "LMTD", "K" }, { "P", "" }, { "R", "" },
-	{ "F", "" }, { "shells", "" }, { "area", "m²" },
-	{ "per shell", "m²" }, { "cost", "" }, { "note", "" }
+	{ "type", "", HL_QTY_NONE }, { "duty", "kW", HL_QTY_POWER },
+	{ "hot in", "°C", HL_QTY_TEMP }, { "hot out", "°C", HL_QTY_TEMP },
+	{ "cold in", "°C", HL_QTY_TEMP }, { "cold out", "°C", HL_QTY_TEMP },
+	{ "U", "kW/(m²K)", HL_QTY_HTC }, { "LMTD", "K", HL_QTY_DTEMP },
+	{ "P", "", HL_QTY_NONE }, { "R", "", HL_QTY_NONE },
+	{ "F", "", HL_QTY_NONE }, { "shells", "", HL_QTY_NONE },
+	{ "area", "m²", HL_QTY_AREA }, { "per shell", "m²", HL_QTY_AREA },
+	{ "cost", "", HL_QTY_NONE }, { "note", "", HL_QTY_NONE }
 };
+
+static const char *
+unit_text(size_t k)
+{
+	if (hl_display_get() == HL_UNITS_SI || column[k].qty == HL_QTY_NONE)
+		return column[k].unit;
+	return hl_show_unit(column[k].qty);
+}
 
 /* Left-aligned columns; the others are numbers, right-aligned. */
 static int
@@ -164,16 +134,29 @@ sized_cells(const hl_size_row *row, cells *c)
 		return;
 	}
 	number(c->text[K_F], 3, z->f);
-	snprintf(c->text[K_SHELLS], CELL, "%d", z->shells);
-	if (st && (row->assumed & (HL_ASSUMED_FMIN | HL_ASSUMED_XP)))
+	if (z->parallel > 1)
+		snprintf(c->text[K_SHELLS], CELL, "%d×%d", z->shells,
+		    z->parallel);
+	else
+		snprintf(c->text[K_SHELLS], CELL, "%d", z->shells);
+	if ((st && (row->assumed & (HL_ASSUMED_FMIN | HL_ASSUMED_XP))) ||
+	    (row->assumed & HL_ASSUMED_LARGEST))
 		c->mark[K_SHELLS] = '*';
-	number(c->text[K_AREA], 2, z->area);
-	number(c->text[K_ASHELL], 2, z->area_shell);
+	if (row->spec.type == HL_EXCH_FIRED_HEATER) {
+		snprintf(c->text[K_AREA], CELL, "by duty");
+		snprintf(c->text[K_ASHELL], CELL, "—");
+	} else {
+		number(c->text[K_AREA], 2, hl_show_a(z->area));
+		number(c->text[K_ASHELL], 2,
+		    hl_show_a(z->area_shell));
+	}
 	number(c->text[K_COST], 0, z->cost);
 	if (row->assumed & HL_ASSUMED_COST)
 		c->mark[K_COST] = '*';
-	snprintf(c->text[K_NOTE], CELL, "%s",
-	    hl_size_row_cross(row) ? "cross" : "");
+	snprintf(c->text[K_NOTE], CELL, "%s%s%s",
+	    row_cross(row) ? "cross" : "",
+	    row_cross(row) && z->warn ? ", " : "",
+	    z->warn ? "CHECK" : "");
 }
 
 static void
@@ -185,19 +168,21 @@ row_cells(const hl_size_row *row, cells *c)
 
 	for (k = 0; k < K_COUNT; k++)
 		c->mark[k] = ' ';
-	snprintf(c->text[K_TYPE], CELL, "%s",
-	    s->type == HL_EXCH_COUNTERFLOW ? "CF" : "S&T");
+	snprintf(c->text[K_TYPE], CELL, "%s", type_tag(s->type));
 	if (row->assumed & HL_ASSUMED_TYPE)
 		c->mark[K_TYPE] = '*';
-	number(c->text[K_DUTY], 1, s->duty);
-	number(c->text[K_HIN], 1, s->hot_in);
-	number(c->text[K_HOUT], 1, s->hot_out);
-	number(c->text[K_CIN], 1, s->cold_in);
-	number(c->text[K_COUT], 1, s->cold_out);
-	number(c->text[K_U], 3, s->u);
+	number(c->text[K_DUTY], HL_DIG_Q(1), hl_show_q(s->duty));
+	number(c->text[K_HIN], 1, hl_show_t(s->hot_in));
+	number(c->text[K_HOUT], 1, hl_show_t(s->hot_out));
+	number(c->text[K_CIN], 1, hl_show_t(s->cold_in));
+	number(c->text[K_COUT], 1, hl_show_t(s->cold_out));
+	if (s->type == HL_EXCH_FIRED_HEATER)
+		snprintf(c->text[K_U], CELL, "—");
+	else
+		number(c->text[K_U], HL_DIG_H(3), hl_show_h(s->u));
 	if (row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD))
 		c->mark[K_U] = '*';
-	number(c->text[K_LMTD], 2, z->lmtd);
+	number(c->text[K_LMTD], 2, hl_show_dt(z->lmtd));
 	number(c->text[K_P], 3, z->p);
 	if (isinf(z->r))
 		snprintf(c->text[K_R], CELL, "∞");
@@ -214,7 +199,7 @@ typedef struct {
 static size_t
 wider(size_t w, const char *s)
 {
-	size_t n = text_width(s);
+	size_t n = hl_utf8_chars(s);
 
 	return n > w ? n : w;
 }
@@ -225,9 +210,9 @@ measure(const hl_size_result *r, widths *w)
 	cells c;
 	size_t i, k;
 
-	w->name = text_width("unit");
+	w->name = hl_utf8_chars("unit");
 	for (k = 0; k < K_COUNT; k++)
-		w->col[k] = wider(text_width(column[k].head), column[k].unit);
+		w->col[k] = wider(hl_utf8_chars(column[k].head), unit_text(k));
 	for (i = 0; i < r->n; i++) {
 		w->name = wider(w->name, r->row[i].unit->name);
 		row_cells(&r->row[i], &c);
@@ -240,7 +225,7 @@ measure(const hl_size_result *r, widths *w)
 static void
 put_cell(line *l, size_t k, size_t w, const char *s, char mark)
 {
-	size_t n = text_width(s);
+	size_t n = hl_utf8_chars(s);
 	char m[2] = { mark, '\0' };
 
 	pad(l, 1);
@@ -256,7 +241,7 @@ static void
 put_name(line *l, const char *s, size_t w)
 {
 	put(l, s);
-	pad(l, w - text_width(s));
+	pad(l, w - hl_utf8_chars(s));
 }
 
 static void
@@ -274,7 +259,7 @@ text_table(FILE *fp, const hl_size_result *r)
 	end_line(&l);
 	put_name(&l, "", w.name);
 	for (k = 0; k < K_COUNT; k++)
-		put_cell(&l, k, w.col[k], column[k].unit, ' ');
+		put_cell(&l, k, w.col[k], unit_text(k), ' ');
 	end_line(&l);
 	for (i = 0; i < r->n; i++) {
 		row_cells(&r->row[i], &c);
@@ -296,12 +281,14 @@ text_totals(FILE *fp, const hl_size_result *r)
 		if (r->row[i].status != HL_OK)
 			continue;
 		sized++;
-		shells += r->row[i].size.shells;
+		shells += (long)r->row[i].size.shells *
+		    r->row[i].size.parallel;
 		area += r->row[i].size.area;
 		cost += r->row[i].size.cost;
 	}
 	fprintf(fp, "\nTotal: %zu of %zu exchangers sized, %ld shells, "
-	    "%.2f m², cost %.0f%s\n", sized, r->n, shells, area, cost,
+	    "%.2f %s, cost %.0f%s\n", sized, r->n, shells, hl_show_a(area),
+	    HL_SYM_A, cost,
 	    sized < r->n ? " (of the sized ones)" : "");
 }
 
@@ -323,7 +310,7 @@ note(FILE *fp, const hl_size_row *row, const char *fmt, ...)
 	va_end(ap);
 	snprintf(buf, sizeof buf, "%.200s (line %ld): %s", row->unit->name,
 	    row->unit->line, text);
-	wrapped(fp, buf, "  ", "      ", NOTE_WIDTH);
+	hl_text_wrap(fp, buf, "  ", "      ", NOTE_WIDTH);
 }
 
 static void
@@ -332,16 +319,17 @@ note_cross(FILE *fp, const hl_size_row *row)
 	const hl_exchanger_spec *s = &row->spec;
 	char tail[64] = "";
 
-	if (!hl_size_row_cross(row))
+	if (!row_cross(row))
 		return;
-	if (s->type == HL_EXCH_COUNTERFLOW)
+	if (s->type != HL_EXCH_SHELL_TUBE && s->type != HL_EXCH_AIR_COOLER)
 		snprintf(tail, sizeof tail, "; a counterflow unit can do it");
 	else if (row->status == HL_OK)
 		snprintf(tail, sizeof tail, "; %d shell%s in series",
 		    row->size.shells, row->size.shells == 1 ? "" : "s");
-	note(fp, row, "temperature cross: the cold outlet %.1f °C is %.1f K "
-	    "above the hot outlet %.1f °C%s", s->cold_out,
-	    s->cold_out - s->hot_out, s->hot_out, tail);
+	note(fp, row, "temperature cross: the cold outlet %.1f %s is %.1f %s "
+	    "above the hot outlet %.1f %s%s", hl_show_t(s->cold_out),
+	    HL_SYM_T, hl_show_dt(s->cold_out - s->hot_out), HL_SYM_DT,
+	    hl_show_t(s->hot_out), HL_SYM_T, tail);
 }
 
 /* Whether a side's cp gives a duty other than the one sized for (within
@@ -364,12 +352,14 @@ note_balance(FILE *fp, const hl_size_row *row)
 	if (!balance_differs(row))
 		return;
 	if (!isnan(u->duty_hot))
-		snprintf(hot, sizeof hot, " hot side %.1f kW", u->duty_hot);
+		snprintf(hot, sizeof hot, " hot side %.*f %s", HL_DIG_Q(1),
+		    hl_show_q(u->duty_hot), HL_SYM_Q);
 	if (!isnan(u->duty_cold))
-		snprintf(cold, sizeof cold, "%s cold side %.1f kW",
-		    hot[0] ? "," : "", u->duty_cold);
-	note(fp, row, "heat balance:%s%s; sized for %.1f kW", hot, cold,
-	    row->spec.duty);
+		snprintf(cold, sizeof cold, "%s cold side %.*f %s",
+		    hot[0] ? "," : "", HL_DIG_Q(1), hl_show_q(u->duty_cold),
+		    HL_SYM_Q);
+	note(fp, row, "heat balance:%s%s; sized for %.*f %s", hot, cold,
+	    HL_DIG_Q(1), hl_show_q(row->spec.duty), HL_SYM_Q);
 }
 
 static void
@@ -377,15 +367,28 @@ note_h(FILE *fp, const hl_size_row *row, const hl_settings *d)
 {
 	if (!(row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)))
 		return;
-	note(fp, row, "no %s given: assumed %g kW/(m²·K)",
+	note(fp, row, "no %s given: assumed %g %s",
 	    (row->assumed & HL_ASSUMED_H_HOT) ? "h_hot" : "h_cold",
-	    d->h_default);
+	    hl_show_h(d->h_default), HL_SYM_H);
+}
+
+/* An implausible U or shell size (hl_exchanger_warning). */
+static void
+note_warn(FILE *fp, const hl_size_row *row)
+{
+	char why[300];
+
+	if (row->status != HL_OK || row->size.warn == 0)
+		return;
+	hl_exchanger_warning(&row->spec, &row->size, why, sizeof why);
+	note(fp, row, "CHECK: %s", why);
 }
 
 static int
 has_note(const hl_size_row *row)
 {
-	return row->status != HL_OK || hl_size_row_cross(row) ||
+	return row->status != HL_OK || row_cross(row) ||
+	    (row->status == HL_OK && row->size.warn != 0) ||
 	    (row->assumed & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)) ||
 	    balance_differs(row);
 }
@@ -407,6 +410,7 @@ text_notes(FILE *fp, const hl_size_result *r)
 		if (row->status != HL_OK)
 			note(fp, row, "NOT SIZED: %s", row->note);
 		note_cross(fp, row);
+		note_warn(fp, row);
 		note_balance(fp, row);
 		note_h(fp, row, r->defaults);
 	}
@@ -423,6 +427,29 @@ assumed_all(const hl_size_result *r)
 	return a;
 }
 
+/* The illustrative law of each type a row took by default. */
+static void
+text_laws(FILE *fp, const hl_size_result *r)
+{
+	char buf[300];
+	unsigned done = 0;
+	size_t i;
+
+	for (i = 0; i < r->n; i++) {
+		const hl_size_row *row = &r->row[i];
+
+		if (!(row->assumed & HL_ASSUMED_COST) ||
+		    (done & (1u << row->spec.type)))
+			continue;
+		done |= 1u << row->spec.type;
+		hl_exchanger_law_text(r->defaults, row->spec.type, buf,
+		    sizeof buf);
+		hl_text_wrap(fp, buf, "  cost ", "    ", NOTE_WIDTH);
+	}
+	hl_text_wrap(fp, "(give your own: columns cost_a, cost_b, cost_c; "
+	    "--cost-a, --cost-b, --cost-c)", "  ", "    ", NOTE_WIDTH);
+}
+
 static void
 text_assumed(FILE *fp, const hl_size_result *r)
 {
@@ -435,37 +462,42 @@ text_assumed(FILE *fp, const hl_size_result *r)
 	fprintf(fp, "\n* assumed: built-in defaults (set them per row or on "
 	    "the command line)\n");
 	if (a & HL_ASSUMED_TYPE)
-		wrapped(fp, "type shell-and-tube (column type, --type)", "  ",
+		hl_text_wrap(fp, "type shell-and-tube (column type, --type)", "  ",
 		    "    ", NOTE_WIDTH);
 	if (a & (HL_ASSUMED_FMIN | HL_ASSUMED_XP)) {
 		snprintf(buf, sizeof buf, "shells: F floor %.2f, each shell's "
 		    "P at most %g of its maximum (columns fmin, xp; --fmin, "
 		    "--xp)", d->fmin, d->xp);
-		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+		hl_text_wrap(fp, buf, "  ", "    ", NOTE_WIDTH);
 	}
-	if (a & HL_ASSUMED_COST) {
-		snprintf(buf, sizeof buf, "cost per shell %g + %g·A^%g, A in "
-		    "m²: an illustrative law, not a price; give your own "
-		    "(columns cost_a, cost_b, cost_c; --cost-a, --cost-b, "
-		    "--cost-c)", d->cost_a, d->cost_b, d->cost_c);
-		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
-	}
+	if (a & HL_ASSUMED_COST)
+		text_laws(fp, r);
+	if (a & HL_ASSUMED_LARGEST)
+		hl_text_wrap(fp, "largest shell: the type's illustrative default "
+		    "(column largest, --largest); beyond it shells go in "
+		    "parallel (s×p: s in series, p trains in parallel)", "  ",
+		    "    ", NOTE_WIDTH);
 	if (a & (HL_ASSUMED_H_HOT | HL_ASSUMED_H_COLD)) {
 		snprintf(buf, sizeof buf, "U from one given film coefficient "
 		    "and %g kW/(m²·K) for the other (see the notes)",
 		    d->h_default);
-		wrapped(fp, buf, "  ", "    ", NOTE_WIDTH);
+		hl_text_wrap(fp, buf, "  ", "    ", NOTE_WIDTH);
 	}
 }
 
 static const char legend[] =
 "\nS&T: shell-and-tube, 1 shell pass and 2, 4, … tube passes per shell,\n"
-"shells in series; CF: pure counterflow (F = 1). P = (t2 − t1)/(T1 − t1),\n"
+"shells in series; CF: pure counterflow (F = 1); PL: plate (F = 1); DP:\n"
+"double pipe, hairpins in series (F = 1); AC: air cooler, crossflow with\n"
+"both fluids unmixed, sections in series; FH: fired heater, sized and\n"
+"costed by duty (Q in MW). s×p: s in series, p trains in parallel where\n"
+"one shell would pass the largest. CHECK: an implausible U or shell size\n"
+"(see the notes). P = (t2 − t1)/(T1 − t1),\n"
 "R = (T1 − T2)/(t2 − t1), hot side T, cold side t. F: LMTD correction of\n"
 "Bowman, Mueller & Nagle (1940); shells: the fewest with F at or above the\n"
 "floor and each shell's P within Xp of its maximum (Ahmad, Linnhoff & Smith\n"
-"1988). Area = duty/(U·F·LMTD), equal over the shells; cost a + b·A^c per\n"
-"shell, in the cost law's currency.\n";
+"1988). Area = duty/(U·F·LMTD), equal over the shells; cost a + b·X^c per\n"
+"shell (X its area, or a fired heater's duty), in the law's currency.\n";
 
 void
 hl_size_text(FILE *fp, const hl_size_result *r)
@@ -491,7 +523,8 @@ assumed_list(unsigned a, int shell_tube, char *buf, size_t size)
 	} names[] = {
 		{ HL_ASSUMED_TYPE, "type" }, { HL_ASSUMED_FMIN, "fmin" },
 		{ HL_ASSUMED_XP, "xp" }, { HL_ASSUMED_COST, "cost" },
-		{ HL_ASSUMED_H_HOT, "h-hot" }, { HL_ASSUMED_H_COLD, "h-cold" }
+		{ HL_ASSUMED_H_HOT, "h-hot" }, { HL_ASSUMED_H_COLD, "h-cold" },
+		{ HL_ASSUMED_LARGEST, "largest" }
 	};
 	size_t i;
 
@@ -540,9 +573,17 @@ xml_sizing(xmlTextWriterPtr w, const hl_size_row *row)
 	if (row->status == HL_OK) {
 		rc |= hl_xml_num(w, "ft", z->f);
 		rc |= hl_xml_int(w, "shells", z->shells);
+		if (z->parallel > 1)
+			rc |= hl_xml_int(w, "parallel", z->parallel);
 		rc |= hl_xml_num(w, "area", z->area);
 		rc |= hl_xml_num(w, "area-shell", z->area_shell);
 		rc |= hl_xml_num(w, "cost", z->cost);
+		if (z->warn != 0) {
+			char why[300];
+
+			hl_exchanger_warning(s, z, why, sizeof why);
+			rc |= hl_xml_str(w, "warning", why);
+		}
 	}
 	if (s->type == HL_EXCH_SHELL_TUBE) {
 		rc |= hl_xml_num(w, "fmin", s->fmin);
@@ -551,19 +592,22 @@ xml_sizing(xmlTextWriterPtr w, const hl_size_row *row)
 	rc |= hl_xml_num(w, "cost-a", s->cost_a);
 	rc |= hl_xml_num(w, "cost-b", s->cost_b);
 	rc |= hl_xml_num(w, "cost-c", s->cost_c);
+	if (isfinite(s->largest) && s->largest > 0.0)
+		rc |= hl_xml_num(w, "largest", s->largest);
+	rc |= hl_xml_num(w, "smallest", s->smallest);
 	return rc;
 }
 
 static int
 xml_row(xmlTextWriterPtr w, const hl_size_row *row)
 {
-	char assumed[64];
+	char assumed[96];
 	int rc = 0;
 
 	rc |= xmlTextWriterStartElement(w, BAD_CAST "exchanger");
 	rc |= hl_xml_str(w, "id", row->unit->name);
 	rc |= hl_xml_int(w, "line", row->unit->line);
-	rc |= hl_xml_str(w, "type", hl_size_type_name(row->spec.type));
+	rc |= hl_xml_str(w, "type", hl_exchanger_type_name(row->spec.type));
 	rc |= xml_terminals(w, row);
 	rc |= xml_sizing(w, row);
 	rc |= hl_xml_str(w, "status", row->status == HL_OK ? "sized" :
@@ -595,81 +639,60 @@ hl_size_xml(xmlTextWriterPtr w, const hl_size_result *r)
 	return rc < 0 ? -1 : 0;
 }
 
-/* A CSV field, quoted when RFC 4180 needs it. */
-static void
-csv_text(FILE *fp, const char *s)
-{
-	const char *p;
-
-	if (strpbrk(s, ",\"\r\n") == NULL && s[0] != ' ' && s[0] != '#' &&
-	    (s[0] == '\0' || s[strlen(s) - 1] != ' ')) {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (p = s; *p != '\0'; p++) {
-		if (*p == '"')
-			fputc('"', fp);
-		fputc(*p, fp);
-	}
-	fputc('"', fp);
-}
-
-/* A number, or an empty field for NaN and infinity. */
-static void
-csv_num(FILE *fp, double v)
-{
-	char b[64];
-
-	fputc(',', fp);
-	if (!isfinite(v))
-		return;
-	hl_format_number(b, sizeof b, v);
-	fputs(b, fp);
-}
-
 static void
 csv_row(FILE *fp, const hl_size_row *row)
 {
 	const hl_exchanger_spec *s = &row->spec;
 	const hl_exchanger_sizing *z = &row->size;
 	int ok = row->status == HL_OK;
-	char assumed[64];
+	char assumed[96], why[300] = "";
 
-	csv_text(fp, row->unit->name);
-	fprintf(fp, ",%ld,%s", row->unit->line, hl_size_type_name(s->type));
-	csv_num(fp, s->duty);
-	csv_num(fp, s->hot_in);
-	csv_num(fp, s->hot_out);
-	csv_num(fp, s->cold_in);
-	csv_num(fp, s->cold_out);
-	csv_num(fp, s->u);
-	csv_num(fp, z->lmtd);
-	csv_num(fp, z->p);
-	csv_num(fp, z->r);
-	csv_num(fp, ok ? z->f : NAN);
-	csv_num(fp, ok ? z->shells : NAN);
-	csv_num(fp, ok ? z->area : NAN);
-	csv_num(fp, ok ? z->area_shell : NAN);
-	csv_num(fp, ok ? z->cost : NAN);
+	hl_csv_text(fp, row->unit->name);
+	fprintf(fp, ",%ld,%s", row->unit->line, hl_exchanger_type_name(s->type));
+	hl_csv_num(fp, hl_show_q(s->duty));
+	hl_csv_num(fp, hl_show_t(s->hot_in));
+	hl_csv_num(fp, hl_show_t(s->hot_out));
+	hl_csv_num(fp, hl_show_t(s->cold_in));
+	hl_csv_num(fp, hl_show_t(s->cold_out));
+	hl_csv_num(fp, hl_show_h(s->u));
+	hl_csv_num(fp, hl_show_dt(z->lmtd));
+	hl_csv_num(fp, z->p);
+	hl_csv_num(fp, z->r);
+	hl_csv_num(fp, ok ? z->f : NAN);
+	hl_csv_num(fp, ok ? z->shells : NAN);
+	hl_csv_num(fp, ok ? z->parallel : NAN);
+	hl_csv_num(fp, ok ? hl_show_a(z->area) : NAN);
+	hl_csv_num(fp, ok ? hl_show_a(z->area_shell) : NAN);
+	hl_csv_num(fp, ok ? z->cost : NAN);
 	fprintf(fp, ",%s,%d,", ok ? "sized" : "too-many-shells",
-	    hl_size_row_cross(row));
+	    row_cross(row));
 	assumed_list(row->assumed, s->type == HL_EXCH_SHELL_TUBE, assumed,
 	    sizeof assumed);
 	fputs(assumed, fp);
 	fputc(',', fp);
-	csv_text(fp, ok ? "" : row->note);
+	if (ok && z->warn != 0)
+		hl_exchanger_warning(s, z, why, sizeof why);
+	hl_csv_text(fp, ok ? why : row->note);
 	fputc('\n', fp);
 }
 
 void
 hl_size_csv(FILE *fp, const hl_size_result *r)
 {
+	static const char *const name[] = { "duty", "hot_in", "hot_out",
+		"cold_in", "cold_out", "u", "lmtd" };
+	static const hl_qty qty[] = { HL_QTY_POWER, HL_QTY_TEMP, HL_QTY_TEMP,
+		HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_HTC, HL_QTY_DTEMP };
+	char h[2][64];
 	size_t i;
 
-	fprintf(fp, "name,line,type,duty,hot_in,hot_out,cold_in,cold_out,u,"
-	    "lmtd,p,r,f,shells,area,area_shell,cost,status,cross,assumed,"
-	    "note\n");
+	fprintf(fp, "name,line,type,");
+	for (i = 0; i < sizeof qty / sizeof qty[0]; i++)
+		fprintf(fp, "%s,", hl_show_header(h[0], sizeof h[0], name[i],
+						  qty[i]));
+	fprintf(fp, "p,r,f,shells,parallel,%s,%s,cost,status,cross,assumed,note\n",
+	    hl_show_header(h[0], sizeof h[0], "area", HL_QTY_AREA),
+	    hl_show_header(h[1], sizeof h[1], "area_shell", HL_QTY_AREA));
 	for (i = 0; i < r->n; i++)
 		csv_row(fp, &r->row[i]);
 }

@@ -21,7 +21,8 @@ enum {
 	HL_ASSUMED_XP = 1u << 2,
 	HL_ASSUMED_COST = 1u << 3,
 	HL_ASSUMED_H_HOT = 1u << 4,
-	HL_ASSUMED_H_COLD = 1u << 5
+	HL_ASSUMED_H_COLD = 1u << 5,
+	HL_ASSUMED_LARGEST = 1u << 6
 };
 
 /* One exchanger of the list and what became of it. */
@@ -43,11 +44,7 @@ typedef struct {
 	const char *caution;         /* closes the text report, may be NULL */
 } hl_size_result;
 
-/* Short names of the exchanger types, as in the list's type column. */
-const char *hl_size_type_name(hl_exchanger_type type);
 
-/* Whether the unit's cold outlet is above its hot outlet. */
-int hl_size_row_cross(const hl_size_row *row);
 
 /* A table for an engineer: units in the header, marks for assumed values,
  * notes per unit, totals, the caution. */

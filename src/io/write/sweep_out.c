@@ -3,6 +3,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "display.h"
 #include "result_xml.h"
 #include "sweep_out.h"
 
@@ -31,11 +32,14 @@ hl_supertargets_text(FILE *fp, const hl_case *c, const hl_supertargets *st)
 {
 	const char *cur = currency(c);
 
-	fprintf(fp, "\nSupertargets at ΔTmin %.1f K%s\n\n", st->dtmin,
+	fprintf(fp, "\nSupertargets at ΔTmin %.1f %s%s\n\n",
+		hl_show_dt(st->dtmin), HL_SYM_DT,
 		st->balanced ? " (balanced composites, utilities included)" :
 		" (process composites only: no utility table)");
-	fprintf(fp, "Area, counterflow       %.1f m²\n", st->area);
-	fprintf(fp, "Area, shell-and-tube    %.1f m²\n", st->area_st);
+	fprintf(fp, "Area, counterflow       %.1f %s\n", hl_show_a(st->area),
+		HL_SYM_A);
+	fprintf(fp, "Area, shell-and-tube    %.1f %s\n",
+		hl_show_a(st->area_st), HL_SYM_A);
 	fprintf(fp, "Units                   %d (N − 1 in each of %zu "
 		"subnetworks)\n", st->units, st->nsub);
 	fprintf(fp, "Shells                  %d\n", st->shells);
@@ -49,9 +53,9 @@ hl_supertargets_text(FILE *fp, const hl_case *c, const hl_supertargets *st)
 		st->energy_cost, cur, c->set.hours);
 	fprintf(fp, "Total annual cost       %.0f %s/yr\n", st->total_cost, cur);
 	if (st->assumed_h > 0)
-		fprintf(fp, "Assumed: h = %g kW/(m²·K) for %d streams or "
+		fprintf(fp, "Assumed: h = %g %s for %d streams or "
 			"utilities without one (setting h-default)\n",
-			c->set.h_default, st->assumed_h);
+			hl_show_h(c->set.h_default), HL_SYM_H, st->assumed_h);
 }
 
 int
@@ -88,32 +92,37 @@ hl_sweep_text(FILE *fp, const hl_case *c, const hl_sweep *sw)
 	fprintf(fp, "%7s %9s %9s %9s %5s %6s %11s %11s %11s\n", "ΔTmin",
 		"hot", "cold", "area", "units", "shells", "capital", "energy",
 		"total");
-	fprintf(fp, "%7s %9s %9s %9s %5s %6s %11s %11s %11s\n", "K", "kW",
-		"kW", "m²", "", "", "/yr", "/yr", "/yr");
+	hl_show_col(fp, HL_SYM_DT, 7);
+	hl_show_col(fp, HL_SYM_Q, 10);
+	hl_show_col(fp, HL_SYM_Q, 10);
+	hl_show_col(fp, HL_SYM_A, 10);
+	fprintf(fp, " %5s %6s %11s %11s %11s\n", "", "", "/yr", "/yr", "/yr");
 	for (i = 0; i < sw->n; i++) {
 		const hl_sweep_point *p = &sw->pt[i];
 
 		if (!p->ok) {
-			fprintf(fp, "%7.2f   no answer: %s\n", p->st.dtmin,
-				p->note);
+			fprintf(fp, "%7.2f   no answer: %s\n",
+				hl_show_dt(p->st.dtmin), p->note);
 			continue;
 		}
-		fprintf(fp, "%7.2f %9.1f %9.1f %9.1f %5d %6d %11.0f %11.0f "
-			"%11.0f%s\n", p->st.dtmin, p->st.hot_utility,
-			p->st.cold_utility, area_of(c, &p->st), p->st.units,
+		fprintf(fp, "%7.2f %9.*f %9.*f %9.1f %5d %6d %11.0f %11.0f "
+			"%11.0f%s\n", hl_show_dt(p->st.dtmin), HL_DIG_Q(1),
+			hl_show_q(p->st.hot_utility), HL_DIG_Q(1),
+			hl_show_q(p->st.cold_utility),
+			hl_show_a(area_of(c, &p->st)), p->st.units,
 			p->st.shells, p->st.capital_annual,
 			p->st.energy_cost, p->st.total_cost,
 			i == sw->best ? "  <- least on the grid" : "");
 	}
 	fprintf(fp, "\nArea is %s area; costs in %s per year (capital "
-		"annualised).\n", c->set.exchanger == HL_EXCH_SHELL_TUBE ?
-		"shell-and-tube" : "counterflow", cur);
-	fprintf(fp, "Optimum ΔTmin %.2f K: total annual cost %.0f %s/yr "
-		"(energy %.0f, capital %.0f), %d units, %d shells, %.1f m²\n",
-		sw->optimum.dtmin, sw->optimum.total_cost, cur,
-		sw->optimum.energy_cost, sw->optimum.capital_annual,
-		sw->optimum.units, sw->optimum.shells,
-		area_of(c, &sw->optimum));
+		"annualised).\n", hl_exchanger_type_name(c->set.exchanger), cur);
+	fprintf(fp, "Optimum ΔTmin %.2f %s: total annual cost %.0f %s/yr "
+		"(energy %.0f, capital %.0f), %d units, %d shells, %.1f %s\n",
+		hl_show_dt(sw->optimum.dtmin), HL_SYM_DT,
+		sw->optimum.total_cost, cur, sw->optimum.energy_cost,
+		sw->optimum.capital_annual, sw->optimum.units,
+		sw->optimum.shells, hl_show_a(area_of(c, &sw->optimum)),
+		HL_SYM_A);
 	fprintf(fp, "(grid best refined by golden-section search; %zu "
 		"targeting runs)\n", sw->evaluations);
 	fprintf(fp, "\nScreening estimates: detailed design and the safety "
@@ -153,22 +162,30 @@ hl_sweep_xml(xmlTextWriterPtr w, const hl_sweep *sw, double from, double to,
 void
 hl_sweep_csv(FILE *fp, const hl_case *c, const hl_sweep *sw)
 {
+	static const char *const name[4] = { "dtmin", "hot_utility",
+		"cold_utility", "area" };
+	static const hl_qty qty[4] = { HL_QTY_DTEMP, HL_QTY_POWER,
+		HL_QTY_POWER, HL_QTY_AREA };
+	char h[64];
 	size_t i;
 
-	fprintf(fp, "dtmin,hot_utility,cold_utility,area,units,shells,"
-		"capital_cost,energy_cost,total_cost\n");
+	for (i = 0; i < 4; i++)
+		fprintf(fp, "%s,", hl_show_header(h, sizeof h, name[i],
+						  qty[i]));
+	fprintf(fp, "units,shells,capital_cost,energy_cost,total_cost\n");
 	for (i = 0; i < sw->n; i++) {
 		const hl_supertargets *s = &sw->pt[i].st;
 		char v[7][64];
 
-		hl_format_number(v[0], sizeof v[0], s->dtmin);
+		hl_format_number(v[0], sizeof v[0], hl_show_dt(s->dtmin));
 		if (!sw->pt[i].ok) {
 			fprintf(fp, "%s,,,,,,,,\n", v[0]);
 			continue;
 		}
-		hl_format_number(v[1], sizeof v[1], s->hot_utility);
-		hl_format_number(v[2], sizeof v[2], s->cold_utility);
-		hl_format_number(v[3], sizeof v[3], area_of(c, s));
+		hl_format_number(v[1], sizeof v[1], hl_show_q(s->hot_utility));
+		hl_format_number(v[2], sizeof v[2],
+				 hl_show_q(s->cold_utility));
+		hl_format_number(v[3], sizeof v[3], hl_show_a(area_of(c, s)));
 		hl_format_number(v[4], sizeof v[4], s->capital_annual);
 		hl_format_number(v[5], sizeof v[5], s->energy_cost);
 		hl_format_number(v[6], sizeof v[6], s->total_cost);
@@ -185,9 +202,10 @@ column(const hl_case *c, const hl_sweep *sw, size_t field, double *out)
 
 	for (i = 0; i < sw->n; i++) {
 		const hl_supertargets *s = &sw->pt[i].st;
-		double v[] = { s->dtmin, s->total_cost, s->energy_cost,
-			       s->capital_annual, area_of(c, s),
-			       s->hot_utility };
+		double v[] = { hl_show_dt(s->dtmin), s->total_cost,
+			       s->energy_cost, s->capital_annual,
+			       hl_show_a(area_of(c, s)),
+			       hl_show_q(s->hot_utility) };
 
 		out[i] = sw->pt[i].ok || field == 0 ? v[field] : NAN;
 	}
@@ -205,13 +223,11 @@ chart(const char *title, const char *xl, const char *yl, const hl_case *c,
 	if (ch == NULL)
 		return NULL;
 	slash = strrchr(src, '/');
-	snprintf(sub, sizeof sub, "%s · optimum ΔTmin %.1f K, %.0f %s/yr",
-		 slash ? slash + 1 : src, sw->optimum.dtmin,
-		 sw->optimum.total_cost, currency(c));
+	snprintf(sub, sizeof sub, "%s · optimum ΔTmin %.1f %s, %.0f %s/yr",
+		 slash ? slash + 1 : src, hl_show_dt(sw->optimum.dtmin),
+		 HL_SYM_DT, sw->optimum.total_cost, currency(c));
 	if (hl_svg_chart_set_subtitle(ch, sub) < 0 ||
-	    hl_svg_chart_set_footnote(ch, "heatloom · screening estimate: "
-		"detailed design and the safety review of each match belong "
-		"to qualified engineers under local codes") < 0) {
+	    hl_svg_chart_set_footnote(ch, hl_svg_caution) < 0) {
 		hl_svg_chart_free(ch);
 		return NULL;
 	}
@@ -233,16 +249,16 @@ hl_sweep_chart_cost(const hl_case *c, const hl_sweep *sw)
 					    HL_SVG_MARK_NONE,
 					    HL_SVG_STEP_NONE } },
 	};
-	char yl[64];
+	char yl[64], xl[64];
 	double *x = malloc(sw->n * sizeof *x), *y = malloc(sw->n * sizeof *y);
 	hl_svg_chart *ch = NULL;
 	size_t k;
 	int rc = 0;
 
 	snprintf(yl, sizeof yl, "Annual cost (%s/yr)", currency(c));
+	snprintf(xl, sizeof xl, "ΔTmin (%s)", HL_SYM_DT);
 	if (x != NULL && y != NULL)
-		ch = chart("Total annual cost against ΔTmin", "ΔTmin (K)", yl,
-			   c, sw);
+		ch = chart("Total annual cost against ΔTmin", xl, yl, c, sw);
 	if (ch != NULL) {
 		column(c, sw, 0, x);
 		for (k = 0; k < 3; k++) {
@@ -250,9 +266,11 @@ hl_sweep_chart_cost(const hl_case *c, const hl_sweep *sw)
 			rc |= hl_svg_chart_add_series(ch, lines[k].label, x, y,
 						      sw->n, &lines[k].style);
 		}
-		rc |= hl_svg_chart_add_vline(ch, sw->optimum.dtmin, "optimum",
+		rc |= hl_svg_chart_add_vline(ch, hl_show_dt(sw->optimum.dtmin),
+					     "optimum",
 					     HL_SVG_VERMILION, HL_SVG_DOTTED);
-		rc |= hl_svg_chart_add_marker(ch, sw->optimum.dtmin,
+		rc |= hl_svg_chart_add_marker(ch,
+					      hl_show_dt(sw->optimum.dtmin),
 					      sw->optimum.total_cost,
 					      HL_SVG_MARK_DIAMOND,
 					      HL_SVG_VERMILION, NULL,
@@ -275,20 +293,23 @@ hl_sweep_chart_area(const hl_case *c, const hl_sweep *sw)
 			    HL_SVG_MARK_CIRCLE, HL_SVG_STEP_NONE };
 	double *x = malloc(sw->n * sizeof *x), *y = malloc(sw->n * sizeof *y);
 	hl_svg_chart *ch = NULL;
+	char xl[64], yl[64];
 	int rc = 0;
 
+	snprintf(xl, sizeof xl, "Hot utility (%s)", HL_SYM_Q);
+	snprintf(yl, sizeof yl, "%s area (%s)",
+		 c->set.exchanger == HL_EXCH_SHELL_TUBE ? "Shell-and-tube" :
+		 "Counterflow", HL_SYM_A);
 	if (x != NULL && y != NULL)
-		ch = chart("Area against energy", "Hot utility (kW)",
-			   c->set.exchanger == HL_EXCH_SHELL_TUBE ?
-			   "Shell-and-tube area (m²)" : "Counterflow area (m²)",
-			   c, sw);
+		ch = chart("Area against energy", xl, yl, c, sw);
 	if (ch != NULL) {
 		column(c, sw, 5, x);
 		column(c, sw, 4, y);
 		rc |= hl_svg_chart_add_series(ch, "area target over ΔTmin", x,
 					      y, sw->n, &st);
-		rc |= hl_svg_chart_add_marker(ch, sw->optimum.hot_utility,
-					      area_of(c, &sw->optimum),
+		rc |= hl_svg_chart_add_marker(ch,
+					      hl_show_q(sw->optimum.hot_utility),
+					      hl_show_a(area_of(c, &sw->optimum)),
 					      HL_SVG_MARK_DIAMOND,
 					      HL_SVG_VERMILION,
 					      "cost optimum", HL_SVG_START);

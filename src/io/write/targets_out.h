@@ -14,10 +14,8 @@ typedef struct {
 	double dtmin;     /* threshold ΔTmin, HUGE_VAL when never needed */
 } hl_threshold;
 
-/* The summary and the problem table, for a note or a terminal, then the
- * caution: the three parts below in that order. */
-void hl_targets_text(FILE *fp, const hl_case *c, const hl_cascade *cas,
-		     const hl_threshold *th);
+/* The text report: the summary and the problem table, for a note or a
+ * terminal, then the caution (targets.c adds the utility levels between). */
 void hl_targets_text_summary(FILE *fp, const hl_case *c,
 			     const hl_cascade *cas, const hl_threshold *th);
 void hl_targets_text_table(FILE *fp, const hl_cascade *cas);

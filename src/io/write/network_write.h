@@ -1,12 +1,12 @@
-/* network_out.h - a designed network as text, XML and CSV.
+/* network_write.h - a designed network as text, XML and CSV.
  *
  * The writers print what the network holds and compute nothing but the
  * stream chains of the text report. The XML element <network> carries
  * everything `heatloom check` needs to verify the network on its own
- * (doc/results.md, "Network"); network_xml.h reads it back.
+ * (doc/results.md, "Network"); network_read.h reads it back.
  */
-#ifndef HL_NETWORK_OUT_H
-#define HL_NETWORK_OUT_H
+#ifndef HL_NETWORK_WRITE_H
+#define HL_NETWORK_WRITE_H
 
 #include <stdio.h>
 
@@ -14,8 +14,6 @@
 
 #include "network.h"
 
-/* Name of an exchanger type as in files ("shell-and-tube", "counterflow"). */
-const char *hl_network_type_name(hl_exchanger_type t);
 
 /* A report for an engineer: summary, table, stream chains, notes, the
  * assumptions and the caution (may be NULL). */

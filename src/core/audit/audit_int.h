@@ -1,7 +1,7 @@
-/* audit_private.h - shared by audit.c, audit_pinch.c and audit_share.c;
+/* audit_int.h - shared by audit.c, audit_pinch.c and audit_share.c;
  * not part of the library's contract. */
-#ifndef HL_AUDIT_PRIVATE_H
-#define HL_AUDIT_PRIVATE_H
+#ifndef HL_AUDIT_INT_H
+#define HL_AUDIT_INT_H
 
 #include "audit.h"
 #include "curves.h"

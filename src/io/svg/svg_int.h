@@ -1,7 +1,7 @@
-/* svg_private.h - the chart model shared by svg.c (building) and
+/* svg_int.h - the chart model shared by svg.c (building) and
  * svg_draw.c (layout and drawing). Not part of the contract. */
-#ifndef HL_SVG_PRIVATE_H
-#define HL_SVG_PRIVATE_H
+#ifndef HL_SVG_INT_H
+#define HL_SVG_INT_H
 
 #include "svg.h"
 

@@ -1,7 +1,8 @@
-/* network_xml.h - reading a network back from its XML (doc/results.md).
+/* network_read.h - reading a network back from its XML (doc/results.md).
  *
- * The file is a results document (root <results>) holding one <network>,
- * or a bare <network>. Every attribute is checked for its type (xml_attr.h)
+ * The file is a results document (root <results>) holding one <network>
+ * (or a <retrofit>, whose first proposal's network is read), or a bare
+ * <network>. Every attribute is checked for its type (xml_attr.h)
  * and every exchanger's hot and cold name must be a stream or utility of
  * the network; whether the numbers agree is the check's business
  * (netcheck.h), not the reader's. A DOCTYPE is refused (entities could
@@ -11,8 +12,8 @@
  * unknown or malformed attribute, an unknown name), HL_EIO (cannot read,
  * out of memory).
  */
-#ifndef HL_NETWORK_XML_H
-#define HL_NETWORK_XML_H
+#ifndef HL_NETWORK_READ_H
+#define HL_NETWORK_READ_H
 
 #include <stddef.h>
 

@@ -1,4 +1,4 @@
-/* network_xml.c - a network read back from XML (network_xml.h). */
+/* network_read.c - a network read back from XML (network_read.h). */
 #include <errno.h>
 #include <math.h>
 #include <stdio.h>
@@ -8,7 +8,7 @@
 #include <libxml/parser.h>
 #include <libxml/xmlerror.h>
 
-#include "network_xml.h"
+#include "network_read.h"
 #include "xml_attr.h"
 
 /* The size a network file may have. */
@@ -19,7 +19,7 @@
 static const hl_xattr network_attr[] = {
 	{ "dtmin", HL_XATTR_AMOUNT, 1, "K", NULL },
 	{ "emat", HL_XATTR_AMOUNT, 1, "K", NULL },
-	{ "exchanger", HL_XATTR_CHOICE, 1, NULL, "shell-and-tube|counterflow" },
+	{ "exchanger", HL_XATTR_CHOICE, 1, NULL, HL_EXCH_TYPE_CHOICES },
 	{ "fmin", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "xp", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "h-default", HL_XATTR_AMOUNT, 1, "kW/(m²·K)", NULL },
@@ -36,6 +36,7 @@ static const hl_xattr network_attr[] = {
 	{ "cold-utility", HL_XATTR_AMOUNT, 1, "kW", NULL },
 	{ "rule-penalty", HL_XATTR_AMOUNT, 1, "kW", NULL },
 	{ "energy-penalty", HL_XATTR_NUMBER, 1, "kW", NULL },
+	{ "range-rise", HL_XATTR_AMOUNT, 0, "kW", NULL },
 	{ "matches", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "units", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "splits", HL_XATTR_AMOUNT, 1, NULL, NULL },
@@ -43,8 +44,8 @@ static const hl_xattr network_attr[] = {
 	{ "capital-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
 	{ "crf", HL_XATTR_AMOUNT, 1, "1/year", NULL },
 	{ "annual-capital-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
-	{ "energy-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
-	{ "total-cost", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "energy-cost", HL_XATTR_NUMBER, 1, NULL, NULL },
+	{ "total-cost", HL_XATTR_NUMBER, 1, NULL, NULL },
 };
 
 static const hl_xattr stream_attr[] = {
@@ -70,18 +71,22 @@ static const hl_xattr utility_attr[] = {
 	{ "supply", HL_XATTR_NUMBER, 1, "°C", NULL },
 	{ "target", HL_XATTR_NUMBER, 1, "°C", NULL },
 	{ "load", HL_XATTR_AMOUNT, 1, "kW", NULL },
-	{ "price", HL_XATTR_AMOUNT, 0, "per MWh", NULL },
+	{ "price", HL_XATTR_NUMBER, 0, "per MWh", NULL },
 	{ "h", HL_XATTR_AMOUNT, 0, "kW/(m²·K)", NULL },
 	{ "max-load", HL_XATTR_AMOUNT, 0, "kW", NULL },
 	{ "dt-contrib", HL_XATTR_AMOUNT, 0, "K", NULL },
 	{ "implicit", HL_XATTR_CHOICE, 0, NULL, "yes|no" },
+	{ "type", HL_XATTR_CHOICE, 0, NULL, HL_EXCH_TYPE_CHOICES },
+	{ "cost-a", HL_XATTR_AMOUNT, 0, NULL, NULL },
+	{ "cost-b", HL_XATTR_AMOUNT, 0, NULL, NULL },
+	{ "cost-c", HL_XATTR_AMOUNT, 0, NULL, NULL },
 };
 
 static const hl_xattr unit_attr[] = {
 	{ "id", HL_XATTR_LABEL, 1, NULL, NULL },
 	{ "hot", HL_XATTR_LABEL, 1, NULL, NULL },
 	{ "cold", HL_XATTR_LABEL, 1, NULL, NULL },
-	{ "type", HL_XATTR_CHOICE, 1, NULL, "shell-and-tube|counterflow" },
+	{ "type", HL_XATTR_CHOICE, 1, NULL, HL_EXCH_TYPE_CHOICES },
 	{ "duty", HL_XATTR_NUMBER, 1, "kW", NULL },
 	{ "hot-in", HL_XATTR_NUMBER, 1, "°C", NULL },
 	{ "hot-out", HL_XATTR_NUMBER, 1, "°C", NULL },
@@ -93,6 +98,7 @@ static const hl_xattr unit_attr[] = {
 	{ "lmtd", HL_XATTR_NUMBER, 1, "K", NULL },
 	{ "ft", HL_XATTR_NUMBER, 1, NULL, NULL },
 	{ "shells", HL_XATTR_COUNT, 1, NULL, NULL },
+	{ "parallel", HL_XATTR_COUNT, 0, NULL, NULL },
 	{ "area", HL_XATTR_NUMBER, 1, "m²", NULL },
 	{ "area-shell", HL_XATTR_NUMBER, 1, "m²", NULL },
 	{ "cost", HL_XATTR_NUMBER, 1, NULL, NULL },
@@ -103,6 +109,22 @@ static const hl_xattr unit_attr[] = {
 	{ "match", HL_XATTR_COUNT, 0, NULL, NULL },
 	{ "assumed", HL_XATTR_TEXT, 0, NULL, NULL },
 	{ "note", HL_XATTR_TEXT, 0, NULL, NULL },
+	{ "reuses", HL_XATTR_TEXT, 0, NULL, NULL },
+	{ "area-today", HL_XATTR_AMOUNT, 0, "m²", NULL },
+	{ "area-added", HL_XATTR_AMOUNT, 0, "m²", NULL },
+	{ "shells-added", HL_XATTR_AMOUNT, 0, NULL, NULL },
+	{ "warning", HL_XATTR_TEXT, 0, NULL, NULL },
+};
+
+static const hl_xattr law_attr[] = {
+	{ "type", HL_XATTR_CHOICE, 1, NULL, HL_EXCH_TYPE_CHOICES },
+	{ "a", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "b", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "c", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "x", HL_XATTR_CHOICE, 1, NULL, "area|duty" },
+	{ "largest", HL_XATTR_AMOUNT, 0, NULL, NULL },
+	{ "smallest", HL_XATTR_AMOUNT, 1, NULL, NULL },
+	{ "source", HL_XATTR_CHOICE, 1, NULL, "case|illustrative" },
 };
 
 static int
@@ -131,8 +153,9 @@ read_settings(hl_network *net, xmlNodePtr n, const char *file,
 		return st;
 	s->dtmin = num(n, "dtmin");
 	s->emat = num(n, "emat");
-	s->exchanger = strcmp(hl_xattr_text(n, "exchanger"),
-	    "counterflow") == 0 ? HL_EXCH_COUNTERFLOW : HL_EXCH_SHELL_TUBE;
+	s->exchanger = (hl_exchanger_type)hl_exchanger_type_parse(
+	    hl_xattr_text(n, "exchanger"));
+	hl_settings_default_laws(s);
 	s->fmin = num(n, "fmin");
 	s->xp = num(n, "xp");
 	s->h_default = num(n, "h-default");
@@ -153,6 +176,9 @@ read_settings(hl_network *net, xmlNodePtr n, const char *file,
 	net->qc = num(n, "cold-utility");
 	net->restriction = num(n, "rule-penalty");
 	net->penalty = num(n, "energy-penalty");
+	net->range_rise = num(n, "range-rise");
+	if (isnan(net->range_rise))
+		net->range_rise = 0.0;
 	net->nmatch = (size_t)num(n, "matches");
 	net->nsplit = (size_t)num(n, "splits");
 	net->area = num(n, "area");
@@ -209,6 +235,7 @@ read_stream(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 	hl_status st = hl_xattr_check(n, stream_attr, N(stream_attr), file,
 	    err);
 
+	memset(seg, 0, sizeof seg);   /* latent and spread: 0, sensible */
 	if (st != HL_OK)
 		return st;
 	memset(&p, 0, sizeof p);
@@ -286,6 +313,15 @@ read_utility(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 	p.h = num(n, "h");
 	p.max_load = num(n, "max-load");
 	p.dt_contrib = num(n, "dt-contrib");
+	p.type = hl_exchanger_type_parse(hl_xattr_text(n, "type"));
+	p.type_given = p.type >= 0;
+	if (!p.type_given)
+		p.type = HL_EXCH_SHELL_TUBE;
+	p.cost_a = num(n, "cost-a");
+	p.cost_b = num(n, "cost-b");
+	p.cost_c = num(n, "cost-c");
+	p.cost_given = !isnan(p.cost_a) && !isnan(p.cost_b) &&
+	    !isnan(p.cost_c);
 	p.line = hl_xattr_line(n);
 	if (p.kind == HL_HOT ? p.target > p.supply : p.target < p.supply)
 		return hl_error_set(err, HL_EINPUT, file, p.line, "utility "
@@ -304,6 +340,38 @@ find_party(const hl_network *net, const char *name)
 		if (strcmp(net->party[i].name, name) == 0)
 			return (long)i;
 	return -1;
+}
+
+/* A retrofit unit (rfit.h): held hardware with today's and added area. */
+static hl_status
+read_held(hl_network_unit *u, xmlNodePtr n, const char *file, hl_error *err)
+{
+	const char *tag = hl_xattr_text(n, "reuses");
+	double today = num(n, "area-today"), added = num(n, "area-added");
+	double sa = num(n, "shells-added");
+
+	if (tag == NULL && isnan(today) && isnan(added) && isnan(sa))
+		return HL_OK;
+	if (isnan(added) || (tag != NULL && isnan(today)) ||
+	    (tag == NULL && !isnan(today)))
+		return hl_error_set(err, HL_EINPUT, file, hl_xattr_line(n),
+		    "exchanger %s: a retrofit unit gives area-added, and "
+		    "reuses with area-today (or neither for a new unit)",
+		    u->id);
+	if (tag != NULL && strlen(tag) >= sizeof u->reuses)
+		return hl_error_set(err, HL_EINPUT, file, hl_xattr_line(n),
+		    "exchanger %s: reuses '%.40s…' is longer than %zu bytes",
+		    u->id, tag, sizeof u->reuses - 1);
+	if (!isnan(sa) && sa != floor(sa))
+		return hl_error_set(err, HL_EINPUT, file, hl_xattr_line(n),
+		    "exchanger %s: shells-added %.6g must be a whole number",
+		    u->id, sa);
+	u->held = 1;
+	snprintf(u->reuses, sizeof u->reuses, "%s", tag != NULL ? tag : "");
+	u->area_today = isnan(today) ? 0.0 : today;
+	u->area_added = added;
+	u->shells_added = isnan(sa) ? 0 : (int)sa;
+	return HL_OK;
 }
 
 static hl_status
@@ -332,8 +400,9 @@ read_unit(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 		    hl_xattr_text(n, "hot") : hl_xattr_text(n, "cold"));
 	u.hot = (size_t)h;
 	u.cold = (size_t)c;
-	u.type = strcmp(hl_xattr_text(n, "type"), "counterflow") == 0 ?
-	    HL_EXCH_COUNTERFLOW : HL_EXCH_SHELL_TUBE;
+	u.type = (hl_exchanger_type)hl_exchanger_type_parse(
+	    hl_xattr_text(n, "type"));
+	u.parallel = isnan(num(n, "parallel")) ? 1 : (int)num(n, "parallel");
 	u.duty = num(n, "duty");
 	u.hot_in = num(n, "hot-in");
 	u.hot_out = num(n, "hot-out");
@@ -360,6 +429,9 @@ read_unit(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 		u.assumed |= strstr(as, "h-hot") ? HL_NETWORK_H_HOT : 0;
 		u.assumed |= strstr(as, "h-cold") ? HL_NETWORK_H_COLD : 0;
 	}
+	st = read_held(&u, n, file, err);
+	if (st != HL_OK)
+		return st;
 	note = hl_xattr_text(n, "note");
 	u.note = (char *)note;
 	u.line = hl_xattr_line(n);
@@ -368,6 +440,30 @@ read_unit(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 	if (!net->party[c].utility && u.cold_stage == 0)
 		u.cold_stage = -1;
 	return hl_network_add_unit(net, &u, err);
+}
+
+/* The law of one type, as the design used it. */
+static hl_status
+read_law(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
+{
+	hl_exchanger_law *l;
+	hl_status st = hl_xattr_check(n, law_attr, N(law_attr), file, err);
+
+	if (st != HL_OK)
+		return st;
+	l = &net->set.law[hl_exchanger_type_parse(hl_xattr_text(n, "type"))];
+	l->a = num(n, "a");
+	l->b = num(n, "b");
+	l->c = num(n, "c");
+	l->largest = isnan(num(n, "largest")) ? HUGE_VAL : num(n, "largest");
+	l->smallest = num(n, "smallest");
+	l->given = strcmp(hl_xattr_text(n, "source"), "case") == 0 ?
+	    HL_LAW_COST | HL_LAW_LARGEST | HL_LAW_SMALLEST : 0;
+	if (!(l->c > 0.0 && l->largest > l->smallest))
+		return hl_error_set(err, HL_EINPUT, file, hl_xattr_line(n),
+		    "<law type=\"%s\">: c must be > 0 and largest above "
+		    "smallest", hl_xattr_text(n, "type"));
+	return HL_OK;
 }
 
 static hl_status
@@ -385,6 +481,8 @@ read_network(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 			st = read_utility(net, c, file, err);
 		else if (is(c, "exchanger"))
 			st = read_unit(net, c, file, err);
+		else if (is(c, "law"))
+			st = read_law(net, c, file, err);
 		else if (is(c, "note")) {
 			xmlChar *t = xmlNodeGetContent(c);
 
@@ -393,7 +491,7 @@ read_network(hl_network *net, xmlNodePtr n, const char *file, hl_error *err)
 			xmlFree(t);
 		} else
 			st = hl_error_set(err, HL_EINPUT, file,
-			    hl_xattr_line(c), "<network> holds <stream>, "
+			    hl_xattr_line(c), "<network> holds <law>, <stream>, "
 			    "<utility>, <exchanger> and <note>, not <%s>",
 			    (const char *)c->name);
 	}
@@ -438,6 +536,19 @@ has_doctype(const char *data, size_t len)
 }
 
 static xmlNodePtr
+child(xmlNodePtr r, const char *name)
+{
+	xmlNodePtr c;
+
+	for (c = r != NULL ? r->children : NULL; c != NULL; c = c->next)
+		if (is(c, name))
+			return c;
+	return NULL;
+}
+
+/* <network>, <results><network>, or the best proposal's network of
+ * <results><retrofit><proposal>. */
+static xmlNodePtr
 network_node(xmlDocPtr doc)
 {
 	xmlNodePtr r = xmlDocGetRootElement(doc), c;
@@ -448,10 +559,9 @@ network_node(xmlDocPtr doc)
 		return r;
 	if (!is(r, "results"))
 		return NULL;
-	for (c = r->children; c != NULL; c = c->next)
-		if (is(c, "network"))
-			return c;
-	return NULL;
+	if ((c = child(r, "network")) != NULL)
+		return c;
+	return child(child(child(r, "retrofit"), "proposal"), "network");
 }
 
 hl_status

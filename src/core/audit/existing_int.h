@@ -1,7 +1,7 @@
-/* existing_private.h - shared by existing.c, existing_walk.c and
+/* existing_int.h - shared by existing.c, existing_walk.c and
  * existing_size.c; not part of the library's contract. */
-#ifndef HL_EXISTING_PRIVATE_H
-#define HL_EXISTING_PRIVATE_H
+#ifndef HL_EXISTING_INT_H
+#define HL_EXISTING_INT_H
 
 #include "existing.h"
 

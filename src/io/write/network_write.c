@@ -1,64 +1,25 @@
-/* network_out.c - writers of a designed network (network_out.h). */
+/* network_write.c - writers of a designed network (network_write.h). */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
-#include "network_out.h"
+#include "display.h"
+#include "network_write.h"
+#include "text_out.h"
+#include "utf8.h"
 #include "profile.h"
 #include "result_xml.h"
 
-const char *
-hl_network_type_name(hl_exchanger_type t)
+/* Short tag of a type after the shell count in the text table. */
+static const char *
+type_tag(hl_exchanger_type t)
 {
-	return t == HL_EXCH_COUNTERFLOW ? "counterflow" : "shell-and-tube";
-}
+	static const char *const tag[HL_EXCH_NTYPES] = {
+		"", " CF", " PL", " DP", " AC", " FH"
+	};
 
-/* Characters (not bytes) of a UTF-8 string. */
-static size_t
-width(const char *s)
-{
-	size_t n = 0;
-
-	for (; *s != '\0'; s++)
-		n += ((unsigned char)*s & 0xC0) != 0x80;
-	return n;
-}
-
-/* s broken at spaces into lines of at most `cols` characters, the first
- * led by `first`, the others by `next`. */
-static void
-wrapped(FILE *fp, const char *s, const char *first, const char *next,
-	size_t cols)
-{
-	const char *lead = first;
-	size_t col = 0, n;
-	char word[512];
-
-	/* Line breaks in the text are blanks like any other. */
-	for (;;) {
-		s += strspn(s, " \n");
-		if (*s == '\0')
-			break;
-		n = strcspn(s, " \n");
-		snprintf(word, sizeof word, "%.*s", (int)n, s);
-		if (col > 0 && col + 1 + width(word) > cols) {
-			fputc('\n', fp);
-			col = 0;
-			lead = next;
-		}
-		if (col == 0) {
-			fputs(lead, fp);
-			col = width(lead);
-		} else {
-			fputc(' ', fp);
-			col++;
-		}
-		fputs(word, fp);
-		col += width(word);
-		s += n;
-	}
-	fputc('\n', fp);
+	return (int)t >= 0 && t < HL_EXCH_NTYPES ? tag[t] : "";
 }
 
 #define NCOL 16
@@ -72,25 +33,49 @@ static const char *const head[2][NCOL] = {
 	  "kW/(m²K)", "K", "", "", "m²", "" }
 };
 
+/* The quantity of each column, for display units other than SI. */
+static const hl_qty head_qty[NCOL] = {
+	HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_POWER, HL_QTY_TEMP,
+	HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_NONE, HL_QTY_NONE,
+	HL_QTY_HTC, HL_QTY_DTEMP, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_AREA,
+	HL_QTY_NONE
+};
+
+static const char *
+head_text(size_t k, size_t j)
+{
+	if (k == 0 || hl_display_get() == HL_UNITS_SI ||
+	    head_qty[j] == HL_QTY_NONE)
+		return head[k][j];
+	return hl_show_unit(head_qty[j]);
+}
+
 static void
 cells(const hl_network *net, const hl_network_unit *u, char c[NCOL][CELL])
 {
 	snprintf(c[0], CELL, "%s", u->id);
 	snprintf(c[1], CELL, "%s", net->party[u->hot].name);
 	snprintf(c[2], CELL, "%s", net->party[u->cold].name);
-	snprintf(c[3], CELL, "%.1f", u->duty);
-	snprintf(c[4], CELL, "%.1f", u->hot_in);
-	snprintf(c[5], CELL, "%.1f", u->hot_out);
-	snprintf(c[6], CELL, "%.1f", u->cold_in);
-	snprintf(c[7], CELL, "%.1f", u->cold_out);
+	snprintf(c[3], CELL, "%.*f", HL_DIG_Q(1), hl_show_q(u->duty));
+	snprintf(c[4], CELL, "%.1f", hl_show_t(u->hot_in));
+	snprintf(c[5], CELL, "%.1f", hl_show_t(u->hot_out));
+	snprintf(c[6], CELL, "%.1f", hl_show_t(u->cold_in));
+	snprintf(c[7], CELL, "%.1f", hl_show_t(u->cold_out));
 	snprintf(c[8], CELL, "%.3f", u->hot_share);
 	snprintf(c[9], CELL, "%.3f", u->cold_share);
-	snprintf(c[10], CELL, "%.3f%s", u->u, u->assumed ? "*" : "");
-	snprintf(c[11], CELL, "%.2f", u->lmtd);
+	snprintf(c[10], CELL, "%.*f%s", HL_DIG_H(3), hl_show_h(u->u),
+	    u->assumed ? "*" : "");
+	snprintf(c[11], CELL, "%.2f", hl_show_dt(u->lmtd));
 	snprintf(c[12], CELL, "%.3f", u->ft);
-	snprintf(c[13], CELL, "%d%s", u->shells,
-	    u->type == HL_EXCH_COUNTERFLOW ? " CF" : "");
-	snprintf(c[14], CELL, "%.2f", u->area);
+	if (u->parallel > 1)
+		snprintf(c[13], CELL, "%d×%d%s", u->shells, u->parallel,
+		    type_tag(u->type));
+	else
+		snprintf(c[13], CELL, "%d%s", u->shells, type_tag(u->type));
+	if (u->type == HL_EXCH_FIRED_HEATER)
+		snprintf(c[14], CELL, "by duty");
+	else
+		snprintf(c[14], CELL, "%.2f", hl_show_a(u->area));
 	snprintf(c[15], CELL, "%.0f", u->cost);
 }
 
@@ -103,7 +88,7 @@ row(FILE *fp, char c[NCOL][CELL], const size_t *w)
 	size_t i, n = 0, end;
 
 	for (i = 0; i < NCOL; i++) {
-		size_t pad = w[i] - width(c[i]), k;
+		size_t pad = w[i] - hl_utf8_chars(c[i]), k;
 		int left = i < 3;
 
 		if (i > 0)
@@ -127,21 +112,24 @@ text_table(FILE *fp, const hl_network *net)
 	char c[NCOL][CELL];
 	size_t w[NCOL], i, k;
 
-	for (k = 0; k < NCOL; k++)
-		w[k] = width(head[0][k]) > width(head[1][k]) ?
-		    width(head[0][k]) : width(head[1][k]);
+	for (k = 0; k < NCOL; k++) {
+		size_t top = hl_utf8_chars(head[0][k]);
+		size_t unit = hl_utf8_chars(head_text(1, k));
+
+		w[k] = top > unit ? top : unit;
+	}
 	for (i = 0; i < net->nunit; i++) {
 		cells(net, &net->unit[i], c);
 		for (k = 0; k < NCOL; k++)
-			if (width(c[k]) > w[k])
-				w[k] = width(c[k]);
+			if (hl_utf8_chars(c[k]) > w[k])
+				w[k] = hl_utf8_chars(c[k]);
 	}
 	for (k = 0; k < 2; k++) {
 		char h[NCOL][CELL];
 		size_t j;
 
 		for (j = 0; j < NCOL; j++)
-			snprintf(h[j], CELL, "%s", head[k][j]);
+			snprintf(h[j], CELL, "%s", head_text(k, j));
 		row(fp, h, w);
 	}
 	for (i = 0; i < net->nunit; i++) {
@@ -168,7 +156,7 @@ text_chain(FILE *fp, const hl_network *net, size_t p)
 		if (g > last)
 			last = g;
 	}
-	n = (size_t)snprintf(buf, sizeof buf, "%.1f", s->supply);
+	n = (size_t)snprintf(buf, sizeof buf, "%.1f", hl_show_t(s->supply));
 	for (stage = 1; stage <= last && n < sizeof buf; stage++) {
 		size_t count = 0;
 		double out = s->supply;
@@ -200,12 +188,13 @@ text_chain(FILE *fp, const hl_network *net, size_t p)
 			out = hot ? u->hot_out : u->cold_out;
 			count++;
 		}
-		if (count > 1)
-			n += (size_t)snprintf(buf + n, sizeof buf - n, "]");
 		/* After a split the branches mix: show the mixed outlet. */
 		if (count > 1) {
 			double q = 0.0;
 
+			if (n < sizeof buf)
+				n += (size_t)snprintf(buf + n, sizeof buf - n,
+				    "]");
 			for (i = 0; i < net->nunit; i++) {
 				const hl_network_unit *u = &net->unit[i];
 
@@ -218,11 +207,11 @@ text_chain(FILE *fp, const hl_network *net, size_t p)
 		}
 		if (n < sizeof buf && !isnan(out))
 			n += (size_t)snprintf(buf + n, sizeof buf - n,
-			    " → %.1f", out);
+			    " → %.1f", hl_show_t(out));
 	}
 	fprintf(fp, "  %s (%s): ", s->name, s->kind == HL_HOT ? "hot" :
 	    "cold");
-	wrapped(fp, buf, "", "      ", 72);
+	hl_text_wrap(fp, buf, "", "      ", 72);
 }
 
 static void
@@ -234,26 +223,42 @@ text_summary(FILE *fp, const hl_network *net)
 
 	fprintf(fp, "Heat exchanger network: %s\n\n", net->source != NULL ?
 	    net->source : "");
-	fprintf(fp, "ΔTmin %.1f K, EMAT %.1f K; ", set->dtmin, emat);
+	fprintf(fp, "ΔTmin %.1f %s, EMAT %.1f %s; ", hl_show_dt(set->dtmin),
+	    HL_SYM_DT, hl_show_dt(emat), HL_SYM_DT);
 	if (set->exchanger == HL_EXCH_SHELL_TUBE)
 		fprintf(fp, "shell-and-tube units, F floor %.2f, Xp %.2f\n",
 		    set->fmin, set->xp);
 	else
-		fprintf(fp, "counterflow units (F = 1)\n");
-	fprintf(fp, "Hot utility        %10.1f kW (target %.1f kW)\n", net->qh,
-	    net->qh_target);
-	fprintf(fp, "Cold utility       %10.1f kW (target %.1f kW)\n", net->qc,
-	    net->qc_target);
+		fprintf(fp, "%s units%s\n", hl_exchanger_type_name(
+		    set->exchanger), set->exchanger == HL_EXCH_AIR_COOLER ?
+		    "" : " (F = 1)");
+	fprintf(fp, "Hot utility        %10.*f %s (target %.*f %s)\n",
+	    HL_DIG_Q(1), hl_show_q(net->qh), HL_SYM_Q, HL_DIG_Q(1),
+	    hl_show_q(net->qh_target), HL_SYM_Q);
+	fprintf(fp, "Cold utility       %10.*f %s (target %.*f %s)\n",
+	    HL_DIG_Q(1), hl_show_q(net->qc), HL_SYM_Q, HL_DIG_Q(1),
+	    hl_show_q(net->qc_target), HL_SYM_Q);
+	if (net->range_rise > 0.0 && hl_network_has_credit(net))
+		fprintf(fp, "Utility choice adds %9.*f %s to each (hot utility "
+		    "bought frees process heat for a credit, or a utility's "
+		    "range crosses the pinch)\n", HL_DIG_Q(1),
+		    hl_show_q(net->range_rise), HL_SYM_Q);
+	else if (net->range_rise > 0.0)
+		fprintf(fp, "Utility ranges add %10.*f %s to each (a hot "
+		    "utility's range ends below the pinch)\n", HL_DIG_Q(1),
+		    hl_show_q(net->range_rise), HL_SYM_Q);
 	if (net->restriction > 0.0)
-		fprintf(fp, "Match rules add    %10.1f kW to each\n",
-		    net->restriction);
+		fprintf(fp, "Match rules add    %10.*f %s to each\n",
+		    HL_DIG_Q(1), hl_show_q(net->restriction), HL_SYM_Q);
 	if (net->penalty > 0.0)
-		fprintf(fp, "Placement adds     %10.1f kW to each (see the "
-		    "notes)\n", net->penalty);
+		fprintf(fp, "Placement adds     %10.*f %s to each (see the "
+		    "notes)\n", HL_DIG_Q(1), hl_show_q(net->penalty),
+		    HL_SYM_Q);
 	fprintf(fp, "Units              %10zu for %zu matches, %zu stream "
 	    "split%s\n", net->nunit, net->nmatch, net->nsplit,
 	    net->nsplit == 1 ? "" : "s");
-	fprintf(fp, "Area               %10.1f m²\n", net->area);
+	fprintf(fp, "Area               %10.1f %s\n", hl_show_a(net->area),
+	    HL_SYM_A);
 	fprintf(fp, "Capital            %10.0f %s (annualised %.0f %s/year, "
 	    "CRF %.4f: %.3g %% over %.3g years)\n", net->capital, cur,
 	    net->capital_annual, cur, net->crf, 100.0 * set->interest,
@@ -277,16 +282,55 @@ text_notes(FILE *fp, const hl_network *net)
 		return;
 	fprintf(fp, "\nNotes\n");
 	for (i = 0; i < net->nnote; i++)
-		wrapped(fp, net->note[i], "  ", "      ", 78);
+		hl_text_wrap(fp, net->note[i], "  ", "      ", 78);
 	for (i = 0; i < net->nunit; i++)
 		if (net->unit[i].note != NULL) {
 			snprintf(buf, sizeof buf, "%s: %s", net->unit[i].id,
 			    net->unit[i].note);
-			wrapped(fp, buf, "  ", "      ", 78);
+			hl_text_wrap(fp, buf, "  ", "      ", 78);
 		}
 }
 
 /* Which parties lent h_default to the U of some unit. */
+/* The cost law of every type the network uses. */
+static void
+text_laws(FILE *fp, const hl_network *net)
+{
+	char buf[400];
+	int t;
+	size_t i;
+
+	for (i = 0; i < net->nunit; i++)
+		if (net->unit[i].warn != 0) {
+			char why[300];
+
+			hl_network_unit_warning(net, &net->unit[i], why,
+			    sizeof why);
+			snprintf(buf, sizeof buf, "Warning: %s: %s",
+			    net->unit[i].id, why);
+			hl_text_wrap(fp, buf, "", "  ", 78);
+		}
+	fprintf(fp, "Cost laws:\n");
+	for (t = 0; t < HL_EXCH_NTYPES; t++) {
+		for (i = 0; i < net->nunit; i++)
+			if ((int)net->unit[i].type == t)
+				break;
+		if (i == net->nunit)
+			continue;
+		hl_exchanger_law_text(&net->set, (hl_exchanger_type)t, buf,
+		    sizeof buf);
+		hl_text_wrap(fp, buf, "  ", "    ", 78);
+	}
+	for (i = 0; i < net->nparty; i++)
+		if (net->party[i].utility && net->party[i].cost_given) {
+			snprintf(buf, sizeof buf, "units on %s: %.6g + "
+			    "%.6g·X^%.3g each (set by the case)",
+			    net->party[i].name, net->party[i].cost_a,
+			    net->party[i].cost_b, net->party[i].cost_c);
+			hl_text_wrap(fp, buf, "  ", "    ", 78);
+		}
+}
+
 static void
 text_assumed(FILE *fp, const hl_network *net)
 {
@@ -311,21 +355,24 @@ text_assumed(FILE *fp, const hl_network *net)
 	if (n > 0) {
 		char line[1200];
 
-		snprintf(line, sizeof line, "* U assumes h = %.3g kW/(m²K) "
+		snprintf(line, sizeof line, "* U assumes h = %.3g %s "
 		    "(the setting h_default) for: %s. Give each stream its "
 		    "h (film coefficient with fouling) for a better "
-		    "estimate.", net->set.h_default, buf);
-		wrapped(fp, line, "", "  ", 78);
+		    "estimate.", hl_show_h(net->set.h_default),
+		    hl_display_get() == HL_UNITS_SI ? "kW/(m²K)" : HL_SYM_H,
+		    buf);
+		hl_text_wrap(fp, line, "", "  ", 78);
 	}
-	snprintf(buf, sizeof buf, "Cost per shell %.6g + %.6g·A^%.3g (A in "
-	    "m², the setting cost a, b, c; the built-in law is illustrative, "
-	    "not a price). Shells: the fewest in series with F at or above "
-	    "the floor and each shell's P within Xp of its maximum (Ahmad, "
-	    "Linnhoff & Smith 1988); CF: pure counterflow. Shares: the "
-	    "fraction of a stream's flow through the unit (1 unless the "
-	    "stream is split).", net->set.cost_a, net->set.cost_b,
-	    net->set.cost_c);
-	wrapped(fp, buf, "", "", 78);
+	text_laws(fp, net);
+	snprintf(buf, sizeof buf, "Shells: in series the fewest with F at or "
+	    "above the floor and each shell's P within Xp of its maximum "
+	    "(Ahmad, Linnhoff & Smith 1988); s×p: s in series, p such trains "
+	    "in parallel where one shell would pass the largest. Tags: CF "
+	    "counterflow, PL plate, DP double pipe (hairpins), AC air cooler "
+	    "(crossflow sections), FH fired heater (sized by duty). Shares: "
+	    "the fraction of a stream's flow through the unit (1 unless the "
+	    "stream is split).");
+	hl_text_wrap(fp, buf, "", "", 78);
 }
 
 void
@@ -335,7 +382,8 @@ hl_network_text(FILE *fp, const hl_network *net, const char *caution)
 
 	text_summary(fp, net);
 	text_table(fp, net);
-	fprintf(fp, "\nStreams, stage by stage from the supply end (°C)\n");
+	fprintf(fp, "\nStreams, stage by stage from the supply end (%s)\n",
+	    HL_SYM_T);
 	for (i = 0; i < net->nparty; i++)
 		if (!net->party[i].utility)
 			text_chain(fp, net, i);
@@ -343,7 +391,7 @@ hl_network_text(FILE *fp, const hl_network *net, const char *caution)
 	text_assumed(fp, net);
 	if (caution != NULL) {
 		fputc('\n', fp);
-		wrapped(fp, caution, "", "", 78);
+		hl_text_wrap(fp, caution, "", "", 78);
 	}
 }
 
@@ -377,6 +425,14 @@ xml_party(xmlTextWriterPtr w, const hl_network_party *p)
 	rc |= xml_opt(w, "dt-contrib", p->dt_contrib);
 	if (p->utility && p->implicit)
 		rc |= hl_xml_str(w, "implicit", "yes");
+	if (p->utility && p->type_given)
+		rc |= hl_xml_str(w, "type",
+		    hl_exchanger_type_name((hl_exchanger_type)p->type));
+	if (p->utility && p->cost_given) {
+		rc |= hl_xml_num(w, "cost-a", p->cost_a);
+		rc |= hl_xml_num(w, "cost-b", p->cost_b);
+		rc |= hl_xml_num(w, "cost-c", p->cost_c);
+	}
 	for (k = 0; !p->utility && p->nseg > 1 && k < p->nseg; k++) {
 		rc |= xmlTextWriterStartElement(w, BAD_CAST "segment");
 		rc |= hl_xml_num(w, "supply", p->seg[k].supply);
@@ -398,7 +454,7 @@ xml_unit(xmlTextWriterPtr w, const hl_network *net, const hl_network_unit *u)
 	rc |= hl_xml_str(w, "id", u->id);
 	rc |= hl_xml_str(w, "hot", net->party[u->hot].name);
 	rc |= hl_xml_str(w, "cold", net->party[u->cold].name);
-	rc |= hl_xml_str(w, "type", hl_network_type_name(u->type));
+	rc |= hl_xml_str(w, "type", hl_exchanger_type_name(u->type));
 	rc |= hl_xml_num(w, "duty", u->duty);
 	rc |= hl_xml_num(w, "hot-in", u->hot_in);
 	rc |= hl_xml_num(w, "hot-out", u->hot_out);
@@ -410,9 +466,17 @@ xml_unit(xmlTextWriterPtr w, const hl_network *net, const hl_network_unit *u)
 	rc |= hl_xml_num(w, "lmtd", u->lmtd);
 	rc |= hl_xml_num(w, "ft", u->ft);
 	rc |= hl_xml_int(w, "shells", u->shells);
+	if (u->parallel > 1)
+		rc |= hl_xml_int(w, "parallel", u->parallel);
 	rc |= hl_xml_num(w, "area", u->area);
 	rc |= hl_xml_num(w, "area-shell", u->area_shell);
 	rc |= hl_xml_num(w, "cost", u->cost);
+	if (u->warn != 0) {
+		char why[400];
+
+		hl_network_unit_warning(net, u, why, sizeof why);
+		rc |= hl_xml_str(w, "warning", why);
+	}
 	if (u->hot_stage > 0)
 		rc |= hl_xml_int(w, "hot-stage", u->hot_stage);
 	if (u->cold_stage > 0)
@@ -427,6 +491,37 @@ xml_unit(xmlTextWriterPtr w, const hl_network *net, const hl_network_unit *u)
 		    u->assumed == HL_NETWORK_H_HOT ? "h-hot" : "h-cold");
 	if (u->note != NULL)
 		rc |= hl_xml_str(w, "note", u->note);
+	if (u->held) {
+		if (u->reuses[0] != '\0') {
+			rc |= hl_xml_str(w, "reuses", u->reuses);
+			rc |= hl_xml_num(w, "area-today", u->area_today);
+		}
+		rc |= hl_xml_num(w, "area-added", u->area_added);
+		rc |= hl_xml_int(w, "shells-added", u->shells_added);
+	}
+	rc |= xmlTextWriterEndElement(w);
+	return rc;
+}
+
+/* The law of type t as used (for `check` to price the units again). */
+static int
+xml_law(xmlTextWriterPtr w, const hl_settings *set, hl_exchanger_type t)
+{
+	double a, b, c;
+	int rc = 0;
+
+	hl_exchanger_law_of(set, t, &a, &b, &c);
+	rc |= xmlTextWriterStartElement(w, BAD_CAST "law");
+	rc |= hl_xml_str(w, "type", hl_exchanger_type_name(t));
+	rc |= hl_xml_num(w, "a", a);
+	rc |= hl_xml_num(w, "b", b);
+	rc |= hl_xml_num(w, "c", c);
+	rc |= hl_xml_str(w, "x", t == HL_EXCH_FIRED_HEATER ? "duty" : "area");
+	if (isfinite(set->law[t].largest))
+		rc |= hl_xml_num(w, "largest", set->law[t].largest);
+	rc |= hl_xml_num(w, "smallest", set->law[t].smallest);
+	rc |= hl_xml_str(w, "source", hl_exchanger_law_illustrative(set, t) ?
+	    "illustrative" : "case");
 	rc |= xmlTextWriterEndElement(w);
 	return rc;
 }
@@ -436,12 +531,12 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 {
 	const hl_settings *set = &net->set;
 	size_t i;
-	int rc = 0;
+	int rc = 0, t;
 
 	rc |= xmlTextWriterStartElement(w, BAD_CAST "network");
 	rc |= hl_xml_num(w, "dtmin", set->dtmin);
 	rc |= hl_xml_num(w, "emat", isnan(set->emat) ? set->dtmin : set->emat);
-	rc |= hl_xml_str(w, "exchanger", hl_network_type_name(set->exchanger));
+	rc |= hl_xml_str(w, "exchanger", hl_exchanger_type_name(set->exchanger));
 	rc |= hl_xml_num(w, "fmin", set->fmin);
 	rc |= hl_xml_num(w, "xp", set->xp);
 	rc |= hl_xml_num(w, "h-default", set->h_default);
@@ -459,6 +554,8 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 	rc |= hl_xml_num(w, "cold-utility", net->qc);
 	rc |= hl_xml_num(w, "rule-penalty", net->restriction);
 	rc |= hl_xml_num(w, "energy-penalty", net->penalty);
+	if (net->range_rise > 0.0)
+		rc |= hl_xml_num(w, "range-rise", net->range_rise);
 	rc |= hl_xml_int(w, "matches", (long)net->nmatch);
 	rc |= hl_xml_int(w, "units", (long)net->nunit);
 	rc |= hl_xml_int(w, "splits", (long)net->nsplit);
@@ -468,6 +565,8 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 	rc |= hl_xml_num(w, "annual-capital-cost", net->capital_annual);
 	rc |= hl_xml_num(w, "energy-cost", net->energy_cost);
 	rc |= hl_xml_num(w, "total-cost", net->total_cost);
+	for (t = 0; t < HL_EXCH_NTYPES && rc >= 0; t++)
+		rc |= xml_law(w, set, (hl_exchanger_type)t);
 	for (i = 0; i < net->nparty && rc >= 0; i++)
 		if (!net->party[i].utility)
 			rc |= xml_party(w, &net->party[i]);
@@ -483,76 +582,61 @@ hl_network_xml(xmlTextWriterPtr w, const hl_network *net)
 	return rc < 0 ? -1 : 0;
 }
 
-/* A CSV field, quoted when RFC 4180 needs it. */
-static void
-csv_text(FILE *fp, const char *s, int first)
-{
-	const char *p;
-
-	if (!first)
-		fputc(',', fp);
-	if (strpbrk(s, ",\"\r\n") == NULL && s[0] != ' ' && s[0] != '#') {
-		fputs(s, fp);
-		return;
-	}
-	fputc('"', fp);
-	for (p = s; *p != '\0'; p++) {
-		if (*p == '"')
-			fputc('"', fp);
-		fputc(*p, fp);
-	}
-	fputc('"', fp);
-}
-
-static void
-csv_num(FILE *fp, double v)
-{
-	char b[64];
-
-	fputc(',', fp);
-	if (!isfinite(v))
-		return;
-	hl_format_number(b, sizeof b, v);
-	fputs(b, fp);
-}
-
 void
 hl_network_csv(FILE *fp, const hl_network *net)
 {
+	static const char *const name[] = { "duty", "hot_in", "hot_out",
+		"cold_in", "cold_out", "hot_share", "cold_share", "hot_stage",
+		"cold_stage", "u", "lmtd", "f", "shells", "parallel", "area",
+		"area_shell", "cost", "approach", "required" };
+	static const hl_qty qty[] = { HL_QTY_POWER, HL_QTY_TEMP, HL_QTY_TEMP,
+		HL_QTY_TEMP, HL_QTY_TEMP, HL_QTY_NONE, HL_QTY_NONE,
+		HL_QTY_NONE, HL_QTY_NONE, HL_QTY_HTC, HL_QTY_DTEMP,
+		HL_QTY_NONE, HL_QTY_NONE, HL_QTY_NONE, HL_QTY_AREA,
+		HL_QTY_AREA, HL_QTY_NONE, HL_QTY_DTEMP, HL_QTY_DTEMP };
+	char h[64];
 	size_t i;
 
-	fputs("id,hot,cold,type,duty,hot_in,hot_out,cold_in,cold_out,"
-	    "hot_share,cold_share,hot_stage,cold_stage,u,lmtd,f,shells,area,"
-	    "area_shell,cost,approach,required,assumed,note\n", fp);
+	fputs("id,hot,cold,type,", fp);
+	for (i = 0; i < sizeof qty / sizeof qty[0]; i++)
+		fprintf(fp, "%s,", hl_show_header(h, sizeof h, name[i],
+						  qty[i]));
+	fputs("assumed,note\n", fp);
 	for (i = 0; i < net->nunit; i++) {
 		const hl_network_unit *u = &net->unit[i];
 
-		csv_text(fp, u->id, 1);
-		csv_text(fp, net->party[u->hot].name, 0);
-		csv_text(fp, net->party[u->cold].name, 0);
-		csv_text(fp, hl_network_type_name(u->type), 0);
-		csv_num(fp, u->duty);
-		csv_num(fp, u->hot_in);
-		csv_num(fp, u->hot_out);
-		csv_num(fp, u->cold_in);
-		csv_num(fp, u->cold_out);
-		csv_num(fp, u->hot_share);
-		csv_num(fp, u->cold_share);
-		csv_num(fp, u->hot_stage > 0 ? u->hot_stage : NAN);
-		csv_num(fp, u->cold_stage > 0 ? u->cold_stage : NAN);
-		csv_num(fp, u->u);
-		csv_num(fp, u->lmtd);
-		csv_num(fp, u->ft);
-		csv_num(fp, u->shells);
-		csv_num(fp, u->area);
-		csv_num(fp, u->area_shell);
-		csv_num(fp, u->cost);
-		csv_num(fp, u->approach);
-		csv_num(fp, u->required);
-		csv_text(fp, u->assumed == 0 ? "" : u->assumed ==
+		hl_csv_text(fp, u->id);
+		fputc(',', fp);
+		hl_csv_text(fp, net->party[u->hot].name);
+		fputc(',', fp);
+		hl_csv_text(fp, net->party[u->cold].name);
+		fputc(',', fp);
+		hl_csv_text(fp, hl_exchanger_type_name(u->type));
+		hl_csv_num(fp, hl_show_q(u->duty));
+		hl_csv_num(fp, hl_show_t(u->hot_in));
+		hl_csv_num(fp, hl_show_t(u->hot_out));
+		hl_csv_num(fp, hl_show_t(u->cold_in));
+		hl_csv_num(fp, hl_show_t(u->cold_out));
+		hl_csv_num(fp, u->hot_share);
+		hl_csv_num(fp, u->cold_share);
+		hl_csv_num(fp, u->hot_stage > 0 ? u->hot_stage : NAN);
+		hl_csv_num(fp, u->cold_stage > 0 ? u->cold_stage : NAN);
+		hl_csv_num(fp, hl_show_h(u->u));
+		hl_csv_num(fp, hl_show_dt(u->lmtd));
+		hl_csv_num(fp, u->ft);
+		hl_csv_num(fp, u->shells);
+		hl_csv_num(fp, u->parallel > 0 ? u->parallel : 1);
+		hl_csv_num(fp, hl_show_a(u->area));
+		hl_csv_num(fp, hl_show_a(u->area_shell));
+		hl_csv_num(fp, u->cost);
+		hl_csv_num(fp, hl_show_dt(u->approach));
+		hl_csv_num(fp, hl_show_dt(u->required));
+		fputc(',', fp);
+		hl_csv_text(fp, u->assumed == 0 ? "" : u->assumed ==
 		    (HL_NETWORK_H_HOT | HL_NETWORK_H_COLD) ? "h-hot h-cold" :
-		    u->assumed == HL_NETWORK_H_HOT ? "h-hot" : "h-cold", 0);
-		csv_text(fp, u->note != NULL ? u->note : "", 0);
+		    u->assumed == HL_NETWORK_H_HOT ? "h-hot" : "h-cold");
+		fputc(',', fp);
+		hl_csv_text(fp, u->note != NULL ? u->note : "");
 		fputc('\n', fp);
 	}
 }
