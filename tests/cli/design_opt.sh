@@ -96,6 +96,28 @@ sed 's|stream="reboiler"|stream="nosuch"|' "$WORK/lim.xml" >"$WORK/bad.xml"
 check_exit 2 hl design "$WORK/bad.xml"
 grep -q "bad.xml:[0-9]*: <no-split> names 'nosuch'" "$WORK/stderr" && pass || fail "no file:line for <no-split>"
 
+# Latent heat, a credit and a type rule at once (tests/data/good/latent.xml,
+# invented; latent-utilities.csv raises steam at a negative price): design
+# works on the latent-spread copy of the case, which must keep the type rule
+# (every unit of oil a plate unit) and <no-split>; the network is sound, its
+# energy cost counts the credit, and it costs no more than the fewest-units
+# network.
+sed 's|<settings dtmin="10"/>|<settings dtmin="10"><design><no-split stream="feed"/></design></settings>|; s|</streams>|</streams><matches><exchanger hot="oil" cold="*" type="plate"/></matches>|' \
+	"$DATA/good/latent.xml" >"$WORK/lat.xml"
+LU="$DATA/good/latent-utilities.csv"
+check_exit 0 hl design "$WORK/lat.xml" --utilities "$LU" $Q --format xml -o "$X"
+check_exit 0 hl check "$X"
+check_grep "sound, 0 problems" "$WORK/stdout"
+n=$(xpath "count(/results/network/exchanger[@hot='oil'])" "$X")
+m=$(xpath "count(/results/network/exchanger[@hot='oil'][@type='plate'])" "$X")
+[ "$n" -ge 1 ] && [ "$n" = "$m" ] && pass || fail "latent case: $m of $n oil units are plate"
+check_near "$(xpath "count(/results/network/exchanger[@cold='feed' and @cold-share < 1])" "$X")" 0 0 "<no-split> on a latent case"
+xpath "/results/network/exchanger[@cold='raise']" "$X" >/dev/null && pass || fail "no steam raised for the credit"
+t=$(xpath "string(/results/network/@total-cost)" "$X")
+check_exit 0 hl design "$WORK/lat.xml" --utilities "$LU" --method units --quiet --format xml -o "$WORK/u.xml"
+u=$(xpath "string(/results/network/@total-cost)" "$WORK/u.xml")
+awk -v t="$t" -v u="$u" 'BEGIN { a = u < 0 ? -u : u; exit !(t <= u + 1e-9 * a + 1e-6) }' && pass || fail "latent case: least cost $t above fewest units $u"
+
 # Bad options: usage errors, nothing written.
 check_exit 1 hl design "$CASES/demo.xml" --method fastest
 check_exit 1 hl design "$CASES/demo.xml" --keep E1
