@@ -65,6 +65,12 @@ above_targets(const hl_network *net, const hl_netcheck *r)
 	put_q("Utilities: ", qh);
 	put_q(" hot, ", qc);
 	printf(" cold");
+	if (over < -1e-6 * fmax(1.0, r->qh_min)) {
+		put_q(", ", -over);
+		printf(" hot and cold below the targets (approaches under "
+		    "ΔTmin, down to EMAT)\n");
+		return;
+	}
 	if (over <= 1e-6 * fmax(1.0, r->qh_min)) {
 		printf(", at the targets\n");
 		return;
@@ -80,7 +86,7 @@ above_targets(const hl_network *net, const hl_netcheck *r)
 	if (net->restriction > 0.0)
 		put_q("; match rules ", net->restriction);
 	if (net->penalty > 0.0)
-		put_q("; placement ", net->penalty);
+		put_q("; placement or least-cost choice ", net->penalty);
 	printf("\n");
 }
 
