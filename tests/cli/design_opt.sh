@@ -129,6 +129,12 @@ else
 	grep -q "below the targets" "$WORK/stdout" && fail "check: below the targets at a penalty >= 0" || pass
 fi
 
+# --units us: the least-cost section in Btu/h like the rest of the text.
+check_exit 0 hl design "$DATA/good/kemp4.csv" --utilities "$DATA/good/kemp4-utilities.csv" $Q --units us
+sed -n '/^Least-cost search/,$p' "$WORK/stdout" >"$WORK/lc.txt"
+check_grep "Btu/h (its heat to the utilities)" "$WORK/lc.txt"
+grep -q ' kW' "$WORK/lc.txt" && fail "kW in the least-cost section with --units us" || pass
+
 # Bad options: usage errors, nothing written.
 check_exit 1 hl design "$CASES/demo.xml" --method fastest
 check_exit 1 hl design "$CASES/demo.xml" --keep E1

@@ -360,10 +360,9 @@ dropped(const hl_opt_problem *P, const hl_opt_state *fin,
 			sum += fin->q[HL_OPT_CELL(P, k, a, b)];
 		if (sum > HL_OPT_QEPS)
 			continue;
-		if (add_change(r, HL_OPT_DROPPED, u->duty, NAN, "%s - %s: the "
-		    "start's unit "
-		    "of %.1f kW dropped", st->party[u->hot].name,
-		    st->party[u->cold].name, u->duty) != HL_OK)
+		if (add_change(r, HL_OPT_DROPPED, u->duty, NAN, "%s - %s",
+		    st->party[u->hot].name, st->party[u->cold].name) !=
+		    HL_OK)
 			return HL_EIO;
 	}
 	return HL_OK;
@@ -390,18 +389,12 @@ worth(const hl_opt_problem *P, const hl_opt_state *fin, hl_opt_result *r)
 		t.q[i] = 0.0;
 		t.keep[i] = 0;
 		hl_opt_eval_all(P, &t);
-		if (t.v > 1e-9)
-			st = add_change(r, HL_OPT_WORTH, q, HUGE_VAL, "%s - %s: "
-			    "the unit of "
-			    "%.1f kW cannot go (its streams could not reach "
-			    "their targets)", P->base->party[P->hot[a]].name,
-			    P->base->party[P->cold[b]].name, q);
-		else
-			st = add_change(r, HL_OPT_WORTH, q, t.tac - fin->tac,
-			    "%s - %s: "
-			    "without the unit of %.1f kW (its heat to the "
-			    "utilities)", P->base->party[P->hot[a]].name,
-			    P->base->party[P->cold[b]].name, q);
+		/* The text names the pair; the writers add the duty in
+		 * their units (display.h). */
+		st = add_change(r, HL_OPT_WORTH, q, t.v > 1e-9 ? HUGE_VAL :
+		    t.tac - fin->tac, "%s - %s",
+		    P->base->party[P->hot[a]].name,
+		    P->base->party[P->cold[b]].name);
 	}
 	hl_opt_state_free(&t);
 	return st;

@@ -117,7 +117,9 @@ hl_opt_text(FILE *fp, const hl_opt_result *r, const hl_opt_options *o)
 		const hl_opt_change *c = &r->change[i];
 
 		if (c->kind == HL_OPT_DROPPED)
-			fprintf(fp, "  dropped: %s\n", c->text);
+			fprintf(fp, "  dropped: %s: the start's unit of %.*f %s\n",
+			    c->text, HL_DIG_Q(1), hl_show_q(c->d_energy),
+			    HL_SYM_Q);
 		else if (c->kind == HL_OPT_SPLIT && isinf(c->d_tac))
 			fprintf(fp, "  split of %s: in series the loads miss "
 			    "EMAT or a limit\n", c->text);
@@ -128,10 +130,15 @@ hl_opt_text(FILE *fp, const hl_opt_result *r, const hl_opt_options *o)
 			    c->text, c->d_tac, cur, HL_DIG_Q(1),
 			    hl_show_q(c->d_energy), HL_SYM_Q);
 		else if (isinf(c->d_tac))
-			fprintf(fp, "  unit: %s\n", c->text);
+			fprintf(fp, "  unit: %s: the unit of %.*f %s cannot go "
+			    "(its streams could not reach their targets)\n",
+			    c->text, HL_DIG_Q(1), hl_show_q(c->d_energy),
+			    HL_SYM_Q);
 		else
-			fprintf(fp, "  unit: %s: %+.*f %s of hot utility, "
-			    "%+.0f %s/year\n", c->text, HL_DIG_Q(1),
+			fprintf(fp, "  unit: %s: without the unit of %.*f %s "
+			    "(its heat to the utilities): %+.*f %s of hot "
+			    "utility, %+.0f %s/year\n", c->text, HL_DIG_Q(1),
+			    hl_show_q(c->d_energy), HL_SYM_Q, HL_DIG_Q(1),
 			    hl_show_q(c->d_energy), HL_SYM_Q, c->d_tac, cur);
 	}
 }
