@@ -403,10 +403,16 @@ check_exit 0 hl retrofit "$CASES/demo.xml" --network "$CASES/demo-network.csv" \
 xml_tsv "$RX" /results/retrofit/proposal rank changes investment saving \
 	payback hot-utility >"$WORK/rx.tsv"
 html_tsv rfit >"$WORK/rfit.tsv"
+# Under valgrind the demo search outlasts its time limit, so the two runs
+# stop at different candidates: compare them only when neither was cut short.
+if grep -q 'timed-out="true"' "$RX" || grep -q 'stopped at its time limit' "$R"; then
+	echo "rfit: a search hit its time limit (valgrind?): ranks not compared"
+else
 compare rfit "$WORK/rx.tsv" "$WORK/rfit.tsv" '
 	want = x[1] "|" x[2] "|" sig(x[3], 3, 0) "|" sig(x[4], 3, 0) "|" sprintf("%.2f", x[5]) "|" sig(x[6], 3, 1)
 	got = $1 "|" $2 "|" $3 "|" $4 "|" $5 "|" $6
 	if (got != want) print "proposal " FNR ": " got ", want " want'
+fi
 # A bad network row stops the report as it stops the audit, nothing written.
 printf 'name,hot,cold,duty\nX-1,no such stream,reactor feed,100\n' >"$WORK/badnet.csv"
 check_exit 2 hl report "$CASES/demo.xml" --network "$WORK/badnet.csv" -o "$WORK/no.html"

@@ -127,6 +127,7 @@ typedef struct {
 	hl_rfit_proposal *p; /* ranked: largest saving first */
 	size_t evaluated;    /* candidates simulated */
 	size_t singles;      /* single modifications within the limits */
+	size_t refused;      /* candidates whose network failed the check */
 	int timed_out;       /* the time limit ended the search */
 } hl_rfit;
 

@@ -7,6 +7,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "netcheck.h"
 #include "netsim.h"
 #include "rfit_int.h"
 
@@ -526,19 +527,37 @@ to_proposal(const rf_ctx *x, rf_cand *c, hl_rfit_proposal *p)
 	return HL_OK;
 }
 
-/* Same saving and investment: one proposal. */
+/* A proposal already taken that saves at least as much for no more money
+ * leaves c nothing to offer: an engineer would never choose it. */
 static int
-same(const rf_cand *a, const rf_cand *b)
+dominated(const hl_rfit *r, const rf_cand *c)
 {
-	return fabs(a->saving - b->saving) <= 1e-9 * (1.0 + a->saving) &&
-	       fabs(a->investment - b->investment) <= 1e-9 *
-	       (1.0 + a->investment);
+	size_t k;
+
+	for (k = 0; k < r->nproposal; k++)
+		if (r->p[k].saving >= c->saving - 1e-9 * (1.0 + c->saving) &&
+		    r->p[k].investment <= c->investment + 1e-9 *
+		    (1.0 + c->investment))
+			return 1;
+	return 0;
+}
+
+/* The simulator can leave a stretch of a stream unserved (a unit taken out
+ * with no trim to replace it): such a candidate is no proposal. */
+static int
+sound(const hl_network *net)
+{
+	hl_netcheck *k = NULL;
+	int ok = hl_netcheck_run(net, &k, NULL) == HL_OK && k->n == 0;
+
+	hl_netcheck_free(k);
+	return ok;
 }
 
 static hl_status
 collect(const rf_ctx *x, rf_cand *pool, size_t n, hl_rfit *r)
 {
-	size_t i, k;
+	size_t i;
 	hl_status st = HL_OK;
 
 	qsort(pool, n, sizeof *pool, cmp_saving);
@@ -547,12 +566,12 @@ collect(const rf_ctx *x, rf_cand *pool, size_t n, hl_rfit *r)
 		return HL_EIO;
 	for (i = 0; i < n && r->nproposal < x->o->nproposal && st == HL_OK;
 	     i++) {
-		int dup = 0;
-
-		for (k = 0; k < i; k++)
-			dup |= pool[k].net == NULL && same(&pool[k], &pool[i]);
-		if (dup)
+		if (dominated(r, &pool[i]))
 			continue;
+		if (!sound(pool[i].net)) {
+			r->refused++;
+			continue;
+		}
 		st = to_proposal(x, &pool[i], &r->p[r->nproposal]);
 		if (st == HL_OK)
 			r->nproposal++;

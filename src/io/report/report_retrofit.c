@@ -135,6 +135,9 @@ write_rfit(hl_report *r)
 		      r->d->rfit_payback, 1), r->d->rfit_changes,
 		      rf->evaluated);
 	hl_html_end(r->h);
+	if (rf->timed_out)
+		hl_report_para(r, "The search stopped at its time limit: a "
+			       "longer --time-limit may find more.");
 	if (rf->nproposal == 0) {
 		hl_report_para(r, "No modification pays back within these "
 			       "limits.");

@@ -27,7 +27,8 @@ limits(FILE *fp, const hl_case *c, const hl_rfit_out *w)
 		fprintf(fp, ", ");
 	if (!isnan(o->budget))
 		fprintf(fp, "investment at most %.0f %s", o->budget, cur(c));
-	fprintf(fp, "; at most %d changes.\n", o->max_changes);
+	fprintf(fp, "; at most %d change%s.\n", o->max_changes,
+	    o->max_changes == 1 ? "" : "s");
 	fprintf(fp, "Fixed costs: a re-pipe %.0f %s (%s), a new unit %.0f %s "
 	    "on top of its shells (%s); area and shells by the law a + "
 	    "b·A^c per shell of each unit's type.\n", o->repipe_cost, cur(c), w->repipe_given ?
@@ -135,6 +136,10 @@ hl_rfit_text(FILE *fp, const hl_case *c, const hl_rfit *r,
 	fprintf(fp, "Search: %zu candidates simulated, %zu single changes "
 	    "within the limits%s.\n", r->evaluated, r->singles, r->timed_out ?
 	    "; stopped by the time limit (raise --time-limit)" : "");
+	if (r->refused > 0)
+		fprintf(fp, "%zu candidate%s left out: %s network failed the "
+		    "check.\n", r->refused, r->refused == 1 ? "" : "s",
+		    r->refused == 1 ? "its" : "their");
 	if (r->nproposal == 0)
 		fprintf(fp, "\nNo modification pays back within the limits.\n");
 	else
