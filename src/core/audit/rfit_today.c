@@ -181,26 +181,8 @@ add_parties(const hl_case *c, const hl_existing *ex, hl_network *net,
 	    hl_error *err)
 {
 	size_t i;
-	hl_status st = HL_OK;
+	hl_status st = hl_network_add_streams(c, net, err);
 
-	for (i = 0; i < c->nstream && st == HL_OK; i++) {
-		const hl_stream *s = &c->stream[i];
-		hl_network_party q;
-
-		memset(&q, 0, sizeof q);
-		q.name = s->name;
-		q.kind = s->kind;
-		q.supply = hl_stream_supply(s);
-		q.target = hl_stream_target(s);
-		q.nseg = s->nseg;
-		q.seg = s->seg;
-		q.h = NAN;
-		q.dt_contrib = s->dt_contrib;
-		q.load = hl_stream_duty(s);
-		q.price = NAN;
-		q.max_load = NAN;
-		st = hl_network_add_party(net, &q, err);
-	}
 	for (i = 0; i < c->nutil && st == HL_OK; i++) {
 		const hl_utility *u = &c->util[i];
 		hl_network_party q;

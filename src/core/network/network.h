@@ -184,6 +184,10 @@ void hl_network_free(hl_network *net);
 int hl_network_has_credit(const hl_network *net);
 
 /* Copy a party into the network (deep copy). */
+/* The case's process streams as parties, in case order, each carrying its
+ * whole duty as its load. */
+hl_status hl_network_add_streams(const hl_case *c, hl_network *net,
+				 hl_error *err);
 hl_status hl_network_add_party(hl_network *net, const hl_network_party *p,
 			       hl_error *err);
 /* Append a unit (note copied); its id is kept when set. */

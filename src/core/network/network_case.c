@@ -9,8 +9,8 @@
 
 #include "network.h"
 
-static hl_status
-add_streams(const hl_case *c, hl_network *net, hl_error *err)
+hl_status
+hl_network_add_streams(const hl_case *c, hl_network *net, hl_error *err)
 {
 	size_t i;
 	hl_status st = HL_OK;
@@ -120,7 +120,7 @@ hl_network_of_case(const hl_case *c, const double *util_load,
 	net->total_cost = NAN;
 	net->qh_target = net->qc_target = NAN;
 	st = net->set.currency == NULL ? hl_error_nomem(err) :
-	    add_streams(c, net, err);
+	    hl_network_add_streams(c, net, err);
 	if (st == HL_OK)
 		st = add_utilities(c, util_load, net, err);
 	if (st == HL_OK)
