@@ -57,7 +57,7 @@ typedef struct {
 	uint64_t seed;
 	size_t max, spent;
 	double deadline;
-	int capped;
+	int iso, capped;
 } walk_job;
 
 typedef struct {
@@ -75,7 +75,7 @@ work(void *arg)
 		walk_job *j = &w->job[i];
 
 		j->spent = hl_opt_walk(j->P, &j->s, &j->best, j->seed, j->max,
-		    j->deadline, &j->capped);
+		    j->deadline, j->iso, &j->capped);
 	}
 	return NULL;
 }
@@ -186,12 +186,13 @@ free_jobs(walk_job *job, size_t n)
 }
 
 /* Evaluations the whole search may spend: grows with the streams and the
- * superstructure's cells, whose evaluation dominates. */
+ * superstructure's cells, whose evaluation dominates; at least 3 million,
+ * a few seconds, for small problems, whose basins are hard to leave. */
 static size_t
 budget(const hl_opt_problem *P, const hl_opt_options *o)
 {
 	double n = (double)(P->nh + P->nc);
-	double e = 60000.0 * n * (1.0 + 2.0 / n) * o->effort;
+	double e = fmax(60000.0 * n * (1.0 + 2.0 / n), 3e6) * o->effort;
 
 	return e < 1000.0 ? 1000 : (size_t)e;
 }
@@ -224,6 +225,7 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 			j->seed = mix(o->seed, round * WALKS + i + 1);
 			j->max = total * 9 / 10 / ROUNDS / WALKS;
 			j->deadline = deadline;
+			j->iso = i % 2;
 			if (round > 0) {
 				hl_opt_state_copy(P, &j->s, i == worst ? out :
 				    &j->best);
@@ -530,7 +532,7 @@ binding(const hl_case *c, const hl_opt_options *o, const hl_opt_problem *P,
 			memcpy(s.q, fin->q, P->S * P->nh * P->nc * sizeof *s.q);
 			hl_opt_eval_all(&Q, &s);
 			hl_opt_walk(&Q, &s, &best, o->seed + 17 * k,
-			    budget(P, o) / 40, 0.0, &capped);
+			    budget(P, o) / 40, 0.0, 0, &capped);
 			if (best.v <= 1e-9 && best.tac < fin->tac *
 			    (1.0 - 1e-3))
 				len += (size_t)snprintf(r->binding + len,

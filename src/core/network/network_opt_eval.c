@@ -17,31 +17,40 @@ tol_of(double x)
 	return 1e-9 * fmax(1.0, fabs(x));
 }
 
-/* Hot stream a: temperatures at the stage boundaries, the cooler's duty,
- * and the limits the stream's loads miss (overshoot, splits). */
+/* Hot stream a: temperatures at the stage boundaries and after each
+ * stage's process units, the heat before each stage, the branch weights'
+ * sums, the cooler's duty, and the limits the stream's loads miss
+ * (overshoot, splits). */
 static void
 hot_stream(const hl_opt_problem *P, hl_opt_state *s, size_t a)
 {
 	const hl_stream *st = &P->c->stream[P->hot[a]];
 	double duty = hl_stream_duty(st), q = 0.0, v = 0.0;
-	double *t = &s->th[a * (P->S + 1)];
+	double *t = &s->th[a * (P->S + 1)], *tm = &s->thm[a * P->S];
+	const double *mid = &s->uh[a * P->S];
 	int mb = P->o->max_branches;
 	size_t k, b;
 
 	t[0] = hl_stream_supply(st);
 	for (k = 0; k < P->S; k++) {
-		const double *row = &s->q[HL_OPT_CELL(P, k, a, 0)];
-		double sum = 0.0;
+		size_t i0 = HL_OPT_CELL(P, k, a, 0);
+		double sum = 0.0, sw = 0.0;
 		int n = 0;
 
 		for (b = 0; b < P->nc; b++)
-			if (row[b] > HL_OPT_QEPS) {
-				sum += row[b];
+			if (s->q[i0 + b] > HL_OPT_QEPS) {
+				sum += s->q[i0 + b];
+				sw += s->q[i0 + b] * s->wh[i0 + b];
 				n++;
 			}
+		s->hq[a * P->S + k] = q;
+		s->swh[a * P->S + k] = sw;
 		q += sum;
-		t[k + 1] = q >= duty ? hl_stream_target(st) :
+		tm[k] = q >= duty ? hl_stream_target(st) :
 		    hl_stream_temp_at(st, q);
+		q += mid[k];
+		t[k + 1] = mid[k] > 0.0 ? (q >= duty ? hl_stream_target(st) :
+		    hl_stream_temp_at(st, q)) : tm[k];
 		if (n > 1 && P->nosplit[P->hot[a]])
 			v += n - 1;
 		if (mb > 0 && n > mb)
@@ -60,26 +69,33 @@ cold_stream(const hl_opt_problem *P, hl_opt_state *s, size_t b)
 {
 	const hl_stream *st = &P->c->stream[P->cold[b]];
 	double duty = hl_stream_duty(st), q = 0.0, v = 0.0;
-	double *t = &s->tc[b * (P->S + 1)];
+	double *t = &s->tc[b * (P->S + 1)], *tm = &s->tcm[b * P->S];
+	const double *mid = &s->uc[b * P->S];
 	int mb = P->o->max_branches;
 	size_t k, a;
 
 	t[P->S] = hl_stream_supply(st);
 	for (k = P->S; k-- > 0;) {
-		double sum = 0.0;
+		double sum = 0.0, sw = 0.0;
 		int n = 0;
 
 		for (a = 0; a < P->nh; a++) {
-			double x = s->q[HL_OPT_CELL(P, k, a, b)];
+			size_t i = HL_OPT_CELL(P, k, a, b);
 
-			if (x > HL_OPT_QEPS) {
-				sum += x;
+			if (s->q[i] > HL_OPT_QEPS) {
+				sum += s->q[i];
+				sw += s->q[i] * s->wc[i];
 				n++;
 			}
 		}
+		s->cq[b * P->S + k] = q;
+		s->swc[b * P->S + k] = sw;
 		q += sum;
-		t[k] = q >= duty ? hl_stream_target(st) :
+		tm[k] = q >= duty ? hl_stream_target(st) :
 		    hl_stream_temp_at(st, q);
+		q += mid[k];
+		t[k] = mid[k] > 0.0 ? (q >= duty ? hl_stream_target(st) :
+		    hl_stream_temp_at(st, q)) : tm[k];
 		if (n > 1 && P->nosplit[P->cold[b]])
 			v += n - 1;
 		if (mb > 0 && n > mb)
@@ -91,6 +107,35 @@ cold_stream(const hl_opt_problem *P, hl_opt_state *s, size_t b)
 	if (s->cend[b] < tol_of(duty))
 		s->cend[b] = 0.0;
 	s->cvs[b] = v;
+}
+
+/* Mixing of branches by enthalpy (non-isothermal mixing, Björk &
+ * Westerlund 2002): a branch of share phi takes load q as the whole stream
+ * would take q/phi, from the heat before the stage. */
+double
+hl_opt_hot_out(const hl_opt_problem *P, const hl_opt_state *s, size_t k,
+	       size_t a, double q, double w, double *share)
+{
+	double sw = s->swh[a * P->S + k], phi = sw > 0.0 ? q * w / sw : 1.0;
+
+	*share = phi >= 1.0 - 1e-12 ? 1.0 : phi;
+	if (*share == 1.0)
+		return s->thm[a * P->S + k];
+	return hl_stream_temp_at(&P->c->stream[P->hot[a]],
+	    s->hq[a * P->S + k] + q / phi);
+}
+
+double
+hl_opt_cold_out(const hl_opt_problem *P, const hl_opt_state *s, size_t k,
+		size_t b, double q, double w, double *share)
+{
+	double sw = s->swc[b * P->S + k], phi = sw > 0.0 ? q * w / sw : 1.0;
+
+	*share = phi >= 1.0 - 1e-12 ? 1.0 : phi;
+	if (*share == 1.0)
+		return s->tcm[b * P->S + k];
+	return hl_stream_temp_at(&P->c->stream[P->cold[b]],
+	    s->cq[b * P->S + k] + q / phi);
 }
 
 hl_status
@@ -172,9 +217,10 @@ cell(const hl_opt_problem *P, hl_opt_state *s, size_t k, size_t a, size_t b)
 	u.cold = P->cold[b];
 	u.duty = s->q[i];
 	u.hot_in = th[k];
-	u.hot_out = th[k + 1];
+	u.hot_out = hl_opt_hot_out(P, s, k, a, u.duty, s->wh[i], &u.hot_share);
 	u.cold_in = tc[k + 1];
-	u.cold_out = tc[k];
+	u.cold_out = hl_opt_cold_out(P, s, k, b, u.duty, s->wc[i],
+	    &u.cold_share);
 	s->cviol[i] = size_unit(P, &u);
 	if (s->cviol[i] == 0.0)
 		s->ccost[i] = P->crf * u.cost;
@@ -187,6 +233,15 @@ cell(const hl_opt_problem *P, hl_opt_state *s, size_t k, size_t a, size_t b)
 double
 hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in, double d,
 		hl_network_unit *best, long *which, double *viol)
+{
+	return hl_opt_util_unit(P, p, t_in, P->base->party[p].target, d, best,
+	    which, viol);
+}
+
+double
+hl_opt_util_unit(const hl_opt_problem *P, size_t p, double t_in,
+		 double t_out, double d, hl_network_unit *best, long *which,
+		 double *viol)
 {
 	const hl_network *net = P->base;
 	const hl_network_party *sp = &net->party[p];
@@ -209,7 +264,7 @@ hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in, double d,
 		u.duty = d;
 		uout = ut->target;
 		if (hot) {
-			if (sp->target - ut->supply < req)
+			if (t_out - ut->supply < req)
 				continue;
 			if (t_in - uout < req) {
 				if (ut->supply == ut->target)
@@ -221,11 +276,11 @@ hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in, double d,
 			u.hot = p;
 			u.cold = up;
 			u.hot_in = t_in;
-			u.hot_out = sp->target;
+			u.hot_out = t_out;
 			u.cold_in = ut->supply;
 			u.cold_out = uout;
 		} else {
-			if (ut->supply - sp->target < req)
+			if (ut->supply - t_out < req)
 				continue;
 			if (uout - t_in < req) {
 				if (ut->supply == ut->target)
@@ -239,7 +294,7 @@ hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in, double d,
 			u.hot_in = ut->supply;
 			u.hot_out = uout;
 			u.cold_in = t_in;
-			u.cold_out = sp->target;
+			u.cold_out = t_out;
 		}
 		v = size_unit(P, &u);
 		c = P->crf * u.cost + (isnan(ut->price) ? 0.0 : ut->price) *
@@ -378,30 +433,61 @@ single:
 	return c1;
 }
 
+/* The utility units inside hot stream a (side 0) or cold stream b: their
+ * annual cost and limits missed, summed per stream. */
+static void
+mid_units(const hl_opt_problem *P, hl_opt_state *s, int side, size_t x)
+{
+	const double *mid = side == 0 ? &s->uh[x * P->S] : &s->uc[x * P->S];
+	const double *tm = side == 0 ? &s->thm[x * P->S] : &s->tcm[x * P->S];
+	long *mu = side == 0 ? &s->muh[x * P->S] : &s->muc[x * P->S];
+	size_t p = side == 0 ? P->hot[x] : P->cold[x], k;
+	double cost = 0.0, v = 0.0, vk;
+
+	for (k = 0; k < P->S; k++) {
+		mu[k] = -1;
+		if (!(mid[k] > 0.0))
+			continue;
+		cost += hl_opt_util_unit(P, p, tm[k], side == 0 ?
+		    s->th[x * (P->S + 1) + k + 1] : s->tc[x * (P->S + 1) + k],
+		    mid[k], NULL, &mu[k], &vk);
+		v += vk;
+	}
+	if (side == 0) {
+		s->hmc[x] = cost;
+		s->hmv[x] = v;
+	} else {
+		s->cmc[x] = cost;
+		s->cmv[x] = v;
+	}
+}
+
 static void
 hot_end(const hl_opt_problem *P, hl_opt_state *s, size_t a)
 {
-	s->hecost[a] = s->heviol[a] = 0.0;
-	s->hutil[a] = -1;
 	size_t n;
 
+	s->hecost[a] = s->heviol[a] = 0.0;
+	s->hutil[a] = -1;
 	if (s->hend[a] > 0.0)
 		s->hecost[a] = hl_opt_end(P, P->hot[a],
 		    s->th[a * (P->S + 1) + P->S], s->hend[a], NULL, &n,
 		    &s->hutil[a], &s->heviol[a]);
+	mid_units(P, s, 0, a);
 }
 
 static void
 cold_end(const hl_opt_problem *P, hl_opt_state *s, size_t b)
 {
-	s->cecost[b] = s->ceviol[b] = 0.0;
-	s->cutil[b] = -1;
 	size_t n;
 
+	s->cecost[b] = s->ceviol[b] = 0.0;
+	s->cutil[b] = -1;
 	if (s->cend[b] > 0.0)
 		s->cecost[b] = hl_opt_end(P, P->cold[b],
 		    s->tc[b * (P->S + 1)], s->cend[b], NULL, &n,
 		    &s->cutil[b], &s->ceviol[b]);
+	mid_units(P, s, 1, b);
 }
 
 /* Limits that involve several streams: match rules, utility capacities,
@@ -439,6 +525,12 @@ global_viol(const hl_opt_problem *P, const hl_opt_state *s)
 		for (b = 0; b < P->nc; b++)
 			if (s->cutil[b] == (long)j)
 				load += s->cend[b];
+		for (k = 0; k < P->nh * P->S; k++)
+			if (s->muh[k] == (long)j)
+				load += s->uh[k];
+		for (k = 0; k < P->nc * P->S; k++)
+			if (s->muc[k] == (long)j)
+				load += s->uc[k];
 		if (load > m * (1 + 1e-12))
 			v += (load - m) / P->qscale + 1e-3;
 	}
@@ -452,12 +544,12 @@ hl_opt_sum(const hl_opt_problem *P, hl_opt_state *s)
 	double v = s->cvsum, tac = s->ccap;
 
 	for (i = 0; i < P->nh; i++) {
-		tac += s->hecost[i];
-		v += s->hviol[i] + s->heviol[i];
+		tac += s->hecost[i] + s->hmc[i];
+		v += s->hviol[i] + s->heviol[i] + s->hmv[i];
 	}
 	for (i = 0; i < P->nc; i++) {
-		tac += s->cecost[i];
-		v += s->cvs[i] + s->ceviol[i];
+		tac += s->cecost[i] + s->cmc[i];
+		v += s->cvs[i] + s->ceviol[i] + s->cmv[i];
 	}
 	s->v = v + global_viol(P, s);
 	s->tac = tac;

@@ -51,6 +51,18 @@ typedef struct {
 	double *cecost;
 	double *heviol, *ceviol;
 	long *hutil, *cutil;  /* utility of each end, -1 none */
+	/* Non-isothermal mixing: a branch's share of its stream's flow in a
+	 * split is q·w over the stage's Σ q·w (all w equal: isothermal). */
+	double *wh, *wc;  /* S·nh·nc: branch weights on the hot, cold side */
+	double *swh, *swc;  /* nh·S, nc·S: Σ q·w of the stage's branches */
+	/* Utilities inside a stream: a unit after the process units of
+	 * stage k, in the stream's flow direction. */
+	double *uh, *uc;  /* nh·S, nc·S: their loads, kW */
+	long *muh, *muc;  /* nh·S, nc·S: the utility each uses, -1 none */
+	double *thm, *tcm;  /* nh·S, nc·S: after the process units of k */
+	double *hq, *cq;  /* nh·S, nc·S: heat exchanged before stage k */
+	double *hmc, *cmc;  /* per stream: the mid units' annual cost */
+	double *hmv, *cmv;  /* per stream: the limits they miss */
 	double ccap, cvsum;  /* Σ ccost, Σ cviol, kept up by each cell */
 	size_t nact;      /* cells with a unit */
 	double v, tac;    /* limits missed; total annual cost */
@@ -78,11 +90,13 @@ void hl_opt_sum(const hl_opt_problem *P, hl_opt_state *s);
 int hl_opt_better(const hl_opt_state *x, const hl_opt_state *y);
 
 /* Walk w (seeded from seed and w) from s for evals evaluations; the best
- * state found goes to best. deadline: monotonic seconds, 0 none. Returns
- * the evaluations spent; *capped set when the deadline stopped it. */
+ * state found goes to best. deadline: monotonic seconds, 0 none. iso: the
+ * walk leaves the split shares as they are (isothermal for new splits): a
+ * narrower search that settles in other basins. Returns the evaluations
+ * spent; *capped set when the deadline stopped it. */
 size_t hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s,
 		   hl_opt_state *best, uint64_t seed, size_t evals,
-		   double deadline, int *capped);
+		   double deadline, int iso, int *capped);
 /* Greedy construction from s, candidates scored by the cost they save over
  * their mean approach to the power `power`; returns evaluations. */
 size_t hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max,
@@ -106,6 +120,16 @@ double hl_opt_end(const hl_opt_problem *P, size_t p, double t_in, double d,
 double hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in,
 		       double d, hl_network_unit *best, long *which,
 		       double *viol);
+/* The same for a utility unit inside the stream, from t_in to t_out. */
+double hl_opt_util_unit(const hl_opt_problem *P, size_t p, double t_in,
+			double t_out, double d, hl_network_unit *best,
+			long *which, double *viol);
+/* A branch's outlet: hot stream a (or cold b) in stage k, load q, weight w
+ * (the share q·w over the stage's Σ q·w); *share gets the share. */
+double hl_opt_hot_out(const hl_opt_problem *P, const hl_opt_state *s,
+		      size_t k, size_t a, double q, double w, double *share);
+double hl_opt_cold_out(const hl_opt_problem *P, const hl_opt_state *s,
+		       size_t k, size_t b, double q, double w, double *share);
 
 /* Size unit u of net by its type (hl_network_unit_type, so the case's
  * per-type and per-utility cost laws apply); with fallback, a type that

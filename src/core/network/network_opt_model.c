@@ -79,6 +79,49 @@ before(const hl_network_unit *u, const hl_network_unit *v)
 	    u->cold_stage > v->cold_stage);
 }
 
+/* u and v are branches of one split (one stage of a stream they share). */
+static int
+siblings(const hl_network_unit *u, const hl_network_unit *v)
+{
+	return (u->hot == v->hot && u->hot_stage > 0 &&
+	    u->hot_stage == v->hot_stage) || (u->cold == v->cold &&
+	    u->cold_stage > 0 && u->cold_stage == v->cold_stage);
+}
+
+/* Stages for net's process units as the longest chain of units before
+ * each, the branches of a split in one stage (label-correcting longest
+ * paths, Bellman 1958): 1 when it settles, 0 when the order has a cycle. */
+static int
+layering_splits(const hl_network *net, size_t ns, size_t *stage,
+		size_t *nstage)
+{
+	size_t n = net->nunit, i, j, round;
+	int changed = 1;
+
+	for (i = 0; i < n; i++)
+		stage[i] = net->unit[i].hot < ns && net->unit[i].cold < ns;
+	for (round = 0; changed && round <= n; round++) {
+		changed = 0;
+		for (i = 0; i < n; i++)
+			for (j = 0; j < n && stage[i] > 0; j++) {
+				const hl_network_unit *u = &net->unit[i];
+				const hl_network_unit *v = &net->unit[j];
+				size_t want = stage[j] == 0 ? 0 : before(v, u) ?
+				    stage[j] + 1 : siblings(u, v) ? stage[j] : 0;
+
+				if (want > stage[i]) {
+					stage[i] = want;
+					changed = 1;
+				}
+			}
+	}
+	*nstage = 0;
+	for (i = 0; i < n; i++)
+		if (stage[i] > *nstage)
+			*nstage = stage[i];
+	return !changed;
+}
+
 /* Stages for net's process units: the longest chain of units before each
  * (in the start's stage order on both its streams; Kahn's topological
  * order, ties by the hot-end temperatures), so that every stream meets its
@@ -115,6 +158,14 @@ layering(const hl_opt_problem *P, const hl_network *net, size_t *nstage)
 		if (u->hot >= ns || u->cold >= ns)
 			done[i] = 1;
 	}
+	if (layering_splits(net, ns, stage, nstage)) {
+		free(order);
+		free(last);
+		free(done);
+		return stage;
+	}
+	memset(stage, 0, (n + 1) * sizeof *stage);
+	*nstage = 0;
 	qsort(order, n, sizeof *order, cmp_key);
 	for (t = 0; t < n; t++) {
 		size_t pick = n, k = 0;
@@ -282,61 +333,78 @@ hl_opt_problem_free(hl_opt_problem *P)
 	memset(P, 0, sizeof *P);
 }
 
+/* The state's arrays: per cell, per hot and cold stream-stage, per hot
+ * and cold stream; one table so that init, free and copy agree. */
+typedef enum { PER_CELL, PER_HS, PER_CS, PER_H, PER_C, PER_HB, PER_CB } per;
+
+#define STATE_ARRAYS(X) \
+	X(q, PER_CELL) X(ccost, PER_CELL) X(cviol, PER_CELL) \
+	X(wh, PER_CELL) X(wc, PER_CELL) \
+	X(th, PER_HB) X(tc, PER_CB) \
+	X(hviol, PER_H) X(cvs, PER_C) X(hend, PER_H) X(cend, PER_C) \
+	X(hecost, PER_H) X(cecost, PER_C) X(heviol, PER_H) X(ceviol, PER_C) \
+	X(hmc, PER_H) X(cmc, PER_C) X(hmv, PER_H) X(cmv, PER_C) \
+	X(hutil, PER_H) X(cutil, PER_C) \
+	X(swh, PER_HS) X(swc, PER_CS) X(uh, PER_HS) X(uc, PER_CS) \
+	X(muh, PER_HS) X(muc, PER_CS) X(thm, PER_HS) X(tcm, PER_CS) \
+	X(hq, PER_HS) X(cq, PER_CS)
+
+static size_t
+count_of(const hl_opt_problem *P, per w)
+{
+	switch (w) {
+	case PER_CELL:
+		return P->S * P->nh * P->nc;
+	case PER_HS:
+		return P->nh * P->S;
+	case PER_CS:
+		return P->nc * P->S;
+	case PER_H:
+		return P->nh;
+	case PER_C:
+		return P->nc;
+	case PER_HB:
+		return P->nh * (P->S + 1);
+	default:
+		return P->nc * (P->S + 1);
+	}
+}
+
 hl_status
 hl_opt_state_init(const hl_opt_problem *P, hl_opt_state *s)
 {
-	size_t n = P->S * P->nh * P->nc + 1;
+	size_t n = P->S * P->nh * P->nc, i;
+	int ok = 1;
 
 	memset(s, 0, sizeof *s);
-	s->q = calloc(n, sizeof *s->q);
-	s->keep = calloc(n, 1);
-	s->act = calloc(n, 1);
-	s->ccost = calloc(n, sizeof *s->ccost);
-	s->cviol = calloc(n, sizeof *s->cviol);
-	s->th = calloc(P->nh * (P->S + 1) + 1, sizeof *s->th);
-	s->tc = calloc(P->nc * (P->S + 1) + 1, sizeof *s->tc);
-	s->hviol = calloc(P->nh + 1, sizeof *s->hviol);
-	s->cvs = calloc(P->nc + 1, sizeof *s->cvs);
-	s->hend = calloc(P->nh + 1, sizeof *s->hend);
-	s->cend = calloc(P->nc + 1, sizeof *s->cend);
-	s->hecost = calloc(P->nh + 1, sizeof *s->hecost);
-	s->cecost = calloc(P->nc + 1, sizeof *s->cecost);
-	s->heviol = calloc(P->nh + 1, sizeof *s->heviol);
-	s->ceviol = calloc(P->nc + 1, sizeof *s->ceviol);
-	s->hutil = calloc(P->nh + 1, sizeof *s->hutil);
-	s->cutil = calloc(P->nc + 1, sizeof *s->cutil);
-	if (s->q == NULL || s->keep == NULL || s->act == NULL || s->ccost == NULL ||
-	    s->cviol == NULL || s->th == NULL || s->tc == NULL ||
-	    s->hviol == NULL || s->cvs == NULL || s->hend == NULL ||
-	    s->cend == NULL || s->hecost == NULL || s->cecost == NULL ||
-	    s->heviol == NULL || s->ceviol == NULL || s->hutil == NULL ||
-	    s->cutil == NULL) {
+#define ALLOC(f, w) \
+	s->f = calloc(count_of(P, w) + 1, sizeof *s->f); \
+	ok &= s->f != NULL;
+	STATE_ARRAYS(ALLOC)
+#undef ALLOC
+	s->keep = calloc(n + 1, 1);
+	s->act = calloc(n + 1, 1);
+	if (!ok || s->keep == NULL || s->act == NULL) {
 		hl_opt_state_free(s);
 		return HL_EIO;
 	}
+	for (i = 0; i < n; i++)
+		s->wh[i] = s->wc[i] = 1.0;
+	for (i = 0; i < P->nh * P->S; i++)
+		s->muh[i] = -1;
+	for (i = 0; i < P->nc * P->S; i++)
+		s->muc[i] = -1;
 	return HL_OK;
 }
 
 void
 hl_opt_state_free(hl_opt_state *s)
 {
-	free(s->q);
+#define FREE(f, w) free(s->f);
+	STATE_ARRAYS(FREE)
+#undef FREE
 	free(s->keep);
 	free(s->act);
-	free(s->ccost);
-	free(s->cviol);
-	free(s->th);
-	free(s->tc);
-	free(s->hviol);
-	free(s->cvs);
-	free(s->hend);
-	free(s->cend);
-	free(s->hecost);
-	free(s->cecost);
-	free(s->heviol);
-	free(s->ceviol);
-	free(s->hutil);
-	free(s->cutil);
 	memset(s, 0, sizeof *s);
 }
 
@@ -346,30 +414,77 @@ hl_opt_state_copy(const hl_opt_problem *P, hl_opt_state *d,
 {
 	size_t n = P->S * P->nh * P->nc;
 
-	memcpy(d->q, s->q, n * sizeof *d->q);
+#define COPY(f, w) memcpy(d->f, s->f, count_of(P, w) * sizeof *d->f);
+	STATE_ARRAYS(COPY)
+#undef COPY
 	memcpy(d->keep, s->keep, n);
 	memcpy(d->act, s->act, n);
-	memcpy(d->ccost, s->ccost, n * sizeof *d->ccost);
-	memcpy(d->cviol, s->cviol, n * sizeof *d->cviol);
-	memcpy(d->th, s->th, P->nh * (P->S + 1) * sizeof *d->th);
-	memcpy(d->tc, s->tc, P->nc * (P->S + 1) * sizeof *d->tc);
-#define CP(f, m) memcpy(d->f, s->f, (m) * sizeof *d->f)
-	CP(hviol, P->nh);
-	CP(cvs, P->nc);
-	CP(hend, P->nh);
-	CP(cend, P->nc);
-	CP(hecost, P->nh);
-	CP(cecost, P->nc);
-	CP(heviol, P->nh);
-	CP(ceviol, P->nc);
-	CP(hutil, P->nh);
-	CP(cutil, P->nc);
-#undef CP
 	d->ccap = s->ccap;
 	d->cvsum = s->cvsum;
 	d->nact = s->nact;
 	d->v = s->v;
 	d->tac = s->tac;
+}
+
+/* The stage sum of the loads on hot stream a (side 0) or cold stream b. */
+static double
+stage_sum(const hl_opt_problem *P, const hl_opt_state *s, size_t k,
+	  size_t a, size_t b, int side)
+{
+	double sum = 0.0;
+	size_t x;
+
+	if (side == 0)
+		for (x = 0; x < P->nc; x++)
+			sum += s->q[HL_OPT_CELL(P, k, a, x)];
+	else
+		for (x = 0; x < P->nh; x++)
+			sum += s->q[HL_OPT_CELL(P, k, x, b)];
+	return sum;
+}
+
+/* A branch weight that gives share phi to load q of a stage loaded sum
+ * (1: the isothermal share). */
+static double
+weight_of(double phi, double q, double sum)
+{
+	return phi > 0.0 && phi <= 1.0 && q > 0.0 && sum > 0.0 ?
+	    phi * sum / q : 1.0;
+}
+
+/* Utility unit i of net inside a process stream (process units after it
+ * along the stream) goes after the process units of the stage of the one
+ * before it; a utility at a stream's end is the residual's. */
+static void
+mid_utility(const hl_opt_problem *P, const hl_network *net,
+	    const size_t *stage, const size_t *pos, size_t i, hl_opt_state *s)
+{
+	const hl_network_unit *u = &net->unit[i];
+	size_t ns = P->c->nstream, j, prev = net->nunit;
+	int hot = u->hot < ns, later = 0, at;
+	size_t p = hot ? u->hot : u->cold;
+
+	if ((u->hot < ns) == (u->cold < ns))
+		return;
+	at = hot ? u->hot_stage : u->cold_stage;
+	for (j = 0; j < net->nunit; j++) {
+		const hl_network_unit *v = &net->unit[j];
+		int vs = hot ? v->hot_stage : v->cold_stage;
+
+		if ((hot ? v->hot : v->cold) != p || stage[j] == 0)
+			continue;
+		if (vs > at)
+			later = 1;
+		else if (vs < at && (prev == net->nunit || vs > (hot ?
+		    net->unit[prev].hot_stage : net->unit[prev].cold_stage)))
+			prev = j;
+	}
+	if (!later || prev == net->nunit)
+		return;
+	if (hot)
+		s->uh[pos[p] * P->S + stage[prev] - 1] += u->duty;
+	else
+		s->uc[pos[p] * P->S + stage[prev] - 1] += u->duty;
 }
 
 hl_status
@@ -392,12 +507,28 @@ hl_opt_from_network(const hl_opt_problem *P, const hl_network *net,
 		const hl_network_unit *u = &net->unit[i];
 		size_t k;
 
-		if (stage[i] == 0 || stage[i] > P->S)
+		if (stage[i] == 0 || stage[i] > P->S) {
+			mid_utility(P, net, stage, pos, i, s);
 			continue;
+		}
 		k = HL_OPT_CELL(P, stage[i] - 1, pos[u->hot], pos[u->cold]);
 		s->q[k] += u->duty;
 		if (keep != NULL && keep[i])
 			s->keep[k] = 1;
+	}
+	for (i = 0; i < net->nunit; i++) {
+		const hl_network_unit *u = &net->unit[i];
+		size_t k, a, b;
+
+		if (stage[i] == 0 || stage[i] > P->S)
+			continue;
+		a = pos[u->hot];
+		b = pos[u->cold];
+		k = HL_OPT_CELL(P, stage[i] - 1, a, b);
+		s->wh[k] = weight_of(u->hot_share, s->q[k],
+		    stage_sum(P, s, stage[i] - 1, a, b, 0));
+		s->wc[k] = weight_of(u->cold_share, s->q[k],
+		    stage_sum(P, s, stage[i] - 1, a, b, 1));
 	}
 	free(stage);
 	free(pos);

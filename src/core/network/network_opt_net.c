@@ -1,7 +1,7 @@
 /* network_opt_net.c - the optimiser's loads as a network (hl_network):
- * stages numbered along each stream, branch shares from the loads
- * (isothermal mixing), utility units at the stream ends, every unit sized
- * by hl_network_size_unit. */
+ * stages numbered along each stream, branch shares from the loads and
+ * weights, utility units inside the streams and at their ends, every unit
+ * sized by hl_network_size_unit. */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -23,63 +23,29 @@ empty_like(const hl_network *base)
 	return net;
 }
 
-/* Active stages of hot stream a in [k0, k1). */
-static int
-hot_stages(const hl_opt_problem *P, const hl_opt_state *s, size_t a,
-	   size_t k0, size_t k1)
+/* Stage numbers along each stream, 1 from the supply end: process units
+ * of superstructure stage k get num[k], the utility inside the stream after
+ * them mid[k]; *last is the last number. Side 0: hot stream a (stages in
+ * order), side 1: cold stream b (from stage S - 1 down). */
+static void
+numbers(const hl_opt_problem *P, const hl_opt_state *s, int side, size_t j,
+	int *num, int *mid, int *last)
 {
-	size_t k, b;
+	size_t k, x, S = P->S;
 	int n = 0;
 
-	for (k = k0; k < k1; k++)
-		for (b = 0; b < P->nc; b++)
-			if (s->q[HL_OPT_CELL(P, k, a, b)] > HL_OPT_QEPS) {
-				n++;
-				break;
-			}
-	return n;
-}
+	for (k = 0; k < S; k++) {
+		size_t kk = side == 0 ? k : S - 1 - k;
+		int any = 0;
 
-static int
-cold_stages(const hl_opt_problem *P, const hl_opt_state *s, size_t b,
-	    size_t k0, size_t k1)
-{
-	size_t k, a;
-	int n = 0;
-
-	for (k = k0; k < k1; k++)
-		for (a = 0; a < P->nh; a++)
-			if (s->q[HL_OPT_CELL(P, k, a, b)] > HL_OPT_QEPS) {
-				n++;
-				break;
-			}
-	return n;
-}
-
-static double
-stage_load_hot(const hl_opt_problem *P, const hl_opt_state *s, size_t k,
-	       size_t a)
-{
-	double sum = 0.0;
-	size_t b;
-
-	for (b = 0; b < P->nc; b++)
-		if (s->q[HL_OPT_CELL(P, k, a, b)] > HL_OPT_QEPS)
-			sum += s->q[HL_OPT_CELL(P, k, a, b)];
-	return sum;
-}
-
-static double
-stage_load_cold(const hl_opt_problem *P, const hl_opt_state *s, size_t k,
-		size_t b)
-{
-	double sum = 0.0;
-	size_t a;
-
-	for (a = 0; a < P->nh; a++)
-		if (s->q[HL_OPT_CELL(P, k, a, b)] > HL_OPT_QEPS)
-			sum += s->q[HL_OPT_CELL(P, k, a, b)];
-	return sum;
+		for (x = 0; x < (side == 0 ? P->nc : P->nh) && !any; x++)
+			any = s->q[side == 0 ? HL_OPT_CELL(P, kk, j, x) :
+			    HL_OPT_CELL(P, kk, x, j)] > HL_OPT_QEPS;
+		num[kk] = any ? ++n : 0;
+		mid[kk] = (side == 0 ? s->uh[j * S + kk] : s->uc[j * S + kk]) >
+		    0.0 ? ++n : 0;
+	}
+	*last = n;
 }
 
 static hl_status
@@ -103,35 +69,70 @@ add(hl_network *net, hl_network_unit *u, char kind, unsigned *n,
 
 static hl_status
 process_units(const hl_opt_problem *P, const hl_opt_state *s,
-	      hl_network *net, hl_error *err)
+	      hl_network *net, const int *hnum, const int *cnum,
+	      hl_error *err)
 {
 	unsigned n = 0;
-	size_t a, b, k;
+	size_t a, b, k, S = P->S;
 	hl_status st = HL_OK;
 
 	for (a = 0; a < P->nh && st == HL_OK; a++)
-		for (k = 0; k < P->S && st == HL_OK; k++)
+		for (k = 0; k < S && st == HL_OK; k++)
 			for (b = 0; b < P->nc && st == HL_OK; b++) {
-				double q = s->q[HL_OPT_CELL(P, k, a, b)];
+				size_t i = HL_OPT_CELL(P, k, a, b);
 				hl_network_unit u;
 
-				if (!(q > HL_OPT_QEPS))
+				if (!(s->q[i] > HL_OPT_QEPS))
 					continue;
 				memset(&u, 0, sizeof u);
 				u.hot = P->hot[a];
 				u.cold = P->cold[b];
-				u.duty = q;
-				u.hot_in = s->th[a * (P->S + 1) + k];
-				u.hot_out = s->th[a * (P->S + 1) + k + 1];
-				u.cold_in = s->tc[b * (P->S + 1) + k + 1];
-				u.cold_out = s->tc[b * (P->S + 1) + k];
-				u.hot_share = q / stage_load_hot(P, s, k, a);
-				u.cold_share = q / stage_load_cold(P, s, k, b);
-				u.hot_stage = hot_stages(P, s, a, 0, k + 1);
-				u.cold_stage = cold_stages(P, s, b, k, P->S);
+				u.duty = s->q[i];
+				u.hot_in = s->th[a * (S + 1) + k];
+				u.hot_out = hl_opt_hot_out(P, s, k, a, u.duty,
+				    s->wh[i], &u.hot_share);
+				u.cold_in = s->tc[b * (S + 1) + k + 1];
+				u.cold_out = hl_opt_cold_out(P, s, k, b, u.duty,
+				    s->wc[i], &u.cold_share);
+				u.hot_stage = hnum[a * S + k];
+				u.cold_stage = cnum[b * S + k];
 				st = add(net, &u, 'E', &n, err);
 			}
 	net->nmatch = n;
+	return st;
+}
+
+/* The utility units inside stream j (side 0 hot, 1 cold). */
+static hl_status
+mid_units(const hl_opt_problem *P, const hl_opt_state *s, hl_network *net,
+	  int side, size_t j, const int *mid, unsigned *n, hl_error *err)
+{
+	size_t k, S = P->S;
+	hl_status st = HL_OK;
+
+	for (k = 0; k < S && st == HL_OK; k++) {
+		double d = side == 0 ? s->uh[j * S + k] : s->uc[j * S + k], v;
+		hl_network_unit u;
+		long which;
+
+		if (!(d > 0.0))
+			continue;
+		memset(&u, 0, sizeof u);
+		hl_opt_util_unit(P, side == 0 ? P->hot[j] : P->cold[j],
+		    side == 0 ? s->thm[j * S + k] : s->tcm[j * S + k],
+		    side == 0 ? s->th[j * (S + 1) + k + 1] :
+		    s->tc[j * (S + 1) + k], d, &u, &which, &v);
+		if (which < 0)
+			return hl_error_set(err, HL_ENOSOLUTION, NULL, 0, "no "
+			    "utility may serve stream '%s' inside it",
+			    net->party[side == 0 ? P->hot[j] : P->cold[j]].name);
+		u.hot_share = u.cold_share = 1.0;
+		if (side == 0)
+			u.hot_stage = mid[j * S + k];
+		else
+			u.cold_stage = mid[j * S + k];
+		st = add(net, &u, side == 0 ? 'C' : 'H', n, err);
+	}
 	return st;
 }
 
@@ -165,24 +166,50 @@ end_units(const hl_opt_problem *P, hl_network *net, size_t p, double t_in,
 	return st;
 }
 
+/* Every unit of the state: process units, utilities inside streams, the
+ * stream ends' utilities; stage numbers along each stream. */
 static hl_status
-utility_units(const hl_opt_problem *P, const hl_opt_state *s,
-	      hl_network *net, hl_error *err)
+all_units(const hl_opt_problem *P, const hl_opt_state *s, hl_network *net,
+	  hl_error *err)
 {
+	size_t S = P->S, a, b;
+	int *hnum = calloc(P->nh * S + 1, sizeof *hnum);
+	int *hmid = calloc(P->nh * S + 1, sizeof *hmid);
+	int *cnum = calloc(P->nc * S + 1, sizeof *cnum);
+	int *cmid = calloc(P->nc * S + 1, sizeof *cmid);
+	int *hlast = calloc(P->nh + 1, sizeof *hlast);
+	int *clast = calloc(P->nc + 1, sizeof *clast);
 	unsigned nh = 0, nc = 0;
-	size_t a, b;
 	hl_status st = HL_OK;
 
+	if (hnum == NULL || hmid == NULL || cnum == NULL || cmid == NULL ||
+	    hlast == NULL || clast == NULL)
+		st = hl_error_nomem(err);
+	for (a = 0; a < P->nh && st == HL_OK; a++)
+		numbers(P, s, 0, a, &hnum[a * S], &hmid[a * S], &hlast[a]);
+	for (b = 0; b < P->nc && st == HL_OK; b++)
+		numbers(P, s, 1, b, &cnum[b * S], &cmid[b * S], &clast[b]);
+	if (st == HL_OK)
+		st = process_units(P, s, net, hnum, cnum, err);
+	for (b = 0; b < P->nc && st == HL_OK; b++)
+		st = mid_units(P, s, net, 1, b, cmid, &nh, err);
 	for (b = 0; b < P->nc && st == HL_OK; b++)
 		if (s->cend[b] > 0.0)
-			st = end_units(P, net, P->cold[b],
-			    s->tc[b * (P->S + 1)], s->cend[b],
-			    cold_stages(P, s, b, 0, P->S) + 1, 'H', &nh, err);
+			st = end_units(P, net, P->cold[b], s->tc[b * (S + 1)],
+			    s->cend[b], clast[b] + 1, 'H', &nh, err);
+	for (a = 0; a < P->nh && st == HL_OK; a++)
+		st = mid_units(P, s, net, 0, a, hmid, &nc, err);
 	for (a = 0; a < P->nh && st == HL_OK; a++)
 		if (s->hend[a] > 0.0)
 			st = end_units(P, net, P->hot[a],
-			    s->th[a * (P->S + 1) + P->S], s->hend[a],
-			    hot_stages(P, s, a, 0, P->S) + 1, 'C', &nc, err);
+			    s->th[a * (S + 1) + S], s->hend[a], hlast[a] + 1,
+			    'C', &nc, err);
+	free(hnum);
+	free(hmid);
+	free(cnum);
+	free(cmid);
+	free(hlast);
+	free(clast);
 	return st;
 }
 
@@ -238,9 +265,7 @@ hl_opt_to_network(const hl_opt_problem *P, const hl_opt_state *s,
 
 	if (net == NULL)
 		return hl_error_nomem(err);
-	st = process_units(P, s, net, err);
-	if (st == HL_OK)
-		st = utility_units(P, s, net, err);
+	st = all_units(P, s, net, err);
 	if (st == HL_OK)
 		st = hl_cascade_targets(P->c, P->c->set.dtmin, &qh, &qc, err);
 	if (st != HL_OK) {

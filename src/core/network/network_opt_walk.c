@@ -57,17 +57,26 @@ pick(rng *r, size_t n)
  * those streams' data. */
 typedef struct {
 	size_t i;
-	double q, c, v;
+	double q, c, v, wh, wc;
 	unsigned char act;
 } cell_save;
+
+/* One stream's data: its boundary temperatures (S + 1), then per stage the
+ * temperature after the process units, the heat before, the weights' sum
+ * and the utility inside; its utilities; its scalars. */
+#define ROW(P) (5 * (P)->S + 1)
+typedef struct {
+	double *d;
+	long *m;
+	double x[6];
+	long util;
+} row_save;
 
 typedef struct {
 	size_t na, nb, A[2], B[2];
 	cell_save *cs;
 	size_t ncs;
-	double *ta, *tb;  /* temperatures */
-	double hs[2][4], cs2[2][4];
-	long hu[2], cu[2];
+	row_save h[2], c[2];
 	double v, tac, ccap, cvsum;
 	size_t nact;
 	hl_opt_state *full;  /* the whole state, for a move on every load */
@@ -76,19 +85,33 @@ typedef struct {
 static int
 snap_init(const hl_opt_problem *P, snap *z)
 {
+	int ok = 1, i;
+
 	memset(z, 0, sizeof *z);
 	z->cs = malloc((2 * P->S * (P->nc + P->nh) + 8) * sizeof *z->cs);
-	z->ta = malloc((2 * (P->S + 1)) * sizeof *z->ta);
-	z->tb = malloc((2 * (P->S + 1)) * sizeof *z->tb);
-	return z->cs != NULL && z->ta != NULL && z->tb != NULL;
+	for (i = 0; i < 2; i++) {
+		z->h[i].d = malloc(ROW(P) * sizeof *z->h[i].d);
+		z->c[i].d = malloc(ROW(P) * sizeof *z->c[i].d);
+		z->h[i].m = malloc((P->S + 1) * sizeof *z->h[i].m);
+		z->c[i].m = malloc((P->S + 1) * sizeof *z->c[i].m);
+		ok &= z->h[i].d != NULL && z->c[i].d != NULL &&
+		    z->h[i].m != NULL && z->c[i].m != NULL;
+	}
+	return z->cs != NULL && ok;
 }
 
 static void
 snap_free(snap *z)
 {
+	int i;
+
 	free(z->cs);
-	free(z->ta);
-	free(z->tb);
+	for (i = 0; i < 2; i++) {
+		free(z->h[i].d);
+		free(z->c[i].d);
+		free(z->h[i].m);
+		free(z->c[i].m);
+	}
 }
 
 static void
@@ -114,7 +137,62 @@ keep_cell(snap *z, const hl_opt_state *s, size_t i)
 	c->q = s->q[i];
 	c->c = s->ccost[i];
 	c->v = s->cviol[i];
+	c->wh = s->wh[i];
+	c->wc = s->wc[i];
 	c->act = s->act[i];
+}
+
+/* The stream data of hot stream a (side 0) or cold stream b: pointers to
+ * its rows and scalars in s, so that save and restore share one list. */
+typedef struct {
+	double *t, *rows[4], *x[6];
+	long *m, *util;
+} stream_view;
+
+static stream_view
+view(const hl_opt_problem *P, hl_opt_state *s, int side, size_t j)
+{
+	stream_view v;
+	size_t S = P->S, o = j * S;
+
+	if (side == 0) {
+		v = (stream_view){ &s->th[j * (S + 1)], { &s->thm[o], &s->hq[o],
+		    &s->swh[o], &s->uh[o] }, { &s->hviol[j], &s->hend[j],
+		    &s->hecost[j], &s->heviol[j], &s->hmc[j], &s->hmv[j] },
+		    &s->muh[o], &s->hutil[j] };
+	} else {
+		v = (stream_view){ &s->tc[j * (S + 1)], { &s->tcm[o], &s->cq[o],
+		    &s->swc[o], &s->uc[o] }, { &s->cvs[j], &s->cend[j],
+		    &s->cecost[j], &s->ceviol[j], &s->cmc[j], &s->cmv[j] },
+		    &s->muc[o], &s->cutil[j] };
+	}
+	return v;
+}
+
+static void
+row_copy(const hl_opt_problem *P, hl_opt_state *s, int side, size_t j,
+	 row_save *r, int out)
+{
+	stream_view v = view(P, s, side, j);
+	size_t S = P->S, k;
+
+	if (out) {
+		memcpy(r->d, v.t, (S + 1) * sizeof *r->d);
+		for (k = 0; k < 4; k++)
+			memcpy(r->d + S + 1 + k * S, v.rows[k], S * sizeof *r->d);
+		memcpy(r->m, v.m, S * sizeof *r->m);
+		for (k = 0; k < 6; k++)
+			r->x[k] = *v.x[k];
+		r->util = *v.util;
+	} else {
+		memcpy(v.t, r->d, (S + 1) * sizeof *r->d);
+		for (k = 0; k < 4; k++)
+			memcpy(v.rows[k], r->d + S + 1 + k * S, S * sizeof *r->d);
+		memcpy(v.m, r->m, S * sizeof *r->m);
+		for (k = 0; k < 6; k++)
+			*v.x[k] = r->x[k];
+		*v.util = r->util;
+	}
 }
 
 static void
@@ -133,13 +211,7 @@ save(const hl_opt_problem *P, const hl_opt_state *s, snap *z)
 				if (s->act[j] || s->q[j] > 0.0 || s->keep[j])
 					keep_cell(z, s, j);
 			}
-		memcpy(z->ta + i * (S + 1), s->th + a * (S + 1),
-		    (S + 1) * sizeof *z->ta);
-		z->hs[i][0] = s->hviol[a];
-		z->hs[i][1] = s->hend[a];
-		z->hs[i][2] = s->hecost[a];
-		z->hs[i][3] = s->heviol[a];
-		z->hu[i] = s->hutil[a];
+		row_copy(P, (hl_opt_state *)s, 0, a, &z->h[i], 1);
 	}
 	for (i = 0; i < z->nb; i++) {
 		size_t b = z->B[i];
@@ -151,13 +223,7 @@ save(const hl_opt_problem *P, const hl_opt_state *s, snap *z)
 				if (s->act[j] || s->q[j] > 0.0 || s->keep[j])
 					keep_cell(z, s, j);
 			}
-		memcpy(z->tb + i * (S + 1), s->tc + b * (S + 1),
-		    (S + 1) * sizeof *z->tb);
-		z->cs2[i][0] = s->cvs[b];
-		z->cs2[i][1] = s->cend[b];
-		z->cs2[i][2] = s->cecost[b];
-		z->cs2[i][3] = s->ceviol[b];
-		z->cu[i] = s->cutil[b];
+		row_copy(P, (hl_opt_state *)s, 1, b, &z->c[i], 1);
 	}
 	z->v = s->v;
 	z->tac = s->tac;
@@ -169,7 +235,7 @@ save(const hl_opt_problem *P, const hl_opt_state *s, snap *z)
 static void
 restore(const hl_opt_problem *P, hl_opt_state *s, const snap *z)
 {
-	size_t i, S = P->S;
+	size_t i;
 
 	for (i = z->ncs; i-- > 0;) {
 		const cell_save *c = &z->cs[i];
@@ -177,30 +243,14 @@ restore(const hl_opt_problem *P, hl_opt_state *s, const snap *z)
 		s->q[c->i] = c->q;
 		s->ccost[c->i] = c->c;
 		s->cviol[c->i] = c->v;
+		s->wh[c->i] = c->wh;
+		s->wc[c->i] = c->wc;
 		s->act[c->i] = c->act;
 	}
-	for (i = 0; i < z->na; i++) {
-		size_t a = z->A[i];
-
-		memcpy(s->th + a * (S + 1), z->ta + i * (S + 1),
-		    (S + 1) * sizeof *z->ta);
-		s->hviol[a] = z->hs[i][0];
-		s->hend[a] = z->hs[i][1];
-		s->hecost[a] = z->hs[i][2];
-		s->heviol[a] = z->hs[i][3];
-		s->hutil[a] = z->hu[i];
-	}
-	for (i = 0; i < z->nb; i++) {
-		size_t b = z->B[i];
-
-		memcpy(s->tc + b * (S + 1), z->tb + i * (S + 1),
-		    (S + 1) * sizeof *z->tb);
-		s->cvs[b] = z->cs2[i][0];
-		s->cend[b] = z->cs2[i][1];
-		s->cecost[b] = z->cs2[i][2];
-		s->ceviol[b] = z->cs2[i][3];
-		s->cutil[b] = z->cu[i];
-	}
+	for (i = 0; i < z->na; i++)
+		row_copy(P, s, 0, z->A[i], (row_save *)&z->h[i], 0);
+	for (i = 0; i < z->nb; i++)
+		row_copy(P, s, 1, z->B[i], (row_save *)&z->c[i], 0);
 	s->v = z->v;
 	s->tac = z->tac;
 	s->ccap = z->ccap;
@@ -367,13 +417,104 @@ new_stage(const hl_opt_problem *P, const hl_opt_state *s, size_t a, size_t b,
 	    (size_t)(hi - lo + 1);
 }
 
-/* Set cell i to q (0 removes the unit, unless it must stay). */
+/* Set cell i to q (0 removes the unit, unless it must stay); a new unit
+ * starts as an isothermal branch. */
 static void
 set_load(hl_opt_state *s, size_t i, double q)
 {
 	if (!(q > HL_OPT_QEPS))
 		q = s->keep[i] ? s->q[i] : 0.0;
+	if (!(s->q[i] > HL_OPT_QEPS))
+		s->wh[i] = s->wc[i] = 1.0;
 	s->q[i] = q;
+}
+
+/* Branches in stage k of cell i's hot (side 0) or cold stream. */
+static int
+branches(const hl_opt_problem *P, const hl_opt_state *s, size_t i, int side)
+{
+	size_t k = i / (P->nh * P->nc), a = (i / P->nc) % P->nh, b = i % P->nc;
+	size_t x;
+	int n = 0;
+
+	if (side == 0) {
+		for (x = 0; x < P->nc; x++)
+			n += s->q[HL_OPT_CELL(P, k, a, x)] > HL_OPT_QEPS;
+	} else {
+		for (x = 0; x < P->nh; x++)
+			n += s->q[HL_OPT_CELL(P, k, x, b)] > HL_OPT_QEPS;
+	}
+	return n;
+}
+
+/* Start a move on one stream only (hot a: side 0, cold b: side 1). */
+static void
+begin_stream(const hl_opt_problem *P, const hl_opt_state *s, snap *z,
+	     int side, size_t j)
+{
+	z->na = z->nb = 0;
+	if (side == 0)
+		add_a(z, j);
+	else
+		add_b(z, j);
+	save(P, s, z);
+}
+
+/* The utility inside cell i's hot (side 0) or cold stream after stage k's
+ * process units: its load, and the end utility it would take from. */
+static double *
+mid_of(const hl_opt_problem *P, hl_opt_state *s, size_t i, int side,
+       double *end)
+{
+	size_t k = i / (P->nh * P->nc), a = (i / P->nc) % P->nh, b = i % P->nc;
+
+	*end = side == 0 ? s->hend[a] : s->cend[b];
+	return side == 0 ? &s->uh[a * P->S + k] : &s->uc[b * P->S + k];
+}
+
+/* Move a utility inside a stream: a part of the end's utility after a
+ * stage's process units, or back to the end, or a change of its load. */
+static int
+move_mid(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
+{
+	size_t i = any_active(P, s, r);
+	int side = unif(r) < 0.5;
+	size_t j = side == 0 ? (i / P->nc) % P->nh : i % P->nc;
+	double end, *u, x = unif(r);
+
+	begin_stream(P, s, z, side, j);
+	u = mid_of(P, s, i, side, &end);
+	if (*u > 0.0 && x < 0.3)
+		*u = 0.0;
+	else if (*u > 0.0 && x < 0.5)
+		*u += end;
+	else if (*u > 0.0)
+		*u = fmax(0.0, *u * (1.0 + (2.0 * unif(r) - 1.0) *
+		    pow(10.0, -2.0 * unif(r))));
+	else if (end > 0.0)
+		*u = end * sqrt(unif(r));
+	else
+		return 0;
+	return 1;
+}
+
+/* Change the flow shares of a split: one branch's weight by up to a
+ * factor of 3 either way. */
+static int
+move_weight(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
+{
+	size_t i = any_active(P, s, r);
+	int side = unif(r) < 0.5;
+	double f = pow(3.0, 2.0 * unif(r) - 1.0);
+
+	if (branches(P, s, i, side) < 2)
+		return 0;
+	begin(P, s, z, i);
+	if (side == 0)
+		s->wh[i] *= f;
+	else
+		s->wc[i] *= f;
+	return 1;
 }
 
 /* The utility left at the two ends of cell i's streams (kW). */
@@ -387,7 +528,7 @@ ends_of(const hl_opt_problem *P, const hl_opt_state *s, size_t i,
 
 /* One random move; returns 0 when none applies. */
 static int
-move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
+move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r, int iso)
 {
 	size_t n = count_active(P, s), i;
 	double u = unif(r), he, ce;
@@ -417,14 +558,18 @@ move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
 		    sqrt(unif(r)) : 0.1 * P->qscale * unif(r)));
 		return 1;
 	}
+	if (u < 0.28)
+		return iso ? 0 : move_weight(P, s, z, r);
+	if (u < 0.36)
+		return move_mid(P, s, z, r);
 	i = any_active(P, s, r);
 	begin(P, s, z, i);
-	if (u < 0.3) {                    /* remove */
+	if (u < 0.46) {                   /* remove */
 		set_load(s, i, 0.0);
-	} else if (u < 0.4) {             /* close an end */
+	} else if (u < 0.54) {            /* close an end */
 		ends_of(P, s, i, &he, &ce);
 		set_load(s, i, s->q[i] + (unif(r) < 0.5 ? he : ce));
-	} else if (u < 0.5) {             /* to the next stage */
+	} else if (u < 0.62) {            /* to the next stage */
 		size_t k = i / (P->nh * P->nc), j;
 
 		k = unif(r) < 0.5 ? (k == 0 ? 1 : k - 1) :
@@ -433,6 +578,10 @@ move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
 		if (s->keep[i])
 			return 0;
 		keep_cell(z, s, j);
+		if (!(s->q[j] > HL_OPT_QEPS)) {
+			s->wh[j] = s->wh[i];
+			s->wc[j] = s->wc[i];
+		}
 		s->q[j] += s->q[i];
 		s->q[i] = 0.0;
 	} else {                          /* perturb the load */
@@ -454,13 +603,12 @@ acceptable(const hl_opt_state *t, const hl_opt_state *cur, rng *r)
 	    unif(r) < ACCEPT_PROB;
 }
 
-/* Try cell i at load q; keep it when better. */
+/* Keep the state a move made when better than the snapshot's, else undo
+ * it. */
 static int
-try_load(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t i,
-	 double q, size_t *evals)
+keep_if_better(const hl_opt_problem *P, hl_opt_state *s, snap *z,
+	       size_t *evals)
 {
-	begin(P, s, z, i);
-	set_load(s, i, q);
 	apply(P, s, z);
 	(*evals)++;
 	if (z->v > 1e-9 ? s->v < z->v - 1e-9 || (s->v <= z->v + 1e-9 &&
@@ -469,6 +617,106 @@ try_load(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t i,
 		return 1;
 	restore(P, s, z);
 	return 0;
+}
+
+/* Try cell i at load q; keep it when better. */
+static int
+try_load(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t i,
+	 double q, size_t *evals)
+{
+	begin(P, s, z, i);
+	set_load(s, i, q);
+	return keep_if_better(P, s, z, evals);
+}
+
+/* The polish's variables, one index space: loads (m cells), hot and cold
+ * branch weights (m each), then the utilities inside the hot and the cold
+ * streams (S per stream). */
+static double *
+var_at(const hl_opt_problem *P, hl_opt_state *s, size_t v, int *kind,
+       size_t *cellp)
+{
+	size_t m = P->S * P->nh * P->nc;
+
+	*cellp = v % m;
+	if (v < 3 * m) {
+		*kind = (int)(v / m);
+		return v < m ? &s->q[v] : v < 2 * m ? &s->wh[v - m] :
+		    &s->wc[v - 2 * m];
+	}
+	v -= 3 * m;
+	*kind = v < P->nh * P->S ? 3 : 4;
+	*cellp = v < P->nh * P->S ? v / P->S : (v - P->nh * P->S) / P->S;
+	return v < P->nh * P->S ? &s->uh[v] : &s->uc[v - P->nh * P->S];
+}
+
+/* Try variable v at x; keep it when better. */
+static int
+try_var(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t v,
+	double x, size_t *evals)
+{
+	size_t j;
+	int kind;
+	double *p = var_at(P, s, v, &kind, &j);
+
+	if (kind == 0)
+		return try_load(P, s, z, j, x, evals);
+	if (kind < 3)
+		begin(P, s, z, j);
+	else
+		begin_stream(P, s, z, kind - 3, j);
+	*var_at(P, s, v, &kind, &j) = x;
+	(void)p;
+	return keep_if_better(P, s, z, evals);
+}
+
+/* One compass step on variable v with step h[v]: loads first try to take
+ * all their ends' utility, utilities inside a stream to take all of the
+ * end's or to leave; weights step by a factor. */
+static void
+polish_var(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t v,
+	   double *h, size_t *evals)
+{
+	size_t j;
+	int kind;
+	double x = *var_at(P, s, v, &kind, &j), he, ce;
+
+	if (kind == 0) {
+		ends_of(P, s, j, &he, &ce);
+		if ((he > 0.0 && try_load(P, s, z, j, x + he, evals)) ||
+		    (ce > 0.0 && ce != he && try_load(P, s, z, j, x + ce,
+		    evals)))
+			return;
+	} else if (kind > 2) {
+		double end = kind == 3 ? s->hend[j] : s->cend[j];
+
+		if ((end > 0.0 && try_var(P, s, z, v, x + end, evals)) ||
+		    try_var(P, s, z, v, 0.0, evals))
+			return;
+	}
+	if (h[v] < (kind == 1 || kind == 2 ? 1e-9 : 1e-9 * P->qscale))
+		return;
+	if (kind == 1 || kind == 2 ? try_var(P, s, z, v, x * (1.0 + h[v]),
+	    evals) || try_var(P, s, z, v, x / (1.0 + h[v]), evals) :
+	    try_var(P, s, z, v, x + h[v], evals) ||
+	    try_var(P, s, z, v, fmax(0.0, x - h[v]), evals))
+		h[v] = fmin(2.0 * h[v], kind == 1 || kind == 2 ? 1.0 : HUGE_VAL);
+	else
+		h[v] *= 0.5;
+}
+
+/* A variable the polish moves: a unit's load, the weight of a branch of a
+ * split, a utility inside a stream. */
+static int
+var_live(const hl_opt_problem *P, hl_opt_state *s, size_t v)
+{
+	size_t j;
+	int kind;
+	double x = *var_at(P, s, v, &kind, &j);
+
+	if (kind == 1 || kind == 2)
+		return s->q[j] > HL_OPT_QEPS && branches(P, s, j, kind - 1) > 1;
+	return x > (kind == 0 ? HL_OPT_QEPS : 0.0);
 }
 
 /* What a candidate of the greedy construction is worth: the cost it saves
@@ -566,36 +814,30 @@ hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max,
 size_t
 hl_opt_polish(const hl_opt_problem *P, hl_opt_state *s, size_t max)
 {
-	size_t m = P->S * P->nh * P->nc, i, evals = 0;
-	double *h = calloc(m + 1, sizeof *h), hmax;
+	size_t m = P->S * P->nh * P->nc, n = 3 * m + (P->nh + P->nc) * P->S;
+	size_t v, j, evals = 0;
+	double *h = calloc(n + 1, sizeof *h), hmax;
+	int kind;
 	snap z;
 
 	if (h == NULL || !snap_init(P, &z)) {
 		free(h);
 		return 0;
 	}
-	for (i = 0; i < m; i++)
-		h[i] = 0.1 * s->q[i];
+	for (v = 0; v < n; v++) {
+		double x = *var_at(P, s, v, &kind, &j);
+
+		h[v] = kind == 1 || kind == 2 ? 0.2 : 0.1 * x;
+	}
 	do {
 		hmax = 0.0;
-		for (i = 0; i < m && evals < max; i++) {
-			double he, ce, q = s->q[i];
-
-			if (!(q > HL_OPT_QEPS))
+		for (v = 0; v < n && evals < max; v++) {
+			if (!var_live(P, s, v))
 				continue;
-			ends_of(P, s, i, &he, &ce);
-			if ((he > 0.0 && try_load(P, s, &z, i, q + he,
-			    &evals)) || (ce > 0.0 && ce != he &&
-			    try_load(P, s, &z, i, q + ce, &evals)))
-				continue;
-			if (h[i] < 1e-9 * P->qscale)
-				continue;
-			if (try_load(P, s, &z, i, q + h[i], &evals) ||
-			    try_load(P, s, &z, i, q - h[i], &evals))
-				h[i] *= 2.0;
-			else
-				h[i] *= 0.5;
-			hmax = fmax(hmax, h[i]);
+			polish_var(P, s, &z, v, h, &evals);
+			var_at(P, s, v, &kind, &j);
+			hmax = fmax(hmax, kind == 1 || kind == 2 ?
+			    h[v] * P->qscale : h[v]);
 		}
 	} while (hmax >= 1e-9 * P->qscale && evals < max);
 	snap_free(&z);
@@ -603,9 +845,26 @@ hl_opt_polish(const hl_opt_problem *P, hl_opt_state *s, size_t max)
 	return evals;
 }
 
+/* A restart's kick (iterated local search, Lourenço, Martin & Stützle
+ * 2003): one to three units of the best state out, their heat back to the
+ * utilities, so that the walk leaves the best state's basin. */
+static void
+kick(const hl_opt_problem *P, hl_opt_state *s, rng *r)
+{
+	size_t n = 1 + pick(r, 3), t;
+
+	for (t = 0; t < n && s->nact > 1; t++) {
+		size_t i = any_active(P, s, r);
+
+		if (!s->keep[i])
+			s->q[i] = 0.0;
+		hl_opt_eval_all(P, s);
+	}
+}
+
 size_t
 hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s, hl_opt_state *best,
-	    uint64_t seed, size_t max, double deadline, int *capped)
+	    uint64_t seed, size_t max, double deadline, int iso, int *capped)
 {
 	rng r = { seed };
 	size_t evals = 0, stall = 0;
@@ -628,7 +887,7 @@ hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s, hl_opt_state *best,
 			*capped = 1;
 			break;
 		}
-		kind = move(P, s, &z, &r);
+		kind = move(P, s, &z, &r, iso);
 		if (kind == 0) {
 			evals++;
 			continue;
@@ -656,6 +915,7 @@ hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s, hl_opt_state *best,
 		}
 		if (++stall > restart) {
 			hl_opt_state_copy(P, s, best);
+			kick(P, s, &r);
 			stall = 0;
 		}
 	}
