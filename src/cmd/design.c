@@ -110,7 +110,9 @@ static const hl_option option_rows[] = {
 	HL_ROW_NUMBER("max-branches", "N", options, branches, 2.0, 1000.0,
 	    "at most N branches per split"),
 	HL_ROW_NUMBER("min-duty", "KW", options, min_duty, 0.0, 1e9,
-	    "no unit (utility units too) below KW kW"),
+	    "no unit (utility units too) below KW kW (default:\n"
+	    "process units only, 1 % of the largest stream duty;\n"
+	    "0 for none)"),
 	HL_ROW_NUMBER("min-area", "M2", options, min_area, 0.0, 1e7,
 	    "no unit below M2 m² (a fired heater has no area)"),
 	HL_ROW_NUMBER("max-shells", "N", options, shells, 1.0,
@@ -132,7 +134,7 @@ init(void *opts)
 {
 	options *o = opts;
 
-	o->emat = o->time_limit = NAN;
+	o->emat = o->time_limit = o->min_duty = NAN;
 	o->seed = 1;
 	o->threads = 2;
 	o->effort = 1;
@@ -470,7 +472,14 @@ opt_options(const options *o, run_state *s, hl_error *err)
 	x->no_splits = o->no_splits || set->no_splits;
 	x->max_branches = o->branches > 0 ? (int)o->branches :
 	    set->max_branches;
-	x->min_duty = o->min_duty > 0 ? o->min_duty : set->min_duty;
+	if (!isnan(o->min_duty))
+		x->min_duty = o->min_duty;
+	else if (set->given & HL_GIVEN_MIN_DUTY)
+		x->min_duty = set->min_duty;
+	else {
+		x->min_duty = hl_opt_auto_min_duty(s->c);
+		x->min_duty_auto = 1;
+	}
 	x->min_area = o->min_area > 0 ? o->min_area : set->min_area;
 	x->max_shells = o->shells > 0 ? (int)o->shells : set->max_shells;
 	if (!isnan(o->time_limit))

@@ -206,7 +206,8 @@ enum {
 	HL_GIVEN_INTEREST = 1u << 6, HL_GIVEN_LIFE = 1u << 7,
 	HL_GIVEN_CP_TOL = 1u << 8, HL_GIVEN_T_TOL = 1u << 9,
 	HL_GIVEN_TIME_LIMIT = 1u << 10, HL_GIVEN_EXCHANGER = 1u << 11,
-	HL_GIVEN_CURRENCY = 1u << 12, HL_GIVEN_COST = 1u << 13
+	HL_GIVEN_CURRENCY = 1u << 12, HL_GIVEN_COST = 1u << 13,
+	HL_GIVEN_MIN_DUTY = 1u << 14
 };
 
 typedef struct {

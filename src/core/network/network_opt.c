@@ -41,6 +41,17 @@ hl_network_optimise_fits(const hl_case *c)
 	return hot && cold;
 }
 
+double
+hl_opt_auto_min_duty(const hl_case *c)
+{
+	double m = 0.0;
+	size_t i;
+
+	for (i = 0; i < c->nstream; i++)
+		m = fmax(m, hl_stream_duty(&c->stream[i]));
+	return 0.01 * m;
+}
+
 void
 hl_opt_result_free(hl_opt_result *r)
 {
@@ -268,6 +279,63 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 	if (st == HL_OK && !(deadline > 0.0 && hl_opt_now() > deadline))
 		r->evals += hl_opt_polish(P, out, total / 10);
 	return st;
+}
+
+/* The default smallest unit (hl_opt_auto_min_duty) as a repair, not a
+ * limit of the walks: a walk that must step over small loads to move heat
+ * between units settles in worse basins. The search runs without it; the
+ * process units below it then leave, smallest first (their heat to the
+ * utilities), and a polish and a short walk under it follow. When that
+ * misses a limit the default is dropped and r says so. */
+static hl_status
+search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
+		   hl_opt_options *relaxed_out, hl_opt_state *out,
+		   hl_opt_result *r)
+{
+	hl_opt_options relaxed = *o;
+	hl_opt_state s, best;
+	size_t m = P->S * P->nh * P->nc, i, pickd, total = budget(P, o);
+	int capped = 0;
+	hl_status st;
+
+	relaxed.min_duty = 0.0;
+	relaxed.min_duty_auto = 0;
+	P->o = &relaxed;
+	st = search(P, &relaxed, out, r);
+	P->o = o;
+	if (st != HL_OK)
+		return st;
+	if (hl_opt_state_init(P, &s) != HL_OK)
+		return HL_EIO;
+	if (hl_opt_state_init(P, &best) != HL_OK) {
+		hl_opt_state_free(&s);
+		return HL_EIO;
+	}
+	hl_opt_state_copy(P, &s, out);
+	do {
+		pickd = m;
+		for (i = 0; i < m; i++)
+			if (s.q[i] > HL_OPT_QEPS && s.q[i] < o->min_duty &&
+			    !s.keep[i] && (pickd == m || s.q[i] < s.q[pickd]))
+				pickd = i;
+		if (pickd < m)
+			s.q[pickd] = 0.0;
+	} while (pickd < m);
+	hl_opt_eval_all(P, &s);
+	r->evals += hl_opt_polish(P, &s, total / 20);
+	r->evals += hl_opt_walk(P, &s, &best, mix(o->seed, 977), total / 20,
+	    0.0, 0, &capped);
+	if (best.v <= 1e-9) {
+		hl_opt_state_copy(P, out, &best);
+	} else {
+		*relaxed_out = relaxed;
+		P->o = relaxed_out;
+		r->min_duty_dropped = 1;
+		hl_opt_eval_all(P, out);
+	}
+	hl_opt_state_free(&s);
+	hl_opt_state_free(&best);
+	return HL_OK;
 }
 
 static hl_network *
@@ -563,7 +631,11 @@ keeps_limits(const hl_opt_problem *P, const hl_network *net)
 		const hl_network_unit *u = &net->unit[i];
 		int side;
 
-		if (u->duty < o->min_duty || u->area < o->min_area ||
+		int process = u->hot < P->c->nstream &&
+		    u->cold < P->c->nstream;
+
+		if ((u->duty < o->min_duty && (process || !o->min_duty_auto)) ||
+		    u->area < o->min_area ||
 		    (o->max_shells > 0 && u->shells > o->max_shells))
 			return 0;
 		for (side = 0; side < 2; side++) {
@@ -629,6 +701,7 @@ hl_network_optimise(const hl_case *c, const hl_opt_options *o,
 		    hl_opt_result **out, hl_error *err)
 {
 	hl_opt_problem P;
+	hl_opt_options relaxed;
 	hl_opt_state fin;
 	hl_opt_result *r = calloc(1, sizeof *r);
 	double t0 = hl_opt_now();
@@ -645,11 +718,13 @@ hl_network_optimise(const hl_case *c, const hl_opt_options *o,
 		st = hl_error_nomem(err);
 	if (st == HL_OK) {
 		r->stages = P.S;
-		st = search(&P, o, &fin, r);
+		st = o->min_duty_auto ? search_then_repair(&P, o, &relaxed,
+		    &fin, r) : search(&P, o, &fin, r);
 		if (st == HL_EIO)
 			hl_error_nomem(err);
 		if (st == HL_OK)
-			st = finish(c, o, &P, &fin, r, err);
+			st = finish(c, r->min_duty_dropped ? &relaxed : o, &P,
+			    &fin, r, err);
 		hl_opt_state_free(&fin);
 	}
 	hl_opt_problem_free(&P);

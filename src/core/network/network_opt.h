@@ -51,6 +51,10 @@ typedef struct {
 	const unsigned char *no_split;  /* per case stream or NULL */
 	int max_branches;         /* most branches per split, 0: no limit */
 	double min_duty;          /* kW per unit (utilities too), 0 */
+	int min_duty_auto;        /* 1: min_duty is hl_opt_auto_min_duty's:
+				     process units only (a utility trim
+				     would cost more to avoid), and the
+				     report says so */
 	double min_area;          /* m² per unit, 0 */
 	int max_shells;           /* in series per unit, 0: no limit */
 	const hl_network *start;  /* a network of the case's parties, NULL */
@@ -91,6 +95,8 @@ typedef struct {
 	size_t nchange;
 	hl_opt_change *change;
 	char binding[400];        /* the limits that bind, "" when none */
+	int min_duty_dropped;     /* 1: no network kept the default smallest
+				     unit (min_duty_auto): it is dropped */
 } hl_opt_result;
 
 /* Optimise the network of case c (its utilities must carry prices; a case
@@ -98,6 +104,11 @@ typedef struct {
 hl_status hl_network_optimise(const hl_case *c, const hl_opt_options *o,
 			      hl_opt_result **out, hl_error *err);
 void hl_opt_result_free(hl_opt_result *r);
+
+/* The smallest unit when the engineer sets none: 1 % of the largest
+ * process stream duty (kW). Below it a unit's piping, instruments and
+ * plot space outweigh its heat; common practice, no source. */
+double hl_opt_auto_min_duty(const hl_case *c);
 
 /* 1 when c suits the optimiser: utilities with prices of both kinds. */
 int hl_network_optimise_fits(const hl_case *c);

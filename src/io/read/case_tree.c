@@ -358,8 +358,10 @@ read_design(walk *w, xmlNodePtr n)
 		s->max_branches = (int)num(n, "max-branches");
 	if (!isnan(num(n, "max-shells")))
 		s->max_shells = (int)num(n, "max-shells");
-	if (!isnan(num(n, "min-duty")))
+	if (!isnan(num(n, "min-duty"))) {
 		s->min_duty = num(n, "min-duty");
+		s->given |= HL_GIVEN_MIN_DUTY;
+	}
 	if (!isnan(num(n, "min-area")))
 		s->min_area = num(n, "min-area");
 	if (s->max_branches == 1)

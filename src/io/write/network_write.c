@@ -250,10 +250,16 @@ text_summary(FILE *fp, const hl_network *net)
 	if (net->restriction > 0.0)
 		fprintf(fp, "Match rules add    %10.*f %s to each\n",
 		    HL_DIG_Q(1), hl_show_q(net->restriction), HL_SYM_Q);
-	if (net->penalty > 0.0)
+	/* The placement explains its rise in notes; a least-cost network
+	 * has none: its rise is energy bought instead of area and units. */
+	if (net->penalty > 0.0 && net->nnote > 0)
 		fprintf(fp, "Placement adds     %10.*f %s to each (see the "
 		    "notes)\n", HL_DIG_Q(1), hl_show_q(net->penalty),
 		    HL_SYM_Q);
+	else if (net->penalty > 0.0)
+		fprintf(fp, "Energy traded      %10.*f %s more of each (cheaper "
+		    "than the area and units to save it)\n", HL_DIG_Q(1),
+		    hl_show_q(net->penalty), HL_SYM_Q);
 	fprintf(fp, "Units              %10zu for %zu matches, %zu stream "
 	    "split%s\n", net->nunit, net->nmatch, net->nsplit,
 	    net->nsplit == 1 ? "" : "s");
