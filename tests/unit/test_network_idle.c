@@ -198,6 +198,40 @@ test_utility_path(void **state)
 	free(f);
 }
 
+/* A sliver that only a dearer utility could take stays: C 100 -> 200 °C
+ * (cp 1 kW/K, 100 kW), LP steam at 150 °C (20 per MWh, at most 0.05 kW
+ * available) and HP steam at 250 °C (30 per MWh); the least-cost mix is
+ * all the LP there is and HP for the rest, as the matches give. Taking
+ * the LP heater out would leave the same 100 kW of steam at a dearer mix
+ * with no penalty to announce it, which the check would flag: it stays,
+ * and the network is sound. */
+static void
+test_dearer_mix_stays(void **state)
+{
+	netfix *f = fix_new(10.0);
+	size_t c = netfix_stream(f, "C", 100, 200, 1.0, NAN);
+	size_t lp = netfix_utility(f, "LP", HL_HOT, 150, 150, 20, NAN);
+	size_t hp = netfix_utility(f, "HP", HL_HOT, 250, 250, 30, NAN);
+	hl_network_input in;
+	hl_network *net = NULL;
+	hl_error err;
+
+	(void)state;
+	f->p[lp].max_load = 0.05;
+	f->qh = 100;
+	f->qc = 0;
+	netfix_match(f, lp, c, 0.05, 150, 150, 100, 100.05);
+	netfix_match(f, hp, c, 99.95, 250, 250, 100.05, 200);
+	netfix_input(f, &in);
+	assert_int_equal(hl_network_place(&in, &net, &err), HL_OK);
+	assert_int_equal(net->nunit, 2);
+	assert_non_null(unit_of(net, "LP", "C"));
+	assert_true(net->penalty == 0.0);
+	assert_sound(net);
+	hl_network_free(net);
+	free(f);
+}
+
 /* The helper on a placement state by hand: C 50 -> 150 °C (cp 1, 100 kW)
  * split into two branches, H1-C (99.95 kW) and H2-C (0.05 kW); H1 200 ->
  * 60 °C (cp 1, 140 kW) then cooled by water (40.05 kW), H2 110 -> 100 °C
@@ -277,6 +311,7 @@ main(void)
 	const struct CMUnitTest tests[] = {
 		cmocka_unit_test(test_loop_renumbers),
 		cmocka_unit_test(test_utility_path),
+		cmocka_unit_test(test_dearer_mix_stays),
 		cmocka_unit_test(test_split_branch),
 	};
 

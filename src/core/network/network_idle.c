@@ -30,6 +30,8 @@
 #define IDLE_DEPTH 3
 /* Plans evaluated per idle unit, the most promising first. */
 #define IDLE_MAX_PLANS 256
+/* Paths kept per side (the plans are their pairs). */
+#define IDLE_MAX_PATHS 64
 
 typedef struct {
 	size_t n;
@@ -136,23 +138,22 @@ other(const hl_network_unit *u, size_t p)
 }
 
 /* Extend path w from party p, which must exchange d more (sign +1) or less
- * (-1) through another unit than w's last (or than the idle unit k). A
- * path ends at a utility, or, from the hot side, on `close` (the idle
- * unit's cold stream, which needs d more). Parties w passed are not
- * visited again (seen). */
+ * (-1) through another unit than w's last (or than the idle unit k), and
+ * keep the paths of exactly `want` units. A path ends at a utility, or,
+ * from the hot side, on `close` (the idle unit's cold stream, which needs d
+ * more). Process streams w passed (seen) are not visited again. */
 static hl_status
 walk(const hl_net_place *P, size_t k, size_t p, int sign, size_t close,
-     double d, idle_path *w, size_t *seen, size_t nseen, idle_paths *out)
+     double d, size_t want, idle_path *w, size_t *seen, size_t nseen,
+     idle_paths *out)
 {
 	const hl_network *net = P->net;
 	size_t e, i;
 
-	if (w->n == IDLE_DEPTH)
-		return HL_OK;
-	for (e = 0; e < net->nunit; e++) {
+	for (e = 0; e < net->nunit && out->n < IDLE_MAX_PATHS; e++) {
 		const hl_network_unit *u = &net->unit[e];
 		size_t q;
-		int loop, again = 0;
+		int loop, end, again = 0;
 		hl_status st = HL_OK;
 
 		if (e == k || u->duty <= 0.0 || (u->hot != p && u->cold != p) ||
@@ -164,18 +165,19 @@ walk(const hl_net_place *P, size_t k, size_t p, int sign, size_t close,
 		for (i = 0; i < nseen; i++)
 			again |= seen[i] == q;
 		loop = q == close && sign > 0;
-		if (again && !loop)
+		end = loop || net->party[q].utility;
+		if (again && !end)
 			continue;
 		w->u[w->n] = e;
 		w->sign[w->n] = sign;
 		w->n++;
 		w->loop = loop;
-		if (net->party[q].utility || loop)
+		if (end && w->n == want)
 			st = paths_push(out, w);
-		else {
+		else if (!end && w->n < want) {
 			seen[nseen] = q;
-			st = walk(P, k, q, -sign, close, d, w, seen, nseen + 1,
-			    out);
+			st = walk(P, k, q, -sign, close, d, want, w, seen,
+			    nseen + 1, out);
 		}
 		w->n--;
 		w->loop = 0;
@@ -186,22 +188,25 @@ walk(const hl_net_place *P, size_t k, size_t p, int sign, size_t close,
 }
 
 /* The paths from party p (the idle unit's hot or cold party) that give it
- * d more exchange; none when p is a utility (its load simply changes). */
+ * d more exchange, shortest first, at most IDLE_MAX_PATHS; one empty path
+ * when p is a utility (its load simply changes). */
 static hl_status
 side_paths(const hl_net_place *P, size_t k, size_t p, size_t close,
 	   idle_paths *out)
 {
 	const hl_network_unit *u = &P->net->unit[k];
-	size_t seen[2 * IDLE_DEPTH + 2];
+	size_t seen[IDLE_DEPTH + 2], want;
 	idle_path w;
-	hl_status st;
+	hl_status st = HL_OK;
 
 	memset(&w, 0, sizeof w);
 	if (P->net->party[p].utility)
 		return paths_push(out, &w);
-	seen[0] = u->hot;
-	seen[1] = u->cold;
-	st = walk(P, k, p, +1, close, u->duty, &w, seen, 2, out);
+	for (want = 1; want <= IDLE_DEPTH && st == HL_OK; want++) {
+		seen[0] = u->hot;
+		seen[1] = u->cold;
+		st = walk(P, k, p, +1, close, u->duty, want, &w, seen, 2, out);
+	}
 	return st;
 }
 
@@ -415,6 +420,19 @@ plan_apply(hl_net_place *P, size_t k, const idle_plan *pl)
 	return hl_net_score_now(P);
 }
 
+/* Below the targets is not a placement's to choose; nor a dearer mix of
+ * the same utility total: that would leave the least-cost mix unannounced
+ * (the check compares a network with no penalty against it). */
+static int
+allowed(const hl_network *net, const idle_plan *pl)
+{
+	double tol = 1e-9 * fmax(1.0, fmax(net->qh_target, net->penalty));
+
+	if (net->penalty + pl->dq < -tol)
+		return 0;
+	return !(net->penalty + pl->dq <= tol && pl->dcost > 1e-9);
+}
+
 /* Relieve idle unit k by the best feasible plan; 1 when one was applied. */
 static hl_status
 relieve(hl_net_place *P, size_t k, int *done)
@@ -433,9 +451,7 @@ relieve(hl_net_place *P, size_t k, int *done)
 	for (i = 0; st == HL_OK && i < n && tried < IDLE_MAX_PLANS; i++) {
 		hl_net_score sc;
 
-		/* Below the targets is not a placement's to choose. */
-		if (P->net->penalty + pl[i].dq < -1e-9 * fmax(1.0,
-		    P->net->qh_target))
+		if (!allowed(P->net, &pl[i]))
 			continue;
 		if (best >= 0 && !same_class(&pl[i], &pl[best]))
 			break;
