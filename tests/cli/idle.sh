@@ -32,6 +32,12 @@ check_exit 0 hl design "$L"
 least=$(text_least "$WORK/stdout")
 if above "$least"; then pass; else fail "latent.csv: a unit of $least kW"; fi
 check_grep "Units                       4 for 6 matches" "$WORK/stdout"
+# No loop can carry the 0.04 kW with every approach kept at EMAT 10 K:
+# oil to feed would take it and heat the feed to 50 + 180.01/3 = 110.0033
+# °C against oil at 120 °C, 0.0033 K short; so the feed's heater and the
+# oil's cooler take it, and the penalty shows its digits.
+check_grep "Placement adds          0.040 kW to each (see the notes)" "$WORK/stdout"
+check_grep "the placement needs 0.04 kW more hot and cold utility than the matches: the" "$WORK/stdout"
 check_grep "the match vapour to feed (0.04 kW) is left out" "$WORK/stdout"
 check_grep "the match oil to reboiler (0.04 kW) is left out" "$WORK/stdout"
 check_exit 0 hl design "$L" --format csv -o "$WORK/n.csv"
@@ -40,6 +46,13 @@ if above "$least"; then pass; else fail "latent.csv (CSV): a unit of $least kW";
 check_exit 0 hl design "$L" --format xml -o "$WORK/n.xml"
 check_exit 0 hl check "$WORK/n.xml"
 check_grep "4 exchangers, 4 streams, 2 utilities: sound, 0 problems" "$WORK/stdout"
+# At EMAT 9.99 K that loop keeps every approach: no utility is added.
+check_exit 0 hl design "$L" --emat 9.99 --format xml -o "$WORK/e.xml"
+check_exit 0 hl check "$WORK/e.xml"
+check_grep "4 exchangers, 4 streams, 2 utilities: sound, 0 problems" "$WORK/stdout"
+check_exit 0 hl design "$L" --emat 9.99
+check_grep "Units                       4 for 6 matches" "$WORK/stdout"
+if grep -q "Placement adds" "$WORK/stdout"; then fail "EMAT 9.99: a penalty"; else pass; fi
 
 # With the utility table, the fewest-units path (--method units): one
 # sliver (oil to reboiler) in the matches, none in the network.

@@ -250,10 +250,11 @@ text_summary(FILE *fp, const hl_network *net)
 	if (net->restriction > 0.0)
 		fprintf(fp, "Match rules add    %10.*f %s to each\n",
 		    HL_DIG_Q(1), hl_show_q(net->restriction), HL_SYM_Q);
+	/* A sliver (the heat of matches left out as idle) shows its digits. */
 	if (net->penalty > 0.0)
 		fprintf(fp, "Placement adds     %10.*f %s to each (see the "
-		    "notes)\n", HL_DIG_Q(1), hl_show_q(net->penalty),
-		    HL_SYM_Q);
+		    "notes)\n", HL_DIG_Q(net->penalty < 0.05 ? 3 : 1),
+		    hl_show_q(net->penalty), HL_SYM_Q);
 	fprintf(fp, "Units              %10zu for %zu matches, %zu stream "
 	    "split%s\n", net->nunit, net->nmatch, net->nsplit,
 	    net->nsplit == 1 ? "" : "s");
