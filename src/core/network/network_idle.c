@@ -13,11 +13,14 @@
  * a path of units that alternately carry d more and d less (the path method
  * of energy relaxation, turned round: Linnhoff & Hindmarsh 1983 [from
  * memory]), from each of its process streams to a utility, or round a loop
- * from its hot stream back to its cold one (then no utility changes). Every
- * plan of paths up to IDLE_DEPTH units a side is evaluated in full (every
- * approach must hold); the one that adds the least utility wins, then the
- * least energy cost, then the least capital (or area). An idle unit that no
- * plan relieves stays. Stages are renumbered by the evaluation.
+ * from its hot stream back to its cold one (then no utility changes). The
+ * plans of paths up to IDLE_DEPTH units a side are ranked by the utility
+ * they add, then the energy cost, and evaluated in full in that order (at
+ * most IDLE_MAX_PLANS); the first rank with a plan that keeps every
+ * approach gives the one of least capital (or area). A plan below the
+ * targets, or one that makes the mix dearer with no penalty to show for
+ * it, is refused; an idle unit that no plan relieves stays. Stages are
+ * renumbered by the evaluation.
  */
 #include <math.h>
 #include <stdint.h>
@@ -433,7 +436,8 @@ allowed(const hl_network *net, const idle_plan *pl)
 	return !(net->penalty + pl->dq <= tol && pl->dcost > 1e-9);
 }
 
-/* Relieve idle unit k by the best feasible plan; 1 when one was applied. */
+/* Relieve idle unit k by the best feasible plan; *done = 1 when one was
+ * applied. */
 static hl_status
 relieve(hl_net_place *P, size_t k, int *done)
 {
