@@ -777,10 +777,11 @@ warn(const run_state *s)
 	if (net->penalty > 0.0) {
 		double e = hl_network_emat_hint(&s->feed.in);
 
-		fprintf(stderr, "heatloom: warning: the network uses %.1f kW "
+		/* A sliver (the heat of idle matches) shows its digits. */
+		fprintf(stderr, "heatloom: warning: the network uses %.*f kW "
 		    "more hot and cold utility than the targets: no placement "
 		    "of the matches keeps every approach (see the notes)\n",
-		    net->penalty);
+		    net->penalty < 0.05 ? 3 : 1, net->penalty);
 		if (!isnan(e))
 			fprintf(stderr, "heatloom: with --emat %g the matches "
 			    "place at the targets\n", e);

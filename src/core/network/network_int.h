@@ -19,6 +19,11 @@
 #define HL_NET_VTOL 1e-6
 /* The smallest branch share a split may give. */
 #define HL_NET_SMIN 0.02
+/* A unit is idle at or below this fraction of the duty of the smaller of
+ * its process streams, and its heat nil at or below HL_NET_ZERO of it
+ * (network_idle.c). */
+#define HL_NET_IDLE 1e-3
+#define HL_NET_ZERO 1e-9
 
 typedef struct {
 	size_t n, cap;
@@ -127,5 +132,13 @@ hl_status hl_net_attempt(const hl_network_input *in, hl_network **out,
 hl_status hl_net_relax(hl_net_place *P, hl_error *err);
 /* Largest duty (kW) unit k can carry where it stands (after hl_net_eval). */
 double hl_net_max_duty(const hl_net_place *P, size_t k);
+
+/* Idle units (network_idle.c): take out every unit of nil heat, and every
+ * idle one whose heat a path of other units can carry with every approach
+ * kept (net->penalty grows by the utility that adds); stages renumbered,
+ * the state evaluated. Errors: HL_EIO. */
+hl_status hl_net_drop_idle(hl_net_place *P, hl_error *err);
+/* kW at or below which a unit between parties hot and cold is idle. */
+double hl_net_idle_limit(const hl_network *net, size_t hot, size_t cold);
 
 #endif

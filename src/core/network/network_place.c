@@ -7,7 +7,8 @@
  *  2. if an approach is broken: insertion moves on the series orders, then
  *     splits of runs of stages with searched shares, until none helps;
  *  3. if still broken: relaxation (network_relax.c) moves heat to
- *     utilities and reports the energy penalty;
+ *     utilities and reports the energy penalty; units of next to no heat
+ *     are taken out (network_idle.c);
  *  4. improvement: splits that series can do without are undone, then the
  *     series orders and split shares are searched for the least cost (or
  *     area);
@@ -288,8 +289,12 @@ search(hl_net_place *P, long *worst, double *keep, hl_error *err)
 		st = hl_net_relax(P, err);
 		if (st != HL_OK)
 			return st;
-		cur = hl_net_score_now(P);
 	}
+	/* Slivers of heat, from the matches or from relaxing, are no units. */
+	st = hl_net_drop_idle(P, err);
+	if (st != HL_OK)
+		return st;
+	cur = hl_net_score_now(P);
 	cur = hl_net_search_unsplit(P, cur, &st);
 	if (st == HL_OK)
 		cur = hl_net_search_order(P, cur, &st);

@@ -363,6 +363,7 @@ note_changes(hl_network *net, const hl_network_input *in, const mlist *L,
 {
 	size_t i, k, j;
 	hl_status st = HL_OK;
+	double idle = 0.0;      /* kW of the matches left out as idle */
 
 	for (k = 0; k < in->nmatch && st == HL_OK; k++) {
 		const hl_network_match *m = &in->match[k];
@@ -387,7 +388,15 @@ note_changes(hl_network *net, const hl_network_input *in, const mlist *L,
 				sum += net->unit[i].duty;
 				n++;
 			}
-		if (n == 0)
+		if (n == 0 && want <= hl_net_idle_limit(net, m->hot,
+		    m->cold)) {
+			idle += want;
+			st = hl_network_add_note(net, err, "the match %s to %s "
+			    "(%.2g kW) is left out: under %g %% of its "
+			    "streams' duties, too little heat for a unit; the "
+			    "other units and the utilities carry it", h, c,
+			    want, 100.0 * HL_NET_IDLE);
+		} else if (n == 0)
 			st = hl_network_add_note(net, err, "the match %s to %s "
 			    "(%.1f kW) is dropped: no placement keeps its "
 			    "approach", h, c, want);
@@ -417,11 +426,15 @@ note_changes(hl_network *net, const hl_network_input *in, const mlist *L,
 			    net->party[u->hot].name, net->party[u->cold].name,
 			    u->duty);
 	}
-	if (st == HL_OK && net->penalty > 1e-9 * fmax(1.0, net->qh))
+	if (st == HL_OK && net->penalty > idle + 1e-9 * fmax(1.0, net->qh))
 		st = hl_network_add_note(net, err, "the placement needs "
 		    "%.1f kW more hot and cold utility than the matches: "
 		    "their loads allow no placement that keeps every approach",
 		    net->penalty);
+	else if (st == HL_OK && net->penalty > 1e-9 * fmax(1.0, net->qh))
+		st = hl_network_add_note(net, err, "the placement needs "
+		    "%.2g kW more hot and cold utility than the matches: the "
+		    "heat of the matches left out", net->penalty);
 	return st;
 }
 

@@ -250,12 +250,13 @@ text_summary(FILE *fp, const hl_network *net)
 	if (net->restriction > 0.0)
 		fprintf(fp, "Match rules add    %10.*f %s to each\n",
 		    HL_DIG_Q(1), hl_show_q(net->restriction), HL_SYM_Q);
-	/* The placement explains its rise in notes; a least-cost network
+	/* The placement explains its rise in notes (a sliver, the heat of
+	 * matches left out as idle, shows its digits); a least-cost network
 	 * has none: its rise is energy bought instead of area and units. */
 	if (net->penalty > 0.0 && net->nnote > 0)
 		fprintf(fp, "Placement adds     %10.*f %s to each (see the "
-		    "notes)\n", HL_DIG_Q(1), hl_show_q(net->penalty),
-		    HL_SYM_Q);
+		    "notes)\n", HL_DIG_Q(net->penalty < 0.05 ? 3 : 1),
+		    hl_show_q(net->penalty), HL_SYM_Q);
 	else if (net->penalty > 0.0)
 		fprintf(fp, "Energy traded      %10.*f %s more of each (cheaper "
 		    "than the area and units to save it)\n", HL_DIG_Q(1),
