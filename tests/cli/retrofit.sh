@@ -97,6 +97,30 @@ if [ -n "${XMLLINT:-}" ]; then
 	check_grep "reuses with area-today" "$WORK/stderr"
 fi
 
+# Utilities with their own type and cost law (kemp4-utilities-typed.csv):
+# each proposal's network carries them, so that `check` prices its units
+# again by the same laws.
+if [ -n "${XMLLINT:-}" ]; then
+	check_exit 0 hl retrofit "$K4" --utilities "$DATA/good/kemp4-utilities-typed.csv" \
+		--network "$N4" --format xml -o "$WORK/typed.xml"
+	r=/results/retrofit
+	n=$(xpath "count($r/proposal)" "$WORK/typed.xml")
+	[ "$n" -ge 1 ] && pass || fail "no proposal with typed utilities"
+	[ "$(xpath "count($r/proposal/network/utility[@name='steam' and @cost-b = 1200]) = $n and count($r/proposal/network/utility[@name='cooling water' and @type='plate']) = $n" "$WORK/typed.xml")" = true ] &&
+		pass || fail "the utilities' laws and types in the proposals' networks"
+	i=1
+	while [ "$i" -le "$n" ]; do
+		{
+			echo '<results generator="test">'
+			xpath "$r/proposal[$i]/network" "$WORK/typed.xml"
+			echo '</results>'
+		} >"$WORK/typed$i.xml"
+		check_exit 0 hl check "$WORK/typed$i.xml"
+		check_grep "sound, 0 problems" "$WORK/stdout"
+		i=$((i + 1))
+	done
+fi
+
 # Today's network from the case file, fixed costs from its <cost>: the
 # output says they were given and prices with them.
 if [ -n "${XMLLINT:-}" ]; then

@@ -221,7 +221,8 @@ add_trim(hl_network *net, size_t p, double gap, char *why, size_t nwhy)
 		u.hot_stage = rf_stages(net, p) + 1;
 	else
 		u.cold_stage = rf_stages(net, p) + 1;
-	u.type = net->set.exchanger;
+	/* The type the case fixes for the pair, else the utility's own. */
+	u.type = hl_network_unit_type(net, u.hot, u.cold);
 	u.shells = 1;
 	u.held = 1;
 	return hl_network_add_unit(net, &u, NULL) == HL_OK ? 0 : -1;

@@ -174,83 +174,20 @@ set_emat(hl_network *net)
 	net->set.emat = emat * (1.0 - 1e-9);
 }
 
-/* The case's process streams in case order, then its utilities with
- * today's loads: party i is stream i, party nstream + k utility k. */
-static hl_status
-add_parties(const hl_case *c, const hl_existing *ex, hl_network *net,
-	    hl_error *err)
-{
-	size_t i;
-	hl_status st = hl_network_add_streams(c, net, err);
-
-	for (i = 0; i < c->nutil && st == HL_OK; i++) {
-		const hl_utility *u = &c->util[i];
-		hl_network_party q;
-
-		memset(&q, 0, sizeof q);
-		q.name = u->name;
-		q.kind = u->kind;
-		q.utility = 1;
-		q.supply = u->supply;
-		q.target = u->target;
-		q.h = u->h;
-		q.dt_contrib = u->dt_contrib;
-		q.load = ex->util_load[i];
-		q.price = u->price;
-		q.max_load = u->max_load;
-		st = hl_network_add_party(net, &q, err);
-	}
-	return st;
-}
-
-/* The case's type for every hot-cold pair, so that a unit the search adds
- * (hl_network_unit_type) is of the type the engineer fixed for it. */
-static hl_status
-pair_types(const hl_case *c, hl_network *net, hl_error *err)
-{
-	size_t h, k, n = 0;
-
-	net->typed = malloc(net->nparty * net->nparty * sizeof *net->typed +
-	    1);
-	if (net->typed == NULL)
-		return hl_error_nomem(err);
-	for (h = 0; h < net->nparty; h++)
-		for (k = 0; k < net->nparty; k++) {
-			hl_network_typed *t = &net->typed[n];
-
-			if (net->party[h].kind != HL_HOT ||
-			    net->party[k].kind != HL_COLD)
-				continue;
-			t->hot = (long)h;
-			t->cold = (long)k;
-			t->type = hl_case_pair_type(c, net->party[h].name,
-			    net->party[k].name);
-			n++;
-		}
-	net->ntyped = n;
-	return HL_OK;
-}
-
 hl_status
 hl_rfit_today(const hl_case *c, const hl_existing *ex, hl_network **out,
 	      hl_error *err)
 {
-	hl_network *net = hl_network_create();
+	hl_network *net = NULL;
 	size_t count[3] = { 0, 0, 0 }, i;
-	hl_status st = HL_OK;
+	/* The parties, their types and cost laws and the case's type rules as
+	 * design's searches build them (network_case.c), so that today's
+	 * units and the ones a proposal adds are priced by the same laws. */
+	hl_status st = hl_network_of_case(c, ex->util_load, &net, err);
 
 	*out = NULL;
-	if (net == NULL)
-		return hl_error_nomem(err);
-	net->set = c->set;
-	net->set.currency = NULL;
-	if (c->set.currency != NULL &&
-	    (net->set.currency = strdup(c->set.currency)) == NULL)
-		st = hl_error_nomem(err);
-	if (st == HL_OK)
-		st = add_parties(c, ex, net, err);
-	if (st == HL_OK)
-		st = pair_types(c, net, err);
+	if (st != HL_OK)
+		return st;
 	for (i = 0; i < ex->nunit && st == HL_OK; i++)
 		st = add_unit(c, &ex->unit[i], net, count, err);
 	for (i = 0; i < c->nstream && st == HL_OK; i++)

@@ -31,7 +31,8 @@ limits(FILE *fp, const hl_case *c, const hl_rfit_out *w)
 	    o->max_changes == 1 ? "" : "s");
 	fprintf(fp, "Fixed costs: a re-pipe %.0f %s (%s), a new unit %.0f %s "
 	    "on top of its shells (%s); area and shells by the law a + "
-	    "b·A^c per shell of each unit's type.\n", o->repipe_cost, cur(c), w->repipe_given ?
+	    "b·A^c per shell of each unit's type, or of its utility where "
+	    "that gives its own.\n", o->repipe_cost, cur(c), w->repipe_given ?
 	    "from the case" : "illustrative default: set <cost repipe>",
 	    o->unit_cost, cur(c), w->unit_given ? "from the case" :
 	    "illustrative default: set <cost new-unit>");
