@@ -195,7 +195,8 @@ check_proposal(const run *z, const hl_rfit_opts *o, const hl_rfit_proposal *p)
 		if (m->kind == HL_RFIT_NEW_UNIT || m->kind == HL_RFIT_TRIM)
 			fixed += o->unit_cost;
 		moves += m->kind != HL_RFIT_TRIM &&
-		    m->kind != HL_RFIT_UTILITY_AREA;
+		    m->kind != HL_RFIT_UTILITY_AREA &&
+		    m->kind != HL_RFIT_HEATER_DUTY;
 	}
 	near(p->investment, inv, TOL_MONEY, "investment from modifications");
 	near(p->investment, p->net->capital + fixed, TOL_MONEY,
@@ -564,6 +565,76 @@ test_utility_cost_law(void **state)
 	hl_case_free(c);
 }
 
+/* A fired heater is rated for today's duty: a proposal that fires it
+ * harder buys the firing beyond it. Taking E2 out leaves C1 (20 -> 135 °C,
+ * 2 kW/K) to S-1 alone: 230 kW against 140 today (the first law), so
+ * 90 kW of firing bought as one heater, priced by the heater utility's own
+ * law a + b·Q^c with Q in MW (exchanger.h; the power-law form of Smith,
+ * Chemical Process Design and Integration, 2005, ch. 2, from memory;
+ * values invented here). Today it costs nothing; the network check then
+ * refuses the plant without the firing bought. */
+static void
+test_fired_heater_rating(void **state)
+{
+	hl_utility fg;
+	hl_rfit_opts o;
+	hl_rfit_proposal p;
+	hl_case *c;
+	run z;
+	const hl_rfit_mod *m;
+	hl_network_unit *s1;
+	hl_netcheck *k = NULL;
+	double want = 50000.0 + 150000.0 * pow(0.09, 0.75);
+	size_t i;
+
+	(void)state;
+	memset(&fg, 0, sizeof fg);
+	fg.name = (char *)"flue gas";
+	fg.kind = HL_HOT;
+	fg.supply = 800.0;
+	fg.target = 300.0;
+	fg.price = 30.0;
+	fg.h = fg.max_load = fg.dt_contrib = NAN;
+	fg.type_given = 1;
+	fg.type = HL_EXCH_FIRED_HEATER;
+	fg.cost_given = 1;
+	fg.cost_a = 50000.0;
+	fg.cost_b = 150000.0;
+	fg.cost_c = 0.75;
+	c = kemp4_plant(&fg);
+	hl_rfit_opts_default(&o);
+	try_move(c, &o, "E2", HL_RFIT_REMOVE, &z, &p);
+	s1 = &z.today->unit[today_unit(z.today, "S-1")];
+	assert_int_equal(s1->type, HL_EXCH_FIRED_HEATER);
+	near(s1->duty_today, 140.0, 1e-12, "S-1 rated at today's duty");
+	near(s1->cost, 0.0, 0.0, "S-1 today costs nothing");
+	s1 = &p.net->unit[today_unit(p.net, "S-1")];
+	near(s1->duty, 230.0, 1e-9, "S-1 without E2");
+	near(s1->duty_added, 90.0, 1e-9, "firing bought");
+	assert_int_equal(s1->shells_added, 1);
+	near(s1->cost, want, 1e-12, "one heater of 0.09 MW by the law");
+	m = mod_of(&p, HL_RFIT_HEATER_DUTY);
+	assert_string_equal(m->unit, "S-1");
+	near(m->duty_added, 90.0, 1e-9, "heater-duty modification");
+	near(m->cost, want, 1e-12, "heater-duty cost");
+	/* H2's cooler C-2 takes E2's 90 kW too and needs more area. */
+	assert_int_equal(p.nmod, 3);
+	near(p.investment, want + mod_of(&p, HL_RFIT_UTILITY_AREA)->cost,
+	    1e-12, "investment: the firing and C-2's area");
+	sound(&p);
+	s1->duty_added = 0.0;
+	assert_int_equal(hl_netcheck_run(p.net, &k, NULL), HL_OK);
+	assert_true(k->n >= 1);
+	assert_non_null(strstr(k->f[0].text, "add 90 kW more"));
+	hl_netcheck_free(k);
+	for (i = 0; i < z.r->nproposal; i++)
+		check_proposal(&z, &o, &z.r->p[i]);
+	free(p.mod);
+	hl_network_free(p.net);
+	run_free(&z);
+	hl_case_free(c);
+}
+
 int
 main(void)
 {
@@ -571,6 +642,7 @@ main(void)
 		cmocka_unit_test(test_generated),
 		cmocka_unit_test(test_single_exhaustive),
 		cmocka_unit_test(test_utility_cost_law),
+		cmocka_unit_test(test_fired_heater_rating),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);

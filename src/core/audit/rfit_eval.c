@@ -96,7 +96,8 @@ utility_shares(hl_network *net)
 
 /* Size u at its shells; a new unit falls back on the Xp count; a held unit
  * whose duty needs more than it has gets the rest as added area (shells in
- * parallel for a reused unit, the unit's own for a new one). */
+ * parallel for a reused unit, the unit's own for a new one), a fired
+ * heater the firing beyond its rating (a heater beside it). */
 static hl_status
 size_one(hl_network *net, hl_network_unit *u, hl_error *err)
 {
@@ -110,7 +111,14 @@ size_one(hl_network *net, hl_network_unit *u, hl_error *err)
 		return st;
 	if (u->reuses[0] == '\0')
 		u->shells_added = u->shells;
-	if (u->area > (u->area_today + u->area_added) * (1.0 + 1e-9)) {
+	if (u->type == HL_EXCH_FIRED_HEATER) {
+		if (u->duty > (u->duty_today + u->duty_added) * (1.0 + 1e-9)) {
+			u->duty_added = u->duty - u->duty_today;
+			if (u->shells_added == 0)
+				u->shells_added = 1;
+		}
+	} else if (u->area > (u->area_today + u->area_added) *
+	    (1.0 + 1e-9)) {
 		u->area_added = u->area - u->area_today;
 		if (u->shells_added == 0)
 			u->shells_added = u->shells;
@@ -331,8 +339,8 @@ unit_named(const hl_network *net, const char *tag)
 	return NULL;
 }
 
-/* A derived modification: a trim, or area a held unit's duty needs beyond
- * what the moves gave it. */
+/* A derived modification: a trim, or area (a fired heater: firing) a held
+ * unit's duty needs beyond what the moves gave it. */
 static void
 derive(const rf_ctx *x, rf_cand *cd)
 {
@@ -350,15 +358,16 @@ derive(const rf_ctx *x, rf_cand *cd)
 			    u->reuses : u->id) == 0 &&
 			    cd->mod[k].kind != HL_RFIT_REPIPE &&
 			    cd->mod[k].kind != HL_RFIT_RESEQUENCE;
-		if (moved || !(u->area_added > 0.0))
+		if (moved || !(u->area_added > 0.0 || u->duty_added > 0.0))
 			continue;
 		memset(m, 0, sizeof *m);
 		m->kind = u->reuses[0] == '\0' ? HL_RFIT_TRIM :
+		    u->type == HL_EXCH_FIRED_HEATER ? HL_RFIT_HEATER_DUTY :
 		    HL_RFIT_UTILITY_AREA;
 		snprintf(m->unit, sizeof m->unit, "%s",
 		    u->reuses[0] ? u->reuses : u->id);
 		rf_place_text(net, u, m->to, sizeof m->to);
-		if (m->kind == HL_RFIT_UTILITY_AREA)
+		if (m->kind != HL_RFIT_TRIM)
 			memcpy(m->from, m->to, sizeof m->from);
 		cd->nmod++;
 	}
@@ -374,6 +383,7 @@ derive(const rf_ctx *x, rf_cand *cd)
 		if (area && u != NULL) {
 			m->area_added = u->area_added;
 			m->shells_added = u->shells_added;
+			m->duty_added = u->duty_added;
 			m->cost = u->cost;
 		}
 		if (m->kind == HL_RFIT_REPIPE || m->kind == HL_RFIT_RESEQUENCE ||

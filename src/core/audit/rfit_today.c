@@ -113,6 +113,9 @@ add_unit(const hl_case *c, const hl_existing_unit *x, hl_network *net,
 	u.shells = x->shells >= 1 ? x->shells : 1;
 	u.parallel = x->parallel >= 1 ? x->parallel : 1;
 	u.held = 1;
+	/* A fired heater is rated for what it fires today: more needs new
+	 * firing capacity (network_held.c). */
+	u.duty_today = x->type == HL_EXCH_FIRED_HEATER ? x->duty : 0.0;
 	u.line = x->line;
 	return hl_network_add_unit(net, &u, err);
 }
@@ -146,7 +149,11 @@ size_today(const hl_existing *ex, hl_network *net, hl_error *err)
 			    "'%s' cannot be sized as read: %s", x->name,
 			    e.text);
 		u->area_today = u->area;
-		if (isnan(x->area))
+		if (u->type == HL_EXCH_FIRED_HEATER)
+			snprintf(note, sizeof note, "a fired heater, rated for "
+			    "today's %.4g kW: more firing is bought",
+			    u->duty_today);
+		else if (isnan(x->area))
 			snprintf(note, sizeof note, "no data-sheet area; the "
 			    "model's %.4g m² at today's duty stands for it",
 			    u->area);

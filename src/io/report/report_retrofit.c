@@ -21,8 +21,7 @@ changes(const hl_rfit_proposal *p)
 	size_t k, n = 0;
 
 	for (k = 0; k < p->nmod; k++)
-		n += p->mod[k].kind != HL_RFIT_UTILITY_AREA &&
-		    p->mod[k].kind != HL_RFIT_TRIM;
+		n += !hl_rfit_kind_derived(p->mod[k].kind);
 	return n;
 }
 
@@ -77,7 +76,9 @@ modifications(hl_report *r, const hl_rfit_proposal *p)
 
 	hl_report_table_start(r, "data rfit-mods", "The best proposal's "
 			      "modifications: places as stream #stage; cost "
-			      "the shells bought by the cost law of the unit's type plus "
+			      "the shells bought by the cost law of the unit's type "
+			      "(a fired heater's: the heaters bought for the "
+			      "firing beyond its rating, by its law on duty) plus "
 			      "the fixed cost of a re-pipe or a new unit.", 7,
 			      head, unit, num);
 	for (k = 0; k < p->nmod; k++) {

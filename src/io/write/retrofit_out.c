@@ -51,6 +51,10 @@ mod_text(FILE *fp, const hl_case *c, const hl_rfit_mod *m)
 	if (m->area_added > 0.0)
 		fprintf(fp, "; +%.1f m² in %d shell%s", m->area_added,
 		    m->shells_added, m->shells_added == 1 ? "" : "s");
+	if (m->duty_added > 0.0)
+		fprintf(fp, "; +%.1f kW of firing in %d heater%s",
+		    m->duty_added, m->shells_added,
+		    m->shells_added == 1 ? "" : "s");
 	fprintf(fp, "; %.0f %s\n", m->cost, cur(c));
 }
 
@@ -99,18 +103,25 @@ changed_units(FILE *fp, const hl_rfit_proposal *p)
 	size_t i;
 
 	fprintf(fp, "  units after the change (area today + added = area "
-	    "there; needed at the new duty):\n");
+	    "there; needed at the new duty; a fired heater: rated duty today "
+	    "+ firing added):\n");
 	for (i = 0; i < p->net->nunit; i++) {
 		const hl_network_unit *u = &p->net->unit[i];
 
-		if (!(u->area_added > 0.0))
+		if (!(u->area_added > 0.0 || u->duty_added > 0.0))
 			continue;
 		fprintf(fp, "    %-6s ", u->id);
 		hl_text_pad(fp, u->reuses[0] ? u->reuses : "(new)", 26);
-		fprintf(fp, " %8.1f kW  %7.1f + %7.1f m²; needs "
-		    "%7.1f m², %d shell%s\n", u->duty, u->area_today,
-		    u->area_added, u->area, u->shells,
-		    u->shells == 1 ? "" : "s");
+		if (u->type == HL_EXCH_FIRED_HEATER)
+			fprintf(fp, " %8.1f kW  %7.1f + %7.1f kW rated, %d "
+			    "heater%s bought\n", u->duty, u->duty_today,
+			    u->duty_added, u->shells_added,
+			    u->shells_added == 1 ? "" : "s");
+		else
+			fprintf(fp, " %8.1f kW  %7.1f + %7.1f m²; needs "
+			    "%7.1f m², %d shell%s\n", u->duty,
+			    u->area_today, u->area_added, u->area, u->shells,
+			    u->shells == 1 ? "" : "s");
 	}
 }
 
@@ -152,8 +163,7 @@ hl_rfit_text(FILE *fp, const hl_case *c, const hl_rfit *r,
 		size_t moves = 0, k;
 
 		for (k = 0; k < p->nmod; k++)
-			moves += p->mod[k].kind != HL_RFIT_UTILITY_AREA &&
-			    p->mod[k].kind != HL_RFIT_TRIM;
+			moves += !hl_rfit_kind_derived(p->mod[k].kind);
 		fprintf(fp, "%-5zu %-7zu %12.0f %12.0f %8.2f %10.1f %10.1f\n",
 		    i + 1, moves, p->investment, p->saving, p->payback,
 		    p->hot_after, p->cold_after);
@@ -185,6 +195,8 @@ xml_mod(xmlTextWriterPtr x, const hl_rfit_mod *m)
 		rc |= hl_xml_str(x, "to", m->to);
 	rc |= hl_xml_num(x, "area-added", m->area_added);
 	rc |= hl_xml_int(x, "shells-added", m->shells_added);
+	if (m->duty_added > 0.0)
+		rc |= hl_xml_num(x, "duty-added", m->duty_added);
 	rc |= hl_xml_num(x, "cost", m->cost);
 	rc |= xmlTextWriterEndElement(x);
 	return rc;
@@ -196,8 +208,7 @@ moves_of(const hl_rfit_proposal *p)
 	size_t k, n = 0;
 
 	for (k = 0; k < p->nmod; k++)
-		n += p->mod[k].kind != HL_RFIT_UTILITY_AREA &&
-		    p->mod[k].kind != HL_RFIT_TRIM;
+		n += !hl_rfit_kind_derived(p->mod[k].kind);
 	return n;
 }
 
@@ -264,7 +275,7 @@ hl_rfit_csv(FILE *fp, const hl_rfit *r, const hl_rfit_out *w)
 
 	fprintf(fp, "rank,investment,saving,payback,hot_utility,cold_utility,"
 	    "screening_saving,kind,unit,from,to,area_added,shells_added,"
-	    "cost\n");
+	    "cost,duty_added\n");
 	for (i = 0; i < r->nproposal; i++) {
 		const hl_rfit_proposal *p = &r->p[i];
 
@@ -287,6 +298,7 @@ hl_rfit_csv(FILE *fp, const hl_rfit *r, const hl_rfit_out *w)
 			hl_csv_num(fp, m->area_added);
 			fprintf(fp, ",%d", m->shells_added);
 			hl_csv_num(fp, m->cost);
+			hl_csv_num(fp, m->duty_added);
 			fputc('\n', fp);
 		}
 	}
