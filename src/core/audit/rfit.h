@@ -155,7 +155,8 @@ hl_status hl_rfit_run(const hl_case *c, const hl_network *today,
 void hl_rfit_free(hl_rfit *r);
 
 /* One given modification of today, for checks and for callers with their
- * own search: kind (a search move, not utility-area or add-trim); unit,
+ * own search: kind (a search move, not utility-area, add-trim or
+ * heater-duty); unit,
  * an index into today->unit (more area, re-pipe, resequence, remove);
  * hot, cold, hot_pos, cold_pos, the pair and places (re-pipe,
  * resequence, new unit; places counted once the unit is lifted off);
