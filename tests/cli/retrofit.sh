@@ -195,6 +195,12 @@ check_exit 0 hl retrofit "$CASES/demo.xml" --network "$CASES/demo-network.csv" \
 check_grep "Proposal 1:" "$WORK/demo.txt"
 check_grep "<svg" "$WORK/demo.svg"
 
+# The invented crude train: its fired heater's flue gas leaves at the
+# row's 450 °C, not the utility's 250 °C stack, which lies below the
+# crude's inlet; every proposal passed `check` or nothing is written.
+check_exit 0 hl retrofit "$CASES/crude.xml" --max-changes 1 --quiet -o "$WORK/crude.txt"
+check_grep "Today (simulated): hot utility 14800.0 kW" "$WORK/crude.txt"
+
 # Misuse and bad data.
 check_exit 1 hl retrofit "$K4" --payback -1
 check_exit 1 hl retrofit "$K4" --max-changes 0

@@ -69,22 +69,37 @@ xp_shells(const hl_network *net, const hl_network_unit *u)
 	return z.shells;
 }
 
+/* The flow of utility p unit u takes, up to a common factor: its duty,
+ * over its own temperature change on a ranged utility (units may leave it
+ * at different outlets), as netcheck.h counts it. */
+static double
+utility_flow(const hl_network *net, const hl_network_unit *u, size_t p)
+{
+	const hl_network_party *s = &net->party[p];
+	double dt = u->hot == p ? u->hot_in - u->hot_out :
+	    u->cold_out - u->cold_in;
+
+	return s->supply == s->target ? u->duty :
+	    u->duty / fmax(fabs(dt), 1e-300);
+}
+
 static void
 utility_shares(hl_network *net)
 {
 	size_t p, i;
 
 	for (p = 0; p < net->nparty; p++) {
-		double load = 0.0;
+		double flow = 0.0;
 
 		if (!net->party[p].utility)
 			continue;
 		for (i = 0; i < net->nunit; i++)
 			if (net->unit[i].hot == p || net->unit[i].cold == p)
-				load += net->unit[i].duty;
+				flow += utility_flow(net, &net->unit[i], p);
 		for (i = 0; i < net->nunit; i++) {
 			hl_network_unit *u = &net->unit[i];
-			double s = load > 0.0 ? u->duty / load : 1.0;
+			double s = flow > 0.0 ? utility_flow(net, u, p) / flow :
+			    1.0;
 
 			if (u->hot == p)
 				u->hot_share = s;

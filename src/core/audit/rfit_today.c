@@ -83,6 +83,20 @@ unit_id(const hl_existing_unit *x, size_t *count, char *id, size_t n)
 	snprintf(id, n, "%s%zu", pre, ++count[k]);
 }
 
+/* The outlet of a utility side: the row's where it lies inside a ranged
+ * utility's range (a fired heater's flue gas leaves its convection section
+ * well above the stack), else the utility's target. */
+static double
+utility_out(const hl_network_party *p, const hl_side *s)
+{
+	double lo = fmin(p->supply, p->target), hi = fmax(p->supply, p->target);
+
+	if (p->supply != p->target && isfinite(s->t_out) && s->t_out >= lo &&
+	    s->t_out <= hi && s->t_out != p->supply)
+		return s->t_out;
+	return p->target;
+}
+
 static hl_status
 add_unit(const hl_case *c, const hl_existing_unit *x, hl_network *net,
 	 size_t *count, hl_error *err)
@@ -102,11 +116,11 @@ add_unit(const hl_case *c, const hl_existing_unit *x, hl_network *net,
 	u.duty = x->duty;
 	u.hot_in = x->hot.stream >= 0 ? x->hot.t_in : net->party[u.hot].supply;
 	u.hot_out = x->hot.stream >= 0 ? x->hot.t_out :
-	    net->party[u.hot].target;
+	    utility_out(&net->party[u.hot], &x->hot);
 	u.cold_in = x->cold.stream >= 0 ? x->cold.t_in :
 	    net->party[u.cold].supply;
 	u.cold_out = x->cold.stream >= 0 ? x->cold.t_out :
-	    net->party[u.cold].target;
+	    utility_out(&net->party[u.cold], &x->cold);
 	u.hot_share = x->hot.share;
 	u.cold_share = x->cold.share;
 	u.type = x->type;
