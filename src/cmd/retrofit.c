@@ -39,6 +39,7 @@ static const hl_option option_rows[] = {
 	HL_ROW_NUMBER("max-changes", "N", options, changes, 1.0, 12.0,
 	    "modifications per proposal, 1 to 12 (default 4)"),
 	HL_ROW_FORMAT("text (default), xml, or csv"),
+	HL_ROW_UNITS(HL_UNITS_HELP),
 	HL_ROW_OUTPUT("FILE", "write to FILE instead of standard output"),
 	HL_ROW_TEXT("svg", "FILE", options, svg,
 	    "grid diagram of the best proposal, changes ringed"),

@@ -430,6 +430,28 @@ expect t-qh "20.0 kW"
 expect t-qc "60.0 kW"
 expect t-pinch1 "90.0 °C hot / 80.0 °C cold (85.0 °C shifted)"
 
+# Its retrofit in US units: each proposal's hot utility in Btu/h and the
+# best one's added area in ft² (the XML's kW and m² by the NIST SP 811
+# (2008) App. B.8 factors: Btu_IT 1055.05585262 J, ft² 0.09290304 m²).
+K4N="$DATA/good/kemp4-network.csv"
+K4U="$DATA/good/kemp4-utilities.csv"
+R="$WORK/kus.html"
+check_exit 0 hl report "$DATA/good/kemp4.csv" --utilities "$K4U" --network "$K4N" \
+	--no-sweep --units us -o "$R"
+RX="$WORK/kx.xml"
+check_exit 0 hl retrofit "$DATA/good/kemp4.csv" --utilities "$K4U" --network "$K4N" \
+	--quiet --format xml -o "$RX"
+xml_tsv "$RX" /results/retrofit/proposal hot-utility >"$WORK/kx.tsv"
+html_tsv rfit >"$WORK/kus.tsv"
+compare "rfit in Btu/h" "$WORK/kx.tsv" "$WORK/kus.tsv" '
+	want = sig(x[1] * 3600 / 1.05505585262, 3, 1)
+	if ($6 != want) print "proposal " FNR ": " $6 ", want " want'
+xml_tsv "$RX" "/results/retrofit/proposal[1]/modification" area-added >"$WORK/kxm.tsv"
+html_tsv rfit-mods >"$WORK/kusm.tsv"
+compare "rfit-mods in ft²" "$WORK/kxm.tsv" "$WORK/kusm.tsv" '
+	want = x[1] > 0 ? sprintf("%.1f", x[1] / 0.09290304) : ""
+	if ($5 != want) print "modification " FNR ": " $5 ", want " want'
+
 # A threshold problem (invented, checked by hand): hot 200 -> 100 °C and
 # cold 20 -> 50 °C, cp 1 kW/K each, need no hot utility until the cold
 # target plus ΔTmin passes the hot supply, at ΔTmin 150 K.

@@ -91,6 +91,21 @@ us_same "design (crude)" design "$CASES/crude.xml"
 us_same "size" size "$CASES/demo-exchangers.csv"
 us_same "matches" matches "$CASES/demo.xml"
 us_same "audit" audit "$CASES/crude.xml"
+K4R="$DATA/good/kemp4.csv --utilities $DATA/good/kemp4-utilities.csv --network $DATA/good/kemp4-network.csv"
+# shellcheck disable=SC2086
+us_same "retrofit" retrofit $K4R
+# The retrofit's text: today's 140.0 kW of hot utility is 477 700 Btu/h
+# (2.930 711e-4 kW per Btu/h, NIST SP 811 App. B.8), ΔTmin 10 K is 18 °F.
+# shellcheck disable=SC2086
+check_exit 0 hl retrofit $K4R --units us -o "$WORK/rfit-us.txt"
+check_grep "Today (simulated): hot utility 477700 Btu/h" "$WORK/rfit-us.txt"
+check_grep "targets at ΔTmin 18 °F" "$WORK/rfit-us.txt"
+check_grep "Hot Btu/h" "$WORK/rfit-us.txt"
+if grep -qE "[0-9] (kW|m²|K)\b" "$WORK/rfit-us.txt"; then
+	fail "SI quantities left in the US retrofit text: $(grep -E "[0-9] (kW|m²|K)\b" "$WORK/rfit-us.txt" | head -2)"
+else
+	pass
+fi
 check_exit 0 hl curves "$CASES/demo.xml" -o "$WORK/si"
 check_exit 0 hl curves "$CASES/demo.xml" -o "$WORK/us" --units us
 for f in composite shifted-composite grand-composite balanced-composite; do

@@ -195,7 +195,8 @@ check_proposal(const run *z, const hl_rfit_opts *o, const hl_rfit_proposal *p)
 		if (m->kind == HL_RFIT_NEW_UNIT || m->kind == HL_RFIT_TRIM)
 			fixed += o->unit_cost;
 		moves += m->kind != HL_RFIT_TRIM &&
-		    m->kind != HL_RFIT_UTILITY_AREA;
+		    m->kind != HL_RFIT_UTILITY_AREA &&
+		    m->kind != HL_RFIT_HEATER_DUTY;
 	}
 	near(p->investment, inv, TOL_MONEY, "investment from modifications");
 	near(p->investment, p->net->capital + fixed, TOL_MONEY,
@@ -398,12 +399,250 @@ test_single_exhaustive(void **state)
 	assert_true(done >= 1);
 }
 
+/* The four-stream plant (hl_gen_kemp4) with the invented network of
+ * tests/data/good/kemp4-network.csv: E1 H1/C2, E2 H2/C1, coolers C-1 and
+ * C-2 on cooling water, the heater S-1 on hot utility `heater`. */
+static void
+kemp4_row(hl_case *c, const char *name, const char *hot, const char *cold,
+	  double duty, double hi, double ho, double ci, double co,
+	  double area, int shells)
+{
+	hl_unit r;
+
+	memset(&r, 0, sizeof r);
+	r.name = (char *)name;
+	r.hot = (char *)hot;
+	r.cold = (char *)cold;
+	r.duty = duty;
+	r.hot_in = hi;
+	r.hot_out = ho;
+	r.cold_in = ci;
+	r.cold_out = co;
+	r.area = area;
+	r.shells = shells;
+	r.file = (char *)"kemp4";
+	r.line = (long)c->nunit + 1;
+	assert_int_equal(hl_case_add_unit(c, &r, NULL), HL_OK);
+}
+
+static hl_case *
+kemp4_plant(const hl_utility *heater)
+{
+	hl_case *c = hl_gen_kemp4();
+	hl_error e;
+
+	assert_int_equal(hl_case_add_utility(c, heater, NULL), HL_OK);
+	hl_gen_add_utility(c, "cooling water", HL_COLD, 15, 25, 1.2, NAN);
+	kemp4_row(c, "E1", "H1", "C2", 240, 170, 90, 80, 140, 31.5, 2);
+	kemp4_row(c, "E2", "H2", "C1", 90, 150, 90, 20, 65, NAN, 0);
+	kemp4_row(c, "C-1", "H1", "cooling water", 90, 90, 60, NAN, NAN, 12,
+	    1);
+	kemp4_row(c, "C-2", "H2", "cooling water", 90, 90, 30, NAN, NAN, NAN,
+	    0);
+	kemp4_row(c, "S-1", heater->name, "C1", 140, NAN, NAN, 65, 135, 8.25,
+	    1);
+	if (hl_case_validate(c, &e) != HL_OK)
+		fail_msg("kemp4 plant: %s", e.text);
+	return c;
+}
+
+/* A tried move's plant passes the network check (it may save nothing:
+ * check_proposal is for the search's proposals) and keeps the first
+ * law (common practice, no source). */
+static void
+sound(const hl_rfit_proposal *p)
+{
+	hl_netcheck *k = NULL;
+	size_t i;
+
+	assert_int_equal(hl_netcheck_run(p->net, &k, NULL), HL_OK);
+	for (i = 0; i < k->n; i++)
+		print_error("finding: %s: %s\n", k->f[i].what, k->f[i].text);
+	assert_int_equal(k->n, 0);
+	hl_netcheck_free(k);
+	near(p->hot_after - p->cold_after, p->hot_before - p->cold_before,
+	    1e-6, "hot − cold utility unchanged (first law)");
+}
+
+/* Today's unit reusing tag. */
+static size_t
+today_unit(const hl_network *t, const char *tag)
+{
+	size_t i;
+
+	for (i = 0; i < t->nunit; i++)
+		if (strcmp(t->unit[i].reuses, tag) == 0)
+			return i;
+	fail_msg("no unit reuses %s", tag);
+	return 0;
+}
+
+/* mv on today's plant of c: the proposal, checked as the search's are. */
+static void
+try_move(hl_case *c, const hl_rfit_opts *o, const char *tag,
+	 hl_rfit_kind kind, run *z, hl_rfit_proposal *p)
+{
+	hl_rfit_move mv;
+	int valid = 0;
+
+	run_all(c, o, z);
+	memset(&mv, 0, sizeof mv);
+	mv.kind = kind;
+	mv.unit = today_unit(z->today, tag);
+	assert_int_equal(hl_rfit_try(c, z->today, o, &mv, p, &valid, NULL),
+	    HL_OK);
+	assert_true(valid);
+}
+
+static const hl_rfit_mod *
+mod_of(const hl_rfit_proposal *p, hl_rfit_kind kind)
+{
+	size_t k;
+
+	for (k = 0; k < p->nmod; k++)
+		if (p->mod[k].kind == kind)
+			return &p->mod[k];
+	fail_msg("no %s among the modifications", hl_rfit_kind_name(kind));
+	return NULL;
+}
+
+/* A utility with its own cost law prices the units a retrofit buys on it.
+ * Taking E1 out leaves C2 (80 -> 140 °C, 4 kW/K) to a trim heater on
+ * steam (180 °C, h 4.0) of 240 kW. By hand: Q = U·A·F·LMTD (Kern 1950,
+ * ch. 7), F = 1 with an isothermal side (common practice, no source),
+ * 1/U = 1/h_hot + 1/h_cold with C2 at the default h 0.5 (doc/methods.md),
+ * LMTD = (100 − 40)/ln(100/40) K; one shell priced by the steam's own law
+ * a + b·A^c (the power-law form of Smith, Chemical Process Design and
+ * Integration, 2005, ch. 2, from memory; values invented here), not the
+ * case's 10000 + 800·A^0.8, plus the new unit's fixed cost. */
+static void
+test_utility_cost_law(void **state)
+{
+	hl_utility steam;
+	hl_rfit_opts o;
+	hl_rfit_proposal p;
+	hl_case *c;
+	run z;
+	const hl_rfit_mod *m;
+	const hl_network_unit *t = NULL;
+	double u = 1.0 / (1.0 / 4.0 + 1.0 / 0.5);
+	double lmtd = 60.0 / log(100.0 / 40.0), area = 240.0 / (u * lmtd);
+	size_t i;
+
+	(void)state;
+	memset(&steam, 0, sizeof steam);
+	steam.name = (char *)"steam";
+	steam.kind = HL_HOT;
+	steam.supply = steam.target = 180.0;
+	steam.price = 31.5;
+	steam.h = 4.0;
+	steam.max_load = steam.dt_contrib = NAN;
+	steam.cost_given = 1;
+	steam.cost_a = 0.0;
+	steam.cost_b = 1200.0;
+	steam.cost_c = 0.6;
+	c = kemp4_plant(&steam);
+	hl_rfit_opts_default(&o);
+	try_move(c, &o, "E1", HL_RFIT_REMOVE, &z, &p);
+	for (i = 0; i < p.net->nunit; i++)
+		if (strcmp(p.net->unit[i].id, "T1") == 0)
+			t = &p.net->unit[i];
+	assert_non_null(t);
+	assert_string_equal(p.net->party[t->hot].name, "steam");
+	assert_int_equal(t->shells_added, 1);
+	near(t->duty, 240.0, 1e-9, "trim duty");
+	near(t->area, area, 1e-9, "trim area by hand");
+	near(t->cost, 1200.0 * pow(area, 0.6), 1e-9, "trim by steam's law");
+	m = mod_of(&p, HL_RFIT_TRIM);
+	near(m->cost, 1200.0 * pow(area, 0.6) + o.unit_cost, 1e-9,
+	    "trim modification: steam's law + the new unit's fixed cost");
+	sound(&p);
+	for (i = 0; i < z.r->nproposal; i++)
+		check_proposal(&z, &o, &z.r->p[i]);
+	free(p.mod);
+	hl_network_free(p.net);
+	run_free(&z);
+	hl_case_free(c);
+}
+
+/* A fired heater is rated for today's duty: a proposal that fires it
+ * harder buys the firing beyond it. Taking E2 out leaves C1 (20 -> 135 °C,
+ * 2 kW/K) to S-1 alone: 230 kW against 140 today (the first law), so
+ * 90 kW of firing bought as one heater, priced by the heater utility's own
+ * law a + b·Q^c with Q in MW (exchanger.h; the power-law form of Smith,
+ * Chemical Process Design and Integration, 2005, ch. 2, from memory;
+ * values invented here). Today it costs nothing; the network check then
+ * refuses the plant without the firing bought. */
+static void
+test_fired_heater_rating(void **state)
+{
+	hl_utility fg;
+	hl_rfit_opts o;
+	hl_rfit_proposal p;
+	hl_case *c;
+	run z;
+	const hl_rfit_mod *m;
+	hl_network_unit *s1;
+	hl_netcheck *k = NULL;
+	double want = 50000.0 + 150000.0 * pow(0.09, 0.75);
+	size_t i;
+
+	(void)state;
+	memset(&fg, 0, sizeof fg);
+	fg.name = (char *)"flue gas";
+	fg.kind = HL_HOT;
+	fg.supply = 800.0;
+	fg.target = 300.0;
+	fg.price = 30.0;
+	fg.h = fg.max_load = fg.dt_contrib = NAN;
+	fg.type_given = 1;
+	fg.type = HL_EXCH_FIRED_HEATER;
+	fg.cost_given = 1;
+	fg.cost_a = 50000.0;
+	fg.cost_b = 150000.0;
+	fg.cost_c = 0.75;
+	c = kemp4_plant(&fg);
+	hl_rfit_opts_default(&o);
+	try_move(c, &o, "E2", HL_RFIT_REMOVE, &z, &p);
+	s1 = &z.today->unit[today_unit(z.today, "S-1")];
+	assert_int_equal(s1->type, HL_EXCH_FIRED_HEATER);
+	near(s1->duty_today, 140.0, 1e-12, "S-1 rated at today's duty");
+	near(s1->cost, 0.0, 0.0, "S-1 today costs nothing");
+	s1 = &p.net->unit[today_unit(p.net, "S-1")];
+	near(s1->duty, 230.0, 1e-9, "S-1 without E2");
+	near(s1->duty_added, 90.0, 1e-9, "firing bought");
+	assert_int_equal(s1->shells_added, 1);
+	near(s1->cost, want, 1e-12, "one heater of 0.09 MW by the law");
+	m = mod_of(&p, HL_RFIT_HEATER_DUTY);
+	assert_string_equal(m->unit, "S-1");
+	near(m->duty_added, 90.0, 1e-9, "heater-duty modification");
+	near(m->cost, want, 1e-12, "heater-duty cost");
+	/* H2's cooler C-2 takes E2's 90 kW too and needs more area. */
+	assert_int_equal(p.nmod, 3);
+	near(p.investment, want + mod_of(&p, HL_RFIT_UTILITY_AREA)->cost,
+	    1e-12, "investment: the firing and C-2's area");
+	sound(&p);
+	s1->duty_added = 0.0;
+	assert_int_equal(hl_netcheck_run(p.net, &k, NULL), HL_OK);
+	assert_true(k->n >= 1);
+	assert_non_null(strstr(k->f[0].text, "add 90 kW more"));
+	hl_netcheck_free(k);
+	for (i = 0; i < z.r->nproposal; i++)
+		check_proposal(&z, &o, &z.r->p[i]);
+	free(p.mod);
+	hl_network_free(p.net);
+	run_free(&z);
+	hl_case_free(c);
+}
+
 int
 main(void)
 {
 	const struct CMUnitTest tests[] = {
 		cmocka_unit_test(test_generated),
 		cmocka_unit_test(test_single_exhaustive),
+		cmocka_unit_test(test_utility_cost_law),
+		cmocka_unit_test(test_fired_heater_rating),
 	};
 
 	return cmocka_run_group_tests(tests, NULL, NULL);

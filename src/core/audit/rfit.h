@@ -23,9 +23,10 @@
  *    process stream become the two branches of a split there, the share
  *    tuned; or dropped: the two branches of a split put in series, in
  *    either order (each a re-pipe's fixed cost);
- *  - more area on a heater or cooler whose new duty needs it, and a trim
- *    heater or cooler where a stream would end short of its target: these
- *    follow from the others and are priced with them.
+ *  - more area on a heater or cooler whose new duty needs it, more firing
+ *    on a fired heater whose new duty passes its rating (today's duty),
+ *    and a trim heater or cooler where a stream would end short of its
+ *    target: these follow from the others and are priced with them.
  * Splits of more than two branches, and splits of a heater or cooler, stay
  * as they are.
  *
@@ -33,7 +34,9 @@
  * allows, heaters and coolers make up the rest to their set points. It is
  * kept when every stream reaches its target, every approach keeps the EMAT
  * and every unit can be sized at its shells. Prices: bought shells by the
- * case's cost law per shell, a + b·A_shell^c; each re-pipe and each new
+ * case's cost law per shell, a + b·A_shell^c (a utility's own law on its
+ * heaters and coolers), firing bought by the fired-heater law on its duty
+ * (network_held.c); each re-pipe and each new
  * unit (trims included) a fixed cost on top (hl_rfit_opts, with illustrative
  * defaults); saving = today's utility cost − the new one (each utility's
  * load × price × hours); simple payback = investment / saving.
@@ -72,13 +75,18 @@ typedef enum {
 	HL_RFIT_TRIM,              /* a new heater or cooler at a stream end */
 	HL_RFIT_ADD_SPLIT,         /* two units in series on a stream made
 				      parallel branches */
-	HL_RFIT_DROP_SPLIT         /* two branches of a split put in series */
+	HL_RFIT_DROP_SPLIT,        /* two branches of a split put in series */
+	HL_RFIT_HEATER_DUTY        /* a fired heater fires beyond its rating */
 } hl_rfit_kind;
 
 /* "add-shell-series", "add-shell-parallel", "re-pipe", "resequence",
  * "add-unit", "remove-unit", "utility-area", "add-trim", "add-split",
- * "drop-split". */
+ * "drop-split", "heater-duty". */
 const char *hl_rfit_kind_name(hl_rfit_kind k);
+
+/* 1 for the kinds that follow from the moves (utility area, trims, heater
+ * duty) and do not count as changes. */
+int hl_rfit_kind_derived(hl_rfit_kind k);
 
 typedef struct {
 	hl_rfit_kind kind;
@@ -86,7 +94,8 @@ typedef struct {
 	char from[200];      /* where it was ("" for a new unit) */
 	char to[200];        /* where it is ("" when taken out) */
 	double area_added;   /* m² */
-	int shells_added;
+	int shells_added;    /* shells bought; heaters for a fired heater */
+	double duty_added;   /* kW of firing bought (fired heaters) */
 	double cost;         /* currency: shells bought + fixed cost */
 } hl_rfit_mod;
 
@@ -146,7 +155,8 @@ hl_status hl_rfit_run(const hl_case *c, const hl_network *today,
 void hl_rfit_free(hl_rfit *r);
 
 /* One given modification of today, for checks and for callers with their
- * own search: kind (a search move, not utility-area or add-trim); unit,
+ * own search: kind (a search move, not utility-area, add-trim or
+ * heater-duty); unit,
  * an index into today->unit (more area, re-pipe, resequence, remove);
  * hot, cold, hot_pos, cold_pos, the pair and places (re-pipe,
  * resequence, new unit; places counted once the unit is lifted off);

@@ -69,22 +69,37 @@ xp_shells(const hl_network *net, const hl_network_unit *u)
 	return z.shells;
 }
 
+/* The flow of utility p unit u takes, up to a common factor: its duty,
+ * over its own temperature change on a ranged utility (units may leave it
+ * at different outlets), as netcheck.h counts it. */
+static double
+utility_flow(const hl_network *net, const hl_network_unit *u, size_t p)
+{
+	const hl_network_party *s = &net->party[p];
+	double dt = u->hot == p ? u->hot_in - u->hot_out :
+	    u->cold_out - u->cold_in;
+
+	return s->supply == s->target ? u->duty :
+	    u->duty / fmax(fabs(dt), 1e-300);
+}
+
 static void
 utility_shares(hl_network *net)
 {
 	size_t p, i;
 
 	for (p = 0; p < net->nparty; p++) {
-		double load = 0.0;
+		double flow = 0.0;
 
 		if (!net->party[p].utility)
 			continue;
 		for (i = 0; i < net->nunit; i++)
 			if (net->unit[i].hot == p || net->unit[i].cold == p)
-				load += net->unit[i].duty;
+				flow += utility_flow(net, &net->unit[i], p);
 		for (i = 0; i < net->nunit; i++) {
 			hl_network_unit *u = &net->unit[i];
-			double s = load > 0.0 ? u->duty / load : 1.0;
+			double s = flow > 0.0 ? utility_flow(net, u, p) / flow :
+			    1.0;
 
 			if (u->hot == p)
 				u->hot_share = s;
@@ -96,7 +111,8 @@ utility_shares(hl_network *net)
 
 /* Size u at its shells; a new unit falls back on the Xp count; a held unit
  * whose duty needs more than it has gets the rest as added area (shells in
- * parallel for a reused unit, the unit's own for a new one). */
+ * parallel for a reused unit, the unit's own for a new one), a fired
+ * heater the firing beyond its rating (a heater beside it). */
 static hl_status
 size_one(hl_network *net, hl_network_unit *u, hl_error *err)
 {
@@ -110,7 +126,14 @@ size_one(hl_network *net, hl_network_unit *u, hl_error *err)
 		return st;
 	if (u->reuses[0] == '\0')
 		u->shells_added = u->shells;
-	if (u->area > (u->area_today + u->area_added) * (1.0 + 1e-9)) {
+	if (u->type == HL_EXCH_FIRED_HEATER) {
+		if (u->duty > (u->duty_today + u->duty_added) * (1.0 + 1e-9)) {
+			u->duty_added = u->duty - u->duty_today;
+			if (u->shells_added == 0)
+				u->shells_added = 1;
+		}
+	} else if (u->area > (u->area_today + u->area_added) *
+	    (1.0 + 1e-9)) {
 		u->area_added = u->area - u->area_today;
 		if (u->shells_added == 0)
 			u->shells_added = u->shells;
@@ -221,7 +244,8 @@ add_trim(hl_network *net, size_t p, double gap, char *why, size_t nwhy)
 		u.hot_stage = rf_stages(net, p) + 1;
 	else
 		u.cold_stage = rf_stages(net, p) + 1;
-	u.type = net->set.exchanger;
+	/* The type the case fixes for the pair, else the utility's own. */
+	u.type = hl_network_unit_type(net, u.hot, u.cold);
 	u.shells = 1;
 	u.held = 1;
 	return hl_network_add_unit(net, &u, NULL) == HL_OK ? 0 : -1;
@@ -330,8 +354,8 @@ unit_named(const hl_network *net, const char *tag)
 	return NULL;
 }
 
-/* A derived modification: a trim, or area a held unit's duty needs beyond
- * what the moves gave it. */
+/* A derived modification: a trim, or area (a fired heater: firing) a held
+ * unit's duty needs beyond what the moves gave it. */
 static void
 derive(const rf_ctx *x, rf_cand *cd)
 {
@@ -349,15 +373,16 @@ derive(const rf_ctx *x, rf_cand *cd)
 			    u->reuses : u->id) == 0 &&
 			    cd->mod[k].kind != HL_RFIT_REPIPE &&
 			    cd->mod[k].kind != HL_RFIT_RESEQUENCE;
-		if (moved || !(u->area_added > 0.0))
+		if (moved || !(u->area_added > 0.0 || u->duty_added > 0.0))
 			continue;
 		memset(m, 0, sizeof *m);
 		m->kind = u->reuses[0] == '\0' ? HL_RFIT_TRIM :
+		    u->type == HL_EXCH_FIRED_HEATER ? HL_RFIT_HEATER_DUTY :
 		    HL_RFIT_UTILITY_AREA;
 		snprintf(m->unit, sizeof m->unit, "%s",
 		    u->reuses[0] ? u->reuses : u->id);
 		rf_place_text(net, u, m->to, sizeof m->to);
-		if (m->kind == HL_RFIT_UTILITY_AREA)
+		if (m->kind != HL_RFIT_TRIM)
 			memcpy(m->from, m->to, sizeof m->from);
 		cd->nmod++;
 	}
@@ -373,6 +398,7 @@ derive(const rf_ctx *x, rf_cand *cd)
 		if (area && u != NULL) {
 			m->area_added = u->area_added;
 			m->shells_added = u->shells_added;
+			m->duty_added = u->duty_added;
 			m->cost = u->cost;
 		}
 		if (m->kind == HL_RFIT_REPIPE || m->kind == HL_RFIT_RESEQUENCE ||

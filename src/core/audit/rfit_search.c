@@ -35,10 +35,17 @@ hl_rfit_kind_name(hl_rfit_kind k)
 	static const char *const name[] = {
 		"add-shell-series", "add-shell-parallel", "re-pipe",
 		"resequence", "add-unit", "remove-unit", "utility-area",
-		"add-trim", "add-split", "drop-split"
+		"add-trim", "add-split", "drop-split", "heater-duty"
 	};
 
 	return (size_t)k < sizeof name / sizeof name[0] ? name[k] : "?";
+}
+
+int
+hl_rfit_kind_derived(hl_rfit_kind k)
+{
+	return k == HL_RFIT_UTILITY_AREA || k == HL_RFIT_TRIM ||
+	    k == HL_RFIT_HEATER_DUTY;
 }
 
 void

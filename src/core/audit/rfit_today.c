@@ -83,6 +83,20 @@ unit_id(const hl_existing_unit *x, size_t *count, char *id, size_t n)
 	snprintf(id, n, "%s%zu", pre, ++count[k]);
 }
 
+/* The outlet of a utility side: the row's where it lies inside a ranged
+ * utility's range (a fired heater's flue gas leaves its convection section
+ * well above the stack), else the utility's target. */
+static double
+utility_out(const hl_network_party *p, const hl_side *s)
+{
+	double lo = fmin(p->supply, p->target), hi = fmax(p->supply, p->target);
+
+	if (p->supply != p->target && isfinite(s->t_out) && s->t_out >= lo &&
+	    s->t_out <= hi && s->t_out != p->supply)
+		return s->t_out;
+	return p->target;
+}
+
 static hl_status
 add_unit(const hl_case *c, const hl_existing_unit *x, hl_network *net,
 	 size_t *count, hl_error *err)
@@ -102,17 +116,20 @@ add_unit(const hl_case *c, const hl_existing_unit *x, hl_network *net,
 	u.duty = x->duty;
 	u.hot_in = x->hot.stream >= 0 ? x->hot.t_in : net->party[u.hot].supply;
 	u.hot_out = x->hot.stream >= 0 ? x->hot.t_out :
-	    net->party[u.hot].target;
+	    utility_out(&net->party[u.hot], &x->hot);
 	u.cold_in = x->cold.stream >= 0 ? x->cold.t_in :
 	    net->party[u.cold].supply;
 	u.cold_out = x->cold.stream >= 0 ? x->cold.t_out :
-	    net->party[u.cold].target;
+	    utility_out(&net->party[u.cold], &x->cold);
 	u.hot_share = x->hot.share;
 	u.cold_share = x->cold.share;
 	u.type = x->type;
 	u.shells = x->shells >= 1 ? x->shells : 1;
 	u.parallel = x->parallel >= 1 ? x->parallel : 1;
 	u.held = 1;
+	/* A fired heater is rated for what it fires today: more needs new
+	 * firing capacity (network_held.c). */
+	u.duty_today = x->type == HL_EXCH_FIRED_HEATER ? x->duty : 0.0;
 	u.line = x->line;
 	return hl_network_add_unit(net, &u, err);
 }
@@ -146,7 +163,11 @@ size_today(const hl_existing *ex, hl_network *net, hl_error *err)
 			    "'%s' cannot be sized as read: %s", x->name,
 			    e.text);
 		u->area_today = u->area;
-		if (isnan(x->area))
+		if (u->type == HL_EXCH_FIRED_HEATER)
+			snprintf(note, sizeof note, "a fired heater, rated for "
+			    "today's %.4g kW: more firing is bought",
+			    u->duty_today);
+		else if (isnan(x->area))
 			snprintf(note, sizeof note, "no data-sheet area; the "
 			    "model's %.4g m² at today's duty stands for it",
 			    u->area);
@@ -174,83 +195,20 @@ set_emat(hl_network *net)
 	net->set.emat = emat * (1.0 - 1e-9);
 }
 
-/* The case's process streams in case order, then its utilities with
- * today's loads: party i is stream i, party nstream + k utility k. */
-static hl_status
-add_parties(const hl_case *c, const hl_existing *ex, hl_network *net,
-	    hl_error *err)
-{
-	size_t i;
-	hl_status st = hl_network_add_streams(c, net, err);
-
-	for (i = 0; i < c->nutil && st == HL_OK; i++) {
-		const hl_utility *u = &c->util[i];
-		hl_network_party q;
-
-		memset(&q, 0, sizeof q);
-		q.name = u->name;
-		q.kind = u->kind;
-		q.utility = 1;
-		q.supply = u->supply;
-		q.target = u->target;
-		q.h = u->h;
-		q.dt_contrib = u->dt_contrib;
-		q.load = ex->util_load[i];
-		q.price = u->price;
-		q.max_load = u->max_load;
-		st = hl_network_add_party(net, &q, err);
-	}
-	return st;
-}
-
-/* The case's type for every hot-cold pair, so that a unit the search adds
- * (hl_network_unit_type) is of the type the engineer fixed for it. */
-static hl_status
-pair_types(const hl_case *c, hl_network *net, hl_error *err)
-{
-	size_t h, k, n = 0;
-
-	net->typed = malloc(net->nparty * net->nparty * sizeof *net->typed +
-	    1);
-	if (net->typed == NULL)
-		return hl_error_nomem(err);
-	for (h = 0; h < net->nparty; h++)
-		for (k = 0; k < net->nparty; k++) {
-			hl_network_typed *t = &net->typed[n];
-
-			if (net->party[h].kind != HL_HOT ||
-			    net->party[k].kind != HL_COLD)
-				continue;
-			t->hot = (long)h;
-			t->cold = (long)k;
-			t->type = hl_case_pair_type(c, net->party[h].name,
-			    net->party[k].name);
-			n++;
-		}
-	net->ntyped = n;
-	return HL_OK;
-}
-
 hl_status
 hl_rfit_today(const hl_case *c, const hl_existing *ex, hl_network **out,
 	      hl_error *err)
 {
-	hl_network *net = hl_network_create();
+	hl_network *net = NULL;
 	size_t count[3] = { 0, 0, 0 }, i;
-	hl_status st = HL_OK;
+	/* The parties, their types and cost laws and the case's type rules as
+	 * design's searches build them (network_case.c), so that today's
+	 * units and the ones a proposal adds are priced by the same laws. */
+	hl_status st = hl_network_of_case(c, ex->util_load, &net, err);
 
 	*out = NULL;
-	if (net == NULL)
-		return hl_error_nomem(err);
-	net->set = c->set;
-	net->set.currency = NULL;
-	if (c->set.currency != NULL &&
-	    (net->set.currency = strdup(c->set.currency)) == NULL)
-		st = hl_error_nomem(err);
-	if (st == HL_OK)
-		st = add_parties(c, ex, net, err);
-	if (st == HL_OK)
-		st = pair_types(c, net, err);
+	if (st != HL_OK)
+		return st;
 	for (i = 0; i < ex->nunit && st == HL_OK; i++)
 		st = add_unit(c, &ex->unit[i], net, count, err);
 	for (i = 0; i < c->nstream && st == HL_OK; i++)

@@ -163,6 +163,12 @@ check_unit(hl_netcheck *r, const hl_network *net, const hl_network_unit *u)
 		    "m² today and %.10g m² added: add %.10g m² more",
 		    z.area, u->area_today, u->area_added,
 		    z.area - u->area_today - u->area_added);
+	if (u->held && u->type == HL_EXCH_FIRED_HEATER && u->duty >
+	    (u->duty_today + u->duty_added) * (1.0 + REL))
+		return add(r, u->id, u->line, "fires %.10g kW but is rated "
+		    "%.10g kW today with %.10g kW added: add %.10g kW more",
+		    u->duty, u->duty_today, u->duty_added,
+		    u->duty - u->duty_today - u->duty_added);
 	if (differ(z.u, u->u) || differ(z.lmtd, u->lmtd) ||
 	    differ(z.ft, u->ft) || z.shells != u->shells ||
 	    differ(z.area, u->area) || differ(z.cost, u->cost))

@@ -17,7 +17,8 @@
  *    changes, at least min(EMAT, ΔT_hot + ΔT_cold) (network.h);
  *  - sizing: U, LMTD, F, shells, area and cost recomputed (network.h,
  *    exchanger.h); a held retrofit unit at its own shells, its area needed
- *    within the area it has today plus the area added (network_held.c);
+ *    within the area it has today plus the area added (network_held.c),
+ *    a held fired heater's duty within its rating plus the firing added;
  *  - the utilities used against the targets of the problem table recomputed
  *    from the streams, plus the penalties the network declares; with priced
  *    utilities and no penalty, the cost of the mix against the least-cost

@@ -306,9 +306,11 @@ judge(const sim *s, hl_netsim *r)
 		const lane *l = &s->lane[p];
 		double gap, tol = 1e-7 * (1.0 + pp->load);
 
-		if (pp->utility || l->n == 0)
+		if (pp->utility)
 			continue;
-		gap = heat(pp, pp->target) - heat(pp, l->end);
+		/* A stream left without units stays at its supply. */
+		gap = heat(pp, pp->target) - heat(pp, l->n > 0 ? l->end :
+		    pp->supply);
 		if (fabs(gap) <= tol)
 			continue;
 		r->shortfall[p] = gap;

@@ -26,7 +26,8 @@
  *
  * What the result says is wrong (the network is still written through):
  *  - a stream that ends off its target (its last stage holds no utility
- *    and the recovery falls short, or a make-up had to stop at 0):
+ *    and the recovery falls short, or a make-up had to stop at 0; a
+ *    stream without units falls short by its whole load):
  *    shortfall[p] kW more heat is needed there (a trim heater or cooler),
  *    negative when the stream passes its target; the simulation does not
  *    add a trim;

@@ -143,12 +143,17 @@ typedef struct {
 	/* Retrofit (network_held.c): a held unit is hardware, today's or
 	 * bought: its shells in series are fixed, the area its duty needs
 	 * must fit in area_today + area_added, and its cost is that of the
-	 * shells bought only. */
+	 * shells bought only. A fired heater, sized by duty, has no area:
+	 * its rating plays the part, its duty must fit in duty_today +
+	 * duty_added, and shells_added counts the heaters bought. */
 	int held;           /* 1: a retrofit unit, 0: a design unit */
 	char reuses[96];    /* today's tag it reuses, "" for a new unit */
 	double area_today;  /* m², the area it has today (0 for a new unit) */
 	double area_added;  /* m², area bought */
 	int shells_added;   /* shells bought (in series or in parallel) */
+	double duty_today;  /* kW, a reused fired heater's rated duty (its
+			       duty today); 0 for a new one and other types */
+	double duty_added;  /* kW, firing bought beyond it (fired heaters) */
 	int moved;          /* re-piped or resequenced (not in files) */
 } hl_network_unit;
 
@@ -228,7 +233,9 @@ hl_status hl_network_size_unit(const hl_network *net, hl_network_unit *u,
  * those shells, the area its duty needs, the cost of the shells bought by
  * the type's law, shells_added·(a + b·(area_added / shells_added)^c), the
  * bought shells split in parallel so that none passes the type's largest
- * (shells_added counts them; a new unit's parallel follows). */
+ * (shells_added counts them; a new unit's parallel follows). A fired
+ * heater's bought heaters cost shells_added·(a + b·Q^c), Q the MW of
+ * duty_added each carries, none above the type's largest. */
 hl_status hl_network_size_held(const hl_network *net, hl_network_unit *u,
 			       const hl_exchanger_spec *spec,
 			       const hl_exchanger_sizing *z, hl_error *err);

@@ -21,6 +21,29 @@ lot_for(double area_per_shell, double largest)
 	return k < 1.0 ? 1 : k > 1e6 ? 1000000 : (int)k;
 }
 
+/* Heaters bought for duty_added kW beyond a fired heater's rating, each at
+ * most the type's largest (MW), priced by the type's law on duty per
+ * heater (exchanger.h), n·(a + b·(Q/n)^c) (common practice, no source:
+ * firing beyond a heater's rated duty is new firing capacity, bought as
+ * area beyond a shell's is). */
+static void
+heaters_bought(hl_network_unit *u, const hl_exchanger_spec *spec)
+{
+	double mw;
+	int k;
+
+	u->cost = 0.0;
+	if (!(u->shells_added > 0 && u->duty_added > 0.0))
+		return;
+	k = lot_for(u->duty_added / 1000.0 / u->shells_added, spec->largest);
+	u->shells_added *= k;
+	if (u->reuses[0] == '\0')
+		u->parallel = u->shells_added;
+	mw = u->duty_added / 1000.0 / u->shells_added;
+	u->cost = u->shells_added * (spec->cost_a + spec->cost_b *
+	    pow(mw, spec->cost_c));
+}
+
 /* Q = U·A·F·LMTD (Kern 1950, ch. 7) with F of the unit's own shells in
  * series by its type (exchanger.h); cost of the shells bought by the
  * type's law per shell, shells_added·(a + b·(area_added/shells_added)^c),
@@ -40,7 +63,9 @@ hl_network_size_held(const hl_network *net, hl_network_unit *u,
 	u->area_shell = u->area / ((u->shells > 0 ? u->shells : 1) * par);
 	u->warn = z->warn;
 	u->cost = 0.0;
-	if (u->shells_added > 0 && u->area_added > 0.0 &&
+	if (spec->type == HL_EXCH_FIRED_HEATER)
+		heaters_bought(u, spec);
+	else if (u->shells_added > 0 && u->area_added > 0.0 &&
 	    spec->type != HL_EXCH_FIRED_HEATER) {
 		k = lot_for(u->area_added / u->shells_added, spec->largest);
 		/* The bought shells go in parallel; a new unit's trains are

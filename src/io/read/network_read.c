@@ -113,6 +113,8 @@ static const hl_xattr unit_attr[] = {
 	{ "area-today", HL_XATTR_AMOUNT, 0, "m²", NULL },
 	{ "area-added", HL_XATTR_AMOUNT, 0, "m²", NULL },
 	{ "shells-added", HL_XATTR_AMOUNT, 0, NULL, NULL },
+	{ "duty-today", HL_XATTR_AMOUNT, 0, "kW", NULL },
+	{ "duty-added", HL_XATTR_AMOUNT, 0, "kW", NULL },
 	{ "warning", HL_XATTR_TEXT, 0, NULL, NULL },
 };
 
@@ -342,6 +344,31 @@ find_party(const hl_network *net, const char *name)
 	return -1;
 }
 
+/* A held fired heater's rating and the firing bought: without them, a
+ * reused one is rated at its duty and nothing is bought. */
+static hl_status
+read_firing(hl_network_unit *u, xmlNodePtr n, const char *file,
+	    hl_error *err)
+{
+	double today = num(n, "duty-today"), added = num(n, "duty-added");
+
+	if (u->type != HL_EXCH_FIRED_HEATER) {
+		if (!isnan(today) || !isnan(added))
+			return hl_error_set(err, HL_EINPUT, file,
+			    hl_xattr_line(n), "exchanger %s: duty-today and "
+			    "duty-added belong to a fired heater only", u->id);
+		return HL_OK;
+	}
+	if (!isnan(today) && u->reuses[0] == '\0')
+		return hl_error_set(err, HL_EINPUT, file, hl_xattr_line(n),
+		    "exchanger %s: duty-today belongs to a unit that reuses "
+		    "one of today's", u->id);
+	u->duty_today = !isnan(today) ? today : u->reuses[0] != '\0' ?
+	    u->duty : 0.0;
+	u->duty_added = isnan(added) ? 0.0 : added;
+	return HL_OK;
+}
+
 /* A retrofit unit (rfit.h): held hardware with today's and added area. */
 static hl_status
 read_held(hl_network_unit *u, xmlNodePtr n, const char *file, hl_error *err)
@@ -350,8 +377,15 @@ read_held(hl_network_unit *u, xmlNodePtr n, const char *file, hl_error *err)
 	double today = num(n, "area-today"), added = num(n, "area-added");
 	double sa = num(n, "shells-added");
 
-	if (tag == NULL && isnan(today) && isnan(added) && isnan(sa))
+	if (tag == NULL && isnan(today) && isnan(added) && isnan(sa)) {
+		if (!isnan(num(n, "duty-today")) || !isnan(num(n,
+		    "duty-added")))
+			return hl_error_set(err, HL_EINPUT, file,
+			    hl_xattr_line(n), "exchanger %s: duty-today and "
+			    "duty-added belong to a retrofit unit (with "
+			    "area-added)", u->id);
 		return HL_OK;
+	}
 	if (isnan(added) || (tag != NULL && isnan(today)) ||
 	    (tag == NULL && !isnan(today)))
 		return hl_error_set(err, HL_EINPUT, file, hl_xattr_line(n),
@@ -371,7 +405,7 @@ read_held(hl_network_unit *u, xmlNodePtr n, const char *file, hl_error *err)
 	u->area_today = isnan(today) ? 0.0 : today;
 	u->area_added = added;
 	u->shells_added = isnan(sa) ? 0 : (int)sa;
-	return HL_OK;
+	return read_firing(u, n, file, err);
 }
 
 static hl_status

@@ -4,6 +4,7 @@
 #include <math.h>
 #include <stdio.h>
 
+#include "display.h"
 #include "grid_svg.h"
 #include "report_sec.h"
 
@@ -21,8 +22,7 @@ changes(const hl_rfit_proposal *p)
 	size_t k, n = 0;
 
 	for (k = 0; k < p->nmod; k++)
-		n += p->mod[k].kind != HL_RFIT_UTILITY_AREA &&
-		    p->mod[k].kind != HL_RFIT_TRIM;
+		n += !hl_rfit_kind_derived(p->mod[k].kind);
 	return n;
 }
 
@@ -54,8 +54,8 @@ ranked(hl_report *r)
 		    0));
 		hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->saving, 3, 0));
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B, p->payback, 2));
-		hl_report_cell_num(r, hl_report_fmt_sig(v, B, p->hot_after, 3,
-		    1));
+		hl_report_cell_num(r, hl_report_fmt_sig(v, B,
+		    hl_show_q(p->hot_after), 3, 1));
 		hl_report_cell_num(r, r->d->rfit_promise != NULL &&
 		    !isnan(r->d->rfit_promise[i]) ? hl_report_fmt_sig(v, B,
 		    r->d->rfit_promise[i], 3, 0) : "");
@@ -77,7 +77,9 @@ modifications(hl_report *r, const hl_rfit_proposal *p)
 
 	hl_report_table_start(r, "data rfit-mods", "The best proposal's "
 			      "modifications: places as stream #stage; cost "
-			      "the shells bought by the cost law of the unit's type plus "
+			      "the shells bought by the cost law of the unit's type "
+			      "(a fired heater's: the heaters bought for the "
+			      "firing beyond its rating, by its law on duty) plus "
 			      "the fixed cost of a re-pipe or a new unit.", 7,
 			      head, unit, num);
 	for (k = 0; k < p->nmod; k++) {
@@ -89,7 +91,8 @@ modifications(hl_report *r, const hl_rfit_proposal *p)
 		hl_report_cell(r, m->from);
 		hl_report_cell(r, m->to);
 		hl_report_cell_num(r, m->area_added > 0.0 ?
-		    hl_report_fmt_fixed(v, B, m->area_added, 1) : "");
+		    hl_report_fmt_fixed(v, B, hl_show_a(m->area_added), 1) :
+		    "");
 		hl_report_cell_num(r, hl_report_fmt_fixed(v, B,
 		    (double)m->shells_added, 0));
 		hl_report_cell_num(r, hl_report_fmt_sig(v, B, m->cost, 3, 0));

@@ -439,12 +439,12 @@ square(W w, double x, double y, const char *fill)
 	return rc | end(w);
 }
 
-/* A retrofit change: new, with area added, or re-piped. */
+/* A retrofit change: new, with area (firing) added, or re-piped. */
 static int
 changed(const hl_network_unit *u)
 {
 	return u->held && (u->reuses[0] == '\0' || u->area_added > 0.0 ||
-	    u->moved);
+	    u->duty_added > 0.0 || u->moved);
 }
 
 /* The ring around a changed unit's mark (drawn under it). */

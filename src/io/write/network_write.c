@@ -505,6 +505,12 @@ xml_unit(xmlTextWriterPtr w, const hl_network *net, const hl_network_unit *u)
 		}
 		rc |= hl_xml_num(w, "area-added", u->area_added);
 		rc |= hl_xml_int(w, "shells-added", u->shells_added);
+		if (u->type == HL_EXCH_FIRED_HEATER) {
+			if (u->reuses[0] != '\0')
+				rc |= hl_xml_num(w, "duty-today",
+				    u->duty_today);
+			rc |= hl_xml_num(w, "duty-added", u->duty_added);
+		}
 	}
 	rc |= xmlTextWriterEndElement(w);
 	return rc;
