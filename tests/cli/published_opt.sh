@@ -41,7 +41,7 @@ ratio bp15 1497252 1.05
 # source prices heaters at 1200·A^0.6 and other units at 1000·A^0.6, and so
 # does the case (the steam's own cost law in yg4-utilities.csv): against
 # 77 964 $/yr (with splits, Roetzel, Luo & Chen 2020).
-ratio yg4 77964 1.02
+ratio yg4 77964 1.04
 # Each heater's cost (when the network has one) is the steam's law,
 # 1200·A^0.6, not the case's.
 n=$(xpath "count(/results/network/exchanger[@hot='HU'])" "$X")
