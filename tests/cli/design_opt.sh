@@ -33,14 +33,25 @@ least() {
 	[ "$n" = 0 ] && pass || fail "$n values of $2 below $1"
 }
 
-# The demo plant with its default search: sound, in the schema, and no
-# dearer than the fewest-units start it reports.
-check_exit 0 hl design "$CASES/demo.xml" $Q --format xml -o "$X"
+# The demo plant under the limits its fewest-units start keeps (no smallest
+# unit): sound, in the schema, and no dearer than the start it reports.
+check_exit 0 hl design "$CASES/demo.xml" $Q --min-duty 0 --format xml -o "$X"
 valid "$X"
 check_exit 0 hl check "$X"
 check_grep "sound" "$WORK/stdout"
 awk -v t="$(net total-cost)" -v s="$(xpath 'string(/results/least-cost/@start-cost)' "$X")" \
 	'BEGIN { exit !(t <= s * (1 + 1e-12)) }' && pass || fail "dearer than the start"
+
+# By default no unit of the demo below 1 % of its largest stream duty (the
+# text names the value): the start's 6 to 12 kW units and its three-way
+# reboiler split go. Same seed and effort: the XML is the same network.
+check_exit 0 hl design "$CASES/demo.xml" $Q
+check_grep "kW: 1 % of the largest stream duty, the default" "$WORK/stdout"
+m=$(sed -n 's/.*smallest .*unit \([0-9.]*\) kW: 1 %.*/\1/p' "$WORK/stdout")
+awk -v m="$m" 'BEGIN { exit !(m > 10) }' && pass || fail "default smallest unit '$m'"
+check_exit 0 hl design "$CASES/demo.xml" $Q --format xml -o "$X"
+check_exit 0 hl check "$X"
+least "$m" "/results/network/exchanger/@duty"
 
 # No splits anywhere; none on one stream.
 check_exit 0 hl design "$CASES/demo.xml" $Q --no-splits --format xml -o "$X"

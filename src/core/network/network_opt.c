@@ -288,6 +288,34 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
  * process units below it then leave, smallest first (their heat to the
  * utilities), and a polish and a short walk under it follow. When that
  * misses a limit the default is dropped and r says so. */
+/* From the relaxed result: the process units below the smallest duty out,
+ * smallest first (their heat to the utilities), then a polish and a short
+ * walk under the limit; the best goes to *best, its V returned. */
+static double
+repair(const hl_opt_problem *P, const hl_opt_options *o,
+       const hl_opt_state *from, hl_opt_state *s, hl_opt_state *best,
+       hl_opt_result *r)
+{
+	size_t m = P->S * P->nh * P->nc, i, pickd, total = budget(P, o);
+	int capped = 0;
+
+	hl_opt_state_copy(P, s, from);
+	do {
+		pickd = m;
+		for (i = 0; i < m; i++)
+			if (s->q[i] > HL_OPT_QEPS && s->q[i] < o->min_duty &&
+			    !s->keep[i] && (pickd == m || s->q[i] < s->q[pickd]))
+				pickd = i;
+		if (pickd < m)
+			s->q[pickd] = 0.0;
+	} while (pickd < m);
+	hl_opt_eval_all(P, s);
+	r->evals += hl_opt_polish(P, s, total / 20);
+	r->evals += hl_opt_walk(P, s, best, mix(o->seed, 977), total / 5,
+	    0.0, 0, &capped);
+	return best->v;
+}
+
 static hl_status
 search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 		   hl_opt_options *relaxed_out, hl_opt_state *out,
@@ -295,8 +323,6 @@ search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 {
 	hl_opt_options relaxed = *o;
 	hl_opt_state s, best;
-	size_t m = P->S * P->nh * P->nc, i, pickd, total = budget(P, o);
-	int capped = 0;
 	hl_status st;
 
 	relaxed.min_duty = 0.0;
@@ -306,32 +332,28 @@ search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 	P->o = o;
 	if (st != HL_OK)
 		return st;
+	if (out->v <= 1e-9)
+		r->relaxed_tac = out->tac;
 	if (hl_opt_state_init(P, &s) != HL_OK)
 		return HL_EIO;
 	if (hl_opt_state_init(P, &best) != HL_OK) {
 		hl_opt_state_free(&s);
 		return HL_EIO;
 	}
-	hl_opt_state_copy(P, &s, out);
-	do {
-		pickd = m;
-		for (i = 0; i < m; i++)
-			if (s.q[i] > HL_OPT_QEPS && s.q[i] < o->min_duty &&
-			    !s.keep[i] && (pickd == m || s.q[i] < s.q[pickd]))
-				pickd = i;
-		if (pickd < m)
-			s.q[pickd] = 0.0;
-	} while (pickd < m);
-	hl_opt_eval_all(P, &s);
-	r->evals += hl_opt_polish(P, &s, total / 20);
-	r->evals += hl_opt_walk(P, &s, &best, mix(o->seed, 977), total / 20,
-	    0.0, 0, &capped);
-	if (best.v <= 1e-9) {
+	/* Every unit first, then process units only (a utility trim below
+	 * it may be the only way to a target), else none. */
+	P->auto_util = 1;
+	if (repair(P, o, out, &s, &best, r) > 1e-9) {
+		P->auto_util = 0;
+		if (repair(P, o, out, &s, &best, r) > 1e-9)
+			r->min_duty_dropped = 1;
+	}
+	r->min_duty_utilities = P->auto_util;
+	if (!r->min_duty_dropped) {
 		hl_opt_state_copy(P, out, &best);
 	} else {
 		*relaxed_out = relaxed;
 		P->o = relaxed_out;
-		r->min_duty_dropped = 1;
 		hl_opt_eval_all(P, out);
 	}
 	hl_opt_state_free(&s);
@@ -586,6 +608,22 @@ binding(const hl_case *c, const hl_opt_options *o, const hl_opt_problem *P,
 		    o->min_area > 0.0 : o->max_shells > 0;
 		if (!on)
 			continue;
+		if (k == 2 && o->min_duty_auto && !isnan(r->relaxed_tac)) {
+			/* the search ran without it: its own result is the
+			 * cost without the limit */
+			if (r->relaxed_tac < fin->tac * (1.0 - 1e-3))
+				len += (size_t)snprintf(r->binding + len,
+				    len < sizeof r->binding ?
+				    sizeof r->binding - len : 0,
+				    "%s%s binds: without it %.4g a year "
+				    "(%.1f %%) less", len > 0 ? "; " : "",
+				    what[k], fin->tac - r->relaxed_tac,
+				    100.0 * (fin->tac - r->relaxed_tac) /
+				    fin->tac);
+			if (len >= sizeof r->binding)
+				len = sizeof r->binding - 1;
+			continue;
+		}
 		x.no_splits = k == 0 ? 0 : o->no_splits;
 		x.no_split = k == 0 ? NULL : o->no_split;
 		x.max_branches = k == 1 ? 0 : o->max_branches;
@@ -635,7 +673,8 @@ keeps_limits(const hl_opt_problem *P, const hl_network *net)
 		int process = u->hot < P->c->nstream &&
 		    u->cold < P->c->nstream;
 
-		if ((u->duty < o->min_duty && (process || !o->min_duty_auto)) ||
+		if ((u->duty < o->min_duty && (process || !o->min_duty_auto ||
+		    P->auto_util)) ||
 		    u->area < o->min_area ||
 		    (o->max_shells > 0 && u->shells > o->max_shells))
 			return 0;
@@ -711,6 +750,7 @@ hl_network_optimise(const hl_case *c, const hl_opt_options *o,
 	if (r == NULL)
 		return hl_error_nomem(err);
 	r->start_tac = o->start != NULL ? o->start->total_cost : NAN;
+	r->relaxed_tac = NAN;
 	st = hl_opt_problem_init(&P, c, o, err);
 	if (st == HL_OK && P.nh + P.nc == 0)
 		st = hl_error_set(err, HL_EINPUT, c->source, 0, "the case has "

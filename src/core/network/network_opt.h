@@ -52,9 +52,9 @@ typedef struct {
 	int max_branches;         /* most branches per split, 0: no limit */
 	double min_duty;          /* kW per unit (utilities too), 0 */
 	int min_duty_auto;        /* 1: min_duty is hl_opt_auto_min_duty's:
-				     process units only (a utility trim
-				     would cost more to avoid), and the
-				     report says so */
+				     kept by every unit where a network
+				     can, else by process units only, else
+				     dropped (the result says which) */
 	double min_area;          /* m² per unit, 0 */
 	int max_shells;           /* in series per unit, 0: no limit */
 	const hl_network *start;  /* a network of the case's parties, NULL */
@@ -97,6 +97,10 @@ typedef struct {
 	char binding[400];        /* the limits that bind, "" when none */
 	int min_duty_dropped;     /* 1: no network kept the default smallest
 				     unit (min_duty_auto): it is dropped */
+	int min_duty_utilities;   /* 1: the default covers utility units
+				     too (else process units only) */
+	double relaxed_tac;       /* the search's best without the default
+				     smallest unit, NaN when not run */
 } hl_opt_result;
 
 /* Optimise the network of case c (its utilities must carry prices; a case

@@ -183,7 +183,8 @@ size_unit(const hl_opt_problem *P, hl_network_unit *u)
 	if (u->approach < req)
 		v += (req - u->approach) / VIOL_K + 1e-3;
 	if (o->min_duty > 0.0 && u->duty < o->min_duty && (!o->min_duty_auto ||
-	    (u->hot < P->c->nstream && u->cold < P->c->nstream)))
+	    P->auto_util || (u->hot < P->c->nstream &&
+	    u->cold < P->c->nstream)))
 		v += 1.0 - u->duty / o->min_duty + 1e-3;
 	if (o->min_area > 0.0 && u->type != HL_EXCH_FIRED_HEATER &&
 	    u->area < o->min_area)

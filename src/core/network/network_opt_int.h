@@ -31,6 +31,8 @@ typedef struct {
 				     utility per stream end */
 	double t_top, t_bot;      /* °C: hottest hot supply, coldest cold
 				     supply (stages spread between them) */
+	int auto_util;            /* the default smallest duty covers
+				     utility units too */
 } hl_opt_problem;
 
 #define HL_OPT_CELL(P, k, a, b) (((k) * (P)->nh + (a)) * (P)->nc + (b))

@@ -110,9 +110,9 @@ hl_opt_text(FILE *fp, const hl_opt_result *r, const hl_opt_options *o)
 		fprintf(fp, "  smallest process unit: no network kept the default "
 		    "(1 %% of the largest stream duty), so none is set\n");
 	else if (o->min_duty_auto)
-		fprintf(fp, "  smallest process unit %.*f %s: 1 %% of the largest "
-		    "stream duty, the default (--min-duty sets it for every "
-		    "unit, 0 for none)\n",
+		fprintf(fp, "  smallest %sunit %.*f %s: 1 %% of the largest "
+		    "stream duty, the default (--min-duty sets it, 0 for "
+		    "none)\n", r->min_duty_utilities ? "" : "process ",
 		    HL_DIG_Q(1), hl_show_q(o->min_duty), HL_SYM_Q);
 	if (r->binding[0] != '\0')
 		fprintf(fp, "  limits: %s\n", r->binding);
