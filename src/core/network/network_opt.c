@@ -316,6 +316,17 @@ repair(const hl_opt_problem *P, const hl_opt_options *o,
 	return best->v;
 }
 
+/* The default smallest unit stays only while it adds at most this part
+ * of the total annual cost to the search's result without it. */
+#define AUTO_MIN_DUTY_COST 0.03
+
+static int
+repaired(double v, const hl_opt_state *best, const hl_opt_state *relaxed)
+{
+	return v <= 1e-9 && (relaxed->v > 1e-9 || best->tac <=
+	    relaxed->tac + AUTO_MIN_DUTY_COST * fabs(relaxed->tac));
+}
+
 static hl_status
 search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 		   hl_opt_options *relaxed_out, hl_opt_state *out,
@@ -341,11 +352,12 @@ search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 		return HL_EIO;
 	}
 	/* Every unit first, then process units only (a utility trim below
-	 * it may be the only way to a target), else none. */
+	 * it may be the only way to a target), else none: a preference
+	 * kept only where it costs little (AUTO_MIN_DUTY_COST). */
 	P->auto_util = 1;
-	if (repair(P, o, out, &s, &best, r) > 1e-9) {
+	if (!repaired(repair(P, o, out, &s, &best, r), &best, out)) {
 		P->auto_util = 0;
-		if (repair(P, o, out, &s, &best, r) > 1e-9)
+		if (!repaired(repair(P, o, out, &s, &best, r), &best, out))
 			r->min_duty_dropped = 1;
 	}
 	r->min_duty_utilities = P->auto_util;

@@ -107,8 +107,9 @@ hl_opt_text(FILE *fp, const hl_opt_result *r, const hl_opt_options *o)
 		    "found, the start is kept" : "");
 	text_energy(fp, net);
 	if (o->min_duty_auto && r->min_duty_dropped)
-		fprintf(fp, "  smallest process unit: no network kept the default "
-		    "(1 %% of the largest stream duty), so none is set\n");
+		fprintf(fp, "  smallest unit: none; the default (1 %% of the "
+		    "largest stream duty) would add more than 3 %% to the "
+		    "cost (--min-duty sets one)\n");
 	else if (o->min_duty_auto)
 		fprintf(fp, "  smallest %sunit %.*f %s: 1 %% of the largest "
 		    "stream duty, the default (--min-duty sets it, 0 for "
