@@ -584,6 +584,18 @@ move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r, int iso)
 		}
 		s->q[j] += s->q[i];
 		s->q[i] = 0.0;
+	} else if (u < 0.70) {            /* part of it to another stage */
+		size_t k = i / (P->nh * P->nc), kk = pick(r, P->S), j;
+		double f = 0.1 + 0.8 * unif(r);
+
+		if (kk == k)
+			return 0;
+		j = HL_OPT_CELL(P, kk, (i / P->nc) % P->nh, i % P->nc);
+		keep_cell(z, s, j);
+		if (!(s->q[j] > HL_OPT_QEPS))
+			s->wh[j] = s->wc[j] = 1.0;
+		s->q[j] += f * s->q[i];
+		s->q[i] -= f * s->q[i];
 	} else {                          /* perturb the load */
 		double step = 0.5 * P->qscale * pow(10.0, -3.0 * unif(r));
 
