@@ -68,7 +68,7 @@ typedef struct {
 	uint64_t seed;
 	size_t max, spent;
 	double deadline;
-	int iso, capped;
+	int capped;
 } walk_job;
 
 typedef struct {
@@ -86,7 +86,7 @@ work(void *arg)
 		walk_job *j = &w->job[i];
 
 		j->spent = hl_opt_walk(j->P, &j->s, &j->best, j->seed, j->max,
-		    j->deadline, j->iso, &j->capped);
+		    j->deadline, &j->capped);
 	}
 	return NULL;
 }
@@ -237,7 +237,6 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 			j->seed = mix(o->seed, round * WALKS + i + 1);
 			j->max = total * 9 / 10 / ROUNDS / WALKS;
 			j->deadline = deadline;
-			j->iso = i % 2;
 			if (round > 0) {
 				hl_opt_state_copy(P, &j->s, i == worst ? out :
 				    &j->best);
@@ -312,7 +311,7 @@ repair(const hl_opt_problem *P, const hl_opt_options *o,
 	hl_opt_eval_all(P, s);
 	r->evals += hl_opt_polish(P, s, total / 20);
 	r->evals += hl_opt_walk(P, s, best, mix(o->seed, 977), total / 5,
-	    0.0, 0, &capped);
+	    0.0, &capped);
 	return best->v;
 }
 
@@ -651,7 +650,7 @@ binding(const hl_case *c, const hl_opt_options *o, const hl_opt_problem *P,
 			memcpy(s.q, fin->q, P->S * P->nh * P->nc * sizeof *s.q);
 			hl_opt_eval_all(&Q, &s);
 			hl_opt_walk(&Q, &s, &best, o->seed + 17 * k,
-			    budget(P, o) / 40, 0.0, 0, &capped);
+			    budget(P, o) / 40, 0.0, &capped);
 			if (best.v <= 1e-9 && best.tac < fin->tac *
 			    (1.0 - 1e-3))
 				len += (size_t)snprintf(r->binding + len,

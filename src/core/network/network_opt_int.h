@@ -92,13 +92,11 @@ void hl_opt_sum(const hl_opt_problem *P, hl_opt_state *s);
 int hl_opt_better(const hl_opt_state *x, const hl_opt_state *y);
 
 /* Walk w (seeded from seed and w) from s for evals evaluations; the best
- * state found goes to best. deadline: monotonic seconds, 0 none. iso: the
- * walk leaves the split shares as they are (isothermal for new splits): a
- * narrower search that settles in other basins. Returns the evaluations
- * spent; *capped set when the deadline stopped it. */
+ * state found goes to best. deadline: monotonic seconds, 0 none. Returns
+ * the evaluations spent; *capped set when the deadline stopped it. */
 size_t hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s,
 		   hl_opt_state *best, uint64_t seed, size_t evals,
-		   double deadline, int iso, int *capped);
+		   double deadline, int *capped);
 /* Greedy construction from s, candidates scored by the cost they save over
  * their mean approach to the power `power`; returns evaluations. */
 size_t hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max,

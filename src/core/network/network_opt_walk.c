@@ -13,7 +13,7 @@
 /* Compulsive acceptance: a worse state within this fraction of the cost is
  * taken with this probability. */
 #define ACCEPT_WORSE 0.3
-#define ACCEPT_PROB 0.05
+#define ACCEPT_PROB 0.02
 
 double
 hl_opt_now(void)
@@ -528,7 +528,7 @@ ends_of(const hl_opt_problem *P, const hl_opt_state *s, size_t i,
 
 /* One random move; returns 0 when none applies. */
 static int
-move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r, int iso)
+move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r)
 {
 	size_t n = count_active(P, s), i;
 	double u = unif(r), he, ce;
@@ -559,7 +559,7 @@ move(const hl_opt_problem *P, hl_opt_state *s, snap *z, rng *r, int iso)
 		return 1;
 	}
 	if (u < 0.28)
-		return iso ? 0 : move_weight(P, s, z, r);
+		return move_weight(P, s, z, r);
 	if (u < 0.36)
 		return move_mid(P, s, z, r);
 	i = any_active(P, s, r);
@@ -876,11 +876,11 @@ kick(const hl_opt_problem *P, hl_opt_state *s, rng *r)
 
 size_t
 hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s, hl_opt_state *best,
-	    uint64_t seed, size_t max, double deadline, int iso, int *capped)
+	    uint64_t seed, size_t max, double deadline, int *capped)
 {
 	rng r = { seed };
 	size_t evals = 0, stall = 0;
-	size_t restart = 200 + 20 * (P->nh + P->nc);
+	size_t restart = 400 + 40 * (P->nh + P->nc);
 	hl_opt_state full;
 	snap z;
 	int kind;
@@ -899,7 +899,7 @@ hl_opt_walk(const hl_opt_problem *P, hl_opt_state *s, hl_opt_state *best,
 			*capped = 1;
 			break;
 		}
-		kind = move(P, s, &z, &r, iso);
+		kind = move(P, s, &z, &r);
 		if (kind == 0) {
 			evals++;
 			continue;
