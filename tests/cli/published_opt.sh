@@ -6,7 +6,7 @@
 # costs (TAC) later papers reported; each case file names its original
 # paper). The TACs below are those records; the tolerances are what this
 # search reaches at its defaults, seed 1 (doc/performance.md has other
-# seeds), not the 1 % goal.
+# seeds): within 1 % on three, 3.2 % above on bp15.
 . "$TOP_SRCDIR/tests/cli/lib.sh"
 
 if [ -z "${XMLLINT:-}" ]; then
@@ -22,6 +22,12 @@ ratio() {
 	check_exit 0 hl design "$P/$1.xml" --quiet --format xml -o "$X"
 	check_exit 0 hl check "$X"
 	t=$(xpath "string(/results/network/@total-cost)" "$X")
+	# Under valgrind the time cap may stop the search: its result then
+	# depends on the machine, and only the checks above apply.
+	if [ "$(xpath "string(/results/least-cost/@time-capped)" "$X")" = yes ]; then
+		echo "$1: the time cap stopped the search; TAC $t not compared"
+		return
+	fi
 	awk -v t="$t" -v b="$2" -v m="$3" 'BEGIN { exit !(t <= m * b) }' \
 		&& pass || fail "$1: TAC $t above $3 × $2"
 	echo "$1: TAC $t, $(awk -v t="$t" -v b="$2" 'BEGIN { printf "%.4f", t / b }') of the best published"
@@ -29,19 +35,19 @@ ratio() {
 
 # Ciric & Floudas (1991), Comput. Chem. Eng. 15, 385: 105 426 $/yr (Huang &
 # Karimi 2012, 2013, as tabulated by Roetzel, Luo & Chen 2020).
-ratio cf7 105426 1.01
+ratio cf7 105426 1.005
 # Linnhoff & Ahmad (1990), Comput. Chem. Eng. 14, 729, aromatics plant:
 # 2 892 924 $/yr, Pettersson (2005) revised (Roetzel, Luo & Chen 2020).
-ratio aromatics9 2892924 1.02
+ratio aromatics9 2892924 1.01
 # Björk & Pettersson (2003), 15 streams: 1 497 252 $/yr, Pavão, Costa &
 # Ravagnani (2017) revised (Roetzel, Luo & Chen 2020).
-ratio bp15 1497252 1.05
+ratio bp15 1497252 1.035
 
 # Yee & Grossmann (1990), Comput. Chem. Eng. 14, 1165, 2 hot 2 cold: the
 # source prices heaters at 1200·A^0.6 and other units at 1000·A^0.6, and so
 # does the case (the steam's own cost law in yg4-utilities.csv): against
 # 77 964 $/yr (with splits, Roetzel, Luo & Chen 2020).
-ratio yg4 77964 1.04
+ratio yg4 77964 1.001
 # Each heater's cost (when the network has one) is the steam's law,
 # 1200·A^0.6, not the case's.
 n=$(xpath "count(/results/network/exchanger[@hot='HU'])" "$X")
