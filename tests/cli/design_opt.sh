@@ -52,6 +52,9 @@ awk -v m="$m" 'BEGIN { exit !(m > 10) }' && pass || fail "default smallest unit 
 check_exit 0 hl design "$CASES/demo.xml" $Q --format xml -o "$X"
 check_exit 0 hl check "$X"
 least "$m" "/results/network/exchanger/@duty"
+[ "$(xpath 'string(/results/least-cost/@smallest-unit-rule)' "$X")" = default ] && pass ||
+	fail "the demo's smallest-unit-rule is not 'default'"
+check_near "$(xpath 'string(/results/least-cost/@smallest-unit)' "$X")" "$m" 0.06 "smallest-unit"
 
 # No splits anywhere; none on one stream.
 check_exit 0 hl design "$CASES/demo.xml" $Q --no-splits --format xml -o "$X"

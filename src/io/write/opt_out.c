@@ -169,6 +169,12 @@ hl_opt_xml(xmlTextWriterPtr w, const hl_opt_result *r,
 		rc |= hl_xml_num(w, "start-cost", r->start_tac);
 	rc |= hl_xml_str(w, "kept-start", r->kept_start ? "yes" : "no");
 	rc |= hl_xml_num(w, "above-target", r->net->qh - r->net->qh_target);
+	if (o->min_duty > 0.0 && !r->min_duty_dropped)
+		rc |= hl_xml_num(w, "smallest-unit", o->min_duty);
+	if (o->min_duty > 0.0)
+		rc |= hl_xml_str(w, "smallest-unit-rule", !o->min_duty_auto ?
+		    "set" : r->min_duty_dropped ? "default-dropped" :
+		    r->min_duty_utilities ? "default" : "default-process");
 	if (r->binding[0] != '\0')
 		rc |= xmlTextWriterWriteElement(w, BAD_CAST "limits",
 		    BAD_CAST r->binding);
