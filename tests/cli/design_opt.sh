@@ -56,6 +56,17 @@ least "$m" "/results/network/exchanger/@duty"
 	fail "the demo's smallest-unit-rule is not 'default'"
 check_near "$(xpath 'string(/results/least-cost/@smallest-unit)' "$X")" "$m" 0.06 "smallest-unit"
 
+# Rules on stream-utility pairs: C2 takes HP steam though LP steam is
+# cheaper; H2 gives river water at most 20 kW (the case's <require> and
+# <limit>).
+check_exit 0 hl design "$DATA/good/kemp4-utility-rules.xml" $Q --format xml -o "$X"
+check_exit 0 hl check "$X"
+hp=$(xpath "sum(/results/network/exchanger[@hot='HP steam' and @cold='C2']/@duty)" "$X")
+awk -v d="$hp" 'BEGIN { exit !(d > 0.01) }' && pass || fail "C2 takes no HP steam ($hp kW)"
+check_lim=$(xpath "sum(/results/network/exchanger[@hot='H2' and @cold='river water']/@duty)" "$X")
+awk -v d="$check_lim" 'BEGIN { exit !(d <= 20 * (1 + 1e-9)) }' && pass ||
+	fail "H2 gives river water $check_lim kW, above its 20 kW"
+
 # No splits anywhere; none on one stream.
 check_exit 0 hl design "$CASES/demo.xml" $Q --no-splits --format xml -o "$X"
 check_near "$(net splits)" 0 0 "--no-splits"

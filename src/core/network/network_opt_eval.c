@@ -240,74 +240,96 @@ hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in, double d,
 	    which, viol);
 }
 
+/* A unit on utility j for process party p from t_in to t_out, duty d:
+ * 0 when the temperatures rule it out, else 1 with *u filled. */
+static int
+util_try(const hl_opt_problem *P, size_t p, size_t j, double t_in,
+	 double t_out, double d, hl_network_unit *u)
+{
+	const hl_network *net = P->base;
+	const hl_network_party *sp = &net->party[p];
+	size_t up = P->c->nstream + j;
+	const hl_network_party *ut = &net->party[up];
+	int hot = sp->kind == HL_HOT;
+	double req = hl_network_required(&net->set, hot ? sp : ut,
+	    hot ? ut : sp), uout = ut->target;
+
+	memset(u, 0, sizeof *u);
+	u->duty = d;
+	if (hot) {
+		if (t_out - ut->supply < req)
+			return 0;
+		if (t_in - uout < req) {
+			if (ut->supply == ut->target)
+				return 0;
+			uout = t_in - req;
+			if (uout <= ut->supply + 1e-6)
+				return 0;
+		}
+		u->hot = p;
+		u->cold = up;
+		u->hot_in = t_in;
+		u->hot_out = t_out;
+		u->cold_in = ut->supply;
+		u->cold_out = uout;
+	} else {
+		if (ut->supply - t_out < req)
+			return 0;
+		if (uout - t_in < req) {
+			if (ut->supply == ut->target)
+				return 0;
+			uout = t_in + req;
+			if (uout >= ut->supply - 1e-6)
+				return 0;
+		}
+		u->hot = up;
+		u->cold = p;
+		u->hot_in = ut->supply;
+		u->hot_out = uout;
+		u->cold_in = t_in;
+		u->cold_out = t_out;
+	}
+	return 1;
+}
+
 double
 hl_opt_util_unit(const hl_opt_problem *P, size_t p, double t_in,
 		 double t_out, double d, hl_network_unit *best, long *which,
 		 double *viol)
 {
 	const hl_network *net = P->base;
-	const hl_network_party *sp = &net->party[p];
-	int hot = sp->kind == HL_HOT;
 	double cost = HUGE_VAL, bv = HUGE_VAL;
-	size_t j;
+	size_t j, n = P->nu;
+	int pass;
 
 	*which = -1;
-	for (j = 0; j < P->nu; j++) {
-		size_t up = P->c->nstream + j;
-		const hl_network_party *ut = &net->party[up];
-		hl_network_unit u;
-		double req, uout, c, v;
+	/* A utility the stream must use (a require rule) first; the others
+	 * only when none of those can serve. */
+	for (pass = P->urules ? 0 : 1; pass < 2; pass++) {
+		for (j = 0; j < n; j++) {
+			const hl_network_party *ut = &net->party[P->c->nstream + j];
+			hl_network_unit u;
+			double c, v;
 
-		if (ut->kind == sp->kind || !P->uallow[p * P->nu + j])
-			continue;
-		req = hl_network_required(&net->set, hot ? sp : ut,
-		    hot ? ut : sp);
-		memset(&u, 0, sizeof u);
-		u.duty = d;
-		uout = ut->target;
-		if (hot) {
-			if (t_out - ut->supply < req)
+			if (ut->kind == net->party[p].kind ||
+			    !P->uallow[p * n + j] ||
+			    (pass == 0 && !P->ureq[p * n + j]) ||
+			    d > P->umax[p * n + j] * (1.0 + 1e-12) ||
+			    !util_try(P, p, j, t_in, t_out, d, &u))
 				continue;
-			if (t_in - uout < req) {
-				if (ut->supply == ut->target)
-					continue;
-				uout = t_in - req;
-				if (uout <= ut->supply + 1e-6)
-					continue;
+			v = size_unit(P, &u);
+			c = P->crf * u.cost + (isnan(ut->price) ? 0.0 :
+			    ut->price) * d * net->set.hours / 1000.0;
+			if (v < bv || (v == bv && c < cost)) {
+				bv = v;
+				cost = v == 0.0 ? c : 0.0;
+				*which = (long)j;
+				if (best != NULL)
+					*best = u;
 			}
-			u.hot = p;
-			u.cold = up;
-			u.hot_in = t_in;
-			u.hot_out = t_out;
-			u.cold_in = ut->supply;
-			u.cold_out = uout;
-		} else {
-			if (ut->supply - t_out < req)
-				continue;
-			if (uout - t_in < req) {
-				if (ut->supply == ut->target)
-					continue;
-				uout = t_in + req;
-				if (uout >= ut->supply - 1e-6)
-					continue;
-			}
-			u.hot = up;
-			u.cold = p;
-			u.hot_in = ut->supply;
-			u.hot_out = uout;
-			u.cold_in = t_in;
-			u.cold_out = t_out;
 		}
-		v = size_unit(P, &u);
-		c = P->crf * u.cost + (isnan(ut->price) ? 0.0 : ut->price) *
-		    d * net->set.hours / 1000.0;
-		if (v < bv || (v == bv && c < cost)) {
-			bv = v;
-			cost = v == 0.0 ? c : 0.0;
-			*which = (long)j;
-			if (best != NULL)
-				*best = u;
-		}
+		if (bv == 0.0)
+			break;
 	}
 	*viol = *which < 0 ? d / P->qscale + 1.0 : bv;
 	return *which < 0 ? 0.0 : cost;
@@ -417,7 +439,9 @@ hl_opt_end(const hl_opt_problem *P, size_t p, double t_in, double d,
 	c1 = hl_opt_end_unit(P, p, t_in, d, out != NULL ? &one : NULL, which,
 	    viol);
 	*n = *which >= 0;
-	if (P->has_max_load)
+	/* Capacities and stream-utility rules count a unit per end (levels
+	 * in series there would bypass them; inside the stream they may). */
+	if (P->has_max_load || P->urules)
 		goto single;
 	c2 = cascade(P, p, t_in, d, NULL, &n2, &v2);
 	if (n2 < 2 || v2 > *viol || (v2 == *viol && c2 >= c1))
@@ -492,6 +516,75 @@ cold_end(const hl_opt_problem *P, hl_opt_state *s, size_t b)
 	mid_units(P, s, 1, b);
 }
 
+/* What process stream x (hot: side 0) takes from each utility, kW, into
+ * load[0..nu): its end (one unit or several levels in series) and the
+ * utilities inside it. */
+static void
+util_loads(const hl_opt_problem *P, const hl_opt_state *s, int side,
+	   size_t x, double *load)
+{
+	long w = side == 0 ? s->hutil[x] : s->cutil[x];
+	double end = side == 0 ? s->hend[x] : s->cend[x];
+	const double *mid = side == 0 ? &s->uh[x * P->S] : &s->uc[x * P->S];
+	const long *mu = side == 0 ? &s->muh[x * P->S] : &s->muc[x * P->S];
+	size_t k, p = side == 0 ? P->hot[x] : P->cold[x], ns = P->c->nstream;
+
+	if (w >= 0)
+		load[w] += end;
+	else if (w == -2) {
+		hl_network_unit u[64];
+		size_t n = 0;
+		long which;
+		double v;
+
+		hl_opt_end(P, p, side == 0 ? s->th[x * (P->S + 1) + P->S] :
+		    s->tc[x * (P->S + 1)], end, u, &n, &which, &v);
+		for (k = 0; k < n; k++)
+			load[(side == 0 ? u[k].cold : u[k].hot) - ns] += u[k].duty;
+	}
+	for (k = 0; k < P->S; k++)
+		if (mu[k] >= 0)
+			load[mu[k]] += mid[k];
+}
+
+/* The least a required pair must carry to count as exchanging heat: the
+ * smallest duty when one is set, else a thousandth of the stream's duty
+ * (a unit of next to nothing would keep the rule's letter only). */
+static double
+required_least(const hl_opt_problem *P, size_t p)
+{
+	return fmax(P->o->min_duty, 1e-3 * hl_stream_duty(&P->c->stream[p]));
+}
+
+/* The rules on stream-utility pairs: a utility the stream must use, the
+ * most it may take from one. */
+static double
+util_rules(const hl_opt_problem *P, const hl_opt_state *s)
+{
+	double load[64], v = 0.0;
+	size_t x, j, n = P->nu;
+	int side;
+
+	if (!P->urules || n > 64)
+		return 0.0;
+	for (side = 0; side < 2; side++)
+		for (x = 0; x < (side == 0 ? P->nh : P->nc); x++) {
+			size_t p = side == 0 ? P->hot[x] : P->cold[x];
+
+			memset(load, 0, sizeof load);
+			util_loads(P, s, side, x, load);
+			for (j = 0; j < n; j++) {
+				if (P->ureq[p * n + j] &&
+				    load[j] < required_least(P, p))
+					v += 1.0 - load[j] / required_least(P, p);
+				if (load[j] > P->umax[p * n + j] * (1 + 1e-12))
+					v += (load[j] - P->umax[p * n + j]) /
+					    P->qscale + 1e-3;
+			}
+		}
+	return v;
+}
+
 /* Limits that involve several streams: match rules, utility capacities,
  * cells that must keep a unit. */
 static double
@@ -510,8 +603,10 @@ global_viol(const hl_opt_problem *P, const hl_opt_state *s)
 					continue;
 				for (k = 0; k < P->S; k++)
 					sum += s->q[HL_OPT_CELL(P, k, a, b)];
-				if (P->require[pr] && sum <= HL_OPT_QEPS)
-					v += 1.0;
+				if (P->require[pr] && sum < fmin(required_least(P,
+				    P->hot[a]), required_least(P, P->cold[b])))
+					v += 1.0 - sum / fmin(required_least(P,
+					    P->hot[a]), required_least(P, P->cold[b]));
 				if (sum > P->maxduty[pr] * (1 + 1e-12))
 					v += (sum - P->maxduty[pr]) /
 					    P->qscale + 1e-3;
@@ -553,7 +648,7 @@ hl_opt_sum(const hl_opt_problem *P, hl_opt_state *s)
 		tac += s->cecost[i] + s->cmc[i];
 		v += s->cvs[i] + s->ceviol[i] + s->cmv[i];
 	}
-	s->v = v + global_viol(P, s);
+	s->v = v + global_viol(P, s) + util_rules(P, s);
 	s->tac = tac;
 }
 

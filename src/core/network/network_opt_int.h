@@ -23,6 +23,9 @@ typedef struct {
 	unsigned char *require;   /* nh·nc: the pair must meet */
 	double *maxduty;          /* nh·nc: kW, HUGE_VAL none */
 	unsigned char *uallow;    /* nstream·nu: the stream may use it */
+	unsigned char *ureq;      /* nstream·nu: the stream must use it */
+	double *umax;             /* nstream·nu: kW at most, HUGE_VAL none */
+	int urules;               /* some stream-utility pair has either */
 	unsigned char *nosplit;   /* nstream */
 	double crf;
 	double qscale;            /* kW: a typical stream duty */

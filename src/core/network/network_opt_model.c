@@ -227,8 +227,10 @@ tables(hl_opt_problem *P, hl_error *err)
 	P->cold = calloc(np + 1, sizeof *P->cold);
 	P->nosplit = calloc(np + 1, 1);
 	P->uallow = calloc(np * (c->nutil + 1) + 1, 1);
+	P->ureq = calloc(np * (c->nutil + 1) + 1, 1);
+	P->umax = calloc(np * (c->nutil + 1) + 1, sizeof *P->umax);
 	if (P->hot == NULL || P->cold == NULL || P->nosplit == NULL ||
-	    P->uallow == NULL)
+	    P->uallow == NULL || P->ureq == NULL || P->umax == NULL)
 		return hl_error_nomem(err);
 	for (i = 0; i < np; i++) {
 		if (c->stream[i].kind == HL_HOT)
@@ -282,7 +284,11 @@ tables(hl_opt_problem *P, hl_error *err)
 				pair_rules(P, i, up, &allow, &req, &md);
 			else
 				pair_rules(P, up, i, &allow, &req, &md);
-			P->uallow[i * P->nu + j] = (unsigned char)allow;
+			P->uallow[i * P->nu + j] = (unsigned char)(allow || req);
+			P->ureq[i * P->nu + j] = (unsigned char)req;
+			P->umax[i * P->nu + j] = md;
+			if (req || !isinf(md))
+				P->urules = 1;
 		}
 	return HL_OK;
 }
@@ -327,6 +333,8 @@ hl_opt_problem_free(hl_opt_problem *P)
 	free(P->cold);
 	free(P->nosplit);
 	free(P->uallow);
+	free(P->ureq);
+	free(P->umax);
 	free(P->allow);
 	free(P->require);
 	free(P->maxduty);
