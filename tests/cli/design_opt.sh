@@ -67,6 +67,17 @@ check_lim=$(xpath "sum(/results/network/exchanger[@hot='H2' and @cold='river wat
 awk -v d="$check_lim" 'BEGIN { exit !(d <= 20 * (1 + 1e-9)) }' && pass ||
 	fail "H2 gives river water $check_lim kW, above its 20 kW"
 
+# Plant areas, policy penalise: allowed, the least-cost network has a unit
+# across the areas; weighed as 50 units, it has none.
+cross="count(/results/network/exchanger[(@hot='H1' and @cold='C1') or (@hot='H2' and @cold='C2')])"
+sed 's/policy="penalise" penalty="50"/policy="allow"/' "$DATA/good/kemp4-areas.xml" >"$WORK/areas.xml"
+cp "$DATA/good/kemp4-utilities.csv" "$WORK/"
+check_exit 0 hl design "$WORK/areas.xml" $Q --format xml -o "$X"
+[ "$(xpath "$cross" "$X")" -ge 1 ] && pass || fail "no unit across the areas when allowed"
+check_exit 0 hl design "$DATA/good/kemp4-areas.xml" $Q --format xml -o "$X"
+check_exit 0 hl check "$X"
+check_near "$(xpath "$cross" "$X")" 0 0 "units across penalised areas"
+
 # No splits anywhere; none on one stream.
 check_exit 0 hl design "$CASES/demo.xml" $Q --no-splits --format xml -o "$X"
 check_near "$(net splits)" 0 0 "--no-splits"

@@ -225,7 +225,7 @@ cell(const hl_opt_problem *P, hl_opt_state *s, size_t k, size_t a, size_t b)
 	    &u.cold_share);
 	s->cviol[i] = size_unit(P, &u);
 	if (s->cviol[i] == 0.0)
-		s->ccost[i] = P->crf * u.cost;
+		s->ccost[i] = P->crf * u.cost + P->xarea[a * P->nc + b];
 	s->act[i] = 1;
 	s->ccap += s->ccost[i] - oc;
 	s->cvsum += s->cviol[i] - ov;

@@ -22,6 +22,8 @@ typedef struct {
 	unsigned char *allow;     /* nh·nc: the pair may meet */
 	unsigned char *require;   /* nh·nc: the pair must meet */
 	double *maxduty;          /* nh·nc: kW, HUGE_VAL none */
+	double *xarea;            /* nh·nc: annual weight of a unit across
+				     plant areas (policy penalise), 0 none */
 	unsigned char *uallow;    /* nstream·nu: the stream may use it */
 	unsigned char *ureq;      /* nstream·nu: the stream must use it */
 	double *umax;             /* nstream·nu: kW at most, HUGE_VAL none */

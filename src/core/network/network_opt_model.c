@@ -42,6 +42,22 @@ pair_rules(const hl_opt_problem *P, size_t hp, size_t cp, int *allow,
 	}
 }
 
+/* Plant areas with policy penalise: a unit between two areas counts as
+ * `penalty` units in the match MILP; the search weighs it as penalty - 1
+ * more units' fixed cost a year (the process law's a, annualised). */
+static double
+area_weight(const hl_opt_problem *P, size_t hp, size_t cp)
+{
+	const hl_case *c = P->c;
+	const char *ha = c->stream[hp].area, *ca = c->stream[cp].area;
+
+	if (c->set.area_policy != HL_AREAS_PENALISE || ha == NULL ||
+	    ca == NULL || strcmp(ha, ca) == 0 || !(c->set.cost_a > 0.0))
+		return 0.0;
+	return fmax(0.0, c->set.area_penalty - 1.0) * c->set.cost_a *
+	    hl_supertarget_crf(c->set.interest, c->set.life);
+}
+
 /* The case's parties with their types and cost laws (network_case.c):
  * every unit of the search is sized and priced against it. */
 static hl_status
@@ -255,7 +271,9 @@ tables(hl_opt_problem *P, hl_error *err)
 	P->allow = calloc(P->nh * P->nc + 1, 1);
 	P->require = calloc(P->nh * P->nc + 1, 1);
 	P->maxduty = calloc(P->nh * P->nc + 1, sizeof *P->maxduty);
-	if (P->allow == NULL || P->require == NULL || P->maxduty == NULL)
+	P->xarea = calloc(P->nh * P->nc + 1, sizeof *P->xarea);
+	if (P->allow == NULL || P->require == NULL || P->maxduty == NULL ||
+	    P->xarea == NULL)
 		return hl_error_nomem(err);
 	for (a = 0; a < P->nh; a++)
 		for (b = 0; b < P->nc; b++) {
@@ -269,6 +287,8 @@ tables(hl_opt_problem *P, hl_error *err)
 			P->allow[a * P->nc + b] = (unsigned char)(allow || req);
 			P->require[a * P->nc + b] = (unsigned char)req;
 			P->maxduty[a * P->nc + b] = md;
+			P->xarea[a * P->nc + b] = area_weight(P, P->hot[a],
+			    P->cold[b]);
 			if (req || !isinf(md))
 				P->rules = 1;
 		}
@@ -338,6 +358,7 @@ hl_opt_problem_free(hl_opt_problem *P)
 	free(P->allow);
 	free(P->require);
 	free(P->maxduty);
+	free(P->xarea);
 	memset(P, 0, sizeof *P);
 }
 
