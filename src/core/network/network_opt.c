@@ -293,7 +293,7 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 static double
 repair(const hl_opt_problem *P, const hl_opt_options *o,
        const hl_opt_state *from, hl_opt_state *s, hl_opt_state *best,
-       hl_opt_result *r)
+       double deadline, hl_opt_result *r)
 {
 	size_t m = P->S * P->nh * P->nc, i, pickd, total = budget(P, o);
 	int capped = 0;
@@ -311,7 +311,8 @@ repair(const hl_opt_problem *P, const hl_opt_options *o,
 	hl_opt_eval_all(P, s);
 	r->evals += hl_opt_polish(P, s, total / 20);
 	r->evals += hl_opt_walk(P, s, best, mix(o->seed, 977), total / 5,
-	    0.0, &capped);
+	    deadline, &capped);
+	r->capped |= capped;
 	return best->v;
 }
 
@@ -333,6 +334,8 @@ search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 {
 	hl_opt_options relaxed = *o;
 	hl_opt_state s, best;
+	double deadline = o->time_limit > 0.0 ? hl_opt_now() + o->time_limit :
+	    0.0;
 	hl_status st;
 
 	relaxed.min_duty = 0.0;
@@ -354,9 +357,11 @@ search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 	 * it may be the only way to a target), else none: a preference
 	 * kept only where it costs little (AUTO_MIN_DUTY_COST). */
 	P->auto_util = 1;
-	if (!repaired(repair(P, o, out, &s, &best, r), &best, out)) {
+	if (!repaired(repair(P, o, out, &s, &best, deadline, r), &best,
+	    out)) {
 		P->auto_util = 0;
-		if (!repaired(repair(P, o, out, &s, &best, r), &best, out))
+		if (!repaired(repair(P, o, out, &s, &best, deadline, r), &best,
+		    out))
 			r->min_duty_dropped = 1;
 	}
 	r->min_duty_utilities = P->auto_util;
