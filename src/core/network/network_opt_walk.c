@@ -644,6 +644,8 @@ try_load(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t i,
 /* The polish's variables, one index space: loads (m cells), hot and cold
  * branch weights (m each), then the utilities inside the hot and the cold
  * streams (S per stream). */
+enum { VAR_LOAD, VAR_WH, VAR_WC, VAR_UH, VAR_UC };
+#define IS_WEIGHT(k) ((k) == VAR_WH || (k) == VAR_WC)
 static double *
 var_at(const hl_opt_problem *P, hl_opt_state *s, size_t v, int *kind,
        size_t *cellp)
@@ -657,7 +659,7 @@ var_at(const hl_opt_problem *P, hl_opt_state *s, size_t v, int *kind,
 		    &s->wc[v - 2 * m];
 	}
 	v -= 3 * m;
-	*kind = v < P->nh * P->S ? 3 : 4;
+	*kind = v < P->nh * P->S ? VAR_UH : VAR_UC;
 	*cellp = v < P->nh * P->S ? v / P->S : (v - P->nh * P->S) / P->S;
 	return v < P->nh * P->S ? &s->uh[v] : &s->uc[v - P->nh * P->S];
 }
@@ -669,16 +671,15 @@ try_var(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t v,
 {
 	size_t j;
 	int kind;
-	double *p = var_at(P, s, v, &kind, &j);
 
-	if (kind == 0)
+	var_at(P, s, v, &kind, &j);
+	if (kind == VAR_LOAD)
 		return try_load(P, s, z, j, x, evals);
-	if (kind < 3)
+	if (IS_WEIGHT(kind))
 		begin(P, s, z, j);
 	else
-		begin_stream(P, s, z, kind - 3, j);
+		begin_stream(P, s, z, kind == VAR_UH ? 0 : 1, j);
 	*var_at(P, s, v, &kind, &j) = x;
-	(void)p;
 	return keep_if_better(P, s, z, evals);
 }
 
@@ -693,26 +694,26 @@ polish_var(const hl_opt_problem *P, hl_opt_state *s, snap *z, size_t v,
 	int kind;
 	double x = *var_at(P, s, v, &kind, &j), he, ce;
 
-	if (kind == 0) {
+	if (kind == VAR_LOAD) {
 		ends_of(P, s, j, &he, &ce);
 		if ((he > 0.0 && try_load(P, s, z, j, x + he, evals)) ||
 		    (ce > 0.0 && ce != he && try_load(P, s, z, j, x + ce,
 		    evals)))
 			return;
-	} else if (kind > 2) {
-		double end = kind == 3 ? s->hend[j] : s->cend[j];
+	} else if (!IS_WEIGHT(kind)) {
+		double end = kind == VAR_UH ? s->hend[j] : s->cend[j];
 
 		if ((end > 0.0 && try_var(P, s, z, v, x + end, evals)) ||
 		    try_var(P, s, z, v, 0.0, evals))
 			return;
 	}
-	if (h[v] < (kind == 1 || kind == 2 ? 1e-9 : 1e-9 * P->qscale))
+	if (h[v] < (IS_WEIGHT(kind) ? 1e-9 : 1e-9 * P->qscale))
 		return;
-	if (kind == 1 || kind == 2 ? try_var(P, s, z, v, x * (1.0 + h[v]),
+	if (IS_WEIGHT(kind) ? try_var(P, s, z, v, x * (1.0 + h[v]),
 	    evals) || try_var(P, s, z, v, x / (1.0 + h[v]), evals) :
 	    try_var(P, s, z, v, x + h[v], evals) ||
 	    try_var(P, s, z, v, fmax(0.0, x - h[v]), evals))
-		h[v] = fmin(2.0 * h[v], kind == 1 || kind == 2 ? 1.0 : HUGE_VAL);
+		h[v] = fmin(2.0 * h[v], IS_WEIGHT(kind) ? 1.0 : HUGE_VAL);
 	else
 		h[v] *= 0.5;
 }
@@ -726,9 +727,10 @@ var_live(const hl_opt_problem *P, hl_opt_state *s, size_t v)
 	int kind;
 	double x = *var_at(P, s, v, &kind, &j);
 
-	if (kind == 1 || kind == 2)
-		return s->q[j] > HL_OPT_QEPS && branches(P, s, j, kind - 1) > 1;
-	return x > (kind == 0 ? HL_OPT_QEPS : 0.0);
+	if (IS_WEIGHT(kind))
+		return s->q[j] > HL_OPT_QEPS &&
+		    branches(P, s, j, kind == VAR_WH ? 0 : 1) > 1;
+	return x > (kind == VAR_LOAD ? HL_OPT_QEPS : 0.0);
 }
 
 /* What a candidate of the greedy construction is worth: the cost it saves
@@ -839,7 +841,7 @@ hl_opt_polish(const hl_opt_problem *P, hl_opt_state *s, size_t max)
 	for (v = 0; v < n; v++) {
 		double x = *var_at(P, s, v, &kind, &j);
 
-		h[v] = kind == 1 || kind == 2 ? 0.2 : 0.1 * x;
+		h[v] = IS_WEIGHT(kind) ? 0.2 : 0.1 * x;
 	}
 	do {
 		hmax = 0.0;
@@ -848,7 +850,7 @@ hl_opt_polish(const hl_opt_problem *P, hl_opt_state *s, size_t max)
 				continue;
 			polish_var(P, s, &z, v, h, &evals);
 			var_at(P, s, v, &kind, &j);
-			hmax = fmax(hmax, kind == 1 || kind == 2 ?
+			hmax = fmax(hmax, IS_WEIGHT(kind) ?
 			    h[v] * P->qscale : h[v]);
 		}
 	} while (hmax >= 1e-9 * P->qscale && evals < max);
