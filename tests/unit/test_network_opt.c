@@ -20,6 +20,7 @@
 #include "network.h"
 #include "network_match.h"
 #include "network_opt.h"
+#include "network_opt_int.h"
 #include "utility_lp.h"
 
 /* A generated case with a steam and a cooling-water level (invented
@@ -244,6 +245,57 @@ test_start(void **state)
 	}
 }
 
+/* The fewest-units start laid into the superstructure (split shares as
+ * branch weights, utilities between process units inside the streams)
+ * costs in the model what it costs as a network: the search starts from
+ * it, not from a repaired copy. */
+static void
+test_start_exact(void **state)
+{
+	hl_rng r;
+	int trial, exact = 0, splits = 0, mids = 0;
+
+	(void)state;
+	hl_rng_seed(&r, 41);
+	for (trial = 0; trial < 8; trial++) {
+		hl_case *c = priced_case(&r, 4 + trial % 3, 4 + trial % 2);
+		hl_match_result *mr = NULL;
+		hl_network_feed feed;
+		hl_network *start = fewest_units(c, &mr, &feed);
+		hl_opt_options o;
+		hl_opt_problem P;
+		hl_opt_state s;
+		size_t i;
+
+		hl_opt_options_default(&o);
+		o.start = start;
+		assert_int_equal(hl_opt_problem_init(&P, c, &o, NULL), HL_OK);
+		assert_int_equal(hl_opt_state_init(&P, &s), HL_OK);
+		assert_int_equal(hl_opt_from_network(&P, start, NULL, &s), HL_OK);
+		if (s.v <= 1e-9 && fabs(s.tac - start->total_cost) <= 1e-6 *
+		    start->total_cost)
+			exact++;
+		else
+			print_error("trial %d: model %.6g (limits missed %g), "
+			    "network %.6g\n", trial, s.tac, s.v,
+			    start->total_cost);
+		splits += start->nsplit > 0;
+		for (i = 0; i < P.nh * P.S; i++)
+			mids += s.uh[i] > 0.0;
+		for (i = 0; i < P.nc * P.S; i++)
+			mids += s.uc[i] > 0.0;
+		hl_opt_state_free(&s);
+		hl_opt_problem_free(&P);
+		hl_network_free(start);
+		hl_network_feed_free(&feed);
+		hl_match_result_free(mr);
+		hl_case_free(c);
+	}
+	print_message("exact %d of 8, %d with splits, %d utilities inside\n",
+	    exact, splits, mids);
+	assert_int_equal(exact, 8);
+}
+
 /* Same seed: the same network on one thread and on two. */
 static void
 test_repeat(void **state)
@@ -280,6 +332,7 @@ main(void)
 	const struct CMUnitTest tests[] = {
 		cmocka_unit_test(test_limits),
 		cmocka_unit_test(test_start),
+		cmocka_unit_test(test_start_exact),
 		cmocka_unit_test(test_repeat),
 	};
 

@@ -10,6 +10,8 @@
 
 /* Approach shortfalls count per this many K, other misses per unit. */
 #define VIOL_K 10.0
+/* K: an approach this far below EMAT still keeps it (rounding). */
+#define APPROACH_TOL 1e-9
 
 static double
 tol_of(double x)
@@ -174,13 +176,15 @@ size_unit(const hl_opt_problem *P, hl_network_unit *u)
 	double req = hl_network_required(&P->base->set,
 	    &P->base->party[u->hot], &P->base->party[u->cold]), v = 0.0;
 
-	if (d1 < req || d2 < req)
+	/* APPROACH_TOL: the placement's temperatures, recomputed here from
+	 * the loads, may fall short of EMAT in the last digits. */
+	if (d1 < req - APPROACH_TOL || d2 < req - APPROACH_TOL)
 		return (fmax(0.0, req - d1) + fmax(0.0, req - d2)) / VIOL_K +
 		    1e-3;
 	if (hl_opt_size(P->base, u, o->max_shells <= 0, NULL) != HL_OK)
 		return 1.0;
 	u->note = NULL;
-	if (u->approach < req)
+	if (u->approach < req - APPROACH_TOL)
 		v += (req - u->approach) / VIOL_K + 1e-3;
 	if (o->min_duty > 0.0 && u->duty < o->min_duty && (!o->min_duty_auto ||
 	    P->auto_util || (u->hot < P->c->nstream &&
