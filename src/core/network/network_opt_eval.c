@@ -115,29 +115,18 @@ cold_stream(const hl_opt_problem *P, hl_opt_state *s, size_t b)
  * Westerlund 2002): a branch of share phi takes load q as the whole stream
  * would take q/phi, from the heat before the stage. */
 double
-hl_opt_hot_out(const hl_opt_problem *P, const hl_opt_state *s, size_t k,
-	       size_t a, double q, double w, double *share)
+hl_opt_branch_out(const hl_opt_problem *P, const hl_opt_state *s, int side,
+		  size_t k, size_t x, double q, double w, double *share)
 {
-	double sw = s->swh[a * P->S + k], phi = sw > 0.0 ? q * w / sw : 1.0;
+	size_t o = x * P->S + k;
+	double sw = side == 0 ? s->swh[o] : s->swc[o];
+	double phi = sw > 0.0 ? q * w / sw : 1.0;
 
 	*share = phi >= 1.0 - 1e-12 ? 1.0 : phi;
 	if (*share == 1.0)
-		return s->thm[a * P->S + k];
-	return hl_stream_temp_at(&P->c->stream[P->hot[a]],
-	    s->hq[a * P->S + k] + q / phi);
-}
-
-double
-hl_opt_cold_out(const hl_opt_problem *P, const hl_opt_state *s, size_t k,
-		size_t b, double q, double w, double *share)
-{
-	double sw = s->swc[b * P->S + k], phi = sw > 0.0 ? q * w / sw : 1.0;
-
-	*share = phi >= 1.0 - 1e-12 ? 1.0 : phi;
-	if (*share == 1.0)
-		return s->tcm[b * P->S + k];
-	return hl_stream_temp_at(&P->c->stream[P->cold[b]],
-	    s->cq[b * P->S + k] + q / phi);
+		return side == 0 ? s->thm[o] : s->tcm[o];
+	return hl_stream_temp_at(&P->c->stream[side == 0 ? P->hot[x] :
+	    P->cold[x]], (side == 0 ? s->hq[o] : s->cq[o]) + q / phi);
 }
 
 hl_status
@@ -223,9 +212,10 @@ cell(const hl_opt_problem *P, hl_opt_state *s, size_t k, size_t a, size_t b)
 	u.cold = P->cold[b];
 	u.duty = s->q[i];
 	u.hot_in = th[k];
-	u.hot_out = hl_opt_hot_out(P, s, k, a, u.duty, s->wh[i], &u.hot_share);
+	u.hot_out = hl_opt_branch_out(P, s, 0, k, a, u.duty, s->wh[i],
+	    &u.hot_share);
 	u.cold_in = tc[k + 1];
-	u.cold_out = hl_opt_cold_out(P, s, k, b, u.duty, s->wc[i],
+	u.cold_out = hl_opt_branch_out(P, s, 1, k, b, u.duty, s->wc[i],
 	    &u.cold_share);
 	s->cviol[i] = size_unit(P, &u);
 	if (s->cviol[i] == 0.0)

@@ -129,12 +129,14 @@ double hl_opt_end_unit(const hl_opt_problem *P, size_t p, double t_in,
 double hl_opt_util_unit(const hl_opt_problem *P, size_t p, double t_in,
 			double t_out, double d, hl_network_unit *best,
 			long *which, double *viol);
-/* A branch's outlet: hot stream a (or cold b) in stage k, load q, weight w
- * (the share q·w over the stage's Σ q·w); *share gets the share. */
-double hl_opt_hot_out(const hl_opt_problem *P, const hl_opt_state *s,
-		      size_t k, size_t a, double q, double w, double *share);
-double hl_opt_cold_out(const hl_opt_problem *P, const hl_opt_state *s,
-		       size_t k, size_t b, double q, double w, double *share);
+/* A branch's outlet on hot stream x (side 0) or cold stream x (side 1) in
+ * stage k, load q, weight w (the share q·w over the stage's Σ q·w), mixing
+ * by enthalpy (Björk & Westerlund 2002): the branch takes q as the whole
+ * stream would take q/share from the heat before the stage; *share gets
+ * the share. */
+double hl_opt_branch_out(const hl_opt_problem *P, const hl_opt_state *s,
+			 int side, size_t k, size_t x, double q, double w,
+			 double *share);
 
 /* Size unit u of net by its type (hl_network_unit_type, so the case's
  * per-type and per-utility cost laws apply); with fallback, a type that

@@ -89,11 +89,11 @@ process_units(const hl_opt_problem *P, const hl_opt_state *s,
 				u.cold = P->cold[b];
 				u.duty = s->q[i];
 				u.hot_in = s->th[a * (S + 1) + k];
-				u.hot_out = hl_opt_hot_out(P, s, k, a, u.duty,
-				    s->wh[i], &u.hot_share);
+				u.hot_out = hl_opt_branch_out(P, s, 0, k, a,
+				    u.duty, s->wh[i], &u.hot_share);
 				u.cold_in = s->tc[b * (S + 1) + k + 1];
-				u.cold_out = hl_opt_cold_out(P, s, k, b, u.duty,
-				    s->wc[i], &u.cold_share);
+				u.cold_out = hl_opt_branch_out(P, s, 1, k, b,
+				    u.duty, s->wc[i], &u.cold_share);
 				u.hot_stage = hnum[a * S + k];
 				u.cold_stage = cnum[b * S + k];
 				st = add(net, &u, 'E', &n, err);
