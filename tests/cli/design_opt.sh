@@ -55,6 +55,10 @@ least "$m" "/results/network/exchanger/@duty"
 [ "$(xpath 'string(/results/least-cost/@smallest-unit-rule)' "$X")" = default ] && pass ||
 	fail "the demo's smallest-unit-rule is not 'default'"
 check_near "$(xpath 'string(/results/least-cost/@smallest-unit)' "$X")" "$m" 0.06 "smallest-unit"
+# Each unit of the start the network dropped says what it would do back.
+n=$(xpath "count(/results/least-cost/dropped)" "$X")
+w=$(xpath "count(/results/least-cost/dropped[@cost-with and @energy-with])" "$X")
+[ "$n" -ge 1 ] && [ "$w" -ge 1 ] && pass || fail "dropped units: $w of $n say what they would do back"
 
 # Rules on stream-utility pairs: C2 takes HP steam though LP steam is
 # cheaper; H2 gives river water at most 20 kW (the case's <require> and

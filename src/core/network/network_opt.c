@@ -434,24 +434,81 @@ add_change(hl_opt_result *r, hl_opt_change_kind kind, double de, double dt,
 	va_end(ap);
 	c->d_energy = de;
 	c->d_tac = dt;
+	c->d_hot = NAN;
 	return HL_OK;
 }
 
+/* kW of hot utility a state buys: the cold streams' ends and the
+ * utilities inside them. */
+static double
+hot_utility(const hl_opt_problem *P, const hl_opt_state *s)
+{
+	double q = 0.0;
+	size_t b, k;
+
+	for (b = 0; b < P->nc; b++) {
+		q += s->cend[b];
+		for (k = 0; k < P->S; k++)
+			q += s->uc[b * P->S + k];
+	}
+	return q;
+}
+
+/* The pair (a, b) back in fin at duty d, in the stage where that costs
+ * least: its heat from both streams' utilities (a path from the hot to the
+ * cold utility) or, where they have too little, the other loads polished
+ * to make room (the unit kept, its duty free to move). The change of TAC
+ * (HUGE_VAL when no stage keeps every limit) and of hot utility. */
+static void
+back_at(const hl_opt_problem *P0, const hl_opt_state *fin, size_t a,
+	size_t b, double d, hl_opt_state *t, double *dtac, double *dhot)
+{
+	/* a smallest duty the start's unit is below does not apply: the
+	 * question is what the unit itself would do */
+	hl_opt_problem Q = *P0, *P = &Q;
+	hl_opt_options x = *P0->o;
+	size_t k;
+
+	x.min_duty = 0.0;
+	x.min_duty_auto = 0;
+	Q.o = &x;
+	*dtac = HUGE_VAL;
+	*dhot = 0.0;
+	for (k = 0; k < P->S; k++) {
+		size_t i = HL_OPT_CELL(P, k, a, b);
+
+		hl_opt_state_copy(P, t, fin);
+		t->q[i] = d;
+		t->wh[i] = t->wc[i] = 1.0;
+		t->keep[i] = 1;
+		hl_opt_eval_all(P, t);
+		if (t->v > 1e-9)   /* other loads make room, the unit stays */
+			hl_opt_polish(P, t, 200 + 40 * t->nact);
+		if (t->v <= 1e-9 && t->tac - fin->tac < *dtac) {
+			*dtac = t->tac - fin->tac;
+			*dhot = hot_utility(P, t) - hot_utility(P, fin);
+		}
+	}
+}
+
 /* Pairs of the start that the result no longer has, each with what adding
- * it back at its start duty (then polished) would do. */
+ * it back at its start duty would do (back_at). */
 static hl_status
 dropped(const hl_opt_problem *P, const hl_opt_state *fin,
 	hl_opt_result *r)
 {
 	const hl_network *st = P->o->start;
 	size_t i, k;
+	hl_opt_state t;
 
 	if (st == NULL)
 		return HL_OK;
+	if (hl_opt_state_init(P, &t) != HL_OK)
+		return HL_EIO;
 	for (i = 0; i < st->nunit; i++) {
 		const hl_network_unit *u = &st->unit[i];
 		size_t a, b, j;
-		double sum = 0.0;
+		double sum = 0.0, dtac, dhot;
 
 		if (u->hot >= P->c->nstream || u->cold >= P->c->nstream)
 			continue;
@@ -469,11 +526,16 @@ dropped(const hl_opt_problem *P, const hl_opt_state *fin,
 			sum += fin->q[HL_OPT_CELL(P, k, a, b)];
 		if (sum > HL_OPT_QEPS)
 			continue;
-		if (add_change(r, HL_OPT_DROPPED, u->duty, NAN, "%s - %s",
+		back_at(P, fin, a, b, u->duty, &t, &dtac, &dhot);
+		if (add_change(r, HL_OPT_DROPPED, u->duty, dtac, "%s - %s",
 		    st->party[u->hot].name, st->party[u->cold].name) !=
-		    HL_OK)
+		    HL_OK) {
+			hl_opt_state_free(&t);
 			return HL_EIO;
+		}
+		r->change[r->nchange - 1].d_hot = dhot;
 	}
+	hl_opt_state_free(&t);
 	return HL_OK;
 }
 

@@ -79,8 +79,12 @@ typedef struct {
 	double d_energy;          /* kW: the unit's duty (dropped, worth) or
 				     the hot utility series adds (split) */
 	double d_tac;             /* currency/year: the total without the
-				     unit, or with the split in series;
-				     HUGE_VAL: not possible; NaN: unknown */
+				     unit, or with the split in series, or
+				     (dropped) with the unit back at its
+				     duty; HUGE_VAL: not possible; NaN:
+				     unknown */
+	double d_hot;             /* kW of hot utility a dropped unit back
+				     changes (negative: saves), NaN else */
 } hl_opt_change;
 
 typedef struct {

@@ -125,8 +125,16 @@ hl_opt_text(FILE *fp, const hl_opt_result *r, const hl_opt_options *o)
 	for (i = 0; i < r->nchange; i++) {
 		const hl_opt_change *c = &r->change[i];
 
-		if (c->kind == HL_OPT_DROPPED)
-			fprintf(fp, "  dropped: %s: the start's unit of %.*f %s\n",
+		if (c->kind == HL_OPT_DROPPED && isfinite(c->d_tac))
+			fprintf(fp, "  dropped: %s: the start's unit of %.*f %s; "
+			    "with it back (about that duty, other loads "
+			    "making room): %+.0f %s/year, %+.*f %s of hot "
+			    "utility\n", c->text, HL_DIG_Q(1),
+			    hl_show_q(c->d_energy), HL_SYM_Q, c->d_tac, cur,
+			    HL_DIG_Q(1), hl_show_q(c->d_hot), HL_SYM_Q);
+		else if (c->kind == HL_OPT_DROPPED)
+			fprintf(fp, "  dropped: %s: the start's unit of %.*f %s; "
+			    "no network with it back keeps every limit\n",
 			    c->text, HL_DIG_Q(1), hl_show_q(c->d_energy),
 			    HL_SYM_Q);
 		else if (c->kind == HL_OPT_SPLIT && isinf(c->d_tac))
@@ -189,6 +197,12 @@ hl_opt_xml(xmlTextWriterPtr w, const hl_opt_result *r,
 				rc |= hl_xml_num(w, "series-cost", c->d_tac);
 				rc |= hl_xml_num(w, "series-energy",
 				    c->d_energy);
+			}
+		} else if (c->kind == HL_OPT_DROPPED) {
+			rc |= hl_xml_num(w, "duty", c->d_energy);
+			if (isfinite(c->d_tac)) {
+				rc |= hl_xml_num(w, "cost-with", c->d_tac);
+				rc |= hl_xml_num(w, "energy-with", c->d_hot);
 			}
 		} else {
 			rc |= hl_xml_num(w, "duty", c->d_energy);
