@@ -281,12 +281,6 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 	return st;
 }
 
-/* The default smallest unit (hl_opt_auto_min_duty) as a repair, not a
- * limit of the walks: a walk that must step over small loads to move heat
- * between units settles in worse basins. The search runs without it; the
- * process units below it then leave, smallest first (their heat to the
- * utilities), and a polish and a short walk under it follow. When that
- * misses a limit the default is dropped and r says so. */
 /* From the relaxed result: the process units below the smallest duty out,
  * smallest first (their heat to the utilities), then a polish and a short
  * walk under the limit; the best goes to *best, its V returned. */
@@ -327,6 +321,11 @@ repaired(double v, const hl_opt_state *best, const hl_opt_state *relaxed)
 	    relaxed->tac + AUTO_MIN_DUTY_COST * fabs(relaxed->tac));
 }
 
+/* The default smallest unit (hl_opt_auto_min_duty) as a repair, not a
+ * limit of the walks: a walk that must step over small loads to move heat
+ * between units settles in worse basins. The search runs without it, then
+ * repair() under it; when that misses a limit or costs too much the
+ * default is dropped and r says so. */
 static hl_status
 search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 		   hl_opt_options *relaxed_out, hl_opt_state *out,
@@ -746,9 +745,7 @@ keeps_limits(const hl_opt_problem *P, const hl_network *net)
 
 	for (i = 0; i < net->nunit; i++) {
 		const hl_network_unit *u = &net->unit[i];
-		int side;
-
-		int process = u->hot < P->c->nstream &&
+		int side, process = u->hot < P->c->nstream &&
 		    u->cold < P->c->nstream;
 
 		if ((u->duty < o->min_duty && (process || !o->min_duty_auto ||
