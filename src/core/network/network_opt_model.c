@@ -106,7 +106,8 @@ siblings(const hl_network_unit *u, const hl_network_unit *v)
 
 /* Stages for net's process units as the longest chain of units before
  * each, the branches of a split in one stage (label-correcting longest
- * paths, Bellman 1958): 1 when it settles, 0 when the order has a cycle. */
+ * paths, Bellman 1958): 1 when it settles, 0 when the order has a cycle
+ * or a process unit has no stage numbers (a network table). */
 static int
 layering_splits(const hl_network *net, size_t ns, size_t *stage,
 		size_t *nstage)
@@ -114,8 +115,13 @@ layering_splits(const hl_network *net, size_t ns, size_t *stage,
 	size_t n = net->nunit, i, j, round;
 	int changed = 1;
 
-	for (i = 0; i < n; i++)
-		stage[i] = net->unit[i].hot < ns && net->unit[i].cold < ns;
+	for (i = 0; i < n; i++) {
+		const hl_network_unit *u = &net->unit[i];
+
+		stage[i] = u->hot < ns && u->cold < ns;
+		if (stage[i] && (u->hot_stage <= 0 || u->cold_stage <= 0))
+			return 0;
+	}
 	for (round = 0; changed && round <= n; round++) {
 		changed = 0;
 		for (i = 0; i < n; i++)
