@@ -209,6 +209,32 @@ budget(const hl_opt_problem *P, const hl_opt_options *o)
 	return e < 1000.0 ? 1000 : (size_t)e;
 }
 
+/* One more walk from the best of all rounds, a fifth of the evaluations:
+ * the rounds end with walks that restarted from their own bests. */
+static hl_status
+last_walk(const hl_opt_problem *P, const hl_opt_options *o,
+	  hl_opt_state *out, size_t total, double deadline, hl_opt_result *r)
+{
+	hl_opt_state s, best;
+	int capped = 0;
+
+	if (hl_opt_state_init(P, &s) != HL_OK)
+		return HL_EIO;
+	if (hl_opt_state_init(P, &best) != HL_OK) {
+		hl_opt_state_free(&s);
+		return HL_EIO;
+	}
+	hl_opt_state_copy(P, &s, out);
+	r->evals += hl_opt_walk(P, &s, &best, mix(o->seed, 4099), total / 5,
+	    deadline, &capped);
+	r->capped |= capped;
+	if (hl_opt_better(&best, out))
+		hl_opt_state_copy(P, out, &best);
+	hl_opt_state_free(&s);
+	hl_opt_state_free(&best);
+	return HL_OK;
+}
+
 /* ROUNDS rounds of WALKS walks: the first from the start (when given), the
  * network of utilities only and random structures; each later one from the
  * best so far. The best polished once more goes to *out. */
@@ -276,6 +302,8 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 			    1e-9 ? NAN : out->tac);
 	}
 	free_jobs(job, WALKS);
+	if (st == HL_OK && !(deadline > 0.0 && hl_opt_now() > deadline))
+		st = last_walk(P, o, out, total, deadline, r);
 	if (st == HL_OK && !(deadline > 0.0 && hl_opt_now() > deadline))
 		r->evals += hl_opt_polish(P, out, total / 10);
 	return st;
