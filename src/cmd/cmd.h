@@ -134,6 +134,10 @@ void hl_cmd_help(const hl_command *cmd, FILE *fp);
 int hl_cmd_main(const hl_command *cmd, int argc, char **argv);
 /* Usage error unless from <= to with at most 10001 points of step. */
 int hl_cmd_check_grid(const char *cmd, double from, double to, double step);
+/* Set the case's EMAT from --emat (NaN: not given): a usage error unless
+ * 0 < emat <= ΔTmin. */
+hl_status hl_cmd_set_emat(const char *cmd, hl_case *c, double emat,
+			  hl_error *err);
 /* Whether the option called name was given on the command line. */
 int hl_cmd_given(const hl_command *cmd, const void *opts, const char *name);
 

@@ -140,6 +140,19 @@ hl_cmd_check_grid(const char *cmd, double from, double to, double step)
 	return 0;
 }
 
+hl_status
+hl_cmd_set_emat(const char *cmd, hl_case *c, double emat, hl_error *err)
+{
+	if (isnan(emat))
+		return HL_OK;
+	if (emat > c->set.dtmin || !(emat > 0.0))
+		return hl_error_set(err, HL_EUSAGE, NULL, 0, "%s: --emat %g K "
+		    "must lie above 0 and not above ΔTmin %g K", cmd, emat,
+		    c->set.dtmin);
+	c->set.emat = emat;
+	return HL_OK;
+}
+
 void
 hl_cmd_print_warnings(const hl_existing *net)
 {

@@ -214,13 +214,8 @@ load(const options *o, run_state *s, hl_error *err)
 		st = hl_output_check(o->svg, err);
 	if (st != HL_OK)
 		return st;
-	if (!isnan(o->emat)) {
-		if (o->emat > s->c->set.dtmin || !(o->emat > 0.0))
-			return hl_error_set(err, HL_EUSAGE, NULL, 0, "design: "
-			    "--emat %g K must lie above 0 and not above ΔTmin "
-			    "%g K", o->emat, s->c->set.dtmin);
-		s->c->set.emat = o->emat;
-	}
+	if (hl_cmd_set_emat("design", s->c, o->emat, err) != HL_OK)
+		return HL_EUSAGE;
 	if (!(s->c->set.dtmin > 0.0))
 		return hl_error_set(err, HL_EINPUT, s->c->source, 0, "a "
 		    "network needs ΔTmin above 0 K (a zero approach needs "

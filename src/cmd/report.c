@@ -310,13 +310,8 @@ load(const report_opts *o, study *s, hl_error *err)
 		hl_case_clear_units(s->c);
 		st = hl_network_table_read(s->c, o->network, err);
 	}
-	if (st == HL_OK && !isnan(o->emat)) {
-		if (o->emat > s->c->set.dtmin || !(o->emat > 0.0))
-			return hl_error_set(err, HL_EUSAGE, NULL, 0, "report: "
-			    "--emat %g K must lie above 0 and not above ΔTmin "
-			    "%g K", o->emat, s->c->set.dtmin);
-		s->c->set.emat = o->emat;
-	}
+	if (st == HL_OK)
+		st = hl_cmd_set_emat("report", s->c, o->emat, err);
 	return st;
 }
 
