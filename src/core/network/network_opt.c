@@ -691,6 +691,22 @@ splits_why(const hl_opt_problem *P, const hl_opt_state *fin,
 	return st;
 }
 
+/* Add "WHAT binds: without it [about] X a year (Y %) less" to r->binding
+ * when tac is below the result's by more than 0.1 %. */
+static void
+add_binding(hl_opt_result *r, size_t *len, const char *what, int about,
+	    double tac, double fin)
+{
+	if (!(tac < fin * (1.0 - 1e-3)))
+		return;
+	*len += (size_t)snprintf(r->binding + *len, *len < sizeof r->binding ?
+	    sizeof r->binding - *len : 0, "%s%s binds: without it %s%.4g a "
+	    "year (%.1f %%) less", *len > 0 ? "; " : "", what, about ?
+	    "about " : "", fin - tac, 100.0 * (fin - tac) / fin);
+	if (*len >= sizeof r->binding)
+		*len = sizeof r->binding - 1;
+}
+
 /* Which limits bind: each limit set, relaxed, with a short walk from the
  * result; what it saves is what the limit costs. */
 static void
@@ -716,17 +732,8 @@ binding(const hl_case *c, const hl_opt_options *o, const hl_opt_problem *P,
 		if (k == 2 && o->min_duty_auto && !isnan(r->relaxed_tac)) {
 			/* the search ran without it: its own result is the
 			 * cost without the limit */
-			if (r->relaxed_tac < fin->tac * (1.0 - 1e-3))
-				len += (size_t)snprintf(r->binding + len,
-				    len < sizeof r->binding ?
-				    sizeof r->binding - len : 0,
-				    "%s%s binds: without it %.4g a year "
-				    "(%.1f %%) less", len > 0 ? "; " : "",
-				    what[k], fin->tac - r->relaxed_tac,
-				    100.0 * (fin->tac - r->relaxed_tac) /
-				    fin->tac);
-			if (len >= sizeof r->binding)
-				len = sizeof r->binding - 1;
+			add_binding(r, &len, what[k], 0, r->relaxed_tac,
+			    fin->tac);
 			continue;
 		}
 		x.no_splits = k == 0 ? 0 : o->no_splits;
@@ -741,21 +748,15 @@ binding(const hl_case *c, const hl_opt_options *o, const hl_opt_problem *P,
 			continue;
 		}
 		if (hl_opt_state_init(&Q, &best) == HL_OK) {
-			memcpy(s.q, fin->q, P->S * P->nh * P->nc * sizeof *s.q);
+			/* the whole state (loads, branch weights, utilities
+			 * inside streams): Q has P's layout */
+			hl_opt_state_copy(&Q, &s, fin);
 			hl_opt_eval_all(&Q, &s);
 			hl_opt_walk(&Q, &s, &best, o->seed + 17 * k,
 			    budget(P, o) / 40, 0.0, &capped);
-			if (best.v <= 1e-9 && best.tac < fin->tac *
-			    (1.0 - 1e-3))
-				len += (size_t)snprintf(r->binding + len,
-				    len < sizeof r->binding ?
-				    sizeof r->binding - len : 0,
-				    "%s%s binds: without it about %.4g a year "
-				    "(%.1f %%) less", len > 0 ? "; " : "",
-				    what[k], fin->tac - best.tac,
-				    100.0 * (fin->tac - best.tac) / fin->tac);
-			if (len >= sizeof r->binding)
-				len = sizeof r->binding - 1;
+			if (best.v <= 1e-9)
+				add_binding(r, &len, what[k], 1, best.tac,
+				    fin->tac);
 			hl_opt_state_free(&best);
 		}
 		hl_opt_state_free(&s);
