@@ -774,11 +774,10 @@ keeps_limits(const hl_opt_problem *P, const hl_network *net)
 
 	for (i = 0; i < net->nunit; i++) {
 		const hl_network_unit *u = &net->unit[i];
-		int side, process = u->hot < P->c->nstream &&
-		    u->cold < P->c->nstream;
+		int side;
 
-		if ((u->duty < o->min_duty && (process || !o->min_duty_auto ||
-		    P->auto_util)) ||
+		if ((u->duty < o->min_duty &&
+		    hl_opt_min_duty_applies(P, u->hot, u->cold)) ||
 		    u->area < o->min_area ||
 		    (o->max_shells > 0 && u->shells > o->max_shells))
 			return 0;

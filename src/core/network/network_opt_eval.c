@@ -153,6 +153,13 @@ hl_opt_size(const hl_network *net, hl_network_unit *u, int fallback,
 	return st;
 }
 
+int
+hl_opt_min_duty_applies(const hl_opt_problem *P, size_t hot, size_t cold)
+{
+	return P->o->min_duty > 0.0 && (!P->o->min_duty_auto ||
+	    P->auto_util || (hot < P->c->nstream && cold < P->c->nstream));
+}
+
 /* Size u by its type (hl_opt_size; counterflow beyond the shells a type
  * sensibly has, as the placement does, unless a shell limit is set).
  * Returns the limits missed. A fired heater is sized by duty and has no
@@ -175,9 +182,8 @@ size_unit(const hl_opt_problem *P, hl_network_unit *u)
 	u->note = NULL;
 	if (u->approach < req - APPROACH_TOL)
 		v += (req - u->approach) / VIOL_K + 1e-3;
-	if (o->min_duty > 0.0 && u->duty < o->min_duty && (!o->min_duty_auto ||
-	    P->auto_util || (u->hot < P->c->nstream &&
-	    u->cold < P->c->nstream)))
+	if (u->duty < o->min_duty && hl_opt_min_duty_applies(P, u->hot,
+	    u->cold))
 		v += 1.0 - u->duty / o->min_duty + 1e-3;
 	if (o->min_area > 0.0 && u->type != HL_EXCH_FIRED_HEATER &&
 	    u->area < o->min_area)
@@ -511,31 +517,19 @@ cold_end(const hl_opt_problem *P, hl_opt_state *s, size_t b)
 }
 
 /* What process stream x (hot: side 0) takes from each utility, kW, into
- * load[0..nu): its end (one unit or several levels in series) and the
- * utilities inside it. */
+ * load[0..nu): its end and the utilities inside it. With stream-utility
+ * rules an end has one unit (hl_opt_end), so its utility says it all. */
 static void
 util_loads(const hl_opt_problem *P, const hl_opt_state *s, int side,
 	   size_t x, double *load)
 {
 	long w = side == 0 ? s->hutil[x] : s->cutil[x];
-	double end = side == 0 ? s->hend[x] : s->cend[x];
 	const double *mid = side == 0 ? &s->uh[x * P->S] : &s->uc[x * P->S];
 	const long *mu = side == 0 ? &s->muh[x * P->S] : &s->muc[x * P->S];
-	size_t k, p = side == 0 ? P->hot[x] : P->cold[x], ns = P->c->nstream;
+	size_t k;
 
 	if (w >= 0)
-		load[w] += end;
-	else if (w == -2) {
-		hl_network_unit u[64];
-		size_t n = 0;
-		long which;
-		double v;
-
-		hl_opt_end(P, p, side == 0 ? s->th[x * (P->S + 1) + P->S] :
-		    s->tc[x * (P->S + 1)], end, u, &n, &which, &v);
-		for (k = 0; k < n; k++)
-			load[(side == 0 ? u[k].cold : u[k].hot) - ns] += u[k].duty;
-	}
+		load[w] += side == 0 ? s->hend[x] : s->cend[x];
 	for (k = 0; k < P->S; k++)
 		if (mu[k] >= 0)
 			load[mu[k]] += mid[k];
@@ -591,16 +585,16 @@ global_viol(const hl_opt_problem *P, const hl_opt_state *s)
 		for (a = 0; a < P->nh; a++)
 			for (b = 0; b < P->nc; b++) {
 				size_t pr = a * P->nc + b;
-				double sum = 0.0;
+				double sum = 0.0, least;
 
 				if (!P->require[pr] && isinf(P->maxduty[pr]))
 					continue;
 				for (k = 0; k < P->S; k++)
 					sum += s->q[HL_OPT_CELL(P, k, a, b)];
-				if (P->require[pr] && sum < fmin(required_least(P,
-				    P->hot[a]), required_least(P, P->cold[b])))
-					v += 1.0 - sum / fmin(required_least(P,
-					    P->hot[a]), required_least(P, P->cold[b]));
+				least = fmin(required_least(P, P->hot[a]),
+				    required_least(P, P->cold[b]));
+				if (P->require[pr] && sum < least)
+					v += 1.0 - sum / least;
 				if (sum > P->maxduty[pr] * (1 + 1e-12))
 					v += (sum - P->maxduty[pr]) /
 					    P->qscale + 1e-3;

@@ -145,6 +145,12 @@ double hl_opt_branch_out(const hl_opt_problem *P, const hl_opt_state *s,
 hl_status hl_opt_size(const hl_network *net, hl_network_unit *u,
 		      int fallback, hl_error *err);
 
+/* Whether the smallest duty binds a unit of parties (hot, cold): set by
+ * the engineer, every unit; the default, every unit under auto_util,
+ * else units between process streams only. */
+int hl_opt_min_duty_applies(const hl_opt_problem *P, size_t hot,
+			    size_t cold);
+
 /* The state as a network (sized by hl_network_size_unit). */
 hl_status hl_opt_to_network(const hl_opt_problem *P, const hl_opt_state *s,
 			    hl_network **out, hl_error *err);
