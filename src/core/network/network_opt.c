@@ -196,15 +196,17 @@ free_jobs(walk_job *job, size_t n)
 	}
 }
 
-/* Evaluations the whole search may spend: grows with the streams and the
- * superstructure's cells, whose evaluation dominates. (A floor of 3
- * million for small problems moved none of the four published ones out of
- * its basin and made the test suite under valgrind several times slower.) */
+/* Evaluations the whole search may spend: grows with the streams, and
+ * every problem gets at least what a 40-stream one does (FLOOR_STREAMS):
+ * a small problem's evaluations are cheap and its walks need the length
+ * (aromatics9 at 4 times its share came within 1 % on four seeds of four,
+ * doc/performance.md). */
+#define FLOOR_STREAMS 40.0
 static size_t
 budget(const hl_opt_problem *P, const hl_opt_options *o)
 {
-	double n = (double)(P->nh + P->nc);
-	double e = 60000.0 * n * (1.0 + 2.0 / n) * o->effort;
+	double n = fmax((double)(P->nh + P->nc), FLOOR_STREAMS);
+	double e = 60000.0 * (n + 2.0) * o->effort;
 
 	return e < 1000.0 ? 1000 : (size_t)e;
 }
@@ -237,7 +239,8 @@ last_walk(const hl_opt_problem *P, const hl_opt_options *o,
 
 /* ROUNDS rounds of WALKS walks: the first from the start (when given), the
  * network of utilities only and random structures; each later one from the
- * best so far. The best polished once more goes to *out. */
+ * best so far. The best, polished once more and taken down the structure
+ * descent, goes to *out. */
 static hl_status
 search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
        hl_opt_result *r)
@@ -306,6 +309,9 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 		st = last_walk(P, o, out, total, deadline, r);
 	if (st == HL_OK && !(deadline > 0.0 && hl_opt_now() > deadline))
 		r->evals += hl_opt_polish(P, out, total / 10);
+	if (st == HL_OK)
+		r->evals += hl_opt_descend(P, out, total / 4, deadline,
+		    &r->capped);
 	return st;
 }
 

@@ -109,6 +109,13 @@ size_t hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max,
 /* Coordinate search on the loads of s's units; returns evaluations. */
 size_t hl_opt_polish(const hl_opt_problem *P, hl_opt_state *s,
 		     size_t evals);
+/* Descent over the structure (network_opt_descend.c): add, take out or
+ * move one unit, each neighbour judged after a polish of its loads; first
+ * improvement, until no neighbour improves. Skipped when one pass would
+ * need more than max evaluations; stops at the deadline (monotonic s, 0
+ * none), *capped then set. Returns the evaluations spent. */
+size_t hl_opt_descend(const hl_opt_problem *P, hl_opt_state *s, size_t max,
+		      double deadline, int *capped);
 
 double hl_opt_now(void);
 
