@@ -296,6 +296,57 @@ test_start_exact(void **state)
 	assert_int_equal(exact, 8);
 }
 
+/* The structure descent from the fewest-units start: it keeps every
+ * limit, never costs more, its network passes the check, and a second
+ * descent from its result finds no neighbour better (a local optimum of
+ * the add/take-out/move neighbourhood; Mladenović & Hansen 1997). */
+static void
+test_descend(void **state)
+{
+	hl_rng r;
+	int trial, better = 0;
+
+	(void)state;
+	hl_rng_seed(&r, 43);
+	for (trial = 0; trial < 6; trial++) {
+		hl_case *c = priced_case(&r, 3 + trial % 3, 3 + trial % 2);
+		hl_match_result *mr = NULL;
+		hl_network_feed feed;
+		hl_network *start = fewest_units(c, &mr, &feed), *net = NULL;
+		hl_opt_options o;
+		hl_opt_problem P;
+		hl_opt_state s;
+		double t0, t1;
+		int capped = 0;
+
+		hl_opt_options_default(&o);
+		o.start = start;
+		assert_int_equal(hl_opt_problem_init(&P, c, &o, NULL), HL_OK);
+		assert_int_equal(hl_opt_state_init(&P, &s), HL_OK);
+		assert_int_equal(hl_opt_from_network(&P, start, NULL, &s), HL_OK);
+		t0 = s.tac;
+		assert_true(hl_opt_descend(&P, &s, 50000000, 0.0, &capped) > 0);
+		assert_true(s.v <= 1e-9);
+		assert_true(s.tac <= t0);
+		better += s.tac < t0 * (1.0 - 1e-6);
+		t1 = s.tac;
+		hl_opt_descend(&P, &s, 50000000, 0.0, &capped);
+		assert_true(s.tac == t1);
+		assert_int_equal(capped, 0);
+		assert_int_equal(hl_opt_to_network(&P, &s, &net, NULL), HL_OK);
+		sound(net);
+		hl_network_free(net);
+		hl_opt_state_free(&s);
+		hl_opt_problem_free(&P);
+		hl_network_free(start);
+		hl_network_feed_free(&feed);
+		hl_match_result_free(mr);
+		hl_case_free(c);
+	}
+	print_message("descent: %d of 6 starts made cheaper\n", better);
+	assert_true(better >= 3);
+}
+
 /* Same seed: the same network on one thread and on two. */
 static void
 test_repeat(void **state)
@@ -333,6 +384,7 @@ main(void)
 		cmocka_unit_test(test_limits),
 		cmocka_unit_test(test_start),
 		cmocka_unit_test(test_start_exact),
+		cmocka_unit_test(test_descend),
 		cmocka_unit_test(test_repeat),
 	};
 
