@@ -101,6 +101,11 @@ summary(hl_report *r)
 			      "finding%s: treat the network with care.",
 			      r->d->net_findings,
 			      r->d->net_findings == 1 ? "" : "s");
+	hl_html_text(r->h, " It is the network of the fewest units, a "
+		     "starting point: with priced utilities, heatloom "
+		     "design searches from it for the network of least "
+		     "total annual cost (capital and energy), which may "
+		     "have other matches, more units and more energy.");
 	hl_html_end(r->h);
 }
 
