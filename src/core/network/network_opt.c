@@ -317,16 +317,16 @@ search(const hl_opt_problem *P, const hl_opt_options *o, hl_opt_state *out,
 	return st;
 }
 
-/* From the relaxed result: the process units below the smallest duty out,
- * smallest first (their heat to the utilities), then a polish and a short
- * walk under the limit; the best goes to *best, its V returned. */
-static double
-repair(const hl_opt_problem *P, const hl_opt_options *o,
-       const hl_opt_state *from, hl_opt_state *s, hl_opt_state *best,
-       double deadline, hl_opt_result *r)
+/* A repair's job from the relaxed result: the process units below the
+ * smallest duty out, smallest first (their heat to the utilities), then a
+ * polish; the job's walk, under the limit, follows. */
+static void
+repair_job(const hl_opt_problem *P, const hl_opt_options *o,
+	   const hl_opt_state *from, walk_job *j, double deadline,
+	   hl_opt_result *r)
 {
 	size_t m = P->S * P->nh * P->nc, i, pickd, total = budget(P, o);
-	int capped = 0;
+	hl_opt_state *s = &j->s;
 
 	hl_opt_state_copy(P, s, from);
 	do {
@@ -340,10 +340,10 @@ repair(const hl_opt_problem *P, const hl_opt_options *o,
 	} while (pickd < m);
 	hl_opt_eval_all(P, s);
 	r->evals += hl_opt_polish(P, s, total / 20);
-	r->evals += hl_opt_walk(P, s, best, mix(o->seed, 977), total / 5,
-	    deadline, &capped);
-	r->capped |= capped;
-	return best->v;
+	j->P = P;
+	j->seed = mix(o->seed, 977);
+	j->max = total / 5;
+	j->deadline = deadline;
 }
 
 /* The default smallest unit stays only while it adds at most this part
@@ -360,18 +360,20 @@ repaired(double v, const hl_opt_state *best, const hl_opt_state *relaxed)
 /* The default smallest unit (hl_opt_auto_min_duty) as a repair, not a
  * limit of the walks: a walk that must step over small loads to move heat
  * between units settles in worse basins. The search runs without it, then
- * repair() under it; when that misses a limit or costs too much the
- * default is dropped and r says so. */
+ * a repair under it (repair_job and its walk); when that misses a limit or
+ * costs too much the default is dropped and r says so. */
 static hl_status
 search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 		   hl_opt_options *relaxed_out, hl_opt_state *out,
 		   hl_opt_result *r)
 {
 	hl_opt_options relaxed = *o;
-	hl_opt_state s, best;
+	hl_opt_problem tier[2];
+	walk_job job[2];
 	double deadline = o->time_limit > 0.0 ? hl_opt_now() + o->time_limit :
 	    0.0;
 	hl_status st;
+	int t, pick = -1;
 
 	relaxed.min_duty = 0.0;
 	relaxed.min_duty_auto = 0;
@@ -382,33 +384,40 @@ search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 		return st;
 	if (out->v <= 1e-9)
 		r->relaxed_tac = out->tac;
-	if (hl_opt_state_init(P, &s) != HL_OK)
-		return HL_EIO;
-	if (hl_opt_state_init(P, &best) != HL_OK) {
-		hl_opt_state_free(&s);
-		return HL_EIO;
-	}
 	/* Every unit first, then process units only (a utility trim below
 	 * it may be the only way to a target), else none: a preference
-	 * kept only where it costs little (AUTO_MIN_DUTY_COST). */
-	P->auto_util = 1;
-	if (!repaired(repair(P, o, out, &s, &best, deadline, r), &best,
-	    out)) {
-		P->auto_util = 0;
-		if (!repaired(repair(P, o, out, &s, &best, deadline, r), &best,
-		    out))
-			r->min_duty_dropped = 1;
+	 * kept only where it costs little (AUTO_MIN_DUTY_COST). Both tiers
+	 * are repaired, side by side on two threads, and always both, so
+	 * that the evaluations do not depend on the thread count. */
+	memset(job, 0, sizeof job);
+	for (t = 0; t < 2; t++) {
+		tier[t] = *P;
+		tier[t].auto_util = t == 0;
+		if (hl_opt_state_init(P, &job[t].s) != HL_OK ||
+		    hl_opt_state_init(P, &job[t].best) != HL_OK) {
+			free_jobs(job, 2);
+			return HL_EIO;
+		}
+		repair_job(&tier[t], o, out, &job[t], deadline, r);
 	}
+	run_jobs(job, 2, o->threads);
+	for (t = 0; t < 2; t++) {
+		r->evals += job[t].spent;
+		r->capped |= job[t].capped;
+		if (pick < 0 && repaired(job[t].best.v, &job[t].best, out))
+			pick = t;
+	}
+	r->min_duty_dropped = pick < 0;
+	P->auto_util = pick == 0;
 	r->min_duty_utilities = P->auto_util;
-	if (!r->min_duty_dropped) {
-		hl_opt_state_copy(P, out, &best);
+	if (pick >= 0) {
+		hl_opt_state_copy(P, out, &job[pick].best);
 	} else {
 		*relaxed_out = relaxed;
 		P->o = relaxed_out;
 		hl_opt_eval_all(P, out);
 	}
-	hl_opt_state_free(&s);
-	hl_opt_state_free(&best);
+	free_jobs(job, 2);
 	return HL_OK;
 }
 
