@@ -19,96 +19,65 @@ tol_of(double x)
 	return 1e-9 * fmax(1.0, fabs(x));
 }
 
-/* Hot stream a: temperatures at the stage boundaries and after each
- * stage's process units, the heat before each stage, the branch weights'
- * sums, the cooler's duty, and the limits the stream's loads miss
- * (overshoot, splits). */
+/* Stream x of a side (hot: 0, cold: 1) in its flow direction: the hot
+ * stream enters at stage 0, the cold one at stage S - 1. Temperatures at
+ * the stage boundaries and after each stage's process units, the heat
+ * before each stage, the branch weights' sums, the end utility's duty, and
+ * the limits the stream's loads miss (overshoot, splits). */
 static void
-hot_stream(const hl_opt_problem *P, hl_opt_state *s, size_t a)
+stream_pass(const hl_opt_problem *P, hl_opt_state *s, int side, size_t x)
 {
-	const hl_stream *st = &P->c->stream[P->hot[a]];
+	size_t p = side == 0 ? P->hot[x] : P->cold[x];
+	const hl_stream *st = &P->c->stream[p];
 	double duty = hl_stream_duty(st), q = 0.0, v = 0.0;
-	double *t = &s->th[a * (P->S + 1)], *tm = &s->thm[a * P->S];
-	const double *mid = &s->uh[a * P->S];
+	double *t = side == 0 ? &s->th[x * (P->S + 1)] : &s->tc[x * (P->S + 1)];
+	double *tm = side == 0 ? &s->thm[x * P->S] : &s->tcm[x * P->S];
+	double *hq = side == 0 ? &s->hq[x * P->S] : &s->cq[x * P->S];
+	double *swo = side == 0 ? &s->swh[x * P->S] : &s->swc[x * P->S];
+	double *end = side == 0 ? &s->hend[x] : &s->cend[x];
+	const double *mid = side == 0 ? &s->uh[x * P->S] : &s->uc[x * P->S];
+	const double *w = side == 0 ? s->wh : s->wc;
+	/* the stream's cells in a stage: from base, partners step apart */
+	size_t base = side == 0 ? x * P->nc : x, step = side == 0 ? 1 : P->nc;
+	size_t np = side == 0 ? P->nc : P->nh, j, r, k;
 	int mb = P->o->max_branches;
-	size_t k, b;
 
-	t[0] = hl_stream_supply(st);
-	for (k = 0; k < P->S; k++) {
-		size_t i0 = HL_OPT_CELL(P, k, a, 0);
+	t[side == 0 ? 0 : P->S] = hl_stream_supply(st);
+	for (r = 0; r < P->S; r++) {
+		size_t i0;
 		double sum = 0.0, sw = 0.0;
 		int n = 0;
 
-		for (b = 0; b < P->nc; b++)
-			if (s->q[i0 + b] > HL_OPT_QEPS) {
-				sum += s->q[i0 + b];
-				sw += s->q[i0 + b] * s->wh[i0 + b];
-				n++;
-			}
-		s->hq[a * P->S + k] = q;
-		s->swh[a * P->S + k] = sw;
-		q += sum;
-		tm[k] = q >= duty ? hl_stream_target(st) :
-		    hl_stream_temp_at(st, q);
-		q += mid[k];
-		t[k + 1] = mid[k] > 0.0 ? (q >= duty ? hl_stream_target(st) :
-		    hl_stream_temp_at(st, q)) : tm[k];
-		if (n > 1 && P->nosplit[P->hot[a]])
-			v += n - 1;
-		if (mb > 0 && n > mb)
-			v += n - mb;
-	}
-	s->hend[a] = duty - q;
-	if (s->hend[a] < -tol_of(duty))
-		v += -s->hend[a] / P->qscale + 1.0;
-	if (s->hend[a] < tol_of(duty))
-		s->hend[a] = 0.0;
-	s->hviol[a] = v;
-}
-
-static void
-cold_stream(const hl_opt_problem *P, hl_opt_state *s, size_t b)
-{
-	const hl_stream *st = &P->c->stream[P->cold[b]];
-	double duty = hl_stream_duty(st), q = 0.0, v = 0.0;
-	double *t = &s->tc[b * (P->S + 1)], *tm = &s->tcm[b * P->S];
-	const double *mid = &s->uc[b * P->S];
-	int mb = P->o->max_branches;
-	size_t k, a;
-
-	t[P->S] = hl_stream_supply(st);
-	for (k = P->S; k-- > 0;) {
-		double sum = 0.0, sw = 0.0;
-		int n = 0;
-
-		for (a = 0; a < P->nh; a++) {
-			size_t i = HL_OPT_CELL(P, k, a, b);
+		k = side == 0 ? r : P->S - 1 - r;
+		i0 = k * P->nh * P->nc + base;
+		for (j = 0; j < np; j++) {
+			size_t i = i0 + j * step;
 
 			if (s->q[i] > HL_OPT_QEPS) {
 				sum += s->q[i];
-				sw += s->q[i] * s->wc[i];
+				sw += s->q[i] * w[i];
 				n++;
 			}
 		}
-		s->cq[b * P->S + k] = q;
-		s->swc[b * P->S + k] = sw;
+		hq[k] = q;
+		swo[k] = sw;
 		q += sum;
 		tm[k] = q >= duty ? hl_stream_target(st) :
 		    hl_stream_temp_at(st, q);
 		q += mid[k];
-		t[k] = mid[k] > 0.0 ? (q >= duty ? hl_stream_target(st) :
-		    hl_stream_temp_at(st, q)) : tm[k];
-		if (n > 1 && P->nosplit[P->cold[b]])
+		t[side == 0 ? k + 1 : k] = mid[k] > 0.0 ? (q >= duty ?
+		    hl_stream_target(st) : hl_stream_temp_at(st, q)) : tm[k];
+		if (n > 1 && P->nosplit[p])
 			v += n - 1;
 		if (mb > 0 && n > mb)
 			v += n - mb;
 	}
-	s->cend[b] = duty - q;
-	if (s->cend[b] < -tol_of(duty))
-		v += -s->cend[b] / P->qscale + 1.0;
-	if (s->cend[b] < tol_of(duty))
-		s->cend[b] = 0.0;
-	s->cvs[b] = v;
+	*end = duty - q;
+	if (*end < -tol_of(duty))
+		v += -*end / P->qscale + 1.0;
+	if (*end < tol_of(duty))
+		*end = 0.0;
+	*(side == 0 ? &s->hviol[x] : &s->cvs[x]) = v;
 }
 
 /* Mixing of branches by enthalpy (non-isothermal mixing, Björk &
@@ -488,32 +457,24 @@ mid_units(const hl_opt_problem *P, hl_opt_state *s, int side, size_t x)
 	}
 }
 
+/* The end utility of stream x of a side (hot: 0), at least cost, and the
+ * utilities inside it. */
 static void
-hot_end(const hl_opt_problem *P, hl_opt_state *s, size_t a)
+end_pass(const hl_opt_problem *P, hl_opt_state *s, int side, size_t x)
 {
+	double *cost = side == 0 ? &s->hecost[x] : &s->cecost[x];
+	double *viol = side == 0 ? &s->heviol[x] : &s->ceviol[x];
+	double d = side == 0 ? s->hend[x] : s->cend[x];
+	long *util = side == 0 ? &s->hutil[x] : &s->cutil[x];
 	size_t n;
 
-	s->hecost[a] = s->heviol[a] = 0.0;
-	s->hutil[a] = -1;
-	if (s->hend[a] > 0.0)
-		s->hecost[a] = hl_opt_end(P, P->hot[a],
-		    s->th[a * (P->S + 1) + P->S], s->hend[a], NULL, &n,
-		    &s->hutil[a], &s->heviol[a]);
-	mid_units(P, s, 0, a);
-}
-
-static void
-cold_end(const hl_opt_problem *P, hl_opt_state *s, size_t b)
-{
-	size_t n;
-
-	s->cecost[b] = s->ceviol[b] = 0.0;
-	s->cutil[b] = -1;
-	if (s->cend[b] > 0.0)
-		s->cecost[b] = hl_opt_end(P, P->cold[b],
-		    s->tc[b * (P->S + 1)], s->cend[b], NULL, &n,
-		    &s->cutil[b], &s->ceviol[b]);
-	mid_units(P, s, 1, b);
+	*cost = *viol = 0.0;
+	*util = -1;
+	if (d > 0.0)
+		*cost = hl_opt_end(P, side == 0 ? P->hot[x] : P->cold[x],
+		    side == 0 ? s->th[x * (P->S + 1) + P->S] :
+		    s->tc[x * (P->S + 1)], d, NULL, &n, util, viol);
+	mid_units(P, s, side, x);
 }
 
 /* What process stream x (hot: side 0) takes from each utility, kW, into
@@ -654,9 +615,9 @@ hl_opt_eval_set(const hl_opt_problem *P, hl_opt_state *s, const size_t *A,
 	size_t k, x, i;
 
 	for (i = 0; i < na; i++)
-		hot_stream(P, s, A[i]);
+		stream_pass(P, s, 0, A[i]);
 	for (i = 0; i < nb; i++)
-		cold_stream(P, s, B[i]);
+		stream_pass(P, s, 1, B[i]);
 	for (k = 0; k < P->S; k++) {
 		for (i = 0; i < na; i++)
 			for (x = 0; x < P->nc; x++)
@@ -668,9 +629,9 @@ hl_opt_eval_set(const hl_opt_problem *P, hl_opt_state *s, const size_t *A,
 					cell(P, s, k, x, B[i]);
 	}
 	for (i = 0; i < na; i++)
-		hot_end(P, s, A[i]);
+		end_pass(P, s, 0, A[i]);
 	for (i = 0; i < nb; i++)
-		cold_end(P, s, B[i]);
+		end_pass(P, s, 1, B[i]);
 	hl_opt_sum(P, s);
 }
 
@@ -680,9 +641,9 @@ hl_opt_eval_all(const hl_opt_problem *P, hl_opt_state *s)
 	size_t a, b, k;
 
 	for (a = 0; a < P->nh; a++)
-		hot_stream(P, s, a);
+		stream_pass(P, s, 0, a);
 	for (b = 0; b < P->nc; b++)
-		cold_stream(P, s, b);
+		stream_pass(P, s, 1, b);
 	for (k = 0; k < P->S; k++)
 		for (a = 0; a < P->nh; a++)
 			for (b = 0; b < P->nc; b++)
@@ -695,9 +656,9 @@ hl_opt_eval_all(const hl_opt_problem *P, hl_opt_state *s)
 		s->nact += s->act[k];
 	}
 	for (a = 0; a < P->nh; a++)
-		hot_end(P, s, a);
+		end_pass(P, s, 0, a);
 	for (b = 0; b < P->nc; b++)
-		cold_end(P, s, b);
+		end_pass(P, s, 1, b);
 	hl_opt_sum(P, s);
 }
 
