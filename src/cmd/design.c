@@ -110,9 +110,10 @@ static const hl_option option_rows[] = {
 	HL_ROW_NUMBER("max-branches", "N", options, branches, 2.0, 1000.0,
 	    "at most N branches per split"),
 	HL_ROW_NUMBER("min-duty", "KW", options, min_duty, 0.0, 1e9,
-	    "no unit (utility units too) below KW kW (default:\n"
-	    "1 % of the largest stream duty where that costs at\n"
-	    "most 3 %; 0 for none)"),
+	    "no unit (utility units too) below KW kW, or below\n"
+	    "its stream's whole duty if less (default: 1 % of the\n"
+	    "largest stream duty where that costs at most 3 %,\n"
+	    "else a tenth of it; 0 for none)"),
 	HL_ROW_NUMBER("min-area", "M2", options, min_area, 0.0, 1e7,
 	    "no unit below M2 m² (a fired heater has no area)"),
 	HL_ROW_NUMBER("max-shells", "N", options, shells, 1.0,

@@ -44,17 +44,26 @@ awk -v t="$(net total-cost)" -v s="$(xpath 'string(/results/least-cost/@start-co
 
 # By default no unit of the demo below 1 % of its largest stream duty (the
 # text names the value): the start's 6 to 12 kW units and its three-way
-# reboiler split go. Same seed and effort: the XML is the same network.
-check_exit 0 hl design "$CASES/demo.xml" $Q
-check_grep "kW: 1 % of the largest stream duty, the default" "$WORK/stdout"
-m=$(sed -n 's/.*smallest .*unit \([0-9.]*\) kW: 1 %.*/\1/p' "$WORK/stdout")
-awk -v m="$m" 'BEGIN { exit !(m > 10) }' && pass || fail "default smallest unit '$m'"
-check_exit 0 hl design "$CASES/demo.xml" $Q --format xml -o "$X"
+# reboiler split go. At a tenth of the effort the walk after the repair is
+# too short to bring the default within 3 % of the search's own result (a
+# tenth of it is kept then), so this runs at 0.3. When the time cap cut the
+# search short (valgrind), only the limit in force is checked.
+D="--effort 0.3 --quiet"
+check_exit 0 hl design "$CASES/demo.xml" $D --format xml -o "$X"
 check_exit 0 hl check "$X"
+m=$(xpath 'string(/results/least-cost/@smallest-unit)' "$X")
 least "$m" "/results/network/exchanger/@duty"
-[ "$(xpath 'string(/results/least-cost/@smallest-unit-rule)' "$X")" = default ] && pass ||
-	fail "the demo's smallest-unit-rule is not 'default'"
-check_near "$(xpath 'string(/results/least-cost/@smallest-unit)' "$X")" "$m" 0.06 "smallest-unit"
+if [ "$(xpath 'string(/results/least-cost/@time-capped)' "$X")" = yes ]; then
+	echo "demo: the time cap stopped the search; the default's tier not compared"
+else
+	[ "$(xpath 'string(/results/least-cost/@smallest-unit-rule)' "$X")" = default ] &&
+		pass || fail "the demo's smallest-unit-rule is not 'default'"
+	awk -v m="$m" 'BEGIN { exit !(m > 10) }' && pass || fail "default smallest unit '$m'"
+	check_exit 0 hl design "$CASES/demo.xml" $D
+	check_grep "kW: 1 % of the largest stream duty, the default" "$WORK/stdout"
+	t=$(sed -n 's/.*smallest unit \([0-9.]*\) kW: 1 %.*/\1/p' "$WORK/stdout")
+	check_near "$t" "$m" 0.06 "the text's smallest unit"
+fi
 # Each unit of the start the network dropped says what it would do back.
 n=$(xpath "count(/results/least-cost/dropped)" "$X")
 w=$(xpath "count(/results/least-cost/dropped[@cost-with and @energy-with])" "$X")

@@ -332,13 +332,16 @@ repair_job(const hl_opt_problem *P, const hl_opt_options *o,
 	do {
 		pickd = m;
 		for (i = 0; i < m; i++)
-			if (s->q[i] > HL_OPT_QEPS && s->q[i] < o->min_duty &&
-			    !s->keep[i] && (pickd == m || s->q[i] < s->q[pickd]))
+			if (s->q[i] > HL_OPT_QEPS && s->q[i] <
+			    hl_opt_min_duty_for(P, P->hot[(i / P->nc) % P->nh],
+			    P->cold[i % P->nc]) && !s->keep[i] &&
+			    (pickd == m || s->q[i] < s->q[pickd]))
 				pickd = i;
 		if (pickd < m)
 			s->q[pickd] = 0.0;
 	} while (pickd < m);
 	hl_opt_eval_all(P, s);
+	r->evals += hl_opt_trims(P, s);
 	r->evals += hl_opt_polish(P, s, total / 20);
 	j->P = P;
 	j->seed = mix(o->seed, 977);
@@ -367,7 +370,7 @@ search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 		   hl_opt_options *relaxed_out, hl_opt_state *out,
 		   hl_opt_result *r)
 {
-	hl_opt_options relaxed = *o;
+	hl_opt_options relaxed = *o, opts[2];
 	hl_opt_problem tier[2];
 	walk_job job[2];
 	double deadline = o->time_limit > 0.0 ? hl_opt_now() + o->time_limit :
@@ -384,21 +387,23 @@ search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 		return st;
 	if (out->v <= 1e-9)
 		r->relaxed_tac = out->tac;
-	/* Every unit first, then process units only (a utility trim below
-	 * it may be the only way to a target), else none: a preference
-	 * kept only where it costs little (AUTO_MIN_DUTY_COST). Both tiers
-	 * are repaired, side by side on two threads, and always both, so
-	 * that the evaluations do not depend on the thread count. */
+	/* The default for every unit, else a tenth of it (no trims of a
+	 * fraction of a kW; common practice, no source), else none: a
+	 * preference kept only where it costs little (AUTO_MIN_DUTY_COST).
+	 * Both are repaired, side by side on two threads, and always both,
+	 * so that the evaluations do not depend on the thread count. */
 	memset(job, 0, sizeof job);
 	for (t = 0; t < 2; t++) {
+		opts[t] = *o;
+		opts[t].min_duty = t == 0 ? o->min_duty : o->min_duty / 10.0;
 		tier[t] = *P;
-		tier[t].auto_util = t == 0;
+		tier[t].o = &opts[t];
 		if (hl_opt_state_init(P, &job[t].s) != HL_OK ||
 		    hl_opt_state_init(P, &job[t].best) != HL_OK) {
 			free_jobs(job, 2);
 			return HL_EIO;
 		}
-		repair_job(&tier[t], o, out, &job[t], deadline, r);
+		repair_job(&tier[t], &opts[t], out, &job[t], deadline, r);
 	}
 	run_jobs(job, 2, o->threads);
 	for (t = 0; t < 2; t++) {
@@ -408,15 +413,14 @@ search_then_repair(hl_opt_problem *P, const hl_opt_options *o,
 			pick = t;
 	}
 	r->min_duty_dropped = pick < 0;
-	P->auto_util = pick == 0;
-	r->min_duty_utilities = P->auto_util;
-	if (pick >= 0) {
+	r->min_duty_tenth = pick == 1;
+	r->smallest = pick < 0 ? 0.0 : opts[pick].min_duty;
+	*relaxed_out = pick < 0 ? relaxed : opts[pick];
+	P->o = relaxed_out;
+	if (pick >= 0)
 		hl_opt_state_copy(P, out, &job[pick].best);
-	} else {
-		*relaxed_out = relaxed;
-		P->o = relaxed_out;
+	else
 		hl_opt_eval_all(P, out);
-	}
 	free_jobs(job, 2);
 	return HL_OK;
 }
@@ -793,8 +797,7 @@ keeps_limits(const hl_opt_problem *P, const hl_network *net)
 		const hl_network_unit *u = &net->unit[i];
 		int side;
 
-		if ((u->duty < o->min_duty &&
-		    hl_opt_min_duty_applies(P, u->hot, u->cold)) ||
+		if (u->duty < hl_opt_min_duty_for(P, u->hot, u->cold) ||
 		    u->area < o->min_area ||
 		    (o->max_shells > 0 && u->shells > o->max_shells))
 			return 0;
@@ -884,7 +887,7 @@ hl_network_optimise(const hl_case *c, const hl_opt_options *o,
 		if (st == HL_EIO)
 			hl_error_nomem(err);
 		if (st == HL_OK)
-			st = finish(c, r->min_duty_dropped ? &relaxed : o, &P,
+			st = finish(c, o->min_duty_auto ? &relaxed : o, &P,
 			    &fin, r, err);
 		hl_opt_state_free(&fin);
 	}

@@ -101,8 +101,10 @@ typedef struct {
 	char binding[400];        /* the limits that bind, "" when none */
 	int min_duty_dropped;     /* 1: no network kept the default smallest
 				     unit (min_duty_auto): it is dropped */
-	int min_duty_utilities;   /* 1: the default covers utility units
-				     too (else process units only) */
+	int min_duty_tenth;       /* 1: neither tier kept the default; a
+				     tenth of it, every unit, did */
+	double smallest;          /* kW: the smallest duty in force under
+				     the default, 0 none */
 	double relaxed_tac;       /* the search's best without the default
 				     smallest unit, NaN when not run */
 } hl_opt_result;

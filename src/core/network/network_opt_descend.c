@@ -72,8 +72,7 @@ try_add(descent *d, size_t i)
 	double q = 0.1 * fmin(hl_stream_duty(&P->c->stream[P->hot[a]]),
 	    hl_stream_duty(&P->c->stream[P->cold[b]]));
 
-	if (hl_opt_min_duty_applies(P, P->hot[a], P->cold[b]))
-		q = fmax(q, P->o->min_duty);
+	q = fmax(q, hl_opt_min_duty_for(P, P->hot[a], P->cold[b]));
 	hl_opt_state_copy(P, &d->t, d->cur);
 	d->t.q[i] = q;
 	d->t.wh[i] = d->t.wc[i] = 1.0;

@@ -122,11 +122,19 @@ hl_opt_size(const hl_network *net, hl_network_unit *u, int fallback,
 	return st;
 }
 
-int
-hl_opt_min_duty_applies(const hl_opt_problem *P, size_t hot, size_t cold)
+double
+hl_opt_min_duty_for(const hl_opt_problem *P, size_t hot, size_t cold)
 {
-	return P->o->min_duty > 0.0 && (!P->o->min_duty_auto ||
-	    P->auto_util || (hot < P->c->nstream && cold < P->c->nstream));
+	size_t ns = P->c->nstream;
+	double d = P->o->min_duty;
+
+	if (!(d > 0.0))
+		return 0.0;
+	if (hot < ns)
+		d = fmin(d, hl_stream_duty(&P->c->stream[hot]));
+	if (cold < ns)
+		d = fmin(d, hl_stream_duty(&P->c->stream[cold]));
+	return d * (1.0 - 1e-9);
 }
 
 /* Size u by its type (hl_opt_size; counterflow beyond the shells a type
@@ -140,6 +148,7 @@ size_unit(const hl_opt_problem *P, hl_network_unit *u)
 	double d1 = u->hot_in - u->cold_out, d2 = u->hot_out - u->cold_in;
 	double req = hl_network_required(&P->base->set,
 	    &P->base->party[u->hot], &P->base->party[u->cold]), v = 0.0;
+	double dmin;
 
 	/* APPROACH_TOL: the placement's temperatures, recomputed here from
 	 * the loads, may fall short of EMAT in the last digits. */
@@ -151,9 +160,8 @@ size_unit(const hl_opt_problem *P, hl_network_unit *u)
 	u->note = NULL;
 	if (u->approach < req - APPROACH_TOL)
 		v += (req - u->approach) / VIOL_K + 1e-3;
-	if (u->duty < o->min_duty && hl_opt_min_duty_applies(P, u->hot,
-	    u->cold))
-		v += 1.0 - u->duty / o->min_duty + 1e-3;
+	if (u->duty < (dmin = hl_opt_min_duty_for(P, u->hot, u->cold)))
+		v += 1.0 - u->duty / dmin + 1e-3;
 	if (o->min_area > 0.0 && u->type != HL_EXCH_FIRED_HEATER &&
 	    u->area < o->min_area)
 		v += 1.0 - u->area / o->min_area + 1e-3;
@@ -502,7 +510,9 @@ util_loads(const hl_opt_problem *P, const hl_opt_state *s, int side,
 static double
 required_least(const hl_opt_problem *P, size_t p)
 {
-	return fmax(P->o->min_duty, 1e-3 * hl_stream_duty(&P->c->stream[p]));
+	double d = hl_stream_duty(&P->c->stream[p]);
+
+	return fmax(fmin(P->o->min_duty, d), 1e-3 * d);
 }
 
 /* The rules on stream-utility pairs: a utility the stream must use, the

@@ -36,8 +36,6 @@ typedef struct {
 				     utility per stream end */
 	double t_top, t_bot;      /* °C: hottest hot supply, coldest cold
 				     supply (stages spread between them) */
-	int auto_util;            /* the default smallest duty covers
-				     utility units too */
 } hl_opt_problem;
 
 #define HL_OPT_CELL(P, k, a, b) (((k) * (P)->nh + (a)) * (P)->nc + (b))
@@ -109,6 +107,11 @@ size_t hl_opt_greedy(const hl_opt_problem *P, hl_opt_state *s, size_t max,
 /* Coordinate search on the loads of s's units; returns evaluations. */
 size_t hl_opt_polish(const hl_opt_problem *P, hl_opt_state *s,
 		     size_t evals);
+/* Utility units below the smallest duty where it binds them
+ * (network_opt_trim.c): an end's trim into or out of the stream's last
+ * process unit, a utility inside a stream back to the end, each when
+ * better. Returns evaluations. */
+size_t hl_opt_trims(const hl_opt_problem *P, hl_opt_state *s);
 /* Descent over the structure (network_opt_descend.c): add, take out or
  * move one unit, each neighbour judged after a polish of its loads; first
  * improvement, until no neighbour improves. Skipped when one pass would
@@ -152,11 +155,11 @@ double hl_opt_branch_out(const hl_opt_problem *P, const hl_opt_state *s,
 hl_status hl_opt_size(const hl_network *net, hl_network_unit *u,
 		      int fallback, hl_error *err);
 
-/* Whether the smallest duty binds a unit of parties (hot, cold): set by
- * the engineer, every unit; the default, every unit under auto_util,
- * else units between process streams only. */
-int hl_opt_min_duty_applies(const hl_opt_problem *P, size_t hot,
-			    size_t cold);
+/* The smallest duty a unit of parties (hot, cold) must carry, 0 none;
+ * never more than the whole duty of a process stream it serves (a stream
+ * smaller than the limit needs a unit of its own size). */
+double hl_opt_min_duty_for(const hl_opt_problem *P, size_t hot,
+			   size_t cold);
 
 /* The state as a network (sized by hl_network_size_unit). */
 hl_status hl_opt_to_network(const hl_opt_problem *P, const hl_opt_state *s,

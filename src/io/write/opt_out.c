@@ -108,13 +108,18 @@ hl_opt_text(FILE *fp, const hl_opt_result *r, const hl_opt_options *o)
 	text_energy(fp, net);
 	if (o->min_duty_auto && r->min_duty_dropped)
 		fprintf(fp, "  smallest unit: none; the default (1 %% of the "
-		    "largest stream duty) would add more than 3 %% to the "
-		    "cost (--min-duty sets one)\n");
+		    "largest stream duty), and a tenth of it, would add more "
+		    "than 3 %% to the cost (--min-duty sets one)\n");
+	else if (o->min_duty_auto && r->min_duty_tenth)
+		fprintf(fp, "  smallest unit %.*f %s: a tenth of the default "
+		    "(1 %% of the largest stream duty would add more than "
+		    "3 %% to the cost; --min-duty sets it)\n", HL_DIG_Q(1),
+		    hl_show_q(r->smallest), HL_SYM_Q);
 	else if (o->min_duty_auto)
-		fprintf(fp, "  smallest %sunit %.*f %s: 1 %% of the largest "
+		fprintf(fp, "  smallest unit %.*f %s: 1 %% of the largest "
 		    "stream duty, the default (--min-duty sets it, 0 for "
-		    "none)\n", r->min_duty_utilities ? "" : "process ",
-		    HL_DIG_Q(1), hl_show_q(o->min_duty), HL_SYM_Q);
+		    "none)\n", HL_DIG_Q(1), hl_show_q(o->min_duty),
+		    HL_SYM_Q);
 	if (r->binding[0] != '\0')
 		fprintf(fp, "  limits: %s\n", r->binding);
 	else if (o->no_splits || o->no_split != NULL || o->max_branches > 0 ||
@@ -178,11 +183,12 @@ hl_opt_xml(xmlTextWriterPtr w, const hl_opt_result *r,
 	rc |= hl_xml_str(w, "kept-start", r->kept_start ? "yes" : "no");
 	rc |= hl_xml_num(w, "above-target", r->net->qh - r->net->qh_target);
 	if (o->min_duty > 0.0 && !r->min_duty_dropped)
-		rc |= hl_xml_num(w, "smallest-unit", o->min_duty);
+		rc |= hl_xml_num(w, "smallest-unit", o->min_duty_auto ?
+		    r->smallest : o->min_duty);
 	if (o->min_duty > 0.0)
 		rc |= hl_xml_str(w, "smallest-unit-rule", !o->min_duty_auto ?
 		    "set" : r->min_duty_dropped ? "default-dropped" :
-		    r->min_duty_utilities ? "default" : "default-process");
+		    r->min_duty_tenth ? "default-tenth" : "default");
 	if (r->binding[0] != '\0')
 		rc |= xmlTextWriterWriteElement(w, BAD_CAST "limits",
 		    BAD_CAST r->binding);
