@@ -163,6 +163,24 @@ test_limits(void **state)
 			assert_true(res->net->unit[i].duty >= o.min_duty *
 			    (1 - 1e-9));
 		hl_opt_result_free(res);
+
+		/* Twice the smallest stream duty: that stream cannot keep it
+		 * and needs a unit of its own size; no unit is smaller than
+		 * the limit or than a process stream it serves (a network
+		 * exists, the search must find one). */
+		o.min_duty *= 4.0;
+		res = run(c, &o);
+		for (i = 0; i < res->net->nunit; i++) {
+			const hl_network_unit *u = &res->net->unit[i];
+			double d = o.min_duty;
+
+			if (u->hot < c->nstream)
+				d = fmin(d, hl_stream_duty(&c->stream[u->hot]));
+			if (u->cold < c->nstream)
+				d = fmin(d, hl_stream_duty(&c->stream[u->cold]));
+			assert_true(u->duty >= d * (1 - 1e-9));
+		}
+		hl_opt_result_free(res);
 		hl_case_free(c);
 	}
 	assert_true(areas >= 3);  /* the area limit was really exercised */
