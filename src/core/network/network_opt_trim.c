@@ -1,9 +1,10 @@
 /* network_opt_trim.c - utility trims below the smallest duty, repaired
  * before the repair's walk: a cooler or heater at a stream's end that
  * carries less than the smallest duty goes into the stream's last process
- * unit (the trim disappears) or takes that much from it (the trim grows to
- * the smallest duty), whichever keeps the limits at less cost; a utility
- * inside a stream below it goes back to the end. The walk finds these
+ * unit (the trim disappears) or, when that is no better, takes what it
+ * lacks from that unit (the trim grows to the smallest duty); a utility
+ * inside a stream below it goes back to the end; each step kept only when
+ * the state is better for it. The walk finds these
  * moves only by chance: a load step of the right size at the right unit. */
 #include <math.h>
 
