@@ -116,7 +116,14 @@ check_grep "screening estimates" "$WORK/t.txt"
 # The same seed, the same document, on one thread or two.
 check_exit 0 hl design "$CASES/demo.xml" $Q --seed 7 --threads 1 --format xml -o "$WORK/a.xml"
 check_exit 0 hl design "$CASES/demo.xml" $Q --seed 7 --threads 2 --format xml -o "$WORK/b.xml"
-cmp -s "$WORK/a.xml" "$WORK/b.xml" && pass || fail "--seed 7: documents differ"
+# A search the time cap cut short (valgrind) may differ from run to run,
+# and says so in the document.
+if [ "$(xpath 'string(/results/least-cost/@time-capped)' "$WORK/a.xml")" = yes ] ||
+	[ "$(xpath 'string(/results/least-cost/@time-capped)' "$WORK/b.xml")" = yes ]; then
+	echo "--seed 7: the time cap stopped a search; documents not compared"
+else
+	cmp -s "$WORK/a.xml" "$WORK/b.xml" && pass || fail "--seed 7: documents differ"
+fi
 
 # A start from a network design wrote, one unit marked to stay; and from a
 # network table (pairs and duties only).
