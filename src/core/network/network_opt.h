@@ -101,8 +101,9 @@ typedef struct {
 	char binding[400];        /* the limits that bind, "" when none */
 	int min_duty_dropped;     /* 1: no network kept the default smallest
 				     unit (min_duty_auto): it is dropped */
-	int min_duty_tenth;       /* 1: neither tier kept the default; a
-				     tenth of it, every unit, did */
+	int min_duty_tenth;       /* 1: the default would have cost too
+				     much; a tenth of it, every unit, did
+				     not */
 	double smallest;          /* kW: the smallest duty in force under
 				     the default, 0 none */
 	double relaxed_tac;       /* the search's best without the default

@@ -6,8 +6,6 @@
  * load it drew, so a unit that pays only once the loads around it have
  * moved is lost to it; here it is not. */
 #include <math.h>
-#include <stdlib.h>
-#include <string.h>
 
 #include "network_opt_int.h"
 
@@ -56,10 +54,8 @@ static int
 can_meet(const hl_opt_problem *P, const hl_opt_state *s, size_t k, size_t a,
 	 size_t b)
 {
-	double e = hl_network_required(&P->base->set,
-	    &P->base->party[P->hot[a]], &P->base->party[P->cold[b]]);
-
-	return s->th[a * (P->S + 1) + k] - s->tc[b * (P->S + 1) + k + 1] > e;
+	return s->th[a * (P->S + 1) + k] - s->tc[b * (P->S + 1) + k + 1] >
+	    hl_opt_emat(P, a, b);
 }
 
 /* Add a unit in cell i: a tenth of the smaller stream's duty, or the

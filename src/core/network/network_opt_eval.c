@@ -123,6 +123,13 @@ hl_opt_size(const hl_network *net, hl_network_unit *u, int fallback,
 }
 
 double
+hl_opt_emat(const hl_opt_problem *P, size_t a, size_t b)
+{
+	return hl_network_required(&P->base->set, &P->base->party[P->hot[a]],
+	    &P->base->party[P->cold[b]]);
+}
+
+double
 hl_opt_min_duty_for(const hl_opt_problem *P, size_t hot, size_t cold)
 {
 	size_t ns = P->c->nstream;

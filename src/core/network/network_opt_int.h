@@ -155,6 +155,10 @@ double hl_opt_branch_out(const hl_opt_problem *P, const hl_opt_state *s,
 hl_status hl_opt_size(const hl_network *net, hl_network_unit *u,
 		      int fallback, hl_error *err);
 
+/* The exchanger minimum approach of hot stream a and cold stream b
+ * (indices among the hot and the cold streams): the case's EMAT or the
+ * match's own. */
+double hl_opt_emat(const hl_opt_problem *P, size_t a, size_t b);
 /* The smallest duty a unit of parties (hot, cold) must carry, 0 none;
  * never more than the whole duty of a process stream it serves (a stream
  * smaller than the limit needs a unit of its own size). */

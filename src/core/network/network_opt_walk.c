@@ -339,8 +339,7 @@ end_load(const hl_opt_problem *P, const hl_opt_state *s, size_t a, size_t b)
 	const hl_stream *hs = &P->c->stream[P->hot[a]];
 	const hl_stream *cs = &P->c->stream[P->cold[b]];
 	double th = s->th[a * (P->S + 1) + P->S], tc = s->tc[b * (P->S + 1)];
-	double e = hl_network_required(&P->base->set,
-	    &P->base->party[P->hot[a]], &P->base->party[P->cold[b]]);
+	double e = hl_opt_emat(P, a, b);
 	double qh, qc;
 
 	if (s->hend[a] <= 0.0 || s->cend[b] <= 0.0 || th - tc <= e)
@@ -386,8 +385,7 @@ top_load(const hl_opt_problem *P, const hl_opt_state *s, size_t a, size_t b)
 	const hl_stream *hs = &P->c->stream[P->hot[a]];
 	const hl_stream *cs = &P->c->stream[P->cold[b]];
 	double th = hl_stream_supply(hs), tc = s->tc[b * (P->S + 1)];
-	double e = hl_network_required(&P->base->set,
-	    &P->base->party[P->hot[a]], &P->base->party[P->cold[b]]);
+	double e = hl_opt_emat(P, a, b);
 	double qh, qc;
 
 	if (s->hend[a] <= 0.0 || s->cend[b] <= 0.0 || th - tc <= e)
