@@ -263,6 +263,43 @@ test_start(void **state)
 	}
 }
 
+/* A generated case, its fewest-units start, and that start laid into the
+ * superstructure as the search's state. */
+typedef struct {
+	hl_case *c;
+	hl_match_result *mr;
+	hl_network_feed feed;
+	hl_network *start;
+	hl_opt_options o;
+	hl_opt_problem P;
+	hl_opt_state s;
+} laid_start;
+
+static void
+lay_start(laid_start *f, hl_rng *r, int nh, int nc)
+{
+	f->c = priced_case(r, nh, nc);
+	f->mr = NULL;
+	f->start = fewest_units(f->c, &f->mr, &f->feed);
+	hl_opt_options_default(&f->o);
+	f->o.start = f->start;
+	assert_int_equal(hl_opt_problem_init(&f->P, f->c, &f->o, NULL), HL_OK);
+	assert_int_equal(hl_opt_state_init(&f->P, &f->s), HL_OK);
+	assert_int_equal(hl_opt_from_network(&f->P, f->start, NULL, &f->s),
+	    HL_OK);
+}
+
+static void
+lay_free(laid_start *f)
+{
+	hl_opt_state_free(&f->s);
+	hl_opt_problem_free(&f->P);
+	hl_network_free(f->start);
+	hl_network_feed_free(&f->feed);
+	hl_match_result_free(f->mr);
+	hl_case_free(f->c);
+}
+
 /* The fewest-units start laid into the superstructure (split shares as
  * branch weights, utilities between process units inside the streams)
  * costs in the model what it costs as a network: the search starts from
@@ -276,38 +313,27 @@ test_start_exact(void **state)
 	(void)state;
 	hl_rng_seed(&r, 41);
 	for (trial = 0; trial < 8; trial++) {
-		hl_case *c = priced_case(&r, 4 + trial % 3, 4 + trial % 2);
-		hl_match_result *mr = NULL;
-		hl_network_feed feed;
-		hl_network *start = fewest_units(c, &mr, &feed);
-		hl_opt_options o;
-		hl_opt_problem P;
-		hl_opt_state s;
+		laid_start f;
+		const hl_opt_problem *P = &f.P;
+		const hl_opt_state *s = &f.s;
+		const hl_network *start;
 		size_t i;
 
-		hl_opt_options_default(&o);
-		o.start = start;
-		assert_int_equal(hl_opt_problem_init(&P, c, &o, NULL), HL_OK);
-		assert_int_equal(hl_opt_state_init(&P, &s), HL_OK);
-		assert_int_equal(hl_opt_from_network(&P, start, NULL, &s), HL_OK);
-		if (s.v <= 1e-9 && fabs(s.tac - start->total_cost) <= 1e-6 *
+		lay_start(&f, &r, 4 + trial % 3, 4 + trial % 2);
+		start = f.start;
+		if (s->v <= 1e-9 && fabs(s->tac - start->total_cost) <= 1e-6 *
 		    start->total_cost)
 			exact++;
 		else
 			print_error("trial %d: model %.6g (limits missed %g), "
-			    "network %.6g\n", trial, s.tac, s.v,
+			    "network %.6g\n", trial, s->tac, s->v,
 			    start->total_cost);
 		splits += start->nsplit > 0;
-		for (i = 0; i < P.nh * P.S; i++)
-			mids += s.uh[i] > 0.0;
-		for (i = 0; i < P.nc * P.S; i++)
-			mids += s.uc[i] > 0.0;
-		hl_opt_state_free(&s);
-		hl_opt_problem_free(&P);
-		hl_network_free(start);
-		hl_network_feed_free(&feed);
-		hl_match_result_free(mr);
-		hl_case_free(c);
+		for (i = 0; i < P->nh * P->S; i++)
+			mids += s->uh[i] > 0.0;
+		for (i = 0; i < P->nc * P->S; i++)
+			mids += s->uc[i] > 0.0;
+		lay_free(&f);
 	}
 	print_message("exact %d of 8, %d with splits, %d utilities inside\n",
 	    exact, splits, mids);
@@ -327,39 +353,26 @@ test_descend(void **state)
 	(void)state;
 	hl_rng_seed(&r, 43);
 	for (trial = 0; trial < 6; trial++) {
-		hl_case *c = priced_case(&r, 3 + trial % 3, 3 + trial % 2);
-		hl_match_result *mr = NULL;
-		hl_network_feed feed;
-		hl_network *start = fewest_units(c, &mr, &feed), *net = NULL;
-		hl_opt_options o;
-		hl_opt_problem P;
-		hl_opt_state s;
+		laid_start f;
+		hl_opt_state *s = &f.s;
+		hl_network *net = NULL;
 		double t0, t1;
 		int capped = 0;
 
-		hl_opt_options_default(&o);
-		o.start = start;
-		assert_int_equal(hl_opt_problem_init(&P, c, &o, NULL), HL_OK);
-		assert_int_equal(hl_opt_state_init(&P, &s), HL_OK);
-		assert_int_equal(hl_opt_from_network(&P, start, NULL, &s), HL_OK);
-		t0 = s.tac;
-		assert_true(hl_opt_descend(&P, &s, 50000000, 0.0, &capped) > 0);
-		assert_true(s.v <= 1e-9);
-		assert_true(s.tac <= t0);
-		better += s.tac < t0 * (1.0 - 1e-6);
-		t1 = s.tac;
-		hl_opt_descend(&P, &s, 50000000, 0.0, &capped);
-		assert_true(s.tac == t1);
+		lay_start(&f, &r, 3 + trial % 3, 3 + trial % 2);
+		t0 = s->tac;
+		assert_true(hl_opt_descend(&f.P, s, 50000000, 0.0, &capped) > 0);
+		assert_true(s->v <= 1e-9);
+		assert_true(s->tac <= t0);
+		better += s->tac < t0 * (1.0 - 1e-6);
+		t1 = s->tac;
+		hl_opt_descend(&f.P, s, 50000000, 0.0, &capped);
+		assert_true(s->tac == t1);
 		assert_int_equal(capped, 0);
-		assert_int_equal(hl_opt_to_network(&P, &s, &net, NULL), HL_OK);
+		assert_int_equal(hl_opt_to_network(&f.P, s, &net, NULL), HL_OK);
 		sound(net);
 		hl_network_free(net);
-		hl_opt_state_free(&s);
-		hl_opt_problem_free(&P);
-		hl_network_free(start);
-		hl_network_feed_free(&feed);
-		hl_match_result_free(mr);
-		hl_case_free(c);
+		lay_free(&f);
 	}
 	print_message("descent: %d of 6 starts made cheaper\n", better);
 	assert_true(better >= 3);
